@@ -1,0 +1,138 @@
+package cells
+
+import (
+	"crypto/rand"
+	"encoding/base64"
+	"encoding/hex"
+	"html"
+	"io"
+	"regexp"
+	"strconv"
+	"strings"
+
+	"github.com/gomarkdown/markdown"
+	"github.com/gomarkdown/markdown/ast"
+	mdhtml "github.com/gomarkdown/markdown/html"
+	mdparser "github.com/gomarkdown/markdown/parser"
+)
+
+// htmlMarks are the placeholders RenderHTML puts in the Markdown it
+// converts, for what Markdown cannot say: region boxes and inline SVG. The
+// random nonce keeps a notebook from forging them.
+type htmlMarks struct {
+	nonce   string
+	figures []Figure
+}
+
+func (m *htmlMarks) token(kind string) string { return "assay" + m.nonce + kind }
+
+// RenderHTML returns the report as a self-contained HTML5 page: the Markdown
+// report (with header) converted by gomarkdown, raw HTML in the notebook
+// dropped, figures' SVG inline, inline CSS, and nothing loaded from outside.
+func RenderHTML(r *Report) []byte {
+	var nonce [12]byte
+	_, _ = rand.Read(nonce[:])
+	marks := &htmlMarks{nonce: hex.EncodeToString(nonce[:])}
+	md := renderMarkdown(r, true, marks)
+
+	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
+		mdparser.Autolink | mdparser.Strikethrough)
+	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
+		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,
+		RenderNodeHook: lineBreakHook,
+	})
+	body := string(markdown.ToHTML(md, p, rd))
+
+	para := func(kind string) string { return "<p>" + marks.token(kind) + "</p>" }
+	repl := []string{
+		para("header"), `<section class="generated summary">`,
+		para("cell"), `<section class="generated">`,
+		para("end"), `</section>`,
+		"<td>✔ holds", `<td class="verdict v-holds">✔ holds`,
+		"<td>≈ holds to ", `<td class="verdict v-digits">≈ holds to `,
+		"<td>✘ fails", `<td class="verdict v-fails">✘ fails`,
+		"<td>? undecided", `<td class="verdict v-undecided">? undecided`,
+	}
+	for i, f := range marks.figures {
+		repl = append(repl, para("figure"+strconv.Itoa(i)), figureHTML(f))
+	}
+	body = strings.NewReplacer(repl...).Replace(body)
+	if strings.Contains(body, "assay"+marks.nonce) {
+		// A placeholder did not come out as its own paragraph (it cannot in
+		// the Markdown we write); drop them all rather than leave stray tags.
+		body = regexp.MustCompile(`<section class="generated[^"]*">|</section>|(<p>)?assay`+marks.nonce+`\w+(</p>)?`).ReplaceAllString(body, "")
+	}
+
+	var b strings.Builder
+	title := "assay report"
+	if r.Notebook != nil && r.Notebook.Title != "" {
+		title = r.Notebook.Title + " — assay report"
+	}
+	b.WriteString("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
+	b.WriteString("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
+	b.WriteString("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n")
+	b.WriteString("<title>" + html.EscapeString(title) + "</title>\n<style>\n" + pageCSS + "</style>\n</head>\n<body>\n<main>\n")
+	b.WriteString(body)
+	b.WriteString("</main>\n</body>\n</html>\n")
+	return []byte(b.String())
+}
+
+// lineBreakHook lets through the one raw HTML tag our Markdown writes, the
+// <br> that stands for a line break inside a table cell.
+func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, bool) {
+	if s, ok := node.(*ast.HTMLSpan); ok && string(s.Literal) == "<br>" {
+		io.WriteString(w, "<br>")
+		return ast.GoToNext, true
+	}
+	return ast.GoToNext, false
+}
+
+var (
+	xmlProlog = regexp.MustCompile(`^(?s)\s*(<\?xml.*?\?>\s*)?(<!DOCTYPE[^>]*>\s*)?`)
+	svgUnsafe = regexp.MustCompile(`(?i)<script|<foreignobject|<iframe|<object|<embed|javascript:|@import|` +
+		`\bon[a-z]+\s*=|(href|src)\s*=\s*["']?\s*(https?:|//)|url\(\s*["']?\s*(https?:|//)`)
+)
+
+// figureHTML shows a figure: its SVG inline when it is plain drawing, else
+// (scripts, event handlers, outside links) as an image, where SVG cannot run
+// anything.
+func figureHTML(f Figure) string {
+	svg := xmlProlog.ReplaceAllString(f.SVG, "")
+	var img string
+	if strings.HasPrefix(svg, "<svg") && !svgUnsafe.MatchString(svg) {
+		img = svg
+	} else {
+		img = `<img alt="` + html.EscapeString(f.Name) + `" src="data:image/svg+xml;base64,` +
+			base64.StdEncoding.EncodeToString([]byte(f.SVG)) + `">`
+	}
+	return "<figure>\n" + img + "\n<figcaption>Figure: " + html.EscapeString(f.Name) + "</figcaption>\n</figure>"
+}
+
+const pageCSS = `body { margin: 0; background: #fff; color: #1d1d1f; font: 16px/1.55 system-ui, -apple-system, "Segoe UI", sans-serif; }
+main { max-width: 64rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
+h1, h2, h3 { line-height: 1.25; }
+a { color: #1f5fa8; }
+code { font: 0.9em/1.4 ui-monospace, "SF Mono", Menlo, Consolas, monospace; background: #f2f2f4; padding: 0.05em 0.3em; border-radius: 3px; }
+pre { margin: 0.75rem 0; }
+pre > code { display: block; overflow-x: auto; padding: 0.6rem 0.8rem; border-radius: 4px; background: #f6f6f8; border: 1px solid #e2e2e6; }
+pre > code.language-cell { background: #eef4fc; border: 1px solid #b9cfea; border-left: 4px solid #2f6db5; }
+pre > code.language-output { background: #fff; border: 1px dashed #a0a0a8; border-left: 4px solid #8a8a94; }
+pre > code.language-cell::before, pre > code.language-output::before { display: block; font: 600 0.7rem/1.6 system-ui, sans-serif; text-transform: uppercase; letter-spacing: 0.06em; }
+pre > code.language-cell::before { content: "cell"; color: #2f6db5; }
+pre > code.language-output::before { content: "output"; color: #6a6a74; }
+pre:has(> code.language-output:empty) { display: none; }
+section.generated { margin: 0.5rem 0 1.75rem; padding: 0.1rem 0 0.1rem 1rem; border-left: 3px solid #d0d0d6; font-size: 0.95em; }
+section.summary { padding: 0.5rem 1rem; background: #fafafb; border: 1px solid #dcdce2; border-left: 4px solid #555; border-radius: 4px; }
+table { border-collapse: collapse; margin: 0.75rem 0; display: block; overflow-x: auto; }
+th, td { border: 1px solid #d3d3da; padding: 0.3rem 0.6rem; text-align: left; vertical-align: top; }
+th { background: #f0f0f3; }
+td code { overflow-wrap: anywhere; }
+td.verdict { font-weight: 600; white-space: nowrap; }
+td.v-holds { background: #e6f4e8; color: #145a20; }
+td.v-digits { background: #eaf1fb; color: #1d4e89; }
+td.v-fails { background: #fbe9e9; color: #8f1d1d; }
+td.v-undecided { background: #fbf4e2; color: #6d5210; }
+figure { margin: 1rem 0; }
+figure svg, figure img { max-width: 100%; height: auto; }
+figcaption { font-size: 0.9em; color: #555; }
+`

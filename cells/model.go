@@ -1,0 +1,157 @@
+// Package cells is the notebook document: it parses Markdown notebooks into
+// prose and executable cells, holds the outcome of running each cell, and
+// renders reports as Markdown, HTML and JSON.
+//
+// It knows nothing of the interpreter or of exact arithmetic: a claim reaches
+// this package as a plain record.
+package cells
+
+import "time"
+
+// BlockKind tells prose from an executable cell.
+type BlockKind int
+
+const (
+	// Prose is Markdown text, including fences that are not cells.
+	Prose BlockKind = iota
+	// Code is an executable cell: a fence whose info string starts with "cell".
+	Code
+)
+
+// Notebook is a parsed notebook file.
+type Notebook struct {
+	Path   string  // file path as given by the user
+	Source []byte  // the raw file contents
+	Title  string  // text of the first level-1 heading, or the file name
+	Blocks []Block // prose and cells in file order
+}
+
+// Cells returns the executable blocks in order.
+func (nb *Notebook) Cells() []*Block {
+	var out []*Block
+	for i := range nb.Blocks {
+		if nb.Blocks[i].Kind == Code {
+			out = append(out, &nb.Blocks[i])
+		}
+	}
+	return out
+}
+
+// Block is one stretch of the notebook: prose or a cell.
+type Block struct {
+	Kind BlockKind
+	// Text is the prose verbatim, or the cell's source without its fences
+	// (for a cell, with CRLF line ends turned into LF).
+	Text string
+	// Line is the 1-based notebook line of the first line of Text.
+	Line int
+	// Cell-only fields.
+	Index     int         // 1-based cell number
+	FenceLine int         // line of the opening fence
+	Fence     string      // the opening fence characters, e.g. "```" or "~~~~"
+	Info      string      // the whole info string, e.g. "cell timeout=5s"
+	Options   CellOptions // parsed options
+	// Raw is the cell verbatim, from its opening fence line to its closing
+	// fence line inclusive, line ends as in the file. Renderers re-emit it
+	// byte for byte; when empty they rebuild the cell from Fence, Info, Text.
+	Raw string
+}
+
+// CellOptions are the key=value words after "cell" in a fence's info string.
+type CellOptions struct {
+	Timeout   time.Duration // timeout=30s; zero means the run's default
+	Precision int           // precision=512 (bits); zero means the run's default
+	Seed      *int64        // seed=7; nil means the run's seed
+	ID        string        // id=name
+}
+
+// Verdict is the outcome of a claim.
+type Verdict string
+
+// The four verdicts; their string values are part of the JSON format.
+const (
+	Holds         Verdict = "holds"           // exact zero residual
+	HoldsToDigits Verdict = "holds-to-digits" // certified |residual| < 10^-Digits
+	Fails         Verdict = "fails"           // residual certified non-zero
+	Undecided     Verdict = "undecided"       // precision cap reached first
+)
+
+// Claim is the record of one checked claim, as the kernel reports it.
+type Claim struct {
+	Name      string  `json:"name"`
+	Kind      string  `json:"kind"`   // identity, factorization, inequality, limit
+	Method    string  `json:"method"` // how it was decided, e.g. "exact rational arithmetic"
+	Verdict   Verdict `json:"verdict"`
+	Digits    int     `json:"digits,omitempty"`    // for holds-to-digits
+	Residual  string  `json:"residual"`            // printed residual (exact where exact)
+	Note      string  `json:"note,omitempty"`      // what the verdict means, in words
+	Samples   int     `json:"samples,omitempty"`   // number of configurations checked
+	Seed      int64   `json:"seed"`                // seed in force
+	Worst     string  `json:"worst,omitempty"`     // the sample with the largest residual
+	Precision int     `json:"precision,omitempty"` // bits, where certified reals were used
+	Cell      int     `json:"cell"`
+	Line      int     `json:"line"` // notebook line of the call
+	Seconds   float64 `json:"seconds"`
+	// Float is the float64 companion, where one was computed.
+	Float *FloatAudit `json:"float,omitempty"`
+}
+
+// FloatAudit is what float64 arithmetic said about a claim.
+type FloatAudit struct {
+	Residual   string  `json:"residual"`    // float64 residual as printed
+	Error      string  `json:"error"`       // its distance from the exact residual
+	DigitsLost float64 `json:"digits_lost"` // decimal digits lost against 15.95
+}
+
+// Table is a table put in the report by a cell.
+type Table struct {
+	Header []string   `json:"header,omitempty"`
+	Rows   [][]string `json:"rows"`
+}
+
+// Figure is an SVG figure put in the report by a cell.
+type Figure struct {
+	Name string `json:"name"`
+	SVG  string `json:"svg"`
+}
+
+// Status says whether a cell ran.
+type Status string
+
+// Cell statuses.
+const (
+	Ran    Status = "ran"     // ran to the end
+	Failed Status = "error"   // raised an error or crossed a limit
+	NotRun Status = "not-run" // skipped after an earlier error
+)
+
+// Problem is an error tied to a notebook line.
+type Problem struct {
+	Cell    int    `json:"cell"` // 0 for the notebook as a whole
+	Line    int    `json:"line"`
+	Message string `json:"message"`
+}
+
+// Outcome is the result of running one cell.
+type Outcome struct {
+	Cell    int      `json:"cell"`
+	Status  Status   `json:"status"`
+	Output  string   `json:"output"` // printed text and shown values
+	Tables  []Table  `json:"tables,omitempty"`
+	Claims  []Claim  `json:"claims,omitempty"`
+	Figures []Figure `json:"figures,omitempty"`
+	Error   *Problem `json:"error,omitempty"`
+	Seconds float64  `json:"seconds"`
+}
+
+// Report is everything a run produced, ready to render.
+type Report struct {
+	Notebook  *Notebook
+	SHA256    string    // hex digest of Notebook.Source
+	Version   string    // assay version
+	Seed      int64     // run seed
+	Precision int       // run precision in bits
+	Outcomes  []Outcome // one per cell, in cell order
+	Problems  []Problem // notebook-level problems (parse errors); cell errors live in outcomes
+	Seconds   float64   // wall time of the whole run
+}

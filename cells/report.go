@@ -1,0 +1,199 @@
+package cells
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"io"
+	"os"
+	"path/filepath"
+)
+
+// Counts returns the number of claims of each verdict in the report.
+func Counts(r *Report) map[Verdict]int {
+	c := map[Verdict]int{}
+	for _, cl := range allClaims(r) {
+		c[cl.Verdict]++
+	}
+	return c
+}
+
+// allClaims lists the report's claims in cell order.
+func allClaims(r *Report) []Claim {
+	var out []Claim
+	for _, o := range r.Outcomes {
+		out = append(out, o.Claims...)
+	}
+	return out
+}
+
+// allErrors lists the notebook problems, then the cell errors.
+func allErrors(r *Report) []Problem {
+	out := append([]Problem(nil), r.Problems...)
+	for _, o := range r.Outcomes {
+		if o.Error != nil {
+			e := *o.Error
+			if e.Cell == 0 {
+				e.Cell = o.Cell
+			}
+			out = append(out, e)
+		}
+	}
+	return out
+}
+
+// failedCells counts the cells that stopped with an error.
+func failedCells(r *Report) int {
+	n := 0
+	for _, o := range r.Outcomes {
+		if o.Status == Failed || o.Error != nil {
+			n++
+		}
+	}
+	return n
+}
+
+// ExitCode is the process exit status for a report: 2 if the notebook has a
+// problem or a cell failed; else 1 if a claim fails or is undecided (or, when
+// strict, holds only to digits); else 0.
+func ExitCode(r *Report, strict bool) int {
+	if len(r.Problems) > 0 || failedCells(r) > 0 {
+		return 2
+	}
+	c := Counts(r)
+	if c[Fails] > 0 || c[Undecided] > 0 || (strict && c[HoldsToDigits] > 0) {
+		return 1
+	}
+	return 0
+}
+
+// jsonClaim and jsonError fix the JSON field names and order.
+type jsonClaim struct {
+	Name     string  `json:"name"`
+	Kind     string  `json:"kind"`
+	Method   string  `json:"method"`
+	Verdict  Verdict `json:"verdict"`
+	Residual string  `json:"residual"`
+	Digits   int     `json:"digits"`
+	Cell     int     `json:"cell"`
+	Line     int     `json:"line"`
+	Seconds  float64 `json:"seconds"`
+}
+
+type jsonError struct {
+	Cell    int    `json:"cell"`
+	Line    int    `json:"line"`
+	Message string `json:"message"`
+}
+
+type jsonReport struct {
+	Notebook string      `json:"notebook"`
+	SHA256   string      `json:"sha256"`
+	Claims   []jsonClaim `json:"claims"`
+	Errors   []jsonError `json:"errors"`
+	Exit     int         `json:"exit"`
+}
+
+// RenderJSON returns the machine-readable summary:
+// {"notebook", "sha256", "claims": [{"name", "kind", "method", "verdict",
+// "residual", "digits", "cell", "line", "seconds"}], "errors": [{"cell",
+// "line", "message"}], "exit"}, indented, ending in a newline. errors holds
+// the notebook problems and then the cell errors.
+func RenderJSON(r *Report, exit int) []byte {
+	j := jsonReport{SHA256: r.SHA256, Claims: []jsonClaim{}, Errors: []jsonError{}, Exit: exit}
+	if r.Notebook != nil {
+		j.Notebook = r.Notebook.Path
+	}
+	for _, c := range allClaims(r) {
+		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Cell, c.Line, c.Seconds})
+	}
+	for _, e := range allErrors(r) {
+		j.Errors = append(j.Errors, jsonError{e.Cell, e.Line, message(e)})
+	}
+	var b bytes.Buffer
+	enc := json.NewEncoder(&b)
+	enc.SetEscapeHTML(false)
+	enc.SetIndent("", "  ")
+	if err := enc.Encode(j); err != nil {
+		panic(err) // plain strings and numbers always encode
+	}
+	return b.Bytes()
+}
+
+// RenderCheck writes terminal lines: each notebook problem and cell error
+// as "path:line: message", one line per claim (verdict, name, residual,
+// path:line), then a summary line such as "x.md: 4 claims — 3 holds, 1 holds
+// to digits, 0 fails, 0 undecided; 0 errors".
+func RenderCheck(w io.Writer, r *Report) {
+	path := ""
+	if r.Notebook != nil {
+		path = r.Notebook.Path
+	}
+	for _, p := range r.Problems {
+		fmt.Fprintf(w, "%s:%d: %s\n", path, p.Line, message(p))
+	}
+	claims := allClaims(r)
+	var nameW, resW, verdictW int
+	for _, c := range claims {
+		nameW = max(nameW, len([]rune(truncate(c.Name, 56))))
+		resW = max(resW, len([]rune(truncate(c.Residual, 40))))
+		verdictW = max(verdictW, len([]rune(VerdictLabel(c))))
+	}
+	notRun := 0
+	for _, o := range r.Outcomes {
+		for _, c := range o.Claims {
+			fmt.Fprintf(w, "%-*s  %-*s  %-*s  %s:%d\n", verdictW, VerdictLabel(c), nameW, truncate(c.Name, 56), resW, truncate(c.Residual, 40), path, c.Line)
+		}
+		if e := o.Error; e != nil {
+			fmt.Fprintf(w, "%s:%d: %s\n", path, e.Line, truncate(message(*e), 200))
+		}
+		if o.Status == NotRun {
+			notRun++
+		}
+	}
+	fmt.Fprintf(w, "%s: %s — %s; %s", path, plural(len(claims), "claim"), countsPhrase(Counts(r)), plural(len(allErrors(r)), "error"))
+	if notRun > 0 {
+		fmt.Fprintf(w, "; %s not run", plural(notRun, "cell"))
+	}
+	fmt.Fprintln(w)
+}
+
+func plural(n int, word string) string {
+	if n == 1 {
+		return "1 " + word
+	}
+	return fmt.Sprintf("%d %ss", n, word)
+}
+
+// WriteFileAtomic writes data to path through a temporary file in the same
+// folder and a rename, so readers see the old or the new file, never half of
+// one. An existing file keeps its permission bits; a new one gets 0644.
+func WriteFileAtomic(path string, data []byte) (err error) {
+	mode := os.FileMode(0o644)
+	if fi, err := os.Stat(path); err == nil {
+		mode = fi.Mode().Perm()
+	}
+	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
+	if err != nil {
+		return err
+	}
+	defer func() {
+		if err != nil {
+			f.Close()
+			os.Remove(f.Name())
+		}
+	}()
+	if _, err = f.Write(data); err != nil {
+		return err
+	}
+	if err = f.Chmod(mode); err != nil {
+		return err
+	}
+	if err = f.Sync(); err != nil {
+		return err
+	}
+	if err = f.Close(); err != nil {
+		return err
+	}
+	return os.Rename(f.Name(), path)
+}

@@ -1,0 +1,291 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"flag"
+	"fmt"
+	"os"
+	"path/filepath"
+	"regexp"
+	"strings"
+	"testing"
+)
+
+var update = flag.Bool("update", false, "rewrite the committed demo reports")
+
+// TestMain lets the test binary serve as `assay kernel` when the run
+// command starts it as a child process (it starts os.Executable()).
+func TestMain(m *testing.M) {
+	if len(os.Args) > 1 && os.Args[1] == "kernel" {
+		os.Exit(kernelCommand(os.Args[2:], os.Stderr))
+	}
+	os.Exit(m.Run())
+}
+
+func assay(t *testing.T, args ...string) (code int, stdout, stderr string) {
+	t.Helper()
+	var out, errb bytes.Buffer
+	code = mainCode(args, &out, &errb)
+	return code, out.String(), errb.String()
+}
+
+// copyNotebook puts a testdata notebook in a temporary folder.
+func copyNotebook(t *testing.T, src string) string {
+	t.Helper()
+	data, err := os.ReadFile(src)
+	if err != nil {
+		t.Fatal(err)
+	}
+	dst := filepath.Join(t.TempDir(), filepath.Base(src))
+	if err := os.WriteFile(dst, data, 0o644); err != nil {
+		t.Fatal(err)
+	}
+	return dst
+}
+
+// Every bad input: one clear message with the notebook line, exit 2, and
+// the report is still written.
+func TestBadInputStillWritesReport(t *testing.T) {
+	cases := []struct {
+		file string
+		line int
+		want string // in the report and on the terminal
+	}{
+		{"unclosed-fence.md", 3, "never closed"},
+		{"unknown-option.md", 3, "unknown cell option \"colour\""},
+		{"not-utf8.md", 3, "not valid UTF-8"},
+		{"syntax-error.md", 5, "SyntaxError"},
+		{"name-error.md", 5, "NameError: name 'y' is not defined"},
+		{"division-by-zero.md", 5, "ZeroDivisionError: division by zero: 3/4 / 0"},
+		{"det-not-square.md", 5, "2x3"},
+		{"singular-inverse.md", 5, "singular"},
+		{"open-file.md", 4, "PermissionError: open() is not available"},
+		{"import-os.md", 4, "ImportError: module \"os\" is not available"},
+		{"loop-forever.md", 8, "time limit"},
+		{"unbounded-memory.md", 4, "memory cap"},
+	}
+	for _, c := range cases {
+		t.Run(c.file, func(t *testing.T) {
+			nb := copyNotebook(t, filepath.Join("..", "..", "testdata", "bad", c.file))
+			before, _ := os.ReadFile(nb)
+			code, stdout, stderr := assay(t, "run", nb, "--max-memory", "200MiB")
+			if code != 2 {
+				t.Errorf("exit %d, want 2\nstdout: %s\nstderr: %s", code, stdout, stderr)
+			}
+			report, err := os.ReadFile(strings.TrimSuffix(nb, ".md") + ".report.md")
+			if err != nil {
+				t.Fatalf("no report written: %v", err)
+			}
+			if !strings.Contains(string(report), c.want) || !strings.Contains(string(report), fmt.Sprintf("line %d", c.line)) {
+				t.Errorf("report lacks line %d: %q:\n%s", c.line, c.want, report)
+			}
+			if !strings.Contains(stdout, fmt.Sprintf(".md:%d: ", c.line)) || !strings.Contains(stdout, c.want) {
+				t.Errorf("terminal output lacks line %d: %q:\n%s", c.line, c.want, stdout)
+			}
+			if _, err := os.Stat(strings.TrimSuffix(nb, ".md") + ".report.html"); err != nil {
+				t.Errorf("no HTML report: %v", err)
+			}
+			after, _ := os.ReadFile(nb)
+			if !bytes.Equal(before, after) {
+				t.Errorf("the notebook was modified")
+			}
+		})
+	}
+}
+
+func TestLoopForeverMarksLaterCellsNotRun(t *testing.T) {
+	nb := copyNotebook(t, "../../testdata/bad/loop-forever.md")
+	assay(t, "run", nb)
+	report, _ := os.ReadFile(strings.TrimSuffix(nb, ".md") + ".report.md")
+	if !strings.Contains(string(report), "line 8") || !strings.Contains(string(report), "was not run") {
+		t.Errorf("report:\n%s", report)
+	}
+}
+
+func TestEmptyNotebook(t *testing.T) {
+	nb := copyNotebook(t, "../../testdata/bad/empty.md")
+	code, stdout, _ := assay(t, "run", nb)
+	if code != 0 {
+		t.Errorf("empty notebook: exit %d\n%s", code, stdout)
+	}
+	if _, err := os.Stat(strings.TrimSuffix(nb, ".md") + ".report.md"); err != nil {
+		t.Errorf("no report for the empty notebook: %v", err)
+	}
+}
+
+func TestMissingFile(t *testing.T) {
+	code, _, stderr := assay(t, "run", filepath.Join(t.TempDir(), "nowhere.md"))
+	if code != 2 || !strings.Contains(stderr, "cannot read notebook") {
+		t.Errorf("exit %d, stderr %q", code, stderr)
+	}
+}
+
+func TestReportPathIsNotebook(t *testing.T) {
+	nb := copyNotebook(t, "../../notebooks/mesh-orientation.md")
+	before, _ := os.ReadFile(nb)
+	code, _, stderr := assay(t, "run", "-o", nb, nb)
+	if code != 2 || !strings.Contains(stderr, "--in-place") {
+		t.Errorf("exit %d, stderr %q", code, stderr)
+	}
+	if after, _ := os.ReadFile(nb); !bytes.Equal(before, after) {
+		t.Errorf("the notebook was overwritten")
+	}
+}
+
+func TestBadFlags(t *testing.T) {
+	for _, args := range [][]string{
+		{"run"},
+		{"run", "a.md", "b.md"},
+		{"run", "--max-memory", "lots", "a.md"},
+		{"run", "--timeout", "-1s", "a.md"},
+		{"frobnicate"},
+	} {
+		if code, _, _ := assay(t, args...); code != 2 {
+			t.Errorf("%v: exit %d, want 2", args, code)
+		}
+	}
+}
+
+var timeRE = regexp.MustCompile(`[0-9]+\.[0-9]+ s\b`)
+
+func normalizeTimes(b []byte) string { return timeRE.ReplaceAllString(string(b), "T s") }
+
+func TestInPlaceIsIdempotent(t *testing.T) {
+	nb := copyNotebook(t, "../../notebooks/mesh-orientation.md")
+	if code, out, _ := assay(t, "run", "--in-place", nb); code != 0 {
+		t.Fatalf("first in-place run: exit %d\n%s", code, out)
+	}
+	first, _ := os.ReadFile(nb)
+	if !bytes.Contains(first, []byte("```output")) {
+		t.Fatalf("no output blocks written:\n%s", first)
+	}
+	assay(t, "run", "--in-place", nb)
+	second, _ := os.ReadFile(nb)
+	if normalizeTimes(first) != normalizeTimes(second) {
+		t.Errorf("second in-place run changed the notebook")
+	}
+}
+
+func TestCheckJSON(t *testing.T) {
+	code, out, _ := assay(t, "check", "--json", "../../notebooks/mesh-orientation.md")
+	var doc struct {
+		Notebook string `json:"notebook"`
+		SHA256   string `json:"sha256"`
+		Claims   []struct {
+			Name, Kind, Method, Verdict, Residual string
+			Digits                                int
+			Cell, Line                            int
+			Seconds                               float64
+		} `json:"claims"`
+		Errors []struct {
+			Cell, Line int
+			Message    string
+		} `json:"errors"`
+		Exit int `json:"exit"`
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil {
+		t.Fatalf("not one JSON document: %v\n%s", err, out)
+	}
+	if code != 0 || doc.Exit != 0 || len(doc.Claims) == 0 || len(doc.SHA256) != 64 {
+		t.Errorf("exit %d, doc %+v", code, doc)
+	}
+	for _, c := range doc.Claims {
+		if c.Verdict != "holds" || c.Line == 0 || c.Kind != "identity" {
+			t.Errorf("claim %+v", c)
+		}
+	}
+}
+
+func TestCheckExitOneOnFailingClaim(t *testing.T) {
+	dir := t.TempDir()
+	nb := filepath.Join(dir, "f.md")
+	os.WriteFile(nb, []byte("# f\n\n```cell\nidentity(\"wrong\", frac(1, 3) + frac(1, 6), frac(1, 3))\n```\n"), 0o644)
+	code, out, _ := assay(t, "check", nb)
+	if code != 1 || !strings.Contains(out, "fails") || !strings.Contains(out, "1/6") {
+		t.Errorf("exit %d\n%s", code, out)
+	}
+}
+
+func TestVersionAndHelp(t *testing.T) {
+	if code, out, _ := assay(t, "version"); code != 0 || !strings.HasPrefix(out, "assay ") {
+		t.Errorf("version: %d %q", code, out)
+	}
+	if code, out, _ := assay(t, "--help"); code != 0 || !strings.Contains(out, "Examples:") {
+		t.Errorf("help: %d %q", code, out)
+	}
+	for _, sub := range []string{"run", "check", "kernel"} {
+		code, _, errs := assay(t, sub, "--help")
+		if code != 2 || !strings.Contains(errs, "Usage: assay "+sub) {
+			t.Errorf("%s --help: %d %q", sub, code, errs)
+		}
+	}
+}
+
+// The committed reports of the demo notebooks must be what a run gives now
+// (apart from lines stating times). -update rewrites them.
+func TestDemoReportsAreCurrent(t *testing.T) {
+	demos, _ := filepath.Glob("../../notebooks/*.md")
+	for _, nb := range demos {
+		if strings.HasSuffix(nb, ".report.md") {
+			continue
+		}
+		t.Run(filepath.Base(nb), func(t *testing.T) {
+			committed := strings.TrimSuffix(nb, ".md") + ".report.md"
+			old, _ := os.ReadFile(committed)
+			oldHTML, _ := os.ReadFile(strings.TrimSuffix(committed, ".md") + ".html")
+			out := filepath.Join(t.TempDir(), "r.md")
+			// The report names the notebook by the path given; run from the
+			// repository root so it reads notebooks/x.md.
+			wd, _ := os.Getwd()
+			os.Chdir("../..")
+			defer os.Chdir(wd)
+			rel, _ := filepath.Rel("../..", nb)
+			rel = filepath.ToSlash(rel)
+			if *update {
+				out = strings.TrimPrefix(committed, "../../")
+			}
+			if code, stdout, stderr := assay(t, "run", "-o", out, rel); code != 0 {
+				t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
+			}
+			if *update {
+				return
+			}
+			fresh, _ := os.ReadFile(out)
+			freshHTML, _ := os.ReadFile(strings.TrimSuffix(out, ".md") + ".html")
+			if normalizeTimes(fresh) != normalizeTimes(old) {
+				t.Errorf("%s is stale: run `go test ./cmd/assay -update`", committed)
+			}
+			if normalizeTimes(freshHTML) != normalizeTimes(oldHTML) {
+				t.Errorf("the HTML report of %s is stale: run `go test ./cmd/assay -update`", nb)
+			}
+		})
+	}
+}
+
+// The reference notebooks check notebook-level linear algebra against
+// published values (sources named in each notebook); every claim must hold.
+func TestReferenceNotebooks(t *testing.T) {
+	refs, _ := filepath.Glob("../../testdata/reference/*.md")
+	if len(refs) == 0 {
+		t.Fatal("no reference notebooks")
+	}
+	for _, nb := range refs {
+		code, out, _ := assay(t, "check", "--json", nb)
+		var doc struct {
+			Claims []struct{ Name, Verdict string } `json:"claims"`
+			Errors []struct{ Message string }       `json:"errors"`
+		}
+		if err := json.Unmarshal([]byte(out), &doc); err != nil {
+			t.Fatalf("%s: %v", nb, err)
+		}
+		if code != 0 || len(doc.Errors) > 0 || len(doc.Claims) < 10 {
+			t.Errorf("%s: exit %d, %d claims, errors %v", nb, code, len(doc.Claims), doc.Errors)
+		}
+		for _, c := range doc.Claims {
+			if c.Verdict != "holds" {
+				t.Errorf("%s: %q %s", nb, c.Name, c.Verdict)
+			}
+		}
+	}
+}

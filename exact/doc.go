@@ -1,0 +1,14 @@
+// Package exact owns assay's number systems and their algebra: exact
+// rationals (math/big.Rat) and dense matrices over the rationals, with
+// determinants, rank, inverses, linear solves and null spaces computed
+// without rounding.
+//
+// It also offers float64 companions built on gonum (Matrix.Float, FloatDet,
+// FloatSolve) so that callers can show where floating point and exact
+// arithmetic part ways.
+//
+// The package is pure algebra: it knows nothing of Python, notebook cells or
+// reports. Failures are reported with the sentinel errors ErrDivisionByZero,
+// ErrNotSquare, ErrSingular, ErrShape, ErrSyntax and ErrNotFinite, wrapped with
+// context; test for them with errors.Is.
+package exact

@@ -1,0 +1,22 @@
+package exact
+
+import "errors"
+
+// Sentinel errors. Functions wrap them with context (fmt.Errorf with %w);
+// compare with errors.Is.
+var (
+	// ErrDivisionByZero reports a division by an exact zero.
+	ErrDivisionByZero = errors.New("division by zero")
+	// ErrNotSquare reports an operation that needs a square matrix.
+	ErrNotSquare = errors.New("not square")
+	// ErrSingular reports a singular matrix where an invertible one is needed.
+	ErrSingular = errors.New("matrix is singular")
+	// ErrShape reports ragged, empty or mismatched matrix shapes and
+	// out-of-range indices.
+	ErrShape = errors.New("shape mismatch")
+	// ErrSyntax reports text that is not a number in an accepted form.
+	ErrSyntax = errors.New("invalid number syntax")
+	// ErrNotFinite reports a NaN or infinite float64 where a finite value is
+	// needed.
+	ErrNotFinite = errors.New("not a finite number")
+)

@@ -1,0 +1,305 @@
+package kernel
+
+import (
+	"os"
+	"strings"
+	"testing"
+	"time"
+
+	"assay/cells"
+)
+
+// TestMain lets the test binary stand in for `assay kernel` when a test
+// starts it as a child process.
+func TestMain(m *testing.M) {
+	if os.Getenv("ASSAY_TEST_KERNEL") == "1" {
+		if err := Serve(os.Stdin, os.Stdout); err != nil {
+			os.Exit(2)
+		}
+		os.Exit(0)
+	}
+	os.Exit(m.Run())
+}
+
+// notebook builds a notebook from cell sources, each in its own fence.
+func notebook(t *testing.T, srcs ...string) *cells.Notebook {
+	t.Helper()
+	var b strings.Builder
+	b.WriteString("# test\n")
+	for _, s := range srcs {
+		b.WriteString("\n```cell\n" + s + "\n```\n")
+	}
+	nb, err := cells.Parse("test.md", []byte(b.String()))
+	if err != nil {
+		t.Fatalf("parse: %v", err)
+	}
+	return nb
+}
+
+// runHere runs cells in this process.
+func runHere(t *testing.T, srcs ...string) *cells.Report {
+	t.Helper()
+	return Run(notebook(t, srcs...), Options{Settings: DefaultSettings})
+}
+
+// runChild runs cells in a kernel child process (this test binary).
+func runChild(t *testing.T, opt Options, srcs ...string) *cells.Report {
+	t.Helper()
+	t.Setenv("ASSAY_TEST_KERNEL", "1")
+	opt.Command = []string{os.Args[0]}
+	if opt.Settings.Precision == 0 {
+		opt.Settings = DefaultSettings
+	}
+	return Run(notebook(t, srcs...), opt)
+}
+
+func output(t *testing.T, rep *cells.Report, cell int) string {
+	t.Helper()
+	o := rep.Outcomes[cell-1]
+	if o.Error != nil {
+		t.Fatalf("cell %d failed at line %d: %s", cell, o.Error.Line, o.Error.Message)
+	}
+	return o.Output
+}
+
+func TestExactArithmetic(t *testing.T) {
+	cases := []struct{ src, want string }{
+		{"print(1/3)", "1/3"},
+		{"print(1/3 + 1/6)", "1/2"},
+		{"print(2**-3)", "1/8"},
+		{"x = 6\nx /= 4\nprint(x)", "3/2"},
+		{"print(frac(3, 4) * 4)", "3"},
+		{`print(frac("-3/4"))`, "-3/4"},
+		{`print(frac("1.0005"))`, "2001/2000"},
+		{`print(frac("2e-7"))`, "1/5000000"},
+		// IEEE 754: the double nearest 0.1 is 3602879701896397 / 2^55 (standard fact).
+		{"print(frac(0.1))", "3602879701896397/36028797018963968"},
+		{"print(frac(3, 4).num, frac(3, 4).den)", "3 4"},
+		{"print(frac(1, 3) < frac(1, 2), frac(2, 4) == frac(1, 2), 1 == frac(2, 2))", "True True True"},
+		{"print(float(frac(1, 4)), frac(1, 4).float())", "0.25 0.25"},
+		{"print(1 / frac(1, 3))", "3"},
+		{"print(frac(1, 2) + 0.25)", "0.75"},
+		{"print(frac(2, 3) ** 2, frac(2, 3) ** -2)", "4/9 9/4"},
+		{"print(2**100 / 2**98)", "4"},
+		{"print(int(frac(-7, 2)))", "-3"},
+		{"print([1, 2, 3][frac(4, 2)])", "3"},
+	}
+	for _, c := range cases {
+		rep := runHere(t, c.src)
+		if got := strings.TrimSpace(output(t, rep, 1)); got != c.want {
+			t.Errorf("%q printed %q, want %q", c.src, got, c.want)
+		}
+	}
+}
+
+func TestMatrices(t *testing.T) {
+	cases := []struct{ src, want string }{
+		{"print(det(matrix([[1, 2], [3, 4]])))", "-2"},
+		{"M = matrix([[2, 0], [0, frac(1, 2)]])\nprint(M.det(), M.rank(), M.inverse()[1, 1])", "1 2 2"},
+		{"print(matrix([[1, 2], [3, 4]]) * matrix([[0, 1], [1, 0]]) == matrix([[2, 1], [4, 3]]))", "True"},
+		{"print(matrix([[1, 2], [3, 4]]).solve([5, 6]))", "[-4, 9/2]"},
+		{"print(matrix([[1, 2], [2, 4]]).nullspace())", "[[-2, 1]]"},
+		{"print(unit_matrix(3).det(), (2 * unit_matrix(2)).det())", "1 4"},
+		{"print(matrix([[1, 2, 3], [4, 5, 6], [7, 8, 10]]).minor([0, 1], [0, 1]))", "-3"},
+		{"print(matrix([[1, 2], [3, 4]]).transpose()[0])", "[1, 3]"},
+		{"print(matrix([[1, 1], [0, 1]]) ** 5 == matrix([[1, 5], [0, 1]]))", "True"},
+		{"print(abs(matrix([[1, 2], [3, 4]]).to_float().det() + 2) < 1e-15)", "True"},
+		{"x = matrix([[2, 1], [1, 3]]).to_float().solve([3, 5])\nprint(abs(x[0] - 0.8) < 1e-15, abs(x[1] - 1.4) < 1e-15)", "True True"},
+		// Regression for the interpreter's closure indexing (kernel/pycompile):
+		// free variables of a code object that also has cells.
+		{"def a(n):\n    return [[i + j for j in range(n)] for i in range(n)]\nprint(a(2))", "[[0, 1], [1, 2]]"},
+		{"def b(n):\n    m = n\n    return [[i * m + j for j in range(m)] for i in range(n)]\nprint(b(2))", "[[0, 1], [2, 3]]"},
+		{"def c(x):\n    def g(y):\n        return [x + y + k for k in range(2)]\n    return g(10)\nprint(c(100))", "[110, 111]"},
+		{"def d(n):\n    def inc():\n        return [n + i for i in range(1)][0]\n    return inc()\nprint(d(5))", "5"},
+		{"show(matrix([[1, frac(-1, 2)], [10, 3]]), label=\"M\")", "M =\n[  1 -1/2 ]\n[ 10    3 ]"},
+	}
+	for _, c := range cases {
+		rep := runHere(t, c.src)
+		if got := strings.TrimSpace(output(t, rep, 1)); got != c.want {
+			t.Errorf("%q printed %q, want %q", c.src, got, c.want)
+		}
+	}
+}
+
+// Reference values: 1/det(H_n) for the Hilbert matrix is OEIS A005249
+// (1, 12, 2160, 6048000, 266716800000, …); the Vandermonde determinant is
+// the product of differences (standard formula).
+func TestIdentityClaimsFromNotebook(t *testing.T) {
+	rep := runHere(t,
+		"def hilbert(n):\n    return matrix([[frac(1, i + j + 1) for j in range(n)] for i in range(n)])",
+		"identity(\"Hilbert 5 (OEIS A005249)\", 1 / det(hilbert(5)), 266716800000)\n"+
+			"xs = [frac(-1, 2), 0, frac(2, 3), 3]\n"+
+			"V = matrix([[x**k for k in range(4)] for x in xs])\n"+
+			"prod = 1\n"+
+			"for j in range(4):\n"+
+			"    for i in range(j):\n"+
+			"        prod = prod * (xs[j] - xs[i])\n"+
+			"identity(\"Vandermonde product formula\", det(V), prod)\n"+
+			"identity(\"a deliberately wrong claim\", det(V), prod + frac(1, 7))",
+		"identity(\"det is multiplicative\", lambda M: (det(M * M), det(M) ** 2), over=lambda k: random_matrix(3, 3, seed=k), samples=20)",
+	)
+	claims := append(rep.Outcomes[1].Claims, rep.Outcomes[2].Claims...)
+	if len(claims) != 4 {
+		t.Fatalf("got %d claims, want 4: %+v", len(claims), rep.Outcomes)
+	}
+	want := []struct {
+		verdict  cells.Verdict
+		residual string
+		line     int
+	}{
+		{cells.Holds, "0", 9},
+		{cells.Holds, "0", 16},
+		{cells.Fails, "-1/7", 17},
+		{cells.Holds, "0", 21},
+	}
+	for i, w := range want {
+		c := claims[i]
+		if c.Verdict != w.verdict || c.Residual != w.residual || c.Line != w.line {
+			t.Errorf("claim %q: verdict %s residual %s line %d, want %s %s line %d", c.Name, c.Verdict, c.Residual, c.Line, w.verdict, w.residual, w.line)
+		}
+	}
+	if claims[3].Samples != 20 {
+		t.Errorf("sampled claim reports %d samples", claims[3].Samples)
+	}
+}
+
+func TestClaimLineInsideFunctionAndLoop(t *testing.T) {
+	rep := runHere(t, "def check(k):\n    identity(\"square %d\" % k, (k + 1) ** 2, k * k + 2 * k + 1)\nfor k in range(3):\n    check(k)")
+	for _, c := range rep.Outcomes[0].Claims {
+		if c.Line != 5 || c.Verdict != cells.Holds {
+			t.Errorf("claim %q at line %d verdict %s, want line 5, holds", c.Name, c.Line, c.Verdict)
+		}
+	}
+}
+
+func TestFailingSampleIsReported(t *testing.T) {
+	rep := runHere(t, "identity(\"odd squares\", lambda n: (n * n % 2, 1), over=lambda k: 2 * k + 1 + (k == 3), samples=5)")
+	c := rep.Outcomes[0].Claims[0]
+	if c.Verdict != cells.Fails || !strings.HasPrefix(c.Worst, "sample 3: 8") {
+		t.Errorf("got verdict %s worst %q, want fails at sample 3 (value 8)", c.Verdict, c.Worst)
+	}
+}
+
+// Each bad input gives one clear message with the notebook line.
+func TestCellErrors(t *testing.T) {
+	cases := []struct {
+		src  string
+		line int // notebook line; cells start at line 4
+		want string
+	}{
+		{"x = 1\ny = (", 5, "SyntaxError"},
+		{"x = 1\nprint(undefined_name)", 5, "NameError"},
+		{"x = frac(1, 3)\ny = x / 0", 5, "ZeroDivisionError: division by zero: 1/3 / 0"},
+		{"frac(1, 0)", 4, "ZeroDivisionError"},
+		{"det(matrix([[1, 2, 3], [4, 5, 6]]))", 4, "2x3"},
+		{"matrix([[1, 2], [2, 4]]).inverse()", 4, "singular"},
+		{"open(\"x\")", 4, "PermissionError: open() is not available"},
+		{"import os", 4, "ImportError: module \"os\" is not available"},
+		{"import glob", 4, "not available"},
+		{"identity(\"float\", 0.1 + 0.2, frac(3, 10))", 4, "float64"},
+		{"identity(\"a\", 1, 1)\nidentity(\"a\", 2, 2)", 5, "already used at line 4"},
+		{"matrix([[1, 2], [3]])", 4, "row 1"},
+		{"frac(\"1/2/3\")", 4, "ValueError"},
+		{"def f():\n    return 1 / 0\nf()", 5, "called from line 6"},
+		{"matrix([[1, 2], [3, 4]])[2, 0]", 4, "IndexError"},
+	}
+	for _, c := range cases {
+		rep := runHere(t, c.src)
+		o := rep.Outcomes[0]
+		if o.Error == nil {
+			t.Errorf("%q: no error", c.src)
+			continue
+		}
+		if o.Error.Line != c.line || !strings.Contains(o.Error.Message, c.want) {
+			t.Errorf("%q: error at line %d %q, want line %d containing %q", c.src, o.Error.Line, o.Error.Message, c.line, c.want)
+		}
+	}
+}
+
+func TestLaterCellsNotRunAfterError(t *testing.T) {
+	rep := runHere(t, "x = 1", "y = 1 / 0", "print(x)")
+	if got := []cells.Status{rep.Outcomes[0].Status, rep.Outcomes[1].Status, rep.Outcomes[2].Status}; got[0] != cells.Ran || got[1] != cells.Failed || got[2] != cells.NotRun {
+		t.Errorf("statuses %v", got)
+	}
+	rep = Run(notebook(t, "x = 1", "y = 1 / 0", "print(x)"), Options{Settings: DefaultSettings, KeepGoing: true})
+	if rep.Outcomes[2].Output != "1\n" {
+		t.Errorf("keep-going: third cell printed %q", rep.Outcomes[2].Output)
+	}
+}
+
+func TestSetupAndFlags(t *testing.T) {
+	rep := runHere(t, "setup(precision=512, seed=9)")
+	if rep.Seed != 9 || rep.Precision != 512 {
+		t.Errorf("setup gave seed %d precision %d", rep.Seed, rep.Precision)
+	}
+	rep = Run(notebook(t, "setup(precision=512, seed=9)"), Options{Settings: Settings{Seed: 3, Precision: 128, SeedFixed: true, PrecisionFixed: true}})
+	if rep.Seed != 3 || rep.Precision != 128 {
+		t.Errorf("flags should win over setup: seed %d precision %d", rep.Seed, rep.Precision)
+	}
+}
+
+func TestRandomIsReproducible(t *testing.T) {
+	src := "show(random_matrix(2, 2, bound=100, denom=9))\nshow(random_matrix(2, 2, seed=4))"
+	a, b := runHere(t, src), runHere(t, src)
+	if output(t, a, 1) != output(t, b, 1) {
+		t.Errorf("reruns differ:\n%s\n%s", output(t, a, 1), output(t, b, 1))
+	}
+	c := Run(notebook(t, src), Options{Settings: Settings{Seed: 2, Precision: 256}})
+	if output(t, c, 1) == output(t, a, 1) {
+		t.Errorf("a different seed gave the same draws")
+	}
+}
+
+func TestTablesAndPrint(t *testing.T) {
+	rep := runHere(t, "table([[1, frac(1, 2)], [2, frac(1, 3)]], header=[\"n\", \"1/(n+1)\"])\nprint(\"a\", \"b\", sep=\"-\")\nimport sys\nsys.stdout.write(\"w\\n\")")
+	o := rep.Outcomes[0]
+	if len(o.Tables) != 1 || o.Tables[0].Rows[1][1] != "1/3" || o.Tables[0].Header[1] != "1/(n+1)" {
+		t.Errorf("table: %+v", o.Tables)
+	}
+	if o.Output != "a-b\nw\n" {
+		t.Errorf("output %q", o.Output)
+	}
+}
+
+func TestChildProcessRunsCells(t *testing.T) {
+	rep := runChild(t, Options{}, "x = frac(1, 3)", "identity(\"thirds\", 3 * x, 1)\nprint(x)")
+	if o := rep.Outcomes[1]; o.Error != nil || o.Output != "1/3\n" || len(o.Claims) != 1 || o.Claims[0].Verdict != cells.Holds {
+		t.Fatalf("child run: %+v", rep.Outcomes)
+	}
+}
+
+func TestTimeoutStopsCellAndReportsIt(t *testing.T) {
+	nb, err := cells.Parse("t.md", []byte("```cell\nx = 1\n```\n\n```cell timeout=300ms\nwhile True:\n    pass\n```\n\n```cell\nprint(x)\n```\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Setenv("ASSAY_TEST_KERNEL", "1")
+	rep := Run(nb, Options{Settings: DefaultSettings, Command: []string{os.Args[0]}})
+	o := rep.Outcomes[1]
+	if o.Status != cells.Failed || o.Error == nil || !strings.Contains(o.Error.Message, "time limit") || !strings.Contains(o.Error.Message, "timeout=") || o.Error.Line != 6 {
+		t.Fatalf("timeout outcome: %+v", o)
+	}
+	if rep.Outcomes[2].Status != cells.NotRun {
+		t.Errorf("cell after the timeout should not run")
+	}
+	// With --keep-going the kernel restarts, replays cell 1, and cell 3 sees x.
+	rep = Run(nb, Options{Settings: DefaultSettings, Command: []string{os.Args[0]}, KeepGoing: true})
+	if rep.Outcomes[2].Output != "1\n" {
+		t.Errorf("keep-going after a timeout: cell 3 gave %+v", rep.Outcomes[2])
+	}
+}
+
+func TestMemoryCapStopsCell(t *testing.T) {
+	if testing.Short() {
+		t.Skip("allocates a few hundred MiB")
+	}
+	start := time.Now()
+	rep := runChild(t, Options{MaxMemory: 150 << 20}, "x = []\nwhile True:\n    x.append([0] * 100000)")
+	o := rep.Outcomes[0]
+	if o.Error == nil || !strings.Contains(o.Error.Message, "memory cap") || !strings.Contains(o.Error.Message, "--max-memory") {
+		t.Fatalf("memory outcome: %+v", o)
+	}
+	if time.Since(start) > 30*time.Second {
+		t.Errorf("the memory cap took %s to act", time.Since(start))
+	}
+}

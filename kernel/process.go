@@ -1,0 +1,216 @@
+package kernel
+
+import (
+	"bytes"
+	"encoding/json"
+	"errors"
+	"fmt"
+	"io"
+	"os"
+	"os/exec"
+	"strconv"
+	"strings"
+	"sync"
+	"sync/atomic"
+	"time"
+
+	"assay/cells"
+)
+
+// LimitError is a cell stopped by a limit, or a kernel process that died.
+type LimitError struct {
+	Message string
+}
+
+func (e *LimitError) Error() string { return e.Message }
+
+// Process is a kernel child process driven over JSON lines.
+type Process struct {
+	cmd     *exec.Cmd
+	stdin   io.WriteCloser
+	replies chan Reply
+	exited  chan struct{}
+	stderr  *tail
+	maxMem  int64
+	overMem atomic.Bool
+}
+
+// StartProcess starts command (e.g. ["/path/assay", "kernel"]) and opens a
+// session with the given settings. maxMemory (bytes) caps the child's
+// resident memory; the child is killed when it crosses the cap.
+func StartProcess(command []string, s Settings, maxMemory int64) (*Process, error) {
+	cmd := exec.Command(command[0], command[1:]...)
+	cmd.Env = append(os.Environ(), "ASSAY_MAX_MEMORY="+strconv.FormatInt(maxMemory, 10))
+	stdin, err := cmd.StdinPipe()
+	if err != nil {
+		return nil, err
+	}
+	stdout, err := cmd.StdoutPipe()
+	if err != nil {
+		return nil, err
+	}
+	p := &Process{cmd: cmd, stdin: stdin, replies: make(chan Reply, 4), exited: make(chan struct{}), stderr: &tail{max: 8 << 10}, maxMem: maxMemory}
+	cmd.Stderr = p.stderr
+	if err := cmd.Start(); err != nil {
+		return nil, fmt.Errorf("cannot start the kernel process: %w", err)
+	}
+	go func() {
+		dec := json.NewDecoder(stdout)
+		for {
+			var r Reply
+			if err := dec.Decode(&r); err != nil {
+				break
+			}
+			p.replies <- r
+		}
+		cmd.Wait()
+		close(p.exited)
+	}()
+	if maxMemory > 0 {
+		go p.watchMemory()
+	}
+	reply, err := p.request(Request{Op: "start", Settings: &s}, 30*time.Second)
+	if err != nil {
+		p.Close()
+		return nil, err
+	}
+	if reply.Error != "" {
+		p.Close()
+		return nil, errors.New("kernel process: " + reply.Error)
+	}
+	return p, nil
+}
+
+// Run runs one cell, waiting at most timeout. A crossed limit or a dead
+// process is returned as *LimitError; the process is then unusable.
+func (p *Process) Run(c Cell, timeout time.Duration) (cells.Outcome, Settings, error) {
+	reply, err := p.request(Request{Op: "run", Cell: &c}, timeout)
+	if err != nil {
+		return cells.Outcome{}, Settings{}, err
+	}
+	if reply.Error != "" || reply.Outcome == nil {
+		return cells.Outcome{}, Settings{}, &LimitError{Message: "kernel process refused the cell: " + reply.Error}
+	}
+	return *reply.Outcome, reply.Settings, nil
+}
+
+func (p *Process) request(req Request, timeout time.Duration) (Reply, error) {
+	line, err := json.Marshal(req)
+	if err != nil {
+		return Reply{}, err
+	}
+	if _, err := p.stdin.Write(append(line, '\n')); err != nil {
+		return Reply{}, p.death()
+	}
+	timer := time.NewTimer(timeout)
+	defer timer.Stop()
+	select {
+	case r := <-p.replies:
+		return r, nil
+	case <-p.exited:
+		return Reply{}, p.death()
+	case <-timer.C:
+		p.kill()
+		return Reply{}, &LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)}
+	}
+}
+
+// death explains why the process ended.
+func (p *Process) death() error {
+	<-p.exited
+	text := p.stderr.String()
+	if p.overMem.Load() || strings.Contains(text, "out of memory") || strings.Contains(text, "cannot allocate memory") {
+		return &LimitError{Message: fmt.Sprintf("stopped: the cell needed more than the memory cap of %s; raise it with --max-memory", FormatBytes(p.maxMem))}
+	}
+	if strings.Contains(text, "stack exceeds") || strings.Contains(text, "goroutine stack exceeds") {
+		return &LimitError{Message: "stopped: recursion too deep (the interpreter's stack overflowed)"}
+	}
+	first := strings.SplitN(strings.TrimSpace(text), "\n", 2)[0]
+	if first == "" {
+		first = fmt.Sprint(p.cmd.ProcessState)
+	}
+	return &LimitError{Message: "the kernel process died: " + first}
+}
+
+func (p *Process) kill() {
+	if p.cmd.Process != nil {
+		p.cmd.Process.Kill()
+	}
+	<-p.exited
+}
+
+// watchMemory polls the child's resident set size (Linux /proc) and kills
+// it when it crosses the cap. The child also sets a soft Go memory limit.
+func (p *Process) watchMemory() {
+	path := fmt.Sprintf("/proc/%d/statm", p.cmd.Process.Pid)
+	page := int64(os.Getpagesize())
+	tick := time.NewTicker(20 * time.Millisecond)
+	defer tick.Stop()
+	for {
+		select {
+		case <-p.exited:
+			return
+		case <-tick.C:
+			data, err := os.ReadFile(path)
+			if err != nil {
+				return
+			}
+			fields := strings.Fields(string(data))
+			if len(fields) < 2 {
+				return
+			}
+			pages, _ := strconv.ParseInt(fields[1], 10, 64)
+			if pages*page > p.maxMem {
+				p.overMem.Store(true)
+				p.cmd.Process.Kill()
+				return
+			}
+		}
+	}
+}
+
+// Close ends the process.
+func (p *Process) Close() error {
+	p.stdin.Close()
+	select {
+	case <-p.exited:
+	case <-time.After(2 * time.Second):
+		p.kill()
+	}
+	return nil
+}
+
+// tail keeps the last max bytes written to it.
+type tail struct {
+	mu  sync.Mutex
+	buf bytes.Buffer
+	max int
+}
+
+func (t *tail) Write(b []byte) (int, error) {
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	t.buf.Write(b)
+	if extra := t.buf.Len() - t.max; extra > 0 {
+		t.buf.Next(extra)
+	}
+	return len(b), nil
+}
+
+func (t *tail) String() string {
+	t.mu.Lock()
+	defer t.mu.Unlock()
+	return t.buf.String()
+}
+
+// FormatBytes prints a byte count in binary units, e.g. "2 GiB".
+func FormatBytes(n int64) string {
+	units := []string{"B", "KiB", "MiB", "GiB", "TiB"}
+	f := float64(n)
+	i := 0
+	for f >= 1024 && i < len(units)-1 {
+		f /= 1024
+		i++
+	}
+	return strconv.FormatFloat(f, 'g', 4, 64) + " " + units[i]
+}

@@ -1,0 +1,359 @@
+package pyext
+
+import (
+	"fmt"
+	"reflect"
+	"strings"
+
+	"github.com/go-python/gpython/py"
+)
+
+// methodFunc is the calling convention of every method and builtin this
+// package defines.
+type methodFunc func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error)
+
+// newMethod wraps fn so that a Go panic inside it becomes a Python
+// exception instead of taking the whole process down (gpython does not
+// recover panics raised by methods), and turns it into a *py.Method.
+func newMethod(name, doc string, fn methodFunc) *py.Method {
+	guarded := func(self py.Object, args py.Tuple, kwargs py.StringDict) (res py.Object, err error) {
+		defer func() {
+			if r := recover(); r != nil {
+				res = nil
+				if exc, ok := r.(*py.Exception); ok {
+					err = exc
+					return
+				}
+				err = py.ExceptionNewf(py.SystemError, "%s: internal error: %v", name, r)
+			}
+		}()
+		return fn(self, args, kwargs)
+	}
+	return py.MustNewMethod(name, guarded, 0, doc)
+}
+
+// noKwargs reports a TypeError if kwargs is not empty.
+func noKwargs(name string, kwargs py.StringDict) error {
+	if len(kwargs) != 0 {
+		return py.ExceptionNewf(py.TypeError, "%s() takes no keyword arguments", name)
+	}
+	return nil
+}
+
+// nargs checks the number of positional arguments.
+func nargs(name string, args py.Tuple, min, max int) error {
+	n := len(args)
+	switch {
+	case n < min && min == max:
+		return py.ExceptionNewf(py.TypeError, "%s() takes exactly %d argument%s (%d given)", name, min, plural(min), n)
+	case n < min:
+		return py.ExceptionNewf(py.TypeError, "%s() takes at least %d argument%s (%d given)", name, min, plural(min), n)
+	case n > max && min == max:
+		return py.ExceptionNewf(py.TypeError, "%s() takes exactly %d argument%s (%d given)", name, max, plural(max), n)
+	case n > max:
+		return py.ExceptionNewf(py.TypeError, "%s() takes at most %d argument%s (%d given)", name, max, plural(max), n)
+	}
+	return nil
+}
+
+func plural(n int) string {
+	if n == 1 {
+		return ""
+	}
+	return "s"
+}
+
+// typeName is the Python name of o's type.
+func typeName(o py.Object) string {
+	if o == nil {
+		return "NULL"
+	}
+	t := o.Type()
+	if t == nil {
+		return "object"
+	}
+	return t.Name
+}
+
+// isNone reports whether o is absent or None.
+func isNone(o py.Object) bool {
+	if o == nil {
+		return true
+	}
+	_, ok := o.(py.NoneType)
+	return ok
+}
+
+// isUserInstance reports whether o is an instance of a class defined in
+// Python (gpython represents those as *py.Type values whose type is the
+// class).
+func isUserInstance(o py.Object) bool {
+	t, ok := o.(*py.Type)
+	if !ok || t.ObjectType == nil {
+		return false
+	}
+	cls := t.ObjectType
+	return cls != py.ObjectType && cls != py.TypeType && t.Base == cls
+}
+
+// userMethod returns the bound method name of a Python-defined instance, if
+// its class (or a base) defines it.
+func userMethod(o py.Object, name string) (py.Object, bool, error) {
+	if !isUserInstance(o) {
+		return nil, false, nil
+	}
+	if o.(*py.Type).ObjectType.NativeGetAttrOrNil(name) == nil {
+		return nil, false, nil
+	}
+	m, err := py.GetAttrString(o, name)
+	if err != nil {
+		return nil, true, err
+	}
+	return m, true, nil
+}
+
+// callUser calls the special method name of a Python-defined instance.
+// found is false when o is not such an instance or its class does not
+// define the method.
+func callUser(o py.Object, name string, args ...py.Object) (res py.Object, found bool, err error) {
+	m, found, err := userMethod(o, name)
+	if !found || err != nil {
+		return nil, found, err
+	}
+	res, err = py.Call(m, py.Tuple(args), nil)
+	return res, true, err
+}
+
+// iterate calls fn for every item of the iterable obj.
+func iterate(obj py.Object, fn func(py.Object) error) error {
+	switch x := obj.(type) {
+	case py.Tuple:
+		for _, item := range x {
+			if err := fn(item); err != nil {
+				return err
+			}
+		}
+		return nil
+	case *py.List:
+		// Snapshot so that fn may modify the list.
+		items := append([]py.Object(nil), x.Items...)
+		for _, item := range items {
+			if err := fn(item); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	it, err := py.Iter(obj)
+	if err != nil {
+		return err
+	}
+	for {
+		item, err := py.Next(it)
+		if err != nil {
+			if py.IsException(py.StopIteration, err) {
+				return nil
+			}
+			return err
+		}
+		if err := fn(item); err != nil {
+			return err
+		}
+	}
+}
+
+// collect returns the items of the iterable obj.
+func collect(obj py.Object) ([]py.Object, error) {
+	var out []py.Object
+	err := iterate(obj, func(item py.Object) error {
+		out = append(out, item)
+		return nil
+	})
+	return out, err
+}
+
+// truth is Python's bool(o).
+func truth(o py.Object) (bool, error) {
+	if res, found, err := callUser(o, "__bool__"); found {
+		if err != nil {
+			return false, err
+		}
+		b, ok := res.(py.Bool)
+		if !ok {
+			return false, py.ExceptionNewf(py.TypeError, "__bool__ should return bool, returned %s", typeName(res))
+		}
+		return bool(b), nil
+	}
+	if res, found, err := callUser(o, "__len__"); found {
+		if err != nil {
+			return false, err
+		}
+		n, err := py.IndexInt(res)
+		return n != 0, err
+	}
+	if isUserInstance(o) {
+		return true, nil
+	}
+	return py.ObjectIsTrue(o)
+}
+
+// sameObject reports whether a and b are the same object (Python's "is")
+// for reference types; value types compare false here and are left to
+// eqObjects.
+func sameObject(a, b py.Object) bool {
+	va, vb := reflect.ValueOf(a), reflect.ValueOf(b)
+	if va.Type() != vb.Type() {
+		return false
+	}
+	switch va.Kind() {
+	case reflect.Pointer, reflect.Map, reflect.Chan, reflect.Func, reflect.UnsafePointer:
+		return va.Pointer() == vb.Pointer()
+	}
+	return false
+}
+
+// eqObjects is Python's "a is b or a == b", as used by list.index,
+// list.count, list.remove and the in operator of containers.
+func eqObjects(a, b py.Object) (bool, error) {
+	if a == nil || b == nil {
+		return a == nil && b == nil, nil
+	}
+	if sameObject(a, b) {
+		return true, nil
+	}
+	if res, found, err := callUser(a, "__eq__", b); found {
+		if err != nil {
+			return false, err
+		}
+		if res != py.NotImplemented {
+			return truth(res)
+		}
+	}
+	if res, found, err := callUser(b, "__eq__", a); found {
+		if err != nil {
+			return false, err
+		}
+		if res != py.NotImplemented {
+			return truth(res)
+		}
+	}
+	if isUserInstance(a) || isUserInstance(b) {
+		return false, nil
+	}
+	res, err := py.Eq(a, b)
+	if err != nil {
+		// gpython raises TypeError for == between two objects of a type
+		// without __eq__; Python falls back to identity.
+		if isUnsupportedOperand(err) {
+			return false, nil
+		}
+		return false, err
+	}
+	return truth(res)
+}
+
+func isUnsupportedOperand(err error) bool {
+	return py.IsException(py.TypeError, err) && strings.Contains(fmt.Sprint(err), "unsupported operand type")
+}
+
+// lessThan is Python's a < b, extended where gpython's operator lacks it:
+// tuples and lists compare lexicographically, and instances of Python
+// classes use their __lt__ (or the reflected __gt__).
+func lessThan(a, b py.Object) (bool, error) {
+	switch x := a.(type) {
+	case py.Tuple:
+		if y, ok := b.(py.Tuple); ok {
+			return seqLess(x, y)
+		}
+	case *py.List:
+		if y, ok := b.(*py.List); ok {
+			return seqLess(x.Items, y.Items)
+		}
+	}
+	if res, found, err := callUser(a, "__lt__", b); found {
+		if err != nil {
+			return false, err
+		}
+		if res != py.NotImplemented {
+			return truth(res)
+		}
+	}
+	if res, found, err := callUser(b, "__gt__", a); found {
+		if err != nil {
+			return false, err
+		}
+		if res != py.NotImplemented {
+			return truth(res)
+		}
+	}
+	if isUserInstance(a) || isUserInstance(b) {
+		return false, py.ExceptionNewf(py.TypeError, "'<' not supported between instances of '%s' and '%s'", typeName(a), typeName(b))
+	}
+	res, err := py.Lt(a, b)
+	if err != nil {
+		return false, err
+	}
+	return truth(res)
+}
+
+func seqLess(x, y []py.Object) (bool, error) {
+	for i := 0; i < len(x) && i < len(y); i++ {
+		eq, err := eqObjects(x[i], y[i])
+		if err != nil {
+			return false, err
+		}
+		if !eq {
+			return lessThan(x[i], y[i])
+		}
+	}
+	return len(x) < len(y), nil
+}
+
+// keyError makes KeyError(key), whose str() is repr(key) as in CPython.
+func keyError(key py.Object) error {
+	return &py.Exception{Base: py.KeyError, Args: py.Tuple{key}, Dict: py.StringDict{}}
+}
+
+// toInt converts an object supporting __index__ to a Go int.
+func toInt(o py.Object) (int, error) {
+	if b, ok := o.(py.Bool); ok {
+		if b {
+			return 1, nil
+		}
+		return 0, nil
+	}
+	return py.IndexInt(o)
+}
+
+// adjustIndices applies Python's slice-index rules for the optional start
+// and end arguments of str and list methods, args[0] and args[1]. end is
+// clamped to [0, n]; start is clamped below at 0 but may exceed n (callers
+// treat start > end as an empty range).
+func adjustIndices(args py.Tuple, n int) (start, end int, err error) {
+	start, end = 0, n
+	if len(args) > 0 && !isNone(args[0]) {
+		if start, err = toInt(args[0]); err != nil {
+			return 0, 0, err
+		}
+	}
+	if len(args) > 1 && !isNone(args[1]) {
+		if end, err = toInt(args[1]); err != nil {
+			return 0, 0, err
+		}
+	}
+	if end > n {
+		end = n
+	} else if end < 0 {
+		end += n
+		if end < 0 {
+			end = 0
+		}
+	}
+	if start < 0 {
+		start += n
+		if start < 0 {
+			start = 0
+		}
+	}
+	return start, end, nil
+}
