@@ -13,11 +13,9 @@ func builtin(name, doc string, f func(args py.Tuple, kw py.StringDict) (py.Objec
 	return py.MustNewMethod(name, func(self py.Object, args py.Tuple, kw py.StringDict) (res py.Object, err error) {
 		defer func() {
 			if r := recover(); r != nil {
-				if e, ok := r.(error); ok {
-					if _, isPy := r.(*py.Exception); isPy {
-						err = e
-						return
-					}
+				if e, ok := r.(*py.Exception); ok {
+					err = e // a Python exception raised by panic inside the interpreter
+					return
 				}
 				err = py.ExceptionNewf(py.RuntimeError, "internal error in %s(): %v\n%s", name, r, debug.Stack())
 			}

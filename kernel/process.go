@@ -30,7 +30,7 @@ type Process struct {
 	stdin   io.WriteCloser
 	replies chan Reply
 	exited  chan struct{}
-	stderr  *tail
+	stderr  *head
 	maxMem  int64
 	overMem atomic.Bool
 }
@@ -49,7 +49,7 @@ func StartProcess(command []string, s Settings, maxMemory int64) (*Process, erro
 	if err != nil {
 		return nil, err
 	}
-	p := &Process{cmd: cmd, stdin: stdin, replies: make(chan Reply, 4), exited: make(chan struct{}), stderr: &tail{max: 8 << 10}, maxMem: maxMemory}
+	p := &Process{cmd: cmd, stdin: stdin, replies: make(chan Reply, 4), exited: make(chan struct{}), stderr: &head{max: 16 << 10}, maxMem: maxMemory}
 	cmd.Stderr = p.stderr
 	if err := cmd.Start(); err != nil {
 		return nil, fmt.Errorf("cannot start the kernel process: %w", err)
@@ -180,27 +180,27 @@ func (p *Process) Close() error {
 	return nil
 }
 
-// tail keeps the last max bytes written to it.
-type tail struct {
+// head keeps the first max bytes written to it: a Go runtime crash states
+// its cause first and then dumps every goroutine.
+type head struct {
 	mu  sync.Mutex
 	buf bytes.Buffer
 	max int
 }
 
-func (t *tail) Write(b []byte) (int, error) {
-	t.mu.Lock()
-	defer t.mu.Unlock()
-	t.buf.Write(b)
-	if extra := t.buf.Len() - t.max; extra > 0 {
-		t.buf.Next(extra)
+func (h *head) Write(b []byte) (int, error) {
+	h.mu.Lock()
+	defer h.mu.Unlock()
+	if room := h.max - h.buf.Len(); room > 0 {
+		h.buf.Write(b[:min(len(b), room)])
 	}
 	return len(b), nil
 }
 
-func (t *tail) String() string {
-	t.mu.Lock()
-	defer t.mu.Unlock()
-	return t.buf.String()
+func (h *head) String() string {
+	h.mu.Lock()
+	defer h.mu.Unlock()
+	return h.buf.String()
 }
 
 // FormatBytes prints a byte count in binary units, e.g. "2 GiB".

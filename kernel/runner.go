@@ -103,9 +103,10 @@ func Run(nb *cells.Notebook, opt Options) *cells.Report {
 		if b.Options.Timeout > 0 {
 			timeout = b.Options.Timeout
 		}
+		cellStart := time.Now()
 		out, s, err := exec.run(c, timeout)
 		if err != nil {
-			out = cells.Outcome{Cell: b.Index, Status: cells.Failed, Seconds: timeout.Seconds(),
+			out = cells.Outcome{Cell: b.Index, Status: cells.Failed, Seconds: time.Since(cellStart).Seconds(),
 				Error: &cells.Problem{Cell: b.Index, Line: b.Line, Message: err.Error()}}
 			rep.Outcomes[i] = out
 			if !opt.KeepGoing {

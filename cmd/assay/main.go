@@ -318,6 +318,9 @@ reply per line on stdout. 'assay run' drives it as a child process.
 	if v, err := strconv.ParseInt(os.Getenv("ASSAY_MAX_MEMORY"), 10, 64); err == nil && v > 0 {
 		debug.SetMemoryLimit(v) // soft: the parent enforces the hard cap
 	}
+	// A runaway recursion should end the cell in a second, not after
+	// growing a gigabyte of stack.
+	debug.SetMaxStack(64 << 20)
 	if err := kernel.Serve(os.Stdin, os.Stdout); err != nil {
 		fmt.Fprintln(stderr, "assay kernel:", err)
 		return 2

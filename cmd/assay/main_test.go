@@ -64,6 +64,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"import-os.md", 4, "ImportError: module \"os\" is not available"},
 		{"loop-forever.md", 8, "time limit"},
 		{"unbounded-memory.md", 4, "memory cap"},
+		{"deep-recursion.md", 4, "recursion too deep"},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {

@@ -9,36 +9,10 @@ import (
 // gpython's dict is py.StringDict (type py.StringDictType), a Go map that
 // only admits str keys; its methods are registered there.
 
-// dictSelf resolves the dict a method operates on, for bound (d.copy())
-// and unbound (dict.copy(d)) calls.
-func dictSelf(name string, self py.Object, args py.Tuple) (py.StringDict, py.Tuple, error) {
-	if d, ok := self.(py.StringDict); ok {
-		return d, args, nil
-	}
-	if len(args) == 0 {
-		return nil, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' of 'dict' object needs an argument", name)
-	}
-	d, ok := args[0].(py.StringDict)
-	if !ok {
-		return nil, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' requires a 'dict' object but received a '%s'", name, typeName(args[0]))
-	}
-	return d, args[1:], nil
-}
-
+// dictMethod registers a dict method taking min to max positional
+// arguments.
 func dictMethod(name string, min, max int, doc string, fn func(d py.StringDict, args py.Tuple) (py.Object, error)) {
-	py.StringDictType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		d, args, err := dictSelf(name, self, args)
-		if err != nil {
-			return nil, err
-		}
-		if err := noKwargs(name, kwargs); err != nil {
-			return nil, err
-		}
-		if err := nargs(name, args, min, max); err != nil {
-			return nil, err
-		}
-		return fn(d, args)
-	})
+	positionalMethod(py.StringDictType, name, min, max, doc, fn)
 }
 
 // strKey returns key as a Go string for storing into a dict.
@@ -189,7 +163,7 @@ func installDict() {
 	})
 
 	py.StringDictType.Dict["update"] = newMethod("update", "D.update([E, ]**F) -> None.  Update D from dict/iterable E and F.", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		d, args, err := dictSelf("update", self, args)
+		d, args, err := receiver[py.StringDict](py.StringDictType, "update", self, args)
 		if err != nil {
 			return nil, err
 		}

@@ -357,3 +357,39 @@ func adjustIndices(args py.Tuple, n int) (start, end int, err error) {
 	}
 	return start, end, nil
 }
+
+// receiver resolves the object a method of typ operates on: self in a bound
+// call ("x".upper(), l.pop()), or the first argument in a call through the
+// type (str.upper("x"), map(str.strip, lines)), where self is not a T.
+func receiver[T py.Object](typ *py.Type, name string, self py.Object, args py.Tuple) (T, py.Tuple, error) {
+	var zero T
+	if v, ok := self.(T); ok {
+		return v, args, nil
+	}
+	if len(args) == 0 {
+		return zero, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' of '%s' object needs an argument", name, typ.Name)
+	}
+	v, ok := args[0].(T)
+	if !ok {
+		return zero, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' requires a '%s' object but received a '%s'", name, typ.Name, typeName(args[0]))
+	}
+	return v, args[1:], nil
+}
+
+// positionalMethod registers a method of typ taking positional arguments
+// only, at least min and at most max of them.
+func positionalMethod[T py.Object](typ *py.Type, name string, min, max int, doc string, fn func(self T, args py.Tuple) (py.Object, error)) {
+	typ.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		v, args, err := receiver[T](typ, name, self, args)
+		if err != nil {
+			return nil, err
+		}
+		if err := noKwargs(name, kwargs); err != nil {
+			return nil, err
+		}
+		if err := nargs(name, args, min, max); err != nil {
+			return nil, err
+		}
+		return fn(v, args)
+	})
+}

@@ -6,38 +6,10 @@ import (
 	"github.com/go-python/gpython/py"
 )
 
-// listSelf resolves the list a method operates on, for bound (l.pop())
-// and unbound (list.pop(l)) calls.
-func listSelf(name string, self py.Object, args py.Tuple) (*py.List, py.Tuple, error) {
-	if l, ok := self.(*py.List); ok {
-		return l, args, nil
-	}
-	if len(args) == 0 {
-		return nil, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' of 'list' object needs an argument", name)
-	}
-	l, ok := args[0].(*py.List)
-	if !ok {
-		return nil, nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' requires a 'list' object but received a '%s'", name, typeName(args[0]))
-	}
-	return l, args[1:], nil
-}
-
 // listMethod registers a list method taking min to max positional
 // arguments.
 func listMethod(name string, min, max int, doc string, fn func(l *py.List, args py.Tuple) (py.Object, error)) {
-	py.ListType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		l, args, err := listSelf(name, self, args)
-		if err != nil {
-			return nil, err
-		}
-		if err := noKwargs(name, kwargs); err != nil {
-			return nil, err
-		}
-		if err := nargs(name, args, min, max); err != nil {
-			return nil, err
-		}
-		return fn(l, args)
-	})
+	positionalMethod(py.ListType, name, min, max, doc, fn)
 }
 
 // indexOf returns the index of the first item of items[start:end] equal to
@@ -245,7 +217,7 @@ func installList() {
 	})
 
 	py.ListType.Dict["sort"] = newMethod("sort", "L.sort(key=None, reverse=False) -> None -- stable sort *IN PLACE*", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		l, args, err := listSelf("sort", self, args)
+		l, args, err := receiver[*py.List](py.ListType, "sort", self, args)
 		if err != nil {
 			return nil, err
 		}

@@ -8,45 +8,19 @@ import (
 	"github.com/go-python/gpython/py"
 )
 
-// strSelf resolves the str a method operates on. Bound calls ("x".upper())
-// pass it as self; unbound calls (str.upper("x"), map(str.strip, lines))
-// pass it as the first argument, with self not a str.
-func strSelf(name string, self py.Object, args py.Tuple) (string, py.Tuple, error) {
-	if s, ok := self.(py.String); ok {
-		return string(s), args, nil
-	}
-	if len(args) == 0 {
-		return "", nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' of 'str' object needs an argument", name)
-	}
-	s, ok := args[0].(py.String)
-	if !ok {
-		return "", nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' requires a 'str' object but received a '%s'", name, typeName(args[0]))
-	}
-	return string(s), args[1:], nil
-}
-
 // strMethod registers a str method taking positional arguments only, with
 // at least min and at most max of them.
 func strMethod(name string, min, max int, doc string, fn func(s string, args py.Tuple) (py.Object, error)) {
-	py.StringType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		s, args, err := strSelf(name, self, args)
-		if err != nil {
-			return nil, err
-		}
-		if err := noKwargs(name, kwargs); err != nil {
-			return nil, err
-		}
-		if err := nargs(name, args, min, max); err != nil {
-			return nil, err
-		}
-		return fn(s, args)
+	positionalMethod(py.StringType, name, min, max, doc, func(s py.String, args py.Tuple) (py.Object, error) {
+		return fn(string(s), args)
 	})
 }
 
 // strMethodKw registers a str method that accepts keyword arguments.
 func strMethodKw(name, doc string, fn func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error)) {
 	py.StringType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		s, args, err := strSelf(name, self, args)
+		recv, args, err := receiver[py.String](py.StringType, name, self, args)
+		s := string(recv)
 		if err != nil {
 			return nil, err
 		}
