@@ -97,6 +97,9 @@ func lineEnd(nb *Notebook) string {
 			return "\n"
 		}
 	}
+	if strings.HasSuffix(string(nb.Source), "\r") {
+		return "\r\n" // a one-line file ending in a lone CR
+	}
 	return "\n"
 }
 
@@ -122,7 +125,11 @@ func afterHeading(text string) int {
 
 // newline ends the current line if it is not ended.
 func (w *mdWriter) newline() {
-	if n := w.b.Len(); n > 0 && w.b.Bytes()[n-1] != '\n' {
+	switch n := w.b.Len(); {
+	case n == 0 || w.b.Bytes()[n-1] == '\n':
+	case w.b.Bytes()[n-1] == '\r' && w.eol == "\r\n":
+		w.b.WriteByte('\n') // complete the CRLF the text began
+	default:
 		w.b.WriteString(w.eol)
 	}
 }

@@ -303,3 +303,55 @@ func TestMemoryCapStopsCell(t *testing.T) {
 		t.Errorf("the memory cap took %s to act", time.Since(start))
 	}
 }
+
+// Builtins called the wrong way raise a Python exception with a message,
+// never a Go panic (which would read "internal error").
+func TestBuiltinsRejectBadArguments(t *testing.T) {
+	cases := []struct{ src, want string }{
+		{`matrix("abc")`, "TypeError"},
+		{`matrix([[1, 2], [3, "x"]])`, "matrix entry [1, 1] is a str"},
+		{`matrix([[1, 0.5]])`, "float64"},
+		{`matrix([])`, "at least one row"},
+		{`det(5)`, "TypeError"},
+		{`frac(None)`, "TypeError"},
+		{`frac("1e999999999")`, "ValueError"},
+		{`frac(float("nan"))`, "ValueError"},
+		{`identity(1, 2, 3)`, "name must be a string"},
+		{`identity("x", lambda: 5)`, "pair (lhs, rhs)"},
+		{`identity("x", 1)`, "missing rhs"},
+		{`identity("x", "a", "a")`, "exact numbers"},
+		{`identity("x", matrix([[1]]), matrix([[1, 2]]))`, "ValueError"},
+		{`identity("x", [1, 2], [1])`, "different lengths"},
+		{`identity("x", lambda s: (s, s), over=lambda k: k, samples=0)`, "samples must be between"},
+		{`identity("x", lambda s: (s, s), over=lambda k: 1 / 0, samples=3)`, "ZeroDivisionError"},
+		{`identity("x", 1, 1, bogus=2)`, "no argument \"bogus\""},
+		{`table(5)`, "must be a list"},
+		{`table([[1, 2], [3]])`, "row 1 has 1 entries"},
+		{`show()`, "missing its argument"},
+		{`random_matrix(0, 0)`, "ValueError"},
+		{`unit_matrix(-1)`, "ValueError"},
+		{`matrix([[1, 2], [3, 4]])[1, 2, 3]`, "[row, column]"},
+		{`matrix([[1, 2], [3, 4]]) ** frac(1, 2)`, "integer exponent"},
+		{`matrix([[1, 2], [3, 4]]) * "x"`, "TypeError"},
+		{`frac(1, 2) ** frac(1, 2)`, "integer exponent"},
+		{`frac(2) ** (2 ** 40)`, "too large"},
+		{`0 ** -1`, "ZeroDivisionError"},
+		{`setup(precision=1)`, "at least 2 bits"},
+		{`print("x", file=None)`, "PermissionError"},
+		{`matrix([[1, 2], [3, 4]]).solve([1, 2, 3])`, "ValueError"},
+		{`matrix([[1, 2], [3, 4]]).minor([0], [0, 1])`, "ValueError"},
+		{`matrix([[1, 2], [3, 4]]).submatrix([0, 5], [0])`, "ValueError"},
+		{`matrix([[1, 2], [2, 4]]).to_float().solve([1, 2])`, "singular"},
+	}
+	for _, c := range cases {
+		rep := runHere(t, c.src)
+		o := rep.Outcomes[0]
+		if o.Error == nil {
+			t.Errorf("%s: no error", c.src)
+			continue
+		}
+		if !strings.Contains(o.Error.Message, c.want) || strings.Contains(o.Error.Message, "internal error") {
+			t.Errorf("%s: %q, want it to mention %q", c.src, o.Error.Message, c.want)
+		}
+	}
+}
