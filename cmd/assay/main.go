@@ -167,6 +167,11 @@ Flags:
 			fmt.Fprintln(stderr, "assay run: --in-place writes the notebook itself; drop -o")
 			return 2
 		}
+		if len(rep.Problems) > 0 {
+			cells.RenderCheck(stdout, rep)
+			fmt.Fprintf(stdout, "%s left unchanged: it could not be parsed\n", path)
+			return 2
+		}
 		if err := cells.WriteFileAtomic(path, cells.RenderMarkdown(rep, false)); err != nil {
 			fmt.Fprintln(stderr, "assay run:", err)
 			return 2

@@ -290,3 +290,13 @@ func TestReferenceNotebooks(t *testing.T) {
 		}
 	}
 }
+
+func TestInPlaceLeavesUnparsableNotebookAlone(t *testing.T) {
+	nb := copyNotebook(t, "../../testdata/bad/unclosed-fence.md")
+	before, _ := os.ReadFile(nb)
+	code, out, _ := assay(t, "run", "--in-place", nb)
+	after, _ := os.ReadFile(nb)
+	if code != 2 || !bytes.Equal(before, after) || !strings.Contains(out, "left unchanged") {
+		t.Errorf("exit %d, changed %v\n%s", code, !bytes.Equal(before, after), out)
+	}
+}
