@@ -57,6 +57,7 @@ func RenderHTML(r *Report) []byte {
 		repl = append(repl, para("figure"+strconv.Itoa(i)), figureHTML(f))
 	}
 	body = strings.NewReplacer(repl...).Replace(body)
+	body = tableCode.ReplaceAllStringFunc(body, typeset)
 	if strings.Contains(body, "assay"+marks.nonce) {
 		// A placeholder did not come out as its own paragraph (it cannot in
 		// the Markdown we write); drop them all rather than leave stray tags.
@@ -85,6 +86,19 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 		return ast.GoToNext, true
 	}
 	return ast.GoToNext, false
+}
+
+var (
+	tableCode = regexp.MustCompile(`<td><code>[^<]*</code></td>`)
+	power     = regexp.MustCompile(`\^([0-9]+)`)
+)
+
+// typeset sets a formula in a table cell (a residual, say) as mathematics
+// is printed: exponents raised, products as a centred dot. Only digits are
+// moved into markup, so the escaping of the text is kept.
+func typeset(cell string) string {
+	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
+	return strings.ReplaceAll(cell, "*", "·")
 }
 
 var (

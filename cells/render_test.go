@@ -376,3 +376,17 @@ func TestProblemMessageLine(t *testing.T) {
 		t.Errorf("json:\n%s", js)
 	}
 }
+
+func TestHTMLTypesetsFormulasInTables(t *testing.T) {
+	nb, _ := Parse("p.md", []byte("# p\n\n```cell\nx\n```\n"))
+	r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
+		{Name: "poly", Kind: "identity", Verdict: Fails, Residual: "2*a^2*b - c^10 + 1/2", Cell: 1, Line: 4},
+	}}}}
+	page := string(RenderHTML(r))
+	if !strings.Contains(page, "<code>2·a<sup>2</sup>·b - c<sup>10</sup> + 1/2</code>") {
+		t.Errorf("residual not typeset:\n%s", page)
+	}
+	if !strings.Contains(string(RenderMarkdown(r, true)), "`2*a^2*b - c^10 + 1/2`") {
+		t.Errorf("the Markdown report must keep the plain text")
+	}
+}

@@ -7,6 +7,13 @@
 // FloatSolve) so that callers can show where floating point and exact
 // arithmetic part ways.
 //
+// Sparse multivariate polynomials over Q (Poly, made in a Ring of variable
+// names) add, multiply, divide exactly or with remainder, and give gcds,
+// resultants and discriminants, all exactly, with the further sentinel
+// errors ErrTooManyTerms, ErrExponentRange, ErrRingMismatch and ErrDegree;
+// the representation and its measurements are described at the top of
+// poly.go.
+//
 // The package is pure algebra: it knows nothing of Python, notebook cells or
 // reports. Failures are reported with the sentinel errors ErrDivisionByZero,
 // ErrNotSquare, ErrSingular, ErrShape, ErrSyntax and ErrNotFinite, wrapped with

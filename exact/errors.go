@@ -19,4 +19,15 @@ var (
 	// ErrNotFinite reports a NaN or infinite float64 where a finite value is
 	// needed.
 	ErrNotFinite = errors.New("not a finite number")
+	// ErrTooManyTerms reports a polynomial result that would exceed the
+	// ring's term cap (Ring.MaxTerms).
+	ErrTooManyTerms = errors.New("too many terms")
+	// ErrExponentRange reports an exponent that is negative where it may
+	// not be, or above MaxExponent.
+	ErrExponentRange = errors.New("exponent out of range")
+	// ErrRingMismatch reports polynomials from different rings combined.
+	ErrRingMismatch = errors.New("polynomials from different rings")
+	// ErrDegree reports a polynomial whose degree does not suit the
+	// operation (the discriminant of a polynomial of degree 0).
+	ErrDegree = errors.New("unsuitable degree")
 )

@@ -324,18 +324,23 @@ func (m *Matrix) Power(k int) (*Matrix, error) {
 
 // String formats m row by row, e.g. "[[1, 2], [3/4, -5]]".
 func (m *Matrix) String() string {
+	return formatRows(m.rows, m.cols, func(i, j int) string { return FormatRat(m.at(i, j)) })
+}
+
+// formatRows writes a rows×cols grid of entries as nested brackets.
+func formatRows(rows, cols int, entry func(i, j int) string) string {
 	var b strings.Builder
 	b.WriteByte('[')
-	for i := 0; i < m.rows; i++ {
+	for i := 0; i < rows; i++ {
 		if i > 0 {
 			b.WriteString(", ")
 		}
 		b.WriteByte('[')
-		for j := 0; j < m.cols; j++ {
+		for j := 0; j < cols; j++ {
 			if j > 0 {
 				b.WriteString(", ")
 			}
-			b.WriteString(FormatRat(m.at(i, j)))
+			b.WriteString(entry(i, j))
 		}
 		b.WriteByte(']')
 	}

@@ -20,11 +20,7 @@ func (s *Session) install(b py.StringDict) {
 		if err != nil {
 			return nil, err
 		}
-		m, err := matrixFrom(a[0])
-		if err != nil {
-			return nil, err
-		}
-		return matrixObject(m), nil
+		return matrixFrom(s.ring, a[0])
 	})
 	b["det"] = builtin("det", "det(M) -> exact determinant of a square matrix", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		a, err := bind("det", args, kw, []string{"M"}, 1)
@@ -35,15 +31,14 @@ func (s *Session) install(b py.StringDict) {
 			d, err := exact.FloatDet(f.m)
 			return py.Float(d), wrapErr(err)
 		}
-		m, err := matrixFrom(a[0])
+		m, err := matrixFrom(s.ring, a[0])
 		if err != nil {
 			return nil, err
 		}
-		d, err := m.Det()
-		if err != nil {
-			return nil, wrapErr(err)
+		if m.rows() != m.cols() {
+			return nil, py.ExceptionNewf(py.ValueError, "det needs a square matrix, got %dx%d", m.rows(), m.cols())
 		}
-		return newRational(d), nil
+		return m.det()
 	})
 	b["unit_matrix"] = builtin("unit_matrix", "unit_matrix(n) -> the n x n identity matrix", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		a, err := bind("unit_matrix", args, kw, []string{"n"}, 1)
@@ -57,28 +52,38 @@ func (s *Session) install(b py.StringDict) {
 		if n < 1 || n > 10000 {
 			return nil, py.ExceptionNewf(py.ValueError, "unit_matrix(n) needs 1 <= n <= 10000, got %d", n)
 		}
-		return matrixObject(exact.Identity(int(n))), nil
+		return rationalMatrix(s.ring, exact.Identity(int(n))), nil
 	})
 	b["random_matrix"] = builtin("random_matrix", "random_matrix(rows, cols, bound=10, denom=1, seed=None) -> matrix of random rationals p/q, |p| <= bound, 1 <= q <= denom", s.randomMatrix)
 	b["show"] = builtin("show", "show(value, label=None) puts a value in the report", s.show)
 	b["table"] = builtin("table", "table(rows, header=None) puts a table in the report", s.table)
 	b["setup"] = builtin("setup", "setup(precision=256, seed=1) sets notebook defaults; command-line flags win", s.setup)
-	b["identity"] = builtin("identity", identityDoc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-		return s.identity(s.line, args, kw)
-	})
+	claims := map[string]func(line int, args py.Tuple, kw py.StringDict) (py.Object, error){
+		"identity":      s.identity,
+		"factorization": s.factorization,
+	}
+	docs := map[string]string{"identity": identityDoc, "factorization": factorizationDoc}
+	for name, impl := range claims {
+		b[name] = builtin(name, docs[name], func(args py.Tuple, kw py.StringDict) (py.Object, error) {
+			return impl(s.line, args, kw)
+		})
+	}
 	b[siteName] = builtin(siteName, "internal: tags a claim call with its notebook line", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		if len(args) != 2 {
 			return nil, py.ExceptionNewf(py.TypeError, "%s takes a line and a function", siteName)
 		}
 		line, _ := args[0].(py.Int)
 		fn := args[1]
-		if m, ok := fn.(*py.Method); !ok || m.Name != "identity" || b["identity"] != fn {
+		m, ok := fn.(*py.Method)
+		if !ok || claims[m.Name] == nil || b[m.Name] != fn {
 			return fn, nil // the name was rebound by the notebook: call it as it is
 		}
-		return builtin("identity", identityDoc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-			return s.identity(int(line), args, kw)
+		impl := claims[m.Name]
+		return builtin(m.Name, docs[m.Name], func(args py.Tuple, kw py.StringDict) (py.Object, error) {
+			return impl(int(line), args, kw)
 		}), nil
 	})
+	s.installPolynomials(b)
 }
 
 func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
@@ -283,5 +288,5 @@ func (s *Session) randomMatrix(args py.Tuple, kw py.StringDict) (py.Object, erro
 			m.Set(i, j, big.NewRat(p, q))
 		}
 	}
-	return matrixObject(m), nil
+	return rationalMatrix(s.ring, m), nil
 }

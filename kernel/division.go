@@ -45,6 +45,14 @@ func exactOpcode(original func(*vm.Vm, int32) error, exact func(a, b py.Object) 
 func exactQuotient(a, b py.Object) (py.Object, bool, error) {
 	x, ok1 := exactOf(a)
 	y, ok2 := exactOf(b)
+	if ok1 && !ok2 {
+		// int / polynomial would otherwise fail inside the int's own
+		// division with a message about float conversion.
+		if d, ok := b.(py.I__rtruediv__); ok && isAssayValue(b) {
+			res, err := d.M__rtruediv__(a)
+			return res, res != py.NotImplemented || err != nil, err
+		}
+	}
 	if !ok1 || !ok2 {
 		return nil, false, nil
 	}
@@ -68,4 +76,13 @@ func exactNegativePower(a, b py.Object) (py.Object, bool, error) {
 	}
 	res, err := exactPower(a, b)
 	return res, true, err
+}
+
+// isAssayValue reports whether o is one of the kernel's own value types.
+func isAssayValue(o py.Object) bool {
+	switch o.(type) {
+	case *Rational, *Polynomial, *Matrix:
+		return true
+	}
+	return false
 }

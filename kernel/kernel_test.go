@@ -62,8 +62,41 @@ func output(t *testing.T, rep *cells.Report, cell int) string {
 	return o.Output
 }
 
+// printCase is a cell and what it must print.
+type printCase struct{ src, want string }
+
+// expectPrints runs each cell alone and compares what it printed.
+func expectPrints(t *testing.T, cases []printCase) {
+	t.Helper()
+	for _, c := range cases {
+		rep := runHere(t, c.src)
+		if got := strings.TrimSpace(output(t, rep, 1)); got != c.want {
+			t.Errorf("%q printed %q, want %q", c.src, got, c.want)
+		}
+	}
+}
+
+// errorCase is a cell that must fail with a message containing want.
+type errorCase struct{ src, want string }
+
+// expectErrors runs each cell alone: it must fail with a clear Python
+// exception, never an internal error (a Go panic).
+func expectErrors(t *testing.T, cases []errorCase) {
+	t.Helper()
+	for _, c := range cases {
+		o := runHere(t, c.src).Outcomes[0]
+		if o.Error == nil {
+			t.Errorf("%q: no error", c.src)
+			continue
+		}
+		if !strings.Contains(o.Error.Message, c.want) || strings.Contains(o.Error.Message, "internal error") {
+			t.Errorf("%q: %q, want it to mention %q", c.src, o.Error.Message, c.want)
+		}
+	}
+}
+
 func TestExactArithmetic(t *testing.T) {
-	cases := []struct{ src, want string }{
+	cases := []printCase{
 		{"print(1/3)", "1/3"},
 		{"print(1/3 + 1/6)", "1/2"},
 		{"print(2**-3)", "1/8"},
@@ -84,16 +117,11 @@ func TestExactArithmetic(t *testing.T) {
 		{"print(int(frac(-7, 2)))", "-3"},
 		{"print([1, 2, 3][frac(4, 2)])", "3"},
 	}
-	for _, c := range cases {
-		rep := runHere(t, c.src)
-		if got := strings.TrimSpace(output(t, rep, 1)); got != c.want {
-			t.Errorf("%q printed %q, want %q", c.src, got, c.want)
-		}
-	}
+	expectPrints(t, cases)
 }
 
 func TestMatrices(t *testing.T) {
-	cases := []struct{ src, want string }{
+	cases := []printCase{
 		{"print(det(matrix([[1, 2], [3, 4]])))", "-2"},
 		{"M = matrix([[2, 0], [0, frac(1, 2)]])\nprint(M.det(), M.rank(), M.inverse()[1, 1])", "1 2 2"},
 		{"print(matrix([[1, 2], [3, 4]]) * matrix([[0, 1], [1, 0]]) == matrix([[2, 1], [4, 3]]))", "True"},
@@ -113,12 +141,7 @@ func TestMatrices(t *testing.T) {
 		{"def d(n):\n    def inc():\n        return [n + i for i in range(1)][0]\n    return inc()\nprint(d(5))", "5"},
 		{"show(matrix([[1, frac(-1, 2)], [10, 3]]), label=\"M\")", "M =\n[  1 -1/2 ]\n[ 10    3 ]"},
 	}
-	for _, c := range cases {
-		rep := runHere(t, c.src)
-		if got := strings.TrimSpace(output(t, rep, 1)); got != c.want {
-			t.Errorf("%q printed %q, want %q", c.src, got, c.want)
-		}
-	}
+	expectPrints(t, cases)
 }
 
 // Reference values: 1/det(H_n) for the Hilbert matrix is OEIS A005249
@@ -307,7 +330,7 @@ func TestMemoryCapStopsCell(t *testing.T) {
 // Builtins called the wrong way raise a Python exception with a message,
 // never a Go panic (which would read "internal error").
 func TestBuiltinsRejectBadArguments(t *testing.T) {
-	cases := []struct{ src, want string }{
+	cases := []errorCase{
 		{`matrix("abc")`, "TypeError"},
 		{`matrix([[1, 2], [3, "x"]])`, "matrix entry [1, 1] is a str"},
 		{`matrix([[1, 0.5]])`, "float64"},
@@ -343,15 +366,83 @@ func TestBuiltinsRejectBadArguments(t *testing.T) {
 		{`matrix([[1, 2], [3, 4]]).submatrix([0, 5], [0])`, "ValueError"},
 		{`matrix([[1, 2], [2, 4]]).to_float().solve([1, 2])`, "singular"},
 	}
-	for _, c := range cases {
-		rep := runHere(t, c.src)
-		o := rep.Outcomes[0]
-		if o.Error == nil {
-			t.Errorf("%s: no error", c.src)
-			continue
+	expectErrors(t, cases)
+}
+
+func TestPolynomials(t *testing.T) {
+	cases := []printCase{
+		{"a, b = variables(\"a b\")\nprint((a + b) ** 2)", "a^2 + 2*a*b + b^2"},
+		{"a, b = variables(\"a b\")\nprint(polynomial(\"2*a^2*b - b\") == 2*a**2*b - b)", "True"},
+		{"a, b = variables(\"a b\")\np = (a + 2*b) ** 3\nprint(p.at(a=1, b=frac(1, 2)), p.at(b=0))", "8 a^3"},
+		{"a, b = variables(\"a b\")\nprint((a**2 * b).derivative(\"a\"), (a**3 * b**2 + b).degree(), (a**3 * b**2).degree(\"b\"))", "2*a*b 5 2"},
+		{"a, b = variables(\"a b\")\nprint((a + b).substitute(a=b - 1))", "2*b - 1"},
+		{"a, b = variables(\"a b\")\nprint(len(a + b + 1), (a + b).terms())", "3 [(1, {'a': 1}), (1, {'b': 1})]"},
+		{"a, b = variables(\"a b\")\nprint((3*a**2*b + a).coefficient(a=2, b=1), (3*a**2*b + a).coefficient(a**2*b))", "3 3"},
+		{"a, b = variables(\"a b\")\nprint((a**2 - b**2).divide(a - b))", "a + b"},
+		{"a, b = variables(\"a b\")\nprint((a + b) / 2, 1 / 2 * a)", "1/2*a + 1/2*b 1/2*a"},
+		{"a = variables(\"a\")\nprint(gcd(a**2 - 1, a**2 + 2*a + 1))", "a + 1"},
+		{"a, b = variables(\"a b\")\nprint((a*b + a).is_homogeneous(), (a*b + a**2).is_homogeneous())", "False True"},
+		{"a, b = variables(\"a b\")\nprint((6*a + 4*b).content(), (6*a + 4*b).primitive_part())", "2 3*a + 2*b"},
+		{"a, b = variables(\"a b\")\nM = matrix([[a, b], [b, a]])\nprint(det(M), M.at(a=2, b=1).det())", "a^2 - b^2 3"},
+		{"a = variables(\"a\")\nprint(matrix([[1, 2], [3, 4]]).characteristic_polynomial(\"t\"))", "t^2 - 5*t - 2"},
+	}
+	expectPrints(t, cases)
+}
+
+func TestPolynomialClaims(t *testing.T) {
+	rep := runHere(t, "a, b = variables(\"a b\")\n"+
+		"identity(\"square of a sum\", (a + b)**2, a**2 + 2*a*b + b**2)\n"+
+		"identity(\"a wrong square\", (a + b)**2, a**2 + b**2)\n"+
+		"factorization(\"difference of squares\", 3*a**2 - 3*b**2, [a - b, a + b])\n"+
+		"factorization(\"a cube\", a**3 + 3*a**2*b + 3*a*b**2 + b**3, [(a + b, 3)])\n"+
+		"factorization(\"a wrong factorization\", a**2 + b**2, [a + b, a - b])")
+	want := []struct {
+		verdict  cells.Verdict
+		residual string
+	}{
+		{cells.Holds, "0"}, {cells.Fails, "2*a*b"}, {cells.Holds, "0"}, {cells.Holds, "0"}, {cells.Fails, "2*b^2"},
+	}
+	claims := rep.Outcomes[0].Claims
+	if len(claims) != len(want) {
+		t.Fatalf("got %d claims: %+v", len(claims), rep.Outcomes[0])
+	}
+	for i, w := range want {
+		if claims[i].Verdict != w.verdict || claims[i].Residual != w.residual || claims[i].Method != polyMethod {
+			t.Errorf("claim %q: %s %q %q", claims[i].Name, claims[i].Verdict, claims[i].Residual, claims[i].Method)
 		}
-		if !strings.Contains(o.Error.Message, c.want) || strings.Contains(o.Error.Message, "internal error") {
-			t.Errorf("%s: %q, want it to mention %q", c.src, o.Error.Message, c.want)
-		}
+	}
+	if !strings.Contains(claims[2].Note, "u = 3") || !strings.Contains(claims[0].Note, "proof") {
+		t.Errorf("notes: %q / %q", claims[2].Note, claims[0].Note)
+	}
+}
+
+func TestPolynomialErrors(t *testing.T) {
+	cases := []errorCase{
+		{"a = variables(\"a\")\na ** -1", "negative power"},
+		{"a = variables(\"a\")\na ** (2 ** 30)", "too large"},
+		{"a = variables(\"a\")\na ** frac(1, 2)", "integer exponent"},
+		{"a = variables(\"a\")\na.divide(a - a)", "ZeroDivisionError"},
+		{"a, b = variables(\"a b\")\n(a**2 + 1).divide(a + b)", "remainder"},
+		{"a = variables(\"a\")\na / (a + 1)", "p.divide(q)"},
+		{"a = variables(\"a\")\n1 / a", "not a polynomial"},
+		{"a = variables(\"a\")\na + 0.5", "float64"},
+		{"a = variables(\"a\")\na.at(a=0.5)", "float64"},
+		{"polynomial(\"2*a^\")", "column"},
+		{"polynomial(\"a + * b\")", "column"},
+		{"variables(\"1x\")", "ValueError"},
+		{"a = variables(\"a\")\na.derivative(\"zz\")", "no variable \"zz\""},
+		{"a, b = variables(\"a b\")\nmatrix([[a, b], [b, a]]).inverse()", "polynomial entries"},
+		{"a = variables(\"a\")\nidentity(\"f\", a, 0.5)", "float64"},
+		{"a = variables(\"a\")\nfactorization(\"f\", a, [0.5])", "float64"},
+	}
+	expectErrors(t, cases)
+}
+
+func TestTermCap(t *testing.T) {
+	nb := notebook(t, "a, b, c = variables(\"a b c\")\np = (1 + a + b + c) ** 40")
+	rep := Run(nb, Options{Settings: Settings{Seed: 1, Precision: 256, MaxTerms: 1000}})
+	o := rep.Outcomes[0]
+	if o.Error == nil || !strings.Contains(o.Error.Message, "1000") || !strings.Contains(o.Error.Message, "--max-terms") || o.Error.Line != 5 {
+		t.Fatalf("term cap: %+v", o.Error)
 	}
 }

@@ -12,11 +12,16 @@ import (
 	"assay/exact"
 )
 
-// Matrix is an exact matrix over Q in a cell.
-type Matrix struct{ m *exact.Matrix }
+// Matrix is an exact matrix in a cell: over Q, or over Q[variables] when an
+// entry is a polynomial. Exactly one of q and p is set.
+type Matrix struct {
+	q    *exact.Matrix
+	p    *exact.PolyMatrix
+	ring *exact.Ring // the session's ring, for lifting and new variables
+}
 
 // MatrixType is the Python type of Matrix.
-var MatrixType = py.NewType("matrix", "An exact matrix of rationals: matrix([[1, 2], [3, frac(1, 2)]]).")
+var MatrixType = py.NewType("matrix", "An exact matrix of rationals or polynomials: matrix([[1, 2], [3, frac(1, 2)]]).")
 
 // Type returns MatrixType.
 func (m *Matrix) Type() *py.Type { return MatrixType }
@@ -30,10 +35,50 @@ var FloatMatrixType = py.NewType("float_matrix", "A float64 matrix (gonum): M.to
 // Type returns FloatMatrixType.
 func (m *FloatMatrix) Type() *py.Type { return FloatMatrixType }
 
-// matrixFrom builds an exact matrix from a list of rows of exact scalars.
-func matrixFrom(o py.Object) (*exact.Matrix, error) {
+func rationalMatrix(ring *exact.Ring, q *exact.Matrix) *Matrix { return &Matrix{q: q, ring: ring} }
+
+// polyMatrix wraps a polynomial matrix, as a rational one when every entry is constant.
+func polyMatrix(ring *exact.Ring, p *exact.PolyMatrix) *Matrix {
+	if q, ok := p.Constant(); ok {
+		return &Matrix{q: q, ring: ring}
+	}
+	return &Matrix{p: p, ring: ring}
+}
+
+func (m *Matrix) rows() int {
+	if m.q != nil {
+		return m.q.Rows()
+	}
+	return m.p.Rows()
+}
+
+func (m *Matrix) cols() int {
+	if m.q != nil {
+		return m.q.Cols()
+	}
+	return m.p.Cols()
+}
+
+// lifted is m over Q[variables].
+func (m *Matrix) lifted() *exact.PolyMatrix {
+	if m.p != nil {
+		return m.p
+	}
+	return exact.PolyMatrixFrom(m.ring, m.q)
+}
+
+// entry returns m[i, j] as a Python value.
+func (m *Matrix) entry(i, j int) py.Object {
+	if m.q != nil {
+		return newRational(m.q.At(i, j))
+	}
+	return resultObject(m.p.At(i, j))
+}
+
+// matrixFrom builds a matrix from a list of rows of exact numbers and polynomials.
+func matrixFrom(ring *exact.Ring, o py.Object) (*Matrix, error) {
 	if m, ok := o.(*Matrix); ok {
-		return m.m, nil
+		return m, nil
 	}
 	rows, err := sequence(o, "matrix rows")
 	if err != nil {
@@ -42,26 +87,49 @@ func matrixFrom(o py.Object) (*exact.Matrix, error) {
 	if len(rows) == 0 {
 		return nil, py.ExceptionNewf(py.ValueError, "matrix needs at least one row")
 	}
-	grid := make([][]*big.Rat, len(rows))
+	grid := make([][]py.Object, len(rows))
+	symbolic := false
 	for i, row := range rows {
-		entries, err := sequence(row, fmt.Sprintf("row %d of the matrix", i))
-		if err != nil {
+		if grid[i], err = sequence(row, fmt.Sprintf("row %d of the matrix", i)); err != nil {
 			return nil, err
 		}
-		grid[i] = make([]*big.Rat, len(entries))
-		for j, e := range entries {
-			v, ok := exactOf(e)
-			if !ok {
-				return nil, py.ExceptionNewf(py.TypeError, "matrix entry [%d, %d] is %s, not an exact number%s", i, j, typeName(e), floatHint(e))
+		for j, e := range grid[i] {
+			switch e.(type) {
+			case *Polynomial:
+				symbolic = true
+			default:
+				if !isExactScalar(e) {
+					return nil, py.ExceptionNewf(py.TypeError, "matrix entry [%d, %d] is %s, not an exact number or a polynomial%s", i, j, typeName(e), floatHint(e))
+				}
 			}
-			grid[i][j] = v
 		}
 	}
-	m, err := exact.NewMatrix(grid)
-	if err != nil {
-		return nil, py.ExceptionNewf(py.ValueError, "%v", err)
+	if symbolic {
+		prows := make([][]*exact.Poly, len(grid))
+		for i, row := range grid {
+			prows[i] = make([]*exact.Poly, len(row))
+			for j, e := range row {
+				prows[i][j], _ = polyOf(ring, e)
+			}
+		}
+		p, err := exact.NewPolyMatrix(ring, prows)
+		if err != nil {
+			return nil, wrapErr(err)
+		}
+		return polyMatrix(ring, p), nil
 	}
-	return m, nil
+	qrows := make([][]*big.Rat, len(grid))
+	for i, row := range grid {
+		qrows[i] = make([]*big.Rat, len(row))
+		for j, e := range row {
+			qrows[i][j], _ = exactOf(e)
+		}
+	}
+	q, err := exact.NewMatrix(qrows)
+	if err != nil {
+		return nil, wrapErr(err)
+	}
+	return rationalMatrix(ring, q), nil
 }
 
 // floatHint explains how to get an exact value when a float turned up.
@@ -86,7 +154,7 @@ func sequence(o py.Object, what string) ([]py.Object, error) {
 		return x.Items, nil
 	case py.Tuple:
 		return x, nil
-	case py.String, *Rational, py.Int, py.Float:
+	case py.String, *Rational, py.Int, py.Float, *Polynomial:
 		return nil, py.ExceptionNewf(py.TypeError, "%s must be a list or tuple, got %s", what, typeName(o))
 	}
 	var items []py.Object
@@ -99,21 +167,16 @@ func sequence(o py.Object, what string) ([]py.Object, error) {
 
 // wrapErr turns an exact-package error into a Python exception of the right class.
 func wrapErr(err error) error {
-	if err == nil {
-		return nil
-	}
 	switch {
+	case err == nil:
+		return nil
 	case errors.Is(err, exact.ErrDivisionByZero), errors.Is(err, exact.ErrSingular):
 		return py.ExceptionNewf(py.ZeroDivisionError, "%v", err)
-	case errors.Is(err, exact.ErrNotSquare), errors.Is(err, exact.ErrShape):
-		return py.ExceptionNewf(py.ValueError, "%v", err)
-	case errors.Is(err, exact.ErrSyntax):
-		return py.ExceptionNewf(py.ValueError, "%v", err)
+	case errors.Is(err, exact.ErrTooManyTerms):
+		return py.ExceptionNewf(py.MemoryError, "%v", err)
 	}
 	return py.ExceptionNewf(py.ValueError, "%v", err)
 }
-
-func matrixObject(m *exact.Matrix) *Matrix { return &Matrix{m: m} }
 
 // indexList reads a list of integer indices.
 func indexList(o py.Object, what string) ([]int, error) {
@@ -132,10 +195,13 @@ func indexList(o py.Object, what string) ([]int, error) {
 	return out, nil
 }
 
-// vectorOrMatrix accepts a list of numbers (a column) or a matrix.
-func vectorOrMatrix(o py.Object) (*exact.Matrix, bool, error) {
+// columnOrMatrix accepts a list of numbers (a column) or a matrix.
+func columnOrMatrix(ring *exact.Ring, o py.Object) (*exact.Matrix, bool, error) {
 	if m, ok := o.(*Matrix); ok {
-		return m.m, false, nil
+		if m.q == nil {
+			return nil, false, symbolicRefusal("solve")
+		}
+		return m.q, false, nil
 	}
 	items, err := sequence(o, "right-hand side")
 	if err != nil {
@@ -145,8 +211,18 @@ func vectorOrMatrix(o py.Object) (*exact.Matrix, bool, error) {
 	for i, it := range items {
 		rows[i] = py.Tuple{it}
 	}
-	m, err := matrixFrom(py.NewListFromItems(rows))
-	return m, true, err
+	m, err := matrixFrom(ring, py.NewListFromItems(rows))
+	if err != nil {
+		return nil, false, err
+	}
+	if m.q == nil {
+		return nil, false, symbolicRefusal("solve")
+	}
+	return m.q, true, nil
+}
+
+func symbolicRefusal(op string) error {
+	return py.ExceptionNewf(py.TypeError, "%s needs a matrix of rationals, and this one has polynomial entries; put values in first with M.at(a=…)", op)
 }
 
 func column(m *exact.Matrix, j int) *py.List {
@@ -158,120 +234,155 @@ func column(m *exact.Matrix, j int) *py.List {
 }
 
 func init() {
-	method := func(name, doc string, f func(m *exact.Matrix, args py.Tuple) (py.Object, error)) {
-		MatrixType.Dict[name] = py.MustNewMethod(name, func(self py.Object, args py.Tuple) (py.Object, error) {
-			return f(self.(*Matrix).m, args)
+	method := func(name, doc string, f func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error)) {
+		MatrixType.Dict[name] = py.MustNewMethod(name, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
+			return f(self.(*Matrix), args, kw)
 		}, 0, doc)
 	}
-	noArgs := func(name string, args py.Tuple) error {
-		if len(args) != 0 {
-			return py.ExceptionNewf(py.TypeError, "%s() takes no arguments (%d given)", name, len(args))
-		}
-		return nil
+	noArgs := func(name string, args py.Tuple, kw py.StringDict) error {
+		_, err := bind(name, args, kw, nil, 0)
+		return err
 	}
-	method("det", "det() -> the exact determinant", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		if err := noArgs("det", args); err != nil {
+	// rational wraps a method defined for matrices over Q only.
+	rational := func(name string, f func(q *exact.Matrix, m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error)) func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		return func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+			if m.q == nil {
+				return nil, symbolicRefusal(name + "()")
+			}
+			return f(m.q, m, args, kw)
+		}
+	}
+	method("det", "det() -> the exact determinant (expanded, for polynomial entries)", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if err := noArgs("det", args, kw); err != nil {
 			return nil, err
 		}
-		d, err := m.Det()
+		return m.det()
+	})
+	method("rank", "rank() -> the rank over Q", rational("rank", func(q *exact.Matrix, _ *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		return py.Int(q.Rank()), noArgs("rank", args, kw)
+	}))
+	method("transpose", "transpose() -> the transposed matrix", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if m.q != nil {
+			return rationalMatrix(m.ring, m.q.Transpose()), noArgs("transpose", args, kw)
+		}
+		return polyMatrix(m.ring, m.p.Transpose()), noArgs("transpose", args, kw)
+	})
+	method("inverse", "inverse() -> the exact inverse; ZeroDivisionError if singular", rational("inverse", func(q *exact.Matrix, m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if err := noArgs("inverse", args, kw); err != nil {
+			return nil, err
+		}
+		inv, err := q.Inverse()
 		if err != nil {
 			return nil, wrapErr(err)
 		}
-		return newRational(d), nil
-	})
-	method("rank", "rank() -> the rank over Q", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		return py.Int(m.Rank()), noArgs("rank", args)
-	})
-	method("transpose", "transpose() -> the transposed matrix", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		return matrixObject(m.Transpose()), noArgs("transpose", args)
-	})
-	method("inverse", "inverse() -> the exact inverse; ZeroDivisionError if singular", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		if err := noArgs("inverse", args); err != nil {
-			return nil, err
-		}
-		inv, err := m.Inverse()
-		if err != nil {
-			return nil, wrapErr(err)
-		}
-		return matrixObject(inv), nil
-	})
-	method("solve", "solve(b) -> x with M x = b; b a list (gives a list) or a matrix", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		if len(args) != 1 {
-			return nil, py.ExceptionNewf(py.TypeError, "solve(b) takes one argument")
-		}
-		b, isVector, err := vectorOrMatrix(args[0])
+		return rationalMatrix(m.ring, inv), nil
+	}))
+	method("solve", "solve(b) -> x with M x = b; b a list (gives a list) or a matrix", rational("solve", func(q *exact.Matrix, m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		a, err := bind("solve", args, kw, []string{"b"}, 1)
 		if err != nil {
 			return nil, err
 		}
-		x, err := m.Solve(b)
+		b, isVector, err := columnOrMatrix(m.ring, a[0])
+		if err != nil {
+			return nil, err
+		}
+		x, err := q.Solve(b)
 		if err != nil {
 			return nil, wrapErr(err)
 		}
 		if isVector {
 			return column(x, 0), nil
 		}
-		return matrixObject(x), nil
-	})
-	method("nullspace", "nullspace() -> a list of basis vectors of {x : M x = 0}", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		if err := noArgs("nullspace", args); err != nil {
+		return rationalMatrix(m.ring, x), nil
+	}))
+	method("nullspace", "nullspace() -> a list of basis vectors of {x : M x = 0}", rational("nullspace", func(q *exact.Matrix, _ *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if err := noArgs("nullspace", args, kw); err != nil {
 			return nil, err
 		}
-		n := m.Nullspace()
+		n := q.Nullspace()
 		out := make([]py.Object, n.Cols())
 		for j := range out {
 			out[j] = column(n, j)
 		}
 		return py.NewListFromItems(out), nil
-	})
-	method("minor", "minor(rows, cols) -> determinant of the submatrix on those rows and columns", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		r, c, err := rowsCols("minor", args)
+	}))
+	method("minor", "minor(rows, cols) -> determinant of the submatrix on those rows and columns", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		s, err := m.submatrix("minor", args, kw)
 		if err != nil {
 			return nil, err
 		}
-		d, err := m.Minor(r, c)
-		if err != nil {
-			return nil, wrapErr(err)
+		if s.rows() != s.cols() {
+			return nil, py.ExceptionNewf(py.ValueError, "minor needs as many rows as columns, got %d and %d", s.rows(), s.cols())
 		}
-		return newRational(d), nil
+		return s.det()
 	})
-	method("submatrix", "submatrix(rows, cols) -> the matrix on those rows and columns", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		r, c, err := rowsCols("submatrix", args)
-		if err != nil {
+	method("submatrix", "submatrix(rows, cols) -> the matrix on those rows and columns", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		return m.submatrix("submatrix", args, kw)
+	})
+	method("trace", "trace() -> sum of the diagonal", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if err := noArgs("trace", args, kw); err != nil {
 			return nil, err
 		}
-		s, err := m.Submatrix(r, c)
-		if err != nil {
-			return nil, wrapErr(err)
+		if m.rows() != m.cols() {
+			return nil, py.ExceptionNewf(py.ValueError, "trace needs a square matrix, got %dx%d", m.rows(), m.cols())
 		}
-		return matrixObject(s), nil
+		t := m.ring.Const(new(big.Rat))
+		for i := 0; i < m.rows(); i++ {
+			e, _ := polyOf(m.ring, m.entry(i, i))
+			t = t.Add(e)
+		}
+		return resultObject(t), nil
 	})
-	method("trace", "trace() -> sum of the diagonal", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		if m.Rows() != m.Cols() {
-			return nil, py.ExceptionNewf(py.ValueError, "trace needs a square matrix, got %dx%d", m.Rows(), m.Cols())
-		}
-		t := new(big.Rat)
-		for i := 0; i < m.Rows(); i++ {
-			t.Add(t, m.At(i, i))
-		}
-		return newRational(t), noArgs("trace", args)
-	})
-	method("rows", "rows() -> the entries as a list of rows", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		rows := make([]py.Object, m.Rows())
+	method("rows", "rows() -> the entries as a list of rows", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		rows := make([]py.Object, m.rows())
 		for i := range rows {
-			row := make([]py.Object, m.Cols())
-			for j := range row {
-				row[j] = newRational(m.At(i, j))
-			}
-			rows[i] = py.NewListFromItems(row)
+			rows[i] = m.row(i)
 		}
-		return py.NewListFromItems(rows), noArgs("rows", args)
+		return py.NewListFromItems(rows), noArgs("rows", args, kw)
 	})
-	method("to_float", "to_float() -> the float64 companion (gonum) of this matrix", func(m *exact.Matrix, args py.Tuple) (py.Object, error) {
-		return &FloatMatrix{m: m.Float()}, noArgs("to_float", args)
+	method("at", "M.at(a=2, b=3) -> the matrix with those values put in for the variables", func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if len(args) > 0 {
+			return nil, py.ExceptionNewf(py.TypeError, "at() takes values by name: M.at(a=2, b=3)")
+		}
+		if m.q != nil {
+			return m, nil
+		}
+		vals, err := keywordValues(m.ring, "at", kw)
+		if err != nil {
+			return nil, err
+		}
+		return polyMatrix(m.ring, m.p.Eval(vals)), nil
 	})
+	method("characteristic_polynomial", "characteristic_polynomial(\"t\") -> det(t*I - M) as a polynomial in t", rational("characteristic_polynomial", func(q *exact.Matrix, m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		a, err := bind("characteristic_polynomial", args, kw, []string{"variable"}, 1)
+		if err != nil {
+			return nil, err
+		}
+		var t *exact.Poly
+		switch v := a[0].(type) {
+		case py.String:
+			if t, err = m.ring.Var(string(v)); err != nil {
+				return nil, py.ExceptionNewf(py.ValueError, "characteristic_polynomial(): %v", err)
+			}
+		default:
+			i, err := variableIndex(m.ring, "characteristic_polynomial", v)
+			if err != nil {
+				return nil, err
+			}
+			t, _ = m.ring.Var(m.ring.Names()[i])
+		}
+		c, err := exact.CharacteristicPolynomial(q, t)
+		if err != nil {
+			return nil, polyErr(err)
+		}
+		return polyObject(c), nil
+	}))
+	method("to_float", "to_float() -> the float64 companion (gonum) of this matrix", rational("to_float", func(q *exact.Matrix, _ *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		return &FloatMatrix{m: q.Float()}, noArgs("to_float", args, kw)
+	}))
 	MatrixType.Dict["shape"] = &py.Property{Fget: func(self py.Object) (py.Object, error) {
-		m := self.(*Matrix).m
-		return py.Tuple{py.Int(m.Rows()), py.Int(m.Cols())}, nil
+		m := self.(*Matrix)
+		return py.Tuple{py.Int(m.rows()), py.Int(m.cols())}, nil
 	}, Doc: "(rows, columns)"}
 
 	FloatMatrixType.Dict["det"] = py.MustNewMethod("det", func(self py.Object) (py.Object, error) {
@@ -280,7 +391,7 @@ func init() {
 	}, 0, "det() -> float64 determinant by gonum's LU factorisation")
 	FloatMatrixType.Dict["solve"] = py.MustNewMethod("solve", func(self, arg py.Object) (py.Object, error) {
 		a := self.(*FloatMatrix).m
-		b, isVector, err := floatVectorOrMatrix(arg)
+		b, isVector, err := floatColumnOrMatrix(arg)
 		if err != nil {
 			return nil, err
 		}
@@ -300,7 +411,58 @@ func init() {
 	}, 0, "solve(b) -> float64 solution by gonum")
 }
 
-func floatVectorOrMatrix(o py.Object) (*mat.Dense, bool, error) {
+// det is the exact determinant: a rational, or an expanded polynomial.
+func (m *Matrix) det() (py.Object, error) {
+	if m.q != nil {
+		d, err := m.q.Det()
+		if err != nil {
+			return nil, wrapErr(err)
+		}
+		return newRational(d), nil
+	}
+	d, err := m.p.Det()
+	if err != nil {
+		return nil, polyErr(err)
+	}
+	return resultObject(d), nil
+}
+
+func (m *Matrix) submatrix(name string, args py.Tuple, kw py.StringDict) (*Matrix, error) {
+	a, err := bind(name, args, kw, []string{"rows", "cols"}, 2)
+	if err != nil {
+		return nil, err
+	}
+	r, err := indexList(a[0], name+" rows")
+	if err != nil {
+		return nil, err
+	}
+	c, err := indexList(a[1], name+" cols")
+	if err != nil {
+		return nil, err
+	}
+	if m.q != nil {
+		s, err := m.q.Submatrix(r, c)
+		if err != nil {
+			return nil, wrapErr(err)
+		}
+		return rationalMatrix(m.ring, s), nil
+	}
+	s, err := m.p.Submatrix(r, c)
+	if err != nil {
+		return nil, wrapErr(err)
+	}
+	return polyMatrix(m.ring, s), nil
+}
+
+func (m *Matrix) row(i int) *py.List {
+	row := make([]py.Object, m.cols())
+	for j := range row {
+		row[j] = m.entry(i, j)
+	}
+	return py.NewListFromItems(row)
+}
+
+func floatColumnOrMatrix(o py.Object) (*mat.Dense, bool, error) {
 	if m, ok := o.(*FloatMatrix); ok {
 		return m.m, false, nil
 	}
@@ -319,21 +481,9 @@ func floatVectorOrMatrix(o py.Object) (*mat.Dense, bool, error) {
 	return mat.NewDense(len(col), 1, col), true, nil
 }
 
-func rowsCols(name string, args py.Tuple) ([]int, []int, error) {
-	if len(args) != 2 {
-		return nil, nil, py.ExceptionNewf(py.TypeError, "%s(rows, cols) takes two lists of indices", name)
-	}
-	r, err := indexList(args[0], name+" rows")
-	if err != nil {
-		return nil, nil, err
-	}
-	c, err := indexList(args[1], name+" cols")
-	return r, c, err
-}
-
 // M__getitem__ reads M[i, j] (an entry) or M[i] (a row as a list).
 func (m *Matrix) M__getitem__(key py.Object) (py.Object, error) {
-	rows, cols := m.m.Rows(), m.m.Cols()
+	rows, cols := m.rows(), m.cols()
 	index := func(o py.Object, n int, what string) (int, error) {
 		k, err := py.Index(o)
 		if err != nil {
@@ -360,65 +510,80 @@ func (m *Matrix) M__getitem__(key py.Object) (py.Object, error) {
 		if err != nil {
 			return nil, err
 		}
-		return newRational(m.m.At(i, j)), nil
+		return m.entry(i, j), nil
 	}
 	i, err := index(key, rows, "row")
 	if err != nil {
 		return nil, err
 	}
-	row := make([]py.Object, cols)
-	for j := range row {
-		row[j] = newRational(m.m.At(i, j))
-	}
-	return py.NewListFromItems(row), nil
+	return m.row(i), nil
 }
 
 // M__len__ is the number of rows.
-func (m *Matrix) M__len__() (py.Object, error) { return py.Int(m.m.Rows()), nil }
+func (m *Matrix) M__len__() (py.Object, error) { return py.Int(m.rows()), nil }
 
-func (m *Matrix) arith(o py.Object, swap bool, op func(a, b *exact.Matrix) (*exact.Matrix, error)) (py.Object, error) {
+// arith combines two matrices, over Q when both are rational.
+func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error)) (py.Object, error) {
 	other, ok := o.(*Matrix)
 	if !ok {
 		return py.NotImplemented, nil
 	}
-	a, b := m.m, other.m
+	a, b := m, other
 	if swap {
 		a, b = b, a
 	}
-	r, err := op(a, b)
-	if err != nil {
-		return nil, wrapErr(err)
+	if a.q != nil && b.q != nil {
+		r, err := q(a.q, b.q)
+		if err != nil {
+			return nil, wrapErr(err)
+		}
+		return rationalMatrix(m.ring, r), nil
 	}
-	return matrixObject(r), nil
+	r, err := p(a.lifted(), b.lifted())
+	if err != nil {
+		return nil, polyErr(err)
+	}
+	return polyMatrix(m.ring, r), nil
+}
+
+// scale multiplies by an exact number or a polynomial.
+func (m *Matrix) scale(o py.Object) (py.Object, error) {
+	if s, ok := exactOf(o); ok && m.q != nil {
+		return rationalMatrix(m.ring, m.q.Scale(s)), nil
+	}
+	p, ok := polyOf(m.ring, o)
+	if !ok {
+		return py.NotImplemented, nil
+	}
+	r, err := m.lifted().Scale(p)
+	if err != nil {
+		return nil, polyErr(err)
+	}
+	return polyMatrix(m.ring, r), nil
 }
 
 // M__add__ adds entrywise.
 func (m *Matrix) M__add__(o py.Object) (py.Object, error) {
-	return m.arith(o, false, (*exact.Matrix).Add)
+	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add)
 }
 
 // M__sub__ subtracts entrywise.
 func (m *Matrix) M__sub__(o py.Object) (py.Object, error) {
-	return m.arith(o, false, (*exact.Matrix).Sub)
+	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub)
 }
 
-// M__mul__ is the matrix product, or scaling by an exact scalar.
+// M__mul__ is the matrix product, or scaling by a number or polynomial.
 func (m *Matrix) M__mul__(o py.Object) (py.Object, error) {
-	if s, ok := exactOf(o); ok {
-		return matrixObject(m.m.Scale(s)), nil
+	if _, ok := o.(*Matrix); ok {
+		return m.arith(o, false, (*exact.Matrix).Mul, (*exact.PolyMatrix).Mul)
 	}
-	return m.arith(o, false, (*exact.Matrix).Mul)
+	return m.scale(o)
 }
 
-// M__rmul__ scales by an exact scalar on the left.
-func (m *Matrix) M__rmul__(o py.Object) (py.Object, error) {
-	if s, ok := exactOf(o); ok {
-		return matrixObject(m.m.Scale(s)), nil
-	}
-	return py.NotImplemented, nil
-}
+// M__rmul__ scales by a number or polynomial on the left.
+func (m *Matrix) M__rmul__(o py.Object) (py.Object, error) { return m.scale(o) }
 
-// M__truediv__ divides by an exact scalar.
+// M__truediv__ divides by an exact non-zero number.
 func (m *Matrix) M__truediv__(o py.Object) (py.Object, error) {
 	s, ok := exactOf(o)
 	if !ok {
@@ -428,7 +593,7 @@ func (m *Matrix) M__truediv__(o py.Object) (py.Object, error) {
 	if err != nil {
 		return nil, py.ExceptionNewf(py.ZeroDivisionError, "matrix divided by zero")
 	}
-	return matrixObject(m.m.Scale(inv)), nil
+	return m.scale(newRational(inv))
 }
 
 // M__pow__ raises a square matrix to an integer power (negative: of the inverse).
@@ -440,15 +605,30 @@ func (m *Matrix) M__pow__(o, mod py.Object) (py.Object, error) {
 	if k > maxExponent || k < -maxExponent {
 		return nil, py.ExceptionNewf(py.OverflowError, "matrix exponent %d is too large (limit %d)", k, maxExponent)
 	}
-	p, err := m.m.Power(int(k))
+	if m.q == nil {
+		if k < 0 {
+			return nil, symbolicRefusal("a negative power")
+		}
+		if m.rows() != m.cols() {
+			return nil, py.ExceptionNewf(py.ValueError, "a matrix power needs a square matrix, got %dx%d", m.rows(), m.cols())
+		}
+		r := exact.PolyMatrixFrom(m.ring, exact.Identity(m.rows()))
+		for i := 0; i < int(k); i++ {
+			if r, err = r.Mul(m.p); err != nil {
+				return nil, polyErr(err)
+			}
+		}
+		return polyMatrix(m.ring, r), nil
+	}
+	p, err := m.q.Power(int(k))
 	if err != nil {
 		return nil, wrapErr(err)
 	}
-	return matrixObject(p), nil
+	return rationalMatrix(m.ring, p), nil
 }
 
 // M__neg__ negates every entry.
-func (m *Matrix) M__neg__() (py.Object, error) { return matrixObject(m.m.Neg()), nil }
+func (m *Matrix) M__neg__() (py.Object, error) { return m.scale(py.Int(-1)) }
 
 // M__eq__ is exact equality of shape and entries.
 func (m *Matrix) M__eq__(o py.Object) (py.Object, error) {
@@ -456,25 +636,28 @@ func (m *Matrix) M__eq__(o py.Object) (py.Object, error) {
 	if !ok {
 		return py.NotImplemented, nil
 	}
-	return py.NewBool(m.m.Equal(other.m)), nil
+	if m.q != nil && other.q != nil {
+		return py.NewBool(m.q.Equal(other.q)), nil
+	}
+	return py.NewBool(m.lifted().Equal(other.lifted())), nil
 }
 
 // M__ne__ is the negation of M__eq__.
 func (m *Matrix) M__ne__(o py.Object) (py.Object, error) {
-	other, ok := o.(*Matrix)
-	if !ok {
-		return py.NotImplemented, nil
+	eq, err := m.M__eq__(o)
+	if err != nil || eq == py.NotImplemented {
+		return eq, err
 	}
-	return py.NewBool(!m.m.Equal(other.m)), nil
+	return py.NewBool(eq == py.False), nil
 }
 
 // M__str__ lays the matrix out as aligned rows.
 func (m *Matrix) M__str__() (py.Object, error) {
-	cells := make([][]string, m.m.Rows())
+	cells := make([][]string, m.rows())
 	for i := range cells {
-		cells[i] = make([]string, m.m.Cols())
+		cells[i] = make([]string, m.cols())
 		for j := range cells[i] {
-			cells[i][j] = exact.FormatRat(m.m.At(i, j))
+			cells[i][j] = str(m.entry(i, j))
 		}
 	}
 	return py.String(grid(cells)), nil
@@ -482,7 +665,10 @@ func (m *Matrix) M__str__() (py.Object, error) {
 
 // M__repr__ is the expression that rebuilds the matrix.
 func (m *Matrix) M__repr__() (py.Object, error) {
-	return py.String("matrix(" + m.m.String() + ")"), nil
+	if m.q != nil {
+		return py.String("matrix(" + m.q.String() + ")"), nil
+	}
+	return py.String("matrix(" + m.p.String() + ")"), nil
 }
 
 // M__str__ lays the float matrix out as aligned rows.

@@ -6,6 +6,7 @@ import (
 	"time"
 
 	"assay/cells"
+	"assay/exact"
 )
 
 // Options control a notebook run.
@@ -18,6 +19,9 @@ type Options struct {
 	// Empty runs cells in this process, without time or memory limits.
 	Command []string
 }
+
+// DefaultMaxTerms is the default cap on the terms of a polynomial.
+var DefaultMaxTerms = exact.DefaultMaxTerms
 
 // Defaults for Options.
 const (

@@ -10,6 +10,7 @@ import (
 	"github.com/go-python/gpython/py"
 
 	"assay/cells"
+	"assay/exact"
 	"assay/kernel/pyext"
 )
 
@@ -21,6 +22,8 @@ type Settings struct {
 	// notebook's setup() cannot change them.
 	SeedFixed      bool `json:"seed_fixed,omitempty"`
 	PrecisionFixed bool `json:"precision_fixed,omitempty"`
+	// MaxTerms caps the terms of any polynomial (0: exact.DefaultMaxTerms).
+	MaxTerms int `json:"max_terms,omitempty"`
 }
 
 // DefaultSettings are used when neither flags nor setup() say otherwise.
@@ -30,6 +33,7 @@ var DefaultSettings = Settings{Seed: 1, Precision: 256}
 type Session struct {
 	ctx      *sandbox
 	globals  py.StringDict
+	ring     *exact.Ring // the notebook's polynomial variables
 	settings Settings
 	claimAt  map[string]int // claim name -> line where it was made
 
@@ -52,7 +56,8 @@ func NewSession(s Settings) (*Session, error) {
 		return nil, err
 	}
 	pyext.Install(ctx.store.Builtins)
-	sess := &Session{ctx: ctx, settings: s, claimAt: map[string]int{}}
+	sess := &Session{ctx: ctx, settings: s, claimAt: map[string]int{}, ring: exact.NewRing()}
+	sess.ring.SetMaxTerms(s.MaxTerms)
 	sess.install(ctx.store.Builtins.Globals)
 	sys := ctx.store.MustGetModule("sys").Globals
 	stream := &outputStream{s: sess}

@@ -70,6 +70,7 @@ type runFlags struct {
 	strictOn       bool
 	seedValue      int64
 	precisionValue int
+	maxTerms       int
 }
 
 func addRunFlags(fs *flag.FlagSet) *runFlags {
@@ -78,6 +79,7 @@ func addRunFlags(fs *flag.FlagSet) *runFlags {
 	fs.IntVar(&f.precisionValue, "precision", kernel.DefaultSettings.Precision, "working precision in bits (overrides setup(precision=…))")
 	fs.DurationVar(&f.timeout, "timeout", kernel.DefaultTimeout, "time limit per cell (a cell's timeout= option wins)")
 	fs.Var(&f.maxMemory, "max-memory", "memory cap of the kernel process, e.g. 512MiB or 4GiB")
+	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
 	fs.BoolVar(&f.keep, "keep-going", false, "run the remaining cells after a cell fails")
 	fs.BoolVar(&f.strictOn, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
 	return f
@@ -93,6 +95,10 @@ func (f *runFlags) options(fs *flag.FlagSet) (kernel.Options, error) {
 			s.Precision, s.PrecisionFixed = f.precisionValue, true
 		}
 	})
+	if f.maxTerms < 1 {
+		return kernel.Options{}, fmt.Errorf("--max-terms must be positive, got %d", f.maxTerms)
+	}
+	s.MaxTerms = f.maxTerms
 	if s.Precision < 2 {
 		return kernel.Options{}, fmt.Errorf("--precision must be at least 2 bits, got %d", s.Precision)
 	}

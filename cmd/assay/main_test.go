@@ -140,6 +140,7 @@ func TestBadFlags(t *testing.T) {
 		{"run", "a.md", "b.md"},
 		{"run", "--max-memory", "lots", "a.md"},
 		{"run", "--timeout", "-1s", "a.md"},
+		{"run", "--max-terms", "0", "a.md"},
 		{"frobnicate"},
 	} {
 		if code, _, _ := assay(t, args...); code != 2 {

@@ -1,0 +1,340 @@
+package exact
+
+import (
+	"fmt"
+	"math/big"
+	"slices"
+)
+
+// Evaluation, substitution, derivatives and contents.
+
+// Eval substitutes the given values for variables (by index) and returns
+// the resulting polynomial in the other variables; when every variable of
+// p gets a value the result is a constant polynomial. Indices of variables
+// that do not occur in p are ignored; a nil value panics.
+func (p *Poly) Eval(vals map[int]*big.Rat) *Poly {
+	nv := p.nvars()
+	var used []int
+	for v, x := range vals {
+		checkVar(v)
+		if x == nil {
+			panic(fmt.Sprintf("exact: Eval: nil value for variable %d", v))
+		}
+		if v < nv {
+			used = append(used, v)
+		}
+	}
+	slices.Sort(used)
+	if len(used) == 0 || p.IsZero() {
+		return p
+	}
+	// powers[k][e] = vals[used[k]]^e, filled on demand.
+	powers := make([][]*big.Rat, len(used))
+	pow := func(k, e int) *big.Rat {
+		ps := powers[k]
+		if len(ps) == 0 {
+			ps = append(ps, big.NewRat(1, 1))
+		}
+		for len(ps) <= e {
+			ps = append(ps, new(big.Rat).Mul(ps[len(ps)-1], vals[used[k]]))
+		}
+		powers[k] = ps
+		return ps[e]
+	}
+	type term struct {
+		m []uint64
+		c *big.Rat
+	}
+	terms := make([]term, 0, p.n())
+	for i := 0; i < p.n(); i++ {
+		m := append([]uint64(nil), p.monoAt(i)...)
+		c := p.coefAt(i)
+		for k, v := range used {
+			if e := monoExp(m, v); e > 0 {
+				c.Mul(c, pow(k, e))
+				monoSetExp(m, v, 0)
+				m[0] -= uint64(e)
+			}
+		}
+		if c.Sign() != 0 {
+			terms = append(terms, term{m, c})
+		}
+	}
+	slices.SortStableFunc(terms, func(a, b term) int { return monoCmp(b.m, a.m) })
+	var rt ratTerms
+	for i := 0; i < len(terms); {
+		j := i + 1
+		c := terms[i].c
+		for j < len(terms) && monoCmp(terms[j].m, terms[i].m) == 0 {
+			c.Add(c, terms[j].c)
+			j++
+		}
+		if c.Sign() != 0 {
+			rt.push(terms[i].m, c)
+		}
+		i = j
+	}
+	return rt.poly(p.ring, p.w)
+}
+
+// Substitute replaces the variables given by index, all at once, by
+// polynomials of the same ring (composition): Substitute({x: y, y: x})
+// swaps x and y. Indices of variables that do not occur in p are ignored.
+// It fails with ErrRingMismatch, ErrTooManyTerms (results and the powers
+// and partial sums formed on the way are held to the ring's term cap) or
+// ErrExponentRange.
+func (p *Poly) Substitute(subs map[int]*Poly) (*Poly, error) {
+	nv := p.nvars()
+	var vars []int
+	for v, s := range subs {
+		checkVar(v)
+		if s == nil {
+			return nil, fmt.Errorf("substitute: nil polynomial for variable %d: %w", v, ErrShape)
+		}
+		if err := p.sameRing(s, "substitute"); err != nil {
+			return nil, err
+		}
+		if v < nv && p.DegreeIn(v) > 0 {
+			vars = append(vars, v)
+		}
+	}
+	slices.Sort(vars)
+	st := &substState{subs: subs, powers: map[int]map[int]*Poly{}, limit: p.ring.MaxTerms()}
+	return st.subst(p, vars)
+}
+
+type substState struct {
+	subs   map[int]*Poly
+	powers map[int]map[int]*Poly
+	limit  int
+}
+
+// subst writes p = sum_e v^e p_e for the first variable v of vars and
+// returns sum_e subs[v]^e subst(p_e, vars[1:]); the p_e are free of v, so
+// no variable is substituted twice.
+func (st *substState) subst(p *Poly, vars []int) (*Poly, error) {
+	if len(vars) == 0 || p.IsZero() {
+		return p, nil
+	}
+	v := vars[0]
+	parts := p.splitBy(v)
+	var sums []*Poly
+	for e, part := range parts {
+		if part == nil {
+			continue
+		}
+		h, err := st.subst(part, vars[1:])
+		if err != nil {
+			return nil, err
+		}
+		if e > 0 {
+			pw, err := st.power(v, e)
+			if err != nil {
+				return nil, err
+			}
+			if h, err = mulPoly(h, pw, "substitute"); err != nil {
+				return nil, err
+			}
+		}
+		sums = append(sums, h)
+	}
+	return sumPolys(sums, st.limit, "substitute")
+}
+
+// power returns subs[v]^e, remembering the powers made.
+func (st *substState) power(v, e int) (*Poly, error) {
+	m := st.powers[v]
+	if m == nil {
+		m = map[int]*Poly{}
+		st.powers[v] = m
+	}
+	if pw, ok := m[e]; ok {
+		return pw, nil
+	}
+	// Build from the largest known power below e.
+	best := 0
+	for k := range m {
+		if k < e && k > best {
+			best = k
+		}
+	}
+	var pw *Poly
+	var err error
+	if best == 0 {
+		pw, err = st.subs[v].Pow(e)
+	} else {
+		var d *Poly
+		if d, err = st.subs[v].Pow(e - best); err == nil {
+			pw, err = mulPoly(m[best], d, "substitute")
+		}
+	}
+	if err != nil {
+		return nil, err
+	}
+	m[e] = pw
+	return pw, nil
+}
+
+// sumPolys adds the polynomials pairwise (a balanced tree), failing when a
+// partial sum exceeds limit terms.
+func sumPolys(ps []*Poly, limit int, op string) (*Poly, error) {
+	switch len(ps) {
+	case 0:
+		panic("exact: sumPolys of nothing")
+	case 1:
+		return ps[0], nil
+	}
+	for len(ps) > 1 {
+		next := ps[:0:0]
+		for i := 0; i+1 < len(ps); i += 2 {
+			s := addSub(ps[i], ps[i+1], false)
+			if s.n() > limit {
+				return nil, tooManyTerms(op, limit)
+			}
+			next = append(next, s)
+		}
+		if len(ps)%2 == 1 {
+			next = append(next, ps[len(ps)-1])
+		}
+		ps = next
+	}
+	return ps[0], nil
+}
+
+// splitBy returns the coefficients of p as a polynomial in variable v:
+// out[e] is the coefficient of v^e (nil when it is zero). Dividing the
+// terms with the same exponent of v by v^e keeps their order.
+func (p *Poly) splitBy(v int) []*Poly {
+	d := p.DegreeIn(v)
+	if d < 0 {
+		return nil
+	}
+	bs := make([]*polyBuilder, d+1)
+	m := make([]uint64, p.w)
+	for i := 0; i < p.n(); i++ {
+		copy(m, p.monoAt(i))
+		e := monoExp(m, v)
+		if e > 0 {
+			monoSetExp(m, v, 0)
+			m[0] -= uint64(e)
+		}
+		if bs[e] == nil {
+			bs[e] = newBuilder(p.w)
+		}
+		if p.small(i) {
+			bs[e].pushSmall(m, p.num[i])
+		} else {
+			bs[e].pushBig(m, p.bnum[i])
+		}
+	}
+	out := make([]*Poly, d+1)
+	for e, b := range bs {
+		if b != nil {
+			out[e] = b.poly(p.ring, p.den)
+		}
+	}
+	return out
+}
+
+// coeffIn returns the coefficient of v^e in p, as a polynomial free of v.
+func (p *Poly) coeffIn(v, e int) *Poly {
+	b := newBuilder(p.w)
+	m := make([]uint64, p.w)
+	for i := 0; i < p.n(); i++ {
+		if monoExp(p.monoAt(i), v) != e {
+			continue
+		}
+		copy(m, p.monoAt(i))
+		if e > 0 {
+			monoSetExp(m, v, 0)
+			m[0] -= uint64(e)
+		}
+		if p.small(i) {
+			b.pushSmall(m, p.num[i])
+		} else {
+			b.pushBig(m, p.bnum[i])
+		}
+	}
+	return b.poly(p.ring, p.den)
+}
+
+// lcIn returns the leading coefficient of p as a polynomial in v.
+func (p *Poly) lcIn(v int) *Poly { return p.coeffIn(v, p.DegreeIn(v)) }
+
+// varPow returns the monomial v^e as packed words.
+func varPow(v, e int) []uint64 {
+	m := make([]uint64, wordsFor(v+1))
+	monoSetExp(m, v, e)
+	m[0] = uint64(e)
+	return m
+}
+
+// mulVarPow returns p * v^e (the caller keeps exponents in range).
+func (p *Poly) mulVarPow(v, e int) *Poly {
+	if e == 0 {
+		return p
+	}
+	return p.mulMono(varPow(v, e), bigOne, nil)
+}
+
+// Derivative returns the partial derivative of p with respect to variable
+// v (zero if v does not occur). It panics if v < 0.
+func (p *Poly) Derivative(v int) *Poly {
+	checkVar(v)
+	b := newBuilder(p.w)
+	m := make([]uint64, p.w)
+	z := new(big.Int)
+	for i := 0; i < p.n(); i++ {
+		e := monoExp(p.monoAt(i), v)
+		if e == 0 {
+			continue
+		}
+		copy(m, p.monoAt(i))
+		monoSetExp(m, v, e-1)
+		m[0]--
+		if p.small(i) {
+			if c, ov := mulOv(p.num[i], int64(e)); !ov {
+				b.pushSmall(m, c)
+				continue
+			}
+		}
+		p.numAt(i, z)
+		b.pushBig(m, z.Mul(z, big.NewInt(int64(e))))
+	}
+	return b.poly(p.ring, p.den)
+}
+
+// Content returns the rational content of p: the rational c, with the sign
+// of the leading coefficient, such that p/c has coprime integer
+// coefficients and a positive leading coefficient. Content of the zero
+// polynomial is 0.
+func (p *Poly) Content() *big.Rat {
+	if p.IsZero() {
+		return new(big.Rat)
+	}
+	return new(big.Rat).SetFrac(p.numContent(), p.denOr1())
+}
+
+// PrimitivePart returns p/Content(p): coprime integer coefficients and a
+// positive leading coefficient (zero for the zero polynomial).
+func (p *Poly) PrimitivePart() *Poly {
+	if p.IsZero() {
+		return p
+	}
+	g := p.numContent()
+	if g.Cmp(bigOne) == 0 && p.den == nil {
+		return p
+	}
+	out := &Poly{ring: p.ring, w: p.w, mono: p.mono, num: make([]int64, p.n())}
+	out.divNumsFrom(p, g)
+	return out
+}
+
+// monic returns p divided by its leading coefficient (zero stays zero).
+func (p *Poly) monic() *Poly {
+	if p.IsZero() || (p.den == nil && p.small(0) && p.num[0] == 1) {
+		return p
+	}
+	c := p.coefAt(0)
+	return p.Scale(c.Inv(c))
+}
