@@ -48,29 +48,35 @@ func copyNotebook(t *testing.T, src string) string {
 // the report is still written.
 func TestBadInputStillWritesReport(t *testing.T) {
 	cases := []struct {
-		file string
-		line int
-		want string // in the report and on the terminal
+		file  string
+		line  int
+		want  string   // in the report and on the terminal
+		flags []string // beyond --max-memory 200MiB
 	}{
-		{"unclosed-fence.md", 3, "never closed"},
-		{"unknown-option.md", 3, "unknown cell option \"colour\""},
-		{"not-utf8.md", 3, "not valid UTF-8"},
-		{"syntax-error.md", 5, "SyntaxError"},
-		{"name-error.md", 5, "NameError: name 'y' is not defined"},
-		{"division-by-zero.md", 5, "ZeroDivisionError: division by zero: 3/4 / 0"},
-		{"det-not-square.md", 5, "2x3"},
-		{"singular-inverse.md", 5, "singular"},
-		{"open-file.md", 4, "PermissionError: open() is not available"},
-		{"import-os.md", 4, "ImportError: module \"os\" is not available"},
-		{"loop-forever.md", 8, "time limit"},
-		{"unbounded-memory.md", 4, "memory cap"},
-		{"deep-recursion.md", 4, "recursion too deep"},
+		{"unclosed-fence.md", 3, "never closed", nil},
+		{"unknown-option.md", 3, "unknown cell option \"colour\"", nil},
+		{"not-utf8.md", 3, "not valid UTF-8", nil},
+		{"syntax-error.md", 5, "SyntaxError", nil},
+		{"name-error.md", 5, "NameError: name 'y' is not defined", nil},
+		{"division-by-zero.md", 5, "ZeroDivisionError: division by zero: 3/4 / 0", nil},
+		{"det-not-square.md", 5, "2x3", nil},
+		{"singular-inverse.md", 5, "singular", nil},
+		{"open-file.md", 4, "PermissionError: open() is not available", nil},
+		{"import-os.md", 4, "ImportError: module \"os\" is not available", nil},
+		{"loop-forever.md", 8, "time limit", nil},
+		{"unbounded-memory.md", 4, "memory cap", nil},
+		{"deep-recursion.md", 4, "recursion too deep", nil},
+		{"poly-negative-power.md", 5, "negative power", nil},
+		{"poly-divide-remainder.md", 5, "the remainder is", nil},
+		{"poly-divide-by-zero.md", 5, "ZeroDivisionError", nil},
+		{"poly-term-cap.md", 5, "--max-terms", []string{"--max-terms", "100000"}},
+		{"poly-float-companion.md", 6, "polynomial entries", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {
 			nb := copyNotebook(t, filepath.Join("..", "..", "testdata", "bad", c.file))
 			before, _ := os.ReadFile(nb)
-			code, stdout, stderr := assay(t, "run", nb, "--max-memory", "200MiB")
+			code, stdout, stderr := assay(t, append([]string{"run", nb, "--max-memory", "200MiB"}, c.flags...)...)
 			if code != 2 {
 				t.Errorf("exit %d, want 2\nstdout: %s\nstderr: %s", code, stdout, stderr)
 			}
