@@ -225,6 +225,19 @@ func (w *mdWriter) headerContent() string {
 		}
 		paras = append(paras, "**Claims**\n\n"+mdTable([]string{"#", "claim", "kind", "method", "residual", "verdict", "where"}, rows))
 	}
+	var lossy [][]string
+	for i, c := range claims {
+		if f := c.Float; f != nil && f.DigitsLost > float64DigitsHalf {
+			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdInline(c.Name), codeSpan(f.Residual), codeSpan(f.Error),
+				fmt.Sprintf("%.1f of 16", f.DigitsLost)})
+		}
+	}
+	if len(lossy) > 0 {
+		paras = append(paras, "**Where float64 loses more than half its digits**\n\n"+
+			"The same claim run as float64 code (every exact input rounded to float64, gonum for linear algebra), "+
+			"against the exact or certified values:\n\n"+
+			mdTable([]string{"#", "claim", "float64 residual", "float64 error", "digits lost"}, lossy))
+	}
 	c := Counts(r)
 	if c[HoldsToDigits] > 0 {
 		paras = append(paras, "A verdict “≈ holds to N digits” is evidence, not a proof: the residual was certified "+
@@ -236,6 +249,10 @@ func (w *mdWriter) headerContent() string {
 	}
 	return strings.Join(paras, "\n\n") + "\n"
 }
+
+// float64DigitsHalf is half of the decimal digits a float64 carries: a
+// claim whose float64 companion lost more is listed in the header.
+const float64DigitsHalf = 8
 
 // cellContent is the generated region after a cell.
 func (w *mdWriter) cellContent(b Block, o *Outcome) string {

@@ -390,3 +390,18 @@ func TestHTMLTypesetsFormulasInTables(t *testing.T) {
 		t.Errorf("the Markdown report must keep the plain text")
 	}
 }
+
+func TestHeaderListsLossyFloatCompanions(t *testing.T) {
+	nb, _ := Parse("p.md", []byte("# p\n\n```cell\nx\n```\n"))
+	r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
+		{Name: "stable", Kind: "identity", Verdict: Holds, Residual: "0", Cell: 1, Line: 4,
+			Float: &FloatAudit{Residual: "1e-16", Error: "2e-16 relative", DigitsLost: 0.4}},
+		{Name: "sliver", Kind: "identity", Verdict: Holds, Residual: "0", Cell: 1, Line: 4,
+			Float: &FloatAudit{Residual: "4e-11", Error: "3.2e+02 relative", DigitsLost: 15.9}},
+	}}}}
+	md := string(RenderMarkdown(r, true))
+	i := strings.Index(md, "Where float64 loses more than half its digits")
+	if i < 0 || !strings.Contains(md[i:], "| 2 | sliver |") || strings.Contains(md[i:strings.Index(md[i:], "/assay:generated")+i], "stable") {
+		t.Errorf("lossy section wrong:\n%s", md)
+	}
+}

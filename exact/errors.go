@@ -31,3 +31,21 @@ var (
 	// operation (the discriminant of a polynomial of degree 0).
 	ErrDegree = errors.New("unsuitable degree")
 )
+
+// Sentinel errors of the certified real numbers (Real).
+var (
+	// ErrDomain reports an argument certified to lie outside a function's
+	// domain: the square root of a negative number, the logarithm of a
+	// non-positive one, acos outside [-1, 1], atan2(0, 0).
+	ErrDomain = errors.New("argument outside the domain")
+	// ErrUndecided reports a question about a real number (its sign, a
+	// digit, whether a divisor or an argument is clear of a boundary) that
+	// interval refinement did not settle before the precision cap. The
+	// answer may simply need more precision, or the value may sit exactly
+	// on the boundary, which intervals can never prove.
+	ErrUndecided = errors.New("undecided at the precision cap")
+	// ErrOverflow reports a real number, or an intermediate value, whose
+	// magnitude is beyond what the evaluator represents (binary exponents
+	// beyond about ±2^28).
+	ErrOverflow = errors.New("magnitude out of range")
+)

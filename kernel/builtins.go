@@ -20,6 +20,9 @@ func (s *Session) install(b py.StringDict) {
 		if err != nil {
 			return nil, err
 		}
+		if floatMode {
+			return floatMatrixFromRows(a[0])
+		}
 		return matrixFrom(s.ring, a[0])
 	})
 	b["det"] = builtin("det", "det(M) -> exact determinant of a square matrix", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
@@ -29,6 +32,14 @@ func (s *Session) install(b py.StringDict) {
 		}
 		if f, ok := a[0].(*FloatMatrix); ok {
 			d, err := exact.FloatDet(f.m)
+			return py.Float(d), wrapErr(err)
+		}
+		if floatMode {
+			f, err := floatMatrixFromRows(a[0])
+			if err != nil {
+				return nil, err
+			}
+			d, err := exact.FloatDet(f.(*FloatMatrix).m)
 			return py.Float(d), wrapErr(err)
 		}
 		m, err := matrixFrom(s.ring, a[0])
@@ -84,6 +95,8 @@ func (s *Session) install(b py.StringDict) {
 		}), nil
 	})
 	s.installPolynomials(b)
+	s.installReals(b)
+	s.installGeometry(b)
 }
 
 func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
@@ -121,6 +134,14 @@ func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
 }
 
 func frac(args py.Tuple, kw py.StringDict) (py.Object, error) {
+	res, err := exactFrac(args, kw)
+	if err != nil || !floatMode {
+		return res, err
+	}
+	return floatValue(res)
+}
+
+func exactFrac(args py.Tuple, kw py.StringDict) (py.Object, error) {
 	a, err := bind("frac", args, kw, []string{"x", "denominator"}, 1)
 	if err != nil {
 		return nil, err
@@ -231,8 +252,12 @@ func (s *Session) setup(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		if p < 2 {
 			return nil, py.ExceptionNewf(py.ValueError, "setup(): precision must be at least 2 bits, got %d", p)
 		}
+		if p > int64(s.settings.MaxPrecision) {
+			return nil, py.ExceptionNewf(py.ValueError, "setup(): precision %d is above the precision cap of %d bits (raise it with --max-precision)", p, s.settings.MaxPrecision)
+		}
 		if !s.settings.PrecisionFixed {
 			s.settings.Precision = int(p)
+			s.precision = int(p)
 		}
 	}
 	if a[1] != nil {

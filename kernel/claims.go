@@ -1,7 +1,9 @@
 package kernel
 
 import (
+	"errors"
 	"fmt"
+	"math"
 	"math/big"
 	"strings"
 	"time"
@@ -12,7 +14,8 @@ import (
 	"assay/exact"
 )
 
-const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs exactly.
+const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs: exactly for numbers, polynomials
+and matrices, to the working precision for certified reals (digits=N sets it).
 identity(name, f) calls f() for (lhs, rhs).
 identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1.`
 
@@ -20,30 +23,53 @@ identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1.`
 const (
 	exactMethod = "exact rational arithmetic"
 	polyMethod  = "exact polynomial arithmetic (expanded)"
+	realMethod  = "certified interval arithmetic"
 )
 
-// residual is lhs - rhs measured exactly.
-type residual struct {
-	text     string   // printed residual
-	size     *big.Rat // its largest absolute entry (term count for polynomials); zero iff the sides agree
-	symbolic bool     // a polynomial difference: zero proves the identity for all values
+// target is the precision a claim with real sides is decided to.
+type target struct {
+	bits uint // |residual| must be certified below 2^-bits for "holds to digits"
+	cap  uint // refinement stops here: undecided
 }
 
-// measure computes the exact residual of two sides: numbers, polynomials,
+// digits is the number of decimal digits that bits certify.
+func (t target) digits() int { return int(float64(t.bits) * 0.30102999566398120) }
+
+// residual is lhs − rhs, measured exactly or certified.
+type residual struct {
+	text      string   // printed residual
+	size      *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
+	zero      bool     // exactly zero
+	symbolic  bool     // a polynomial difference: zero proves the identity for all values
+	real      bool     // decided by interval arithmetic
+	certified int      // for a real residual enclosing 0: |residual| < 10^-certified
+	undecided bool     // the precision cap came first
+}
+
+func exactResidual(d *big.Rat) residual {
+	return residual{text: exact.FormatRat(d), size: new(big.Rat).Abs(d), zero: d.Sign() == 0}
+}
+
+// measure computes the residual of two sides: numbers, reals, polynomials,
 // matrices, or lists and tuples of them. Floats are refused: they would make
 // "holds" a statement about rounding.
-func measure(ring *exact.Ring, lhs, rhs py.Object) (residual, error) {
+func measure(ring *exact.Ring, t target, lhs, rhs py.Object) (residual, error) {
 	_, lp := lhs.(*Polynomial)
 	_, rp := rhs.(*Polynomial)
-	if x, ok := exactOf(lhs); ok && !rp {
-		y, ok := exactOf(rhs)
-		if !ok {
+	_, lr := lhs.(*Real)
+	_, rr := rhs.(*Real)
+	switch {
+	case lr || rr:
+		a, ok1 := realOf(lhs)
+		b, ok2 := realOf(rhs)
+		if !ok1 {
+			return residual{}, sideError(lhs)
+		}
+		if !ok2 {
 			return residual{}, sideError(rhs)
 		}
-		d := new(big.Rat).Sub(x, y)
-		return residual{text: exact.FormatRat(d), size: new(big.Rat).Abs(d)}, nil
-	}
-	if lp || rp {
+		return realResidual(exact.RealSub(a, b), t)
+	case lp || rp:
 		a, ok1 := polyOf(ring, lhs)
 		b, ok2 := polyOf(ring, rhs)
 		if !ok1 {
@@ -53,7 +79,31 @@ func measure(ring *exact.Ring, lhs, rhs py.Object) (residual, error) {
 			return residual{}, sideError(rhs)
 		}
 		d := a.Sub(b)
-		return residual{text: preview(d), size: big.NewRat(int64(d.Len()), 1), symbolic: true}, nil
+		return residual{text: preview(d), size: big.NewRat(int64(d.Len()), 1), zero: d.IsZero(), symbolic: true}, nil
+	}
+	if x, ok := exactOf(lhs); ok {
+		y, ok := exactOf(rhs)
+		if !ok {
+			return residual{}, sideError(rhs)
+		}
+		return exactResidual(new(big.Rat).Sub(x, y)), nil
+	}
+	if a, ok := lhs.(*KVector); ok {
+		b, ok := rhs.(*KVector)
+		if !ok {
+			return residual{}, py.ExceptionNewf(py.TypeError, "one side is a k-vector and the other is %s", typeName(rhs))
+		}
+		d, err := a.w.Sub(b.w)
+		if err != nil {
+			return residual{}, geomErr("identity", err)
+		}
+		size := new(big.Rat)
+		for _, bl := range d.Components() {
+			if c := new(big.Rat).Abs(bl.Coef); c.Cmp(size) > 0 {
+				size = c
+			}
+		}
+		return residual{text: d.String(), size: size, zero: d.IsZero()}, nil
 	}
 	if a, ok := lhs.(*Matrix); ok {
 		b, ok := rhs.(*Matrix)
@@ -64,24 +114,151 @@ func measure(ring *exact.Ring, lhs, rhs py.Object) (residual, error) {
 	}
 	ls, lok := listLike(lhs)
 	rs, rok := listLike(rhs)
-	if lok && rok {
-		if len(ls) != len(rs) {
-			return residual{}, py.ExceptionNewf(py.ValueError, "the sides have different lengths: %d and %d", len(ls), len(rs))
-		}
-		worst := residual{text: "0", size: new(big.Rat)}
-		for i := range ls {
-			r, err := measure(ring, ls[i], rs[i])
-			if err != nil {
-				return residual{}, err
-			}
-			worst.symbolic = worst.symbolic || r.symbolic
-			if r.size.Cmp(worst.size) > 0 {
-				worst = residual{text: fmt.Sprintf("entry %d: %s", i, r.text), size: r.size, symbolic: worst.symbolic}
-			}
-		}
-		return worst, nil
+	if !lok || !rok {
+		return residual{}, sideError(lhs)
 	}
-	return residual{}, sideError(lhs)
+	if len(ls) != len(rs) {
+		return residual{}, py.ExceptionNewf(py.ValueError, "the sides have different lengths: %d and %d", len(ls), len(rs))
+	}
+	entries := make([]residual, len(ls))
+	for i := range ls {
+		r, err := measure(ring, t, ls[i], rs[i])
+		if err != nil {
+			return residual{}, err
+		}
+		r.text = fmt.Sprintf("entry %d: %s", i, r.text)
+		entries[i] = r
+	}
+	w := worst(append(entries, exactResidual(new(big.Rat))))
+	if w.zero {
+		w.text = "0"
+	}
+	return w, nil
+}
+
+// realResidual decides a certified real difference: exactly when it is
+// known to be rational, else by refining its enclosure to the target.
+func realResidual(d *exact.Real, t target) (residual, error) {
+	if q, ok := d.Rat(); ok {
+		return exactResidual(q), nil
+	}
+	iv, err := d.Approx(t.bits, t.cap)
+	switch {
+	case err != nil && errors.Is(err, exact.ErrUndecided):
+		return residual{text: fmt.Sprintf("not separated from 0 at the cap of %d bits", t.cap), size: new(big.Rat), real: true, undecided: true}, nil
+	case err != nil:
+		return residual{}, realErr(err, t.cap)
+	}
+	if iv.Lo.Sign() > 0 || iv.Hi.Sign() < 0 {
+		text, derr := d.Digits(12, t.cap)
+		if derr != nil {
+			text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
+		}
+		bound := new(big.Rat).Abs(iv.Lo)
+		if h := new(big.Rat).Abs(iv.Hi); h.Cmp(bound) > 0 {
+			bound = h
+		}
+		return residual{text: text + " (certified non-zero)", size: bound, real: true}, nil
+	}
+	n := t.digits()
+	width := new(big.Rat).Sub(iv.Hi, iv.Lo)
+	return residual{text: fmt.Sprintf("|r| < 1e-%d", n), size: width, real: true, certified: n}, nil
+}
+
+// worst combines the residuals of entries or samples: any failure wins,
+// then undecided, then the fewest certified digits; the largest failing
+// residual is the one shown.
+func worst(rs []residual) residual {
+	pick := worstIndex(rs)
+	out := rs[pick]
+	for _, r := range rs {
+		out.symbolic = out.symbolic || r.symbolic
+		out.real = out.real || r.real
+	}
+	return out
+}
+
+// worstIndex is the position of the residual that worst reports.
+func worstIndex(rs []residual) int {
+	pick := -1
+	rank := func(r residual) int {
+		switch {
+		case !r.zero && r.certified == 0 && !r.undecided:
+			return 3 // fails
+		case r.undecided:
+			return 2
+		case r.certified > 0:
+			return 1
+		}
+		return 0
+	}
+	for i, r := range rs {
+		if pick < 0 {
+			pick = i
+			continue
+		}
+		w := rs[pick]
+		switch rr, rw := rank(r), rank(w); {
+		case rr > rw:
+			pick = i
+		case rr == rw && rr == 3 && r.size.Cmp(w.size) > 0:
+			pick = i
+		case rr == rw && rr == 1 && r.certified < w.certified:
+			pick = i
+		}
+	}
+	return pick
+}
+
+// verdict states what a residual means for the claim.
+func (r residual) verdict(c *cells.Claim, samples int) {
+	every := "for this instance"
+	if samples > 0 {
+		every = fmt.Sprintf("on each of the %d samples", samples)
+	}
+	switch {
+	case r.zero && r.symbolic:
+		c.Verdict, c.Method = cells.Holds, polyMethod
+		c.Note = "the expanded difference is the zero polynomial " + every + ": a proof of the identity for all values of the variables"
+	case r.zero && samples > 0:
+		c.Verdict = cells.Holds
+		c.Note = "exact zero residual " + every + ": each instance is proved; for the general statement this is evidence, not a proof"
+	case r.zero:
+		c.Verdict = cells.Holds
+		c.Note = "exact zero residual: a proof for this instance"
+	case r.certified > 0:
+		c.Verdict, c.Method, c.Digits = cells.HoldsToDigits, realMethod, r.certified
+		c.Note = fmt.Sprintf("certified |residual| < 10^-%d %s: evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision", r.certified, every)
+	case r.undecided:
+		c.Verdict, c.Method = cells.Undecided, realMethod
+		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits="
+	case r.symbolic:
+		c.Verdict, c.Method = cells.Fails, polyMethod
+		c.Note = "the expanded difference is a non-zero polynomial"
+	case r.real:
+		c.Verdict, c.Method = cells.Fails, realMethod
+		c.Note = "the residual is certified non-zero: its enclosure excludes 0"
+	default:
+		c.Verdict = cells.Fails
+		c.Note = "exact non-zero residual"
+	}
+	c.Residual = r.text
+}
+
+// claimTarget is the precision for a claim: the notebook's, or digits=N.
+func (s *Session) claimTarget(digits py.Object) (target, error) {
+	t := target{bits: uint(s.precision), cap: uint(s.settings.MaxPrecision)}
+	if digits != nil && digits != py.None {
+		n, err := intArg("identity", "digits", digits, 0)
+		if err != nil || n < 1 {
+			return target{}, py.ExceptionNewf(py.ValueError, "identity(): digits must be a positive integer")
+		}
+		t.bits = uint(float64(n)/0.30102999566398120) + 1
+	}
+	if t.bits > t.cap {
+		return target{}, py.ExceptionNewf(py.ValueError, "the claim asks for %d bits, above the precision cap of %d bits (raise it with --max-precision)", t.bits, t.cap)
+	}
+	return t, nil
 }
 
 // matrixResidual compares two matrices entry by entry.
@@ -106,7 +283,7 @@ func matrixResidual(a, b *Matrix) (residual, error) {
 				text = "largest entry of the difference: " + exact.FormatRat(size)
 			}
 		}
-		return residual{text: text, size: size}, nil
+		return residual{text: text, size: size, zero: size.Sign() == 0}, nil
 	}
 	d, err := a.lifted().Sub(b.lifted())
 	if err != nil {
@@ -119,7 +296,7 @@ func matrixResidual(a, b *Matrix) (residual, error) {
 			}
 		}
 	}
-	return residual{text: "0", size: new(big.Rat), symbolic: true}, nil
+	return residual{text: "0", size: new(big.Rat), zero: true, symbolic: true}, nil
 }
 
 // preview prints a polynomial, or its first terms and the count when long.
@@ -169,7 +346,7 @@ func pair(o py.Object, what string) (py.Object, py.Object, error) {
 
 func (s *Session) identity(line int, args py.Tuple, kw py.StringDict) (py.Object, error) {
 	start := time.Now()
-	a, err := bind("identity", args, kw, []string{"name", "lhs", "rhs", "over", "samples"}, 2)
+	a, err := bind("identity", args, kw, []string{"name", "lhs", "rhs", "over", "samples", "digits", "companion"}, 2)
 	if err != nil {
 		return nil, err
 	}
@@ -177,50 +354,58 @@ func (s *Session) identity(line int, args py.Tuple, kw py.StringDict) (py.Object
 	if err != nil {
 		return nil, err
 	}
-	switch {
-	case a[3] != nil: // sampled form
+	t, err := s.claimTarget(a[5])
+	if err != nil {
+		return nil, err
+	}
+	companion := a[6] == nil || a[6] == py.True
+	if a[6] != nil && a[6] != py.True && a[6] != py.False {
+		return nil, py.ExceptionNewf(py.TypeError, "identity(): companion must be True or False")
+	}
+	if a[3] != nil { // sampled form
 		if a[2] != nil {
 			return nil, py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) takes no rhs")
 		}
-		if err := s.sampled(&c, a[1], a[3], a[4]); err != nil {
+		if err := s.sampled(&c, t, a[1], a[3], a[4], companion); err != nil {
 			return nil, err
 		}
-	default:
-		if a[4] != nil {
-			return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= needs over= (the function making sample k)")
+		return s.record(c, start), nil
+	}
+	if a[4] != nil {
+		return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= needs over= (the function making sample k)")
+	}
+	lhs, rhs := a[1], a[2]
+	var call func() (py.Object, py.Object, error)
+	if rhs == nil {
+		f := lhs
+		if !callable(f) {
+			return nil, py.ExceptionNewf(py.TypeError, "identity(name, lhs, rhs) is missing rhs (or pass a function returning (lhs, rhs))")
 		}
-		lhs, rhs := a[1], a[2]
-		if rhs == nil {
-			if !callable(lhs) {
-				return nil, py.ExceptionNewf(py.TypeError, "identity(name, lhs, rhs) is missing rhs (or pass a function returning (lhs, rhs))")
-			}
-			res, err := py.Call(lhs, nil, nil)
+		call = func() (py.Object, py.Object, error) {
+			res, err := py.Call(f, nil, nil)
 			if err != nil {
-				return nil, err
+				return nil, nil, err
 			}
-			if lhs, rhs, err = pair(res, "the identity's function"); err != nil {
-				return nil, err
-			}
+			return pair(res, "the identity's function")
 		}
-		r, err := measure(s.ring, lhs, rhs)
-		if err != nil {
+		if lhs, rhs, err = call(); err != nil {
 			return nil, err
 		}
-		c.Residual = r.text
-		switch {
-		case r.symbolic && r.size.Sign() == 0:
-			c.Verdict, c.Method = cells.Holds, polyMethod
-			c.Note = "the expanded difference is the zero polynomial: a proof of the identity for all values of the variables"
-		case r.symbolic:
-			c.Verdict, c.Method = cells.Fails, polyMethod
-			c.Note = "the expanded difference is a non-zero polynomial"
-		case r.size.Sign() == 0:
-			c.Verdict = cells.Holds
-			c.Note = "exact zero residual: a proof for this instance"
-		default:
-			c.Verdict = cells.Fails
-			c.Note = "exact non-zero residual"
+	}
+	r, err := measure(s.ring, t, lhs, rhs)
+	if err != nil {
+		return nil, err
+	}
+	r.verdict(&c, 0)
+	if call != nil && companion {
+		audit, skipped := s.companion(call, lhs, rhs)
+		c.Float = audit
+		if skipped != "" {
+			c.Note += "; " + skipped
 		}
+	}
+	if r.real {
+		c.Precision = int(t.bits)
 	}
 	return s.record(c, start), nil
 }
@@ -313,7 +498,7 @@ func (s *Session) factorization(line int, args py.Tuple, kw py.StringDict) (py.O
 // maxSamples bounds a sweep so a typo cannot run for hours.
 const maxSamples = 10_000_000
 
-func (s *Session) sampled(c *cells.Claim, f, over, samples py.Object) error {
+func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool) error {
 	if !callable(f) || !callable(over) {
 		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
 	}
@@ -324,9 +509,11 @@ func (s *Session) sampled(c *cells.Claim, f, over, samples py.Object) error {
 	if n < 1 || n > maxSamples {
 		return py.ExceptionNewf(py.ValueError, "identity(): samples must be between 1 and %d, got %d", maxSamples, n)
 	}
-	worst := residual{text: "0", size: new(big.Rat)}
-	worstK, failing := int64(-1), 0
-	var worstSample py.Object
+	var results []residual
+	failing := 0
+	var worstAudit *cells.FloatAudit
+	var worstAuditSample int64
+	skipped := ""
 	for k := int64(0); k < n; k++ {
 		sample, err := py.Call(over, py.Tuple{py.Int(k)}, nil)
 		if err != nil {
@@ -340,27 +527,59 @@ func (s *Session) sampled(c *cells.Claim, f, over, samples py.Object) error {
 		if err != nil {
 			return err
 		}
-		r, err := measure(s.ring, lhs, rhs)
+		r, err := measure(s.ring, t, lhs, rhs)
 		if err != nil {
 			return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
 		}
-		if r.size.Sign() != 0 {
+		if !r.zero && r.certified == 0 && !r.undecided {
 			failing++
 		}
-		if worstK < 0 || r.size.Cmp(worst.size) > 0 {
-			worst, worstK, worstSample = r, k, sample
+		results = append(results, r)
+		if companion && skipped == "" {
+			call := func() (py.Object, py.Object, error) {
+				fs, err := floatValue(sample)
+				if err != nil {
+					return nil, nil, err
+				}
+				res, err := py.Call(f, py.Tuple{fs}, nil)
+				if err != nil {
+					return nil, nil, err
+				}
+				return pair(res, fmt.Sprintf("f(sample %d)", k))
+			}
+			audit, why := s.companion(call, lhs, rhs)
+			if why != "" {
+				skipped = why
+			} else if worstAudit == nil || audit.DigitsLost > worstAudit.DigitsLost {
+				worstAudit, worstAuditSample = audit, k
+			}
 		}
 	}
+	w := worst(results)
+	w.verdict(c, int(n))
 	c.Samples = int(n)
-	c.Residual = worst.text
-	if failing == 0 {
-		c.Verdict = cells.Holds
-		c.Note = fmt.Sprintf("exact zero residual on all %d samples: each instance is proved; for the general statement this is evidence, not a proof", n)
-		return nil
+	if w.real {
+		c.Precision = int(t.bits)
 	}
-	c.Verdict = cells.Fails
-	c.Worst = fmt.Sprintf("sample %d: %s", worstK, clip(str(worstSample), 200))
-	c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", failing, n)
+	if c.Verdict != cells.Holds {
+		// Rebuild the worst sample (g is deterministic) rather than keep them all.
+		k := worstIndex(results)
+		sample, err := py.Call(over, py.Tuple{py.Int(k)}, nil)
+		if err != nil {
+			return err
+		}
+		c.Worst = fmt.Sprintf("sample %d: %s", k, clip(str(sample), 200))
+	}
+	if failing > 0 {
+		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", failing, n)
+	}
+	switch {
+	case skipped != "":
+		c.Note += "; " + skipped
+	case worstAudit != nil:
+		c.Float = worstAudit
+		c.Float.Residual += fmt.Sprintf(" (at sample %d, where float64 lost most)", worstAuditSample)
+	}
 	return nil
 }
 
@@ -371,4 +590,42 @@ func clip(s string, n int) string {
 		return s
 	}
 	return string(r[:n-1]) + "…"
+}
+
+// companion runs a claim's function again as float64 code (every exact
+// input turned into float64, gonum for linear algebra) and states how far
+// its sides are from the exact ones. It returns a reason instead when the
+// sides have no float64 counterpart.
+func (s *Session) companion(call func() (py.Object, py.Object, error), lhs, rhs py.Object) (*cells.FloatAudit, string) {
+	el, ok1 := exactEntries(lhs)
+	er, ok2 := exactEntries(rhs)
+	if !ok1 || !ok2 {
+		return nil, "no float64 companion: the sides are not numbers, matrices or lists of them"
+	}
+	var lf, rf py.Object
+	_, err := inFloat(func() (py.Object, error) {
+		var err error
+		lf, rf, err = call()
+		return nil, err
+	})
+	if err != nil {
+		_, msg := describe(err, 0)
+		if strings.Contains(msg, noCompanionText) {
+			return nil, strings.TrimPrefix(msg, "NotImplementedError: ")
+		}
+		return &cells.FloatAudit{Residual: "float64 code raised " + clip(msg, 160), Error: "no value", DigitsLost: float64Digits}, ""
+	}
+	fl, ok1 := floatEntries(lf)
+	fr, ok2 := floatEntries(rf)
+	if !ok1 || !ok2 || len(fl) != len(el) || len(fr) != len(er) {
+		return nil, "no float64 companion: the float64 code returned values of another shape"
+	}
+	res := 0.0
+	if len(fl) == len(fr) {
+		for i := range fl {
+			res = math.Max(res, math.Abs(fl[i]-fr[i]))
+		}
+	}
+	rel, lost := companionError(append(el, er...), append(fl, fr...))
+	return &cells.FloatAudit{Residual: fmt.Sprintf("%.3e", res), Error: fmt.Sprintf("%.2e relative", rel), DigitsLost: math.Round(lost*10) / 10}, ""
 }

@@ -43,6 +43,9 @@ func exactOpcode(original func(*vm.Vm, int32) error, exact func(a, b py.Object) 
 }
 
 func exactQuotient(a, b py.Object) (py.Object, bool, error) {
+	if floatMode {
+		return nil, false, nil // float64 code divides as Python does
+	}
 	x, ok1 := exactOf(a)
 	y, ok2 := exactOf(b)
 	if ok1 && !ok2 {
@@ -64,6 +67,9 @@ func exactQuotient(a, b py.Object) (py.Object, bool, error) {
 }
 
 func exactNegativePower(a, b py.Object) (py.Object, bool, error) {
+	if floatMode {
+		return nil, false, nil
+	}
 	if !isExactScalar(a) {
 		return nil, false, nil
 	}
@@ -81,7 +87,7 @@ func exactNegativePower(a, b py.Object) (py.Object, bool, error) {
 // isAssayValue reports whether o is one of the kernel's own value types.
 func isAssayValue(o py.Object) bool {
 	switch o.(type) {
-	case *Rational, *Polynomial, *Matrix:
+	case *Rational, *Polynomial, *Matrix, *Real:
 		return true
 	}
 	return false

@@ -446,3 +446,27 @@ func TestTermCap(t *testing.T) {
 		t.Fatalf("term cap: %+v", o.Error)
 	}
 }
+
+func TestRealsAndGeometry(t *testing.T) {
+	expectPrints(t, []printCase{
+		// sqrt(2) = 1.41421356237309504880… (OEIS A002193, from memory)
+		{"print(sqrt(2))", "1.4142135623730950488"},
+		{"print(digits(pi, 10), sqrt(frac(9, 4)), root(-27, 3))", "3.141592653 3/2 -3"},
+		{"print(sqrt(2) < frac(3, 2), sqrt(2) > frac(141, 100), float(sqrt(2)) == 2 ** 0.5)", "True True True"},
+		{"lo, hi = sqrt(2).enclosure(40)\nprint(lo < sqrt(2), sqrt(2) < hi, hi - lo <= frac(1, 2 ** 40))", "True True True"},
+		{"print(1 / sqrt(4), str(sqrt(2) * sqrt(8))[:32])", "1/2 4.0000000000000000000 (within 1e"},
+		{"s = simplex([[0, 0], [4, 0], [0, 3]])\nprint(s.volume(), s.inradius(), s.circumradius_sq(), s.sq_edges())", "6 1 25/4 [16, 9, 25]"},
+		{"print(wedge([1, 0, 0], [0, 1, 0]) * 3, wedge([1, 2], [3, 4]).components())", "3*e1^e2 [((0, 1), -2)]"},
+		{"print(cayley_menger(matrix([[0, 1, 1], [1, 0, 1], [1, 1, 0]])), volume_sq(matrix([[0, 4], [4, 0]])))", "-3 4"},
+		{"x, y, z = variables(\"x y z\")\nprint(volume_sq(matrix([[0, z, y], [z, 0, x], [y, x, 0]])))", "-1/16*x^2 + 1/8*x*y + 1/8*x*z - 1/16*y^2 + 1/8*y*z - 1/16*z^2"},
+		{"print(embeddable(matrix([[0, 1, 9], [1, 0, 1], [9, 1, 0]]), 2)[0], sliver(frac(1, 10)).is_degenerate())", "False False"},
+	})
+	expectErrors(t, []errorCase{
+		{"sqrt(2) == sqrt(2)", "cannot decide"},
+		{"sqrt(2) + 0.5", "float64"},
+		{"sqrt(0.5)", "float64"},
+		{"digits(sqrt(2), 0)", "1 <= n"},
+		{"simplex([[0, 0], [1, 0]]).dihedral_cos(0, 0)", "two different vertex indices"},
+		{"distance_simplex(matrix([[0, 1], [1, 0]])).points()", "built from distances"},
+	})
+}

@@ -236,7 +236,11 @@ func column(m *exact.Matrix, j int) *py.List {
 func init() {
 	method := func(name, doc string, f func(m *Matrix, args py.Tuple, kw py.StringDict) (py.Object, error)) {
 		MatrixType.Dict[name] = py.MustNewMethod(name, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
-			return f(self.(*Matrix), args, kw)
+			m := self.(*Matrix)
+			if floatMode {
+				return m.floatMethod(name, args, kw)
+			}
+			return f(m, args, kw)
 		}, 0, doc)
 	}
 	noArgs := func(name string, args py.Tuple, kw py.StringDict) error {
@@ -483,6 +487,9 @@ func floatColumnOrMatrix(o py.Object) (*mat.Dense, bool, error) {
 
 // M__getitem__ reads M[i, j] (an entry) or M[i] (a row as a list).
 func (m *Matrix) M__getitem__(key py.Object) (py.Object, error) {
+	if floatMode && m.q != nil {
+		return (&FloatMatrix{m: m.q.Float()}).M__getitem__(key)
+	}
 	rows, cols := m.rows(), m.cols()
 	index := func(o py.Object, n int, what string) (int, error) {
 		k, err := py.Index(o)
@@ -564,16 +571,25 @@ func (m *Matrix) scale(o py.Object) (py.Object, error) {
 
 // M__add__ adds entrywise.
 func (m *Matrix) M__add__(o py.Object) (py.Object, error) {
+	if floatMode {
+		return m.floatOperator(o, false, py.Add)
+	}
 	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add)
 }
 
 // M__sub__ subtracts entrywise.
 func (m *Matrix) M__sub__(o py.Object) (py.Object, error) {
+	if floatMode {
+		return m.floatOperator(o, false, py.Sub)
+	}
 	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub)
 }
 
 // M__mul__ is the matrix product, or scaling by a number or polynomial.
 func (m *Matrix) M__mul__(o py.Object) (py.Object, error) {
+	if floatMode {
+		return m.floatOperator(o, false, py.Mul)
+	}
 	if _, ok := o.(*Matrix); ok {
 		return m.arith(o, false, (*exact.Matrix).Mul, (*exact.PolyMatrix).Mul)
 	}
@@ -581,7 +597,12 @@ func (m *Matrix) M__mul__(o py.Object) (py.Object, error) {
 }
 
 // M__rmul__ scales by a number or polynomial on the left.
-func (m *Matrix) M__rmul__(o py.Object) (py.Object, error) { return m.scale(o) }
+func (m *Matrix) M__rmul__(o py.Object) (py.Object, error) {
+	if floatMode {
+		return m.floatOperator(o, true, py.Mul)
+	}
+	return m.scale(o)
+}
 
 // M__truediv__ divides by an exact non-zero number.
 func (m *Matrix) M__truediv__(o py.Object) (py.Object, error) {
@@ -712,4 +733,36 @@ func grid(cells [][]string) string {
 		b.WriteString(" ]")
 	}
 	return b.String()
+}
+
+// floatMethod runs a method on the float64 companion of m (float64 code).
+func (m *Matrix) floatMethod(name string, args py.Tuple, kw py.StringDict) (py.Object, error) {
+	fm, err := floatValue(m)
+	if err != nil {
+		return nil, err
+	}
+	if _, ok := FloatMatrixType.Dict[name]; !ok {
+		return nil, noCompanion("M." + name + "()")
+	}
+	attr, err := py.GetAttrString(fm, name)
+	if err != nil {
+		return nil, err
+	}
+	return py.Call(attr, args, kw)
+}
+
+// floatOperator applies an operator to the float64 companion of m.
+func (m *Matrix) floatOperator(o py.Object, swap bool, op func(a, b py.Object) (py.Object, error)) (py.Object, error) {
+	fm, err := floatValue(m)
+	if err != nil {
+		return nil, err
+	}
+	other, err := floatValue(o)
+	if err != nil {
+		return nil, err
+	}
+	if swap {
+		return op(other, fm)
+	}
+	return op(fm, other)
 }

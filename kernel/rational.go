@@ -112,6 +112,9 @@ func (r *Rational) binary(other py.Object, swap bool, op func(x, y *big.Rat) (*b
 	if swap {
 		a, b = b, a
 	}
+	if floatMode && isExactScalar(a) && isExactScalar(b) {
+		return fop(toFloatObject(a), toFloatObject(b))
+	}
 	res, err := ratOp(a, b, op)
 	if err != nil || res != py.NotImplemented {
 		return res, err
@@ -163,6 +166,9 @@ func (r *Rational) M__rtruediv__(o py.Object) (py.Object, error) {
 func (r *Rational) M__pow__(o, mod py.Object) (py.Object, error) {
 	if mod != py.None {
 		return nil, py.ExceptionNewf(py.TypeError, "pow() with a modulus is not defined for rationals")
+	}
+	if floatMode {
+		return py.Pow(toFloatObject(r), toFloatObject(o), py.None)
 	}
 	return exactPower(r, o)
 }

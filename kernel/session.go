@@ -24,7 +24,13 @@ type Settings struct {
 	PrecisionFixed bool `json:"precision_fixed,omitempty"`
 	// MaxTerms caps the terms of any polynomial (0: exact.DefaultMaxTerms).
 	MaxTerms int `json:"max_terms,omitempty"`
+	// MaxPrecision caps the bits of any certified-real refinement (0: DefaultMaxPrecision).
+	MaxPrecision int `json:"max_precision,omitempty"`
 }
+
+// DefaultMaxPrecision is the default cap, in bits, on refining a certified real
+// (about 39,000 decimal digits).
+const DefaultMaxPrecision = 1 << 17
 
 // DefaultSettings are used when neither flags nor setup() say otherwise.
 var DefaultSettings = Settings{Seed: 1, Precision: 256}
@@ -38,18 +44,22 @@ type Session struct {
 	claimAt  map[string]int // claim name -> line where it was made
 
 	// Per-cell state, reset by Run.
-	cell    int
-	line    int
-	seed    int64 // seed in force for this cell
-	out     strings.Builder
-	outcome *cells.Outcome
-	draws   uint64 // random draws taken without an explicit seed
+	cell      int
+	line      int
+	seed      int64 // seed in force for this cell
+	precision int   // working precision in bits for this cell
+	out       strings.Builder
+	outcome   *cells.Outcome
+	draws     uint64 // random draws taken without an explicit seed
 }
 
 // NewSession makes a session with a fresh namespace.
 func NewSession(s Settings) (*Session, error) {
 	if s.Precision == 0 {
 		s.Precision = DefaultSettings.Precision
+	}
+	if s.MaxPrecision == 0 {
+		s.MaxPrecision = DefaultMaxPrecision
 	}
 	ctx, err := newSandbox()
 	if err != nil {
@@ -96,9 +106,18 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 	if c.Options.Seed != nil {
 		s.seed = *c.Options.Seed
 	}
+	s.precision = s.settings.Precision
+	if c.Options.Precision > 0 {
+		s.precision = c.Options.Precision
+	}
 	s.draws = 0
 	out = cells.Outcome{Cell: c.Index, Status: cells.Ran}
 	s.outcome = &out
+	if s.precision > s.settings.MaxPrecision {
+		out.Status = cells.Failed
+		out.Error = &cells.Problem{Cell: c.Index, Line: c.Line - 1, Message: fmt.Sprintf("precision=%d is above the precision cap of %d bits (raise it with --max-precision)", s.precision, s.settings.MaxPrecision)}
+		return out
+	}
 	defer func() {
 		if r := recover(); r != nil {
 			out.Status = cells.Failed

@@ -71,6 +71,7 @@ type runFlags struct {
 	seedValue      int64
 	precisionValue int
 	maxTerms       int
+	maxPrecision   int
 }
 
 func addRunFlags(fs *flag.FlagSet) *runFlags {
@@ -80,6 +81,7 @@ func addRunFlags(fs *flag.FlagSet) *runFlags {
 	fs.DurationVar(&f.timeout, "timeout", kernel.DefaultTimeout, "time limit per cell (a cell's timeout= option wins)")
 	fs.Var(&f.maxMemory, "max-memory", "memory cap of the kernel process, e.g. 512MiB or 4GiB")
 	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
+	fs.IntVar(&f.maxPrecision, "max-precision", kernel.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
 	fs.BoolVar(&f.keep, "keep-going", false, "run the remaining cells after a cell fails")
 	fs.BoolVar(&f.strictOn, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
 	return f
@@ -99,8 +101,12 @@ func (f *runFlags) options(fs *flag.FlagSet) (kernel.Options, error) {
 		return kernel.Options{}, fmt.Errorf("--max-terms must be positive, got %d", f.maxTerms)
 	}
 	s.MaxTerms = f.maxTerms
+	s.MaxPrecision = f.maxPrecision
 	if s.Precision < 2 {
 		return kernel.Options{}, fmt.Errorf("--precision must be at least 2 bits, got %d", s.Precision)
+	}
+	if s.Precision > s.MaxPrecision {
+		return kernel.Options{}, fmt.Errorf("--precision %d is above --max-precision %d", s.Precision, s.MaxPrecision)
 	}
 	if f.timeout <= 0 {
 		return kernel.Options{}, fmt.Errorf("--timeout must be positive, got %s", f.timeout)

@@ -1,0 +1,55 @@
+package geom
+
+import (
+	"math/big"
+	"testing"
+)
+
+// tetPoints returns the vertices of Random(3, seed, 1000, 100) for seeds
+// 0..n−1.
+func tetPoints(n int) [][][]*big.Rat {
+	out := make([][][]*big.Rat, n)
+	for i := range out {
+		out[i], _ = Random(3, uint64(i), 1000, 100).Points()
+	}
+	return out
+}
+
+// BenchmarkTetrahedra10000 times, per op, 10,000 random rational
+// tetrahedra (Random(3, seed, 1000, 100)) from their points: FromPoints,
+// then exact VolumeSq, FacetContentsSq and CircumradiusSq. Target: < 0.3 s
+// per op.
+func BenchmarkTetrahedra10000(b *testing.B) {
+	pts := tetPoints(10000)
+	b.ResetTimer()
+	for b.Loop() {
+		for _, p := range pts {
+			s, err := FromPoints(p)
+			if err != nil {
+				b.Fatal(err)
+			}
+			measureTet(b, s)
+		}
+	}
+}
+
+// BenchmarkTetrahedra10000Random includes the generation by Random.
+func BenchmarkTetrahedra10000Random(b *testing.B) {
+	for b.Loop() {
+		for i := 0; i < 10000; i++ {
+			measureTet(b, Random(3, uint64(i), 1000, 100))
+		}
+	}
+}
+
+func measureTet(b *testing.B, s *Simplex) {
+	if s.VolumeSq().Sign() <= 0 {
+		b.Fatal("degenerate")
+	}
+	if len(s.FacetContentsSq()) != 4 {
+		b.Fatal("facets")
+	}
+	if _, err := s.CircumradiusSq(); err != nil {
+		b.Fatal(err)
+	}
+}

@@ -1,0 +1,471 @@
+package geom
+
+import (
+	"fmt"
+	"math/big"
+	"strings"
+	"sync"
+
+	"assay/exact"
+)
+
+// Simplex is a k-simplex: k+1 vertices given either by points of R^n
+// (n >= k) or by their squared distances. It may be degenerate (squared
+// volume 0). A Simplex is immutable; methods hand out copies.
+type Simplex struct {
+	k int
+	n int // ambient dimension; -1 when built from distances
+
+	pts [][]*big.Rat // the points (points simplices only)
+
+	d *exact.Matrix // the squared distances (distance simplices only)
+
+	// g is the k x k Gram matrix of the edge vectors v_i − v_0 (i = 1..k)
+	// times s: Gram = g/s, with g integral and s > 0. Row-major.
+	g []*big.Int
+	s *big.Int
+
+	once sync.Once // computes c
+	c    *core
+}
+
+// FromPoints returns the simplex with the given vertices, copied. There
+// must be at least one point, all of the same length n, and n must be at
+// least the number of points minus 1 (a k-simplex needs an ambient space
+// of dimension at least k); otherwise the error wraps exact.ErrShape and
+// names the offending point. A nil coordinate is read as 0. The points may
+// be affinely dependent: the simplex is then degenerate.
+func FromPoints(pts [][]*big.Rat) (*Simplex, error) {
+	if len(pts) == 0 {
+		return nil, fmt.Errorf("from points: no points: %w", exact.ErrShape)
+	}
+	n := len(pts[0])
+	for i, p := range pts {
+		if len(p) != n {
+			return nil, fmt.Errorf("from points: point %d has length %d, point 0 has length %d: %w", i, len(p), n, exact.ErrShape)
+		}
+	}
+	if n < len(pts)-1 {
+		return nil, fmt.Errorf("from points: %d points span a %d-simplex, which needs at least %d coordinates per point, got %d: %w",
+			len(pts), len(pts)-1, len(pts)-1, n, exact.ErrShape)
+	}
+	cp := make([][]*big.Rat, len(pts))
+	for i, p := range pts {
+		cp[i] = make([]*big.Rat, n)
+		for j, x := range p {
+			cp[i][j] = new(big.Rat)
+			if x != nil {
+				cp[i][j].Set(x)
+			}
+		}
+	}
+	return fromOwnedPoints(cp), nil
+}
+
+// fromOwnedPoints builds a points simplex from validated points it may
+// keep: with l the least common multiple of all coordinate denominators,
+// the edge vectors l·(v_i − v_0) are integral and g is their Gram matrix,
+// over s = l².
+func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
+	k, n := len(pts)-1, len(pts[0])
+	var lc lcmAcc
+	for _, p := range pts {
+		for _, x := range p {
+			lc.add(x)
+		}
+	}
+	l := lc.value()
+	s := &Simplex{k: k, n: n, pts: pts}
+	s.s = new(big.Int).Mul(l, l)
+	p0 := make([]big.Int, n)
+	for c, x := range pts[0] {
+		setScaled(&p0[c], x, l)
+	}
+	e := make([]big.Int, k*n)
+	for i := 1; i <= k; i++ {
+		for c, x := range pts[i] {
+			z := &e[(i-1)*n+c]
+			setScaled(z, x, l)
+			z.Sub(z, &p0[c])
+		}
+	}
+	gs := make([]big.Int, k*(k+1)/2)
+	s.g = make([]*big.Int, k*k)
+	var t big.Int
+	pos := 0
+	for i := 0; i < k; i++ {
+		ei := e[i*n : (i+1)*n]
+		for j := i; j < k; j++ {
+			ej := e[j*n : (j+1)*n]
+			z := &gs[pos]
+			pos++
+			for c := range ei {
+				if ei[c].Sign() != 0 && ej[c].Sign() != 0 {
+					z.Add(z, t.Mul(&ei[c], &ej[c]))
+				}
+			}
+			s.g[i*k+j] = z
+			s.g[j*k+i] = z
+		}
+	}
+	return s
+}
+
+// FromSquaredDistances returns the simplex whose vertices have the squared
+// distances d_ij = |v_i − v_j|² (d is copied). d must be square (else the
+// error wraps exact.ErrShape and exact.ErrNotSquare), symmetric, with a
+// zero diagonal and non-negative entries, and it must be realisable by
+// points of a Euclidean space: every triangle inequality holds and the
+// Gram matrix is positive semidefinite (Schoenberg's criterion). Otherwise
+// the error wraps ErrNotEmbeddable and names the entry (i, j), the triangle
+// or the principal minor at fault. An (N x N) matrix gives an
+// (N−1)-simplex; it may be degenerate.
+func FromSquaredDistances(d *exact.Matrix) (*Simplex, error) {
+	if err := checkDistShape("from squared distances", d); err != nil {
+		return nil, err
+	}
+	if reason := distEntryReason(d); reason != "" {
+		return nil, fmt.Errorf("from squared distances: %s: %w", reason, ErrNotEmbeddable)
+	}
+	s := fromDistances(d.Clone())
+	if _, reason := s.euclidean(); reason != "" {
+		return nil, fmt.Errorf("from squared distances: %s: %w", reason, ErrNotEmbeddable)
+	}
+	return s, nil
+}
+
+// fromDistances builds a distance simplex from a valid squared-distance
+// matrix it may keep.
+func fromDistances(d *exact.Matrix) *Simplex {
+	N := d.Rows()
+	k := N - 1
+	s := &Simplex{k: k, n: -1, d: d}
+	row0 := d.Row(0)
+	upper := make([]*big.Rat, 0, N*(N-1)/2)
+	for i := 0; i < N; i++ {
+		for j := i + 1; j < N; j++ {
+			if i == 0 {
+				upper = append(upper, row0[j])
+			} else {
+				upper = append(upper, d.At(i, j))
+			}
+		}
+	}
+	m := lcmDenoms(upper)
+	// D = m·d as integers, indexed like upper.
+	dint := make([]*big.Int, len(upper))
+	for a, x := range upper {
+		dint[a] = scaleToInt(x, m)
+	}
+	idx := func(i, j int) int { // position of (i, j), i < j, in upper
+		return i*N - i*(i+1)/2 + (j - i - 1)
+	}
+	s.s = new(big.Int).Lsh(m, 1)
+	s.g = make([]*big.Int, k*k)
+	for i := 1; i <= k; i++ {
+		for j := i; j <= k; j++ {
+			z := new(big.Int).Add(dint[idx(0, i)], dint[idx(0, j)])
+			if i != j {
+				z.Sub(z, dint[idx(i, j)])
+			}
+			s.g[(i-1)*k+j-1] = z
+			s.g[(j-1)*k+i-1] = z
+		}
+	}
+	return s
+}
+
+// checkDistShape checks that d is a non-empty square matrix.
+func checkDistShape(op string, d *exact.Matrix) error {
+	if d == nil {
+		return fmt.Errorf("%s: nil matrix: %w", op, exact.ErrShape)
+	}
+	if d.Rows() != d.Cols() {
+		return fmt.Errorf("%s: a squared-distance matrix must be square, got %dx%d: %w %w", op, d.Rows(), d.Cols(), exact.ErrShape, exact.ErrNotSquare)
+	}
+	if d.Rows() == 0 {
+		return fmt.Errorf("%s: empty matrix (no points): %w", op, exact.ErrShape)
+	}
+	return nil
+}
+
+// distEntryReason returns why the square matrix d is not a matrix of
+// squared distances ("" if it is one): a non-zero diagonal entry, an
+// asymmetric pair or a negative entry, with its (i, j).
+func distEntryReason(d *exact.Matrix) string {
+	N := d.Rows()
+	for i := 0; i < N; i++ {
+		if x := d.At(i, i); x.Sign() != 0 {
+			return fmt.Sprintf("diagonal entry (%d, %d) is %s, not 0 (a point is at distance 0 from itself)", i, i, exact.FormatRat(x))
+		}
+	}
+	for i := 0; i < N; i++ {
+		for j := i + 1; j < N; j++ {
+			a, b := d.At(i, j), d.At(j, i)
+			if a.Cmp(b) != 0 {
+				return fmt.Sprintf("entries (%d, %d) = %s and (%d, %d) = %s differ (squared distances are symmetric)",
+					i, j, exact.FormatRat(a), j, i, exact.FormatRat(b))
+			}
+			if a.Sign() < 0 {
+				return fmt.Sprintf("entry (%d, %d) is %s, negative (a squared distance is >= 0)", i, j, exact.FormatRat(a))
+			}
+		}
+	}
+	return ""
+}
+
+// Dim returns k, the dimension of the simplex.
+func (s *Simplex) Dim() int { return s.k }
+
+// Vertices returns k+1, the number of vertices.
+func (s *Simplex) Vertices() int { return s.k + 1 }
+
+// Ambient returns n, the length of the points, or -1 for a simplex built
+// from squared distances.
+func (s *Simplex) Ambient() int { return s.n }
+
+// Points returns copies of the vertices and true for a simplex built from
+// points; nil and false for one built from squared distances.
+func (s *Simplex) Points() ([][]*big.Rat, bool) {
+	if s.pts == nil {
+		return nil, false
+	}
+	out := make([][]*big.Rat, len(s.pts))
+	for i, p := range s.pts {
+		out[i] = copyVec(p)
+	}
+	return out, true
+}
+
+func copyVec(v []*big.Rat) []*big.Rat {
+	out := make([]*big.Rat, len(v))
+	for i, x := range v {
+		out[i] = new(big.Rat).Set(x)
+	}
+	return out
+}
+
+// gi returns the scaled Gram entry for vertices i, j in 0..k (0 when either
+// is vertex 0); the result is shared, not a copy.
+func (s *Simplex) gi(i, j int) *big.Int {
+	if i == 0 || j == 0 {
+		return zeroInt
+	}
+	return s.g[(i-1)*s.k+j-1]
+}
+
+var zeroInt = new(big.Int)
+
+func (s *Simplex) checkVertex(op string, i int) error {
+	if i < 0 || i > s.k {
+		return fmt.Errorf("%s: vertex %d out of range [0, %d]: %w", op, i, s.k, exact.ErrShape)
+	}
+	return nil
+}
+
+// sqEdgeScaled returns s.s·|v_i − v_j|² as an integer.
+func (s *Simplex) sqEdgeScaled(i, j int) *big.Int {
+	z := new(big.Int).Add(s.gi(i, i), s.gi(j, j))
+	t := new(big.Int).Lsh(s.gi(i, j), 1)
+	return z.Sub(z, t)
+}
+
+// SqEdge returns the squared distance between vertices i and j (0-based).
+// It panics if i or j is out of range, like exact.Matrix.At.
+func (s *Simplex) SqEdge(i, j int) *big.Rat {
+	if i < 0 || i > s.k || j < 0 || j > s.k {
+		panic(fmt.Sprintf("geom: vertex pair (%d, %d) out of range for a %d-simplex", i, j, s.k))
+	}
+	if s.d != nil {
+		return s.d.At(i, j)
+	}
+	if i == j {
+		return new(big.Rat)
+	}
+	return ratFrac(s.sqEdgeScaled(i, j), s.s)
+}
+
+// SqEdges returns the k(k+1)/2 squared edge lengths in the order
+// (0,1), (0,2), …, (0,k), (1,2), …, (k−1,k).
+func (s *Simplex) SqEdges() []*big.Rat {
+	out := make([]*big.Rat, 0, s.k*(s.k+1)/2)
+	for i := 0; i <= s.k; i++ {
+		for j := i + 1; j <= s.k; j++ {
+			out = append(out, s.SqEdge(i, j))
+		}
+	}
+	return out
+}
+
+// SqDistances returns the (k+1) x (k+1) matrix of squared distances.
+func (s *Simplex) SqDistances() *exact.Matrix {
+	if s.d != nil {
+		return s.d.Clone()
+	}
+	m := exact.Zeros(s.k+1, s.k+1)
+	for i := 0; i <= s.k; i++ {
+		for j := i + 1; j <= s.k; j++ {
+			x := s.SqEdge(i, j)
+			m.Set(i, j, x)
+			m.Set(j, i, x)
+		}
+	}
+	return m
+}
+
+// CayleyMengerMatrix returns the (k+2) x (k+2) Cayley–Menger matrix
+//
+//	[[0, 1,    1,    …, 1   ],
+//	 [1, 0,    d_01, …, d_0k],
+//	 [1, d_10, 0,    …, d_1k],
+//	 …
+//	 [1, d_k0, d_k1, …, 0   ]]
+//
+// with d_ij the squared distances.
+func (s *Simplex) CayleyMengerMatrix() *exact.Matrix {
+	return borderedCM(s.SqDistances())
+}
+
+func borderedCM(d *exact.Matrix) *exact.Matrix {
+	N := d.Rows()
+	m := exact.Zeros(N+1, N+1)
+	one := big.NewRat(1, 1)
+	for i := 1; i <= N; i++ {
+		m.Set(0, i, one)
+		m.Set(i, 0, one)
+		for j := 1; j <= N; j++ {
+			m.Set(i, j, d.At(i-1, j-1))
+		}
+	}
+	return m
+}
+
+// CayleyMenger returns the Cayley–Menger determinant, the determinant of
+// CayleyMengerMatrix, computed from that matrix. It equals
+// (−1)^(k+1) 2^k (k!)² VolumeSq().
+func (s *Simplex) CayleyMenger() *big.Rat {
+	d, err := s.CayleyMengerMatrix().Det()
+	if err != nil {
+		panic("geom: " + err.Error()) // square by construction
+	}
+	return d
+}
+
+// CayleyMengerDet returns the determinant of the Cayley–Menger matrix
+// bordered around d, for any square d (exact.ErrShape otherwise) — no
+// check that d holds squared distances, so that the determinant of data
+// that no points realise can be shown.
+func CayleyMengerDet(d *exact.Matrix) (*big.Rat, error) {
+	if err := checkDistShape("cayley-menger", d); err != nil {
+		return nil, err
+	}
+	return borderedCM(d).Det()
+}
+
+// Gram returns the k x k Gram matrix of the edge vectors from vertex 0:
+// G_ij = (v_i − v_0)·(v_j − v_0) = (d_0i + d_0j − d_ij)/2, i, j = 1..k
+// (stored at 0-based (i−1, j−1)).
+func (s *Simplex) Gram() *exact.Matrix {
+	m := exact.Zeros(s.k, s.k)
+	for i := 0; i < s.k; i++ {
+		for j := 0; j < s.k; j++ {
+			m.Set(i, j, ratFrac(s.g[i*s.k+j], s.s))
+		}
+	}
+	return m
+}
+
+// gramInts returns a fresh copy of the scaled Gram matrix as rows.
+func (s *Simplex) gramInts() [][]*big.Int {
+	a := make([][]*big.Int, s.k)
+	for i := range a {
+		a[i] = make([]*big.Int, s.k)
+		for j := range a[i] {
+			a[i][j] = new(big.Int).Set(s.g[i*s.k+j])
+		}
+	}
+	return a
+}
+
+// Face returns the face spanned by the vertices idx, in the given order
+// (so Face([]int{2, 0}) has vertex 0 = old vertex 2). The indices must be
+// distinct and in range, and there must be at least one (else
+// exact.ErrShape).
+func (s *Simplex) Face(idx []int) (*Simplex, error) {
+	if len(idx) == 0 {
+		return nil, fmt.Errorf("face: no vertices: %w", exact.ErrShape)
+	}
+	seen := make(map[int]bool, len(idx))
+	for _, i := range idx {
+		if err := s.checkVertex("face", i); err != nil {
+			return nil, err
+		}
+		if seen[i] {
+			return nil, fmt.Errorf("face: vertex %d repeated: %w", i, exact.ErrShape)
+		}
+		seen[i] = true
+	}
+	if s.d != nil {
+		sub, err := s.d.Submatrix(idx, idx)
+		if err != nil {
+			return nil, err
+		}
+		return fromDistances(sub), nil
+	}
+	pts := make([][]*big.Rat, len(idx))
+	for a, i := range idx {
+		pts[a] = copyVec(s.pts[i])
+	}
+	return fromOwnedPoints(pts), nil
+}
+
+// Facet returns the facet opposite vertex i: the face of the other
+// vertices in increasing order. It needs k >= 1 (exact.ErrShape).
+func (s *Simplex) Facet(i int) (*Simplex, error) {
+	if s.k < 1 {
+		return nil, fmt.Errorf("facet: a point has no facets: %w", exact.ErrShape)
+	}
+	if err := s.checkVertex("facet", i); err != nil {
+		return nil, err
+	}
+	return s.Face(others(s.k, i))
+}
+
+// others returns 0..k without i.
+func others(k, i int) []int {
+	idx := make([]int, 0, k)
+	for j := 0; j <= k; j++ {
+		if j != i {
+			idx = append(idx, j)
+		}
+	}
+	return idx
+}
+
+// String describes the simplex, e.g. "2-simplex with vertices [[0, 0],
+// [3, 0], [0, 4]]" or "1-simplex with squared distances [[0, 2], [2, 0]]".
+func (s *Simplex) String() string {
+	var b strings.Builder
+	fmt.Fprintf(&b, "%d-simplex with ", s.k)
+	if s.d != nil {
+		b.WriteString("squared distances ")
+		b.WriteString(s.d.String())
+		return b.String()
+	}
+	b.WriteString("vertices [")
+	for i, p := range s.pts {
+		if i > 0 {
+			b.WriteString(", ")
+		}
+		b.WriteByte('[')
+		for j, x := range p {
+			if j > 0 {
+				b.WriteString(", ")
+			}
+			b.WriteString(exact.FormatRat(x))
+		}
+		b.WriteByte(']')
+	}
+	b.WriteByte(']')
+	return b.String()
+}

@@ -1,0 +1,77 @@
+package exact
+
+import (
+	"math/big"
+	"testing"
+)
+
+// Targets: 10,000 certified digits of √2 and of e in under 0.5 s each; a
+// 256-bit evaluation of √a + √b − √c, 1,000 times, well under a second.
+
+func BenchmarkRealDigitsSqrt2_10000(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		x := RealSqrt(RealFromInt(2)) // fresh: no cached enclosure
+		if _, err := x.Digits(10000, DefaultMaxPrecision); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkRealDigitsE_10000(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		x := RealExp(RealFromInt(1))
+		if _, err := x.Digits(10000, DefaultMaxPrecision); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func rtResetPiCache() {
+	piCache.Lock()
+	piCache.v, piCache.prec = ival{}, 0
+	piCache.Unlock()
+	piNode.mu.Lock()
+	piNode.enc, piNode.prec = ival{}, 0
+	piNode.mu.Unlock()
+}
+
+func BenchmarkRealDigitsPi_10000(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		rtResetPiCache()
+		if _, err := Pi().Digits(10000, DefaultMaxPrecision); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+// BenchmarkRealSqrtSum256 is one 256-bit evaluation of √a + √b − √c from
+// fresh nodes; multiply ns/op by 1,000 for the target.
+func BenchmarkRealSqrtSum256(b *testing.B) {
+	ra, rb, rc := big.NewRat(12345, 17), big.NewRat(99991, 3), big.NewRat(7, 1000)
+	for i := 0; i < b.N; i++ {
+		x := RealSub(RealAdd(RealSqrt(RealFromRat(ra)), RealSqrt(RealFromRat(rb))), RealSqrt(RealFromRat(rc)))
+		if _, err := x.Enclose(256); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkRealSinCosExpLog256(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		s := RealSqrt(RealFromInt(3))
+		x := RealAdd(RealAdd(RealSin(s), RealCos(s)), RealAdd(RealExp(s), RealLog(s)))
+		if _, err := x.Enclose(256); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkRealAtan2Acos256(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		s := RealSqrt(RealFromInt(3))
+		x := RealAdd(RealAtan2(s, RealFromInt(-2)), RealAcos(RealQuo(s, RealFromInt(2))))
+		if _, err := x.Enclose(256); err != nil {
+			b.Fatal(err)
+		}
+	}
+}

@@ -1,0 +1,169 @@
+package exact
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+	"strings"
+)
+
+// Digits returns the first n significant decimal digits of x (n < 1 counts
+// as 1), every one certified: the string is the truncation toward zero of
+// x to n significant digits, and the enclosure that produced it proves
+// that no digit can change. Numbers with 1e-4 ≤ |x| < 1e21 are written in
+// positional form ("1.41421356237309504880", "0.00031415", "12300" when x
+// has more integer digits than n: those positions are written as zeros),
+// others in scientific form ("-2.7182818e-5", "6.0221e+23"). An x known to
+// be the rational zero (or enclosed in [0, 0]) is written "0".
+//
+// Rationals known exactly (Rat) are truncated exactly. Otherwise the
+// working precision starts near n·log2(10) bits and doubles up to maxPrec.
+// A value so close to a truncation boundary that the enclosures at maxPrec
+// still straddle it, such as sqrt(2)·sqrt(2) (exactly 2, but not known to
+// be rational, so it could be 1.999… or 2.000…), gives ErrUndecided; so
+// does a value whose sign is not settled (x = 0 not known exactly).
+func (x *Real) Digits(n int, maxPrec uint) (string, error) {
+	if n < 1 {
+		n = 1
+	}
+	if x.exact != nil {
+		if x.exact.Sign() == 0 {
+			return "0", nil
+		}
+		num := new(big.Int).Abs(x.exact.Num())
+		t, e := decimalTrunc(num, 0, x.exact.Denom(), n)
+		return formatDigits(x.exact.Sign() < 0, t, e, n), nil
+	}
+	start := uint(math.Ceil(float64(n)*math.Log2(10))) + 32
+	var out string
+	err := x.refine(start, maxPrec, fmt.Sprintf("%d certified digits", n), func(v ival, p uint) bool {
+		if v.isZero() {
+			out = "0"
+			return true
+		}
+		if v.containsZero() {
+			return false
+		}
+		// Cheap pre-check: an enclosure wider than about 10^-n relative
+		// cannot fix n digits, so skip the exact decimal conversion.
+		if w := ivWidth(v); w.Sign() != 0 {
+			rel := w.MantExp(nil) - ivMagLower(v).MantExp(nil)
+			if float64(rel) > 4-float64(n)*math.Log2(10) {
+				return false
+			}
+		}
+		neg := v.negative()
+		a, b := v.lo, v.hi
+		if neg {
+			a, b = new(big.Float).Neg(v.hi), new(big.Float).Neg(v.lo)
+		}
+		t1, e1 := floatTrunc(a, n)
+		t2, e2 := floatTrunc(b, n)
+		if e1 != e2 || t1.Cmp(t2) != 0 {
+			return false
+		}
+		out = formatDigits(neg, t1, e1, n)
+		return true
+	})
+	if err != nil {
+		return "", err
+	}
+	return out, nil
+}
+
+// floatTrunc is decimalTrunc for a Float f > 0.
+func floatTrunc(f *big.Float, n int) (*big.Int, int) {
+	e := f.MantExp(nil)
+	prec := int(f.Prec())
+	m, _ := new(big.Float).SetMantExp(f, prec-e).Int(nil) // exact: f has prec bits
+	return decimalTrunc(m, e-prec, big.NewInt(1), n)
+}
+
+// log2Int approximates log2(x) for x > 0.
+func log2Int(x *big.Int) float64 {
+	l := x.BitLen()
+	shift := l - 60
+	if shift < 0 {
+		shift = 0
+	}
+	top := new(big.Int).Rsh(x, uint(shift)).Uint64()
+	return math.Log2(float64(top)) + float64(shift)
+}
+
+// decimalTrunc returns t and e with 10^(n-1) ≤ t < 10^n and
+// t·10^(e−n+1) ≤ v < (t+1)·10^(e−n+1) for v = num·2^s/den > 0: t holds the
+// first n significant digits of v, truncated, and e is the decimal
+// exponent of the first.
+func decimalTrunc(num *big.Int, s int, den *big.Int, n int) (*big.Int, int) {
+	l10 := (log2Int(num) + float64(s) - log2Int(den)) * math.Log10(2)
+	e := int(math.Floor(l10))
+	ten := big.NewInt(10)
+	lowT := new(big.Int).Exp(ten, big.NewInt(int64(n-1)), nil)
+	highT := new(big.Int).Mul(lowT, ten)
+	for {
+		k := n - 1 - e
+		nn := new(big.Int).Set(num)
+		dd := new(big.Int).Set(den)
+		if k >= 0 {
+			nn.Mul(nn, new(big.Int).Exp(ten, big.NewInt(int64(k)), nil))
+		} else {
+			dd.Mul(dd, new(big.Int).Exp(ten, big.NewInt(int64(-k)), nil))
+		}
+		var t *big.Int
+		switch {
+		case s >= 0:
+			nn.Lsh(nn, uint(s))
+			t = nn.Quo(nn, dd)
+		case dd.Cmp(big.NewInt(1)) == 0:
+			t = nn.Rsh(nn, uint(-s))
+		default:
+			dd.Lsh(dd, uint(-s))
+			t = nn.Quo(nn, dd)
+		}
+		switch {
+		case t.Cmp(lowT) < 0:
+			e--
+		case t.Cmp(highT) >= 0:
+			e++
+		default:
+			return t, e
+		}
+	}
+}
+
+// formatDigits writes the n digits of t with the leading digit at decimal
+// exponent e.
+func formatDigits(neg bool, t *big.Int, e, n int) string {
+	d := t.String()
+	var sb strings.Builder
+	if neg {
+		sb.WriteByte('-')
+	}
+	switch {
+	case e < -4 || e >= 21:
+		sb.WriteString(d[:1])
+		if n > 1 {
+			sb.WriteByte('.')
+			sb.WriteString(d[1:])
+		}
+		if e < 0 {
+			fmt.Fprintf(&sb, "e-%d", -e)
+		} else {
+			fmt.Fprintf(&sb, "e+%d", e)
+		}
+	case e >= 0:
+		if n <= e+1 {
+			sb.WriteString(d)
+			sb.WriteString(strings.Repeat("0", e+1-n))
+		} else {
+			sb.WriteString(d[:e+1])
+			sb.WriteByte('.')
+			sb.WriteString(d[e+1:])
+		}
+	default:
+		sb.WriteString("0.")
+		sb.WriteString(strings.Repeat("0", -e-1))
+		sb.WriteString(d)
+	}
+	return sb.String()
+}
