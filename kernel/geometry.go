@@ -173,36 +173,30 @@ func (s *Session) installGeometry(b py.StringDict) {
 		}
 		return py.Tuple{py.NewBool(ok), py.String(reason)}, nil
 	})
-	b["triangle_area_sq"] = builtin("triangle_area_sq", "triangle_area_sq(a2, b2, c2) -> the squared area from the squared sides", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-		a, err := bind("triangle_area_sq", args, kw, []string{"a2", "b2", "c2"}, 3)
-		if err != nil {
-			return nil, err
-		}
-		v, err := rationalVector(py.Tuple(a), "triangle_area_sq")
-		if err != nil {
-			return nil, err
-		}
-		area, err := geom.TriangleAreaSq(v[0], v[1], v[2])
-		if err != nil {
-			return nil, geomErr("triangle_area_sq", err)
-		}
-		return newRational(area), nil
-	})
-	b["tangent_lengths"] = builtin("tangent_lengths", "tangent_lengths(a, b, c) -> [s-a, s-b, s-c] for the side lengths of a triangle", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-		a, err := bind("tangent_lengths", args, kw, []string{"a", "b", "c"}, 3)
-		if err != nil {
-			return nil, err
-		}
-		v, err := rationalVector(py.Tuple(a), "tangent_lengths")
-		if err != nil {
-			return nil, err
-		}
-		t, err := geom.TangentLengths(v[0], v[1], v[2])
-		if err != nil {
-			return nil, geomErr("tangent_lengths", err)
-		}
-		return rationalList(t[:]), nil
-	})
+	triangle := func(name, doc string, sides []string, f func(a, b, c *big.Rat) (py.Object, error)) {
+		b[name] = builtin(name, doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
+			a, err := bind(name, args, kw, sides, 3)
+			if err != nil {
+				return nil, err
+			}
+			v, err := rationalVector(py.Tuple(a), name)
+			if err != nil {
+				return nil, err
+			}
+			res, err := f(v[0], v[1], v[2])
+			return res, geomErr(name, err)
+		})
+	}
+	triangle("triangle_area_sq", "triangle_area_sq(a2, b2, c2) -> the squared area from the squared sides", []string{"a2", "b2", "c2"},
+		func(a, b, c *big.Rat) (py.Object, error) {
+			area, err := geom.TriangleAreaSq(a, b, c)
+			return newRational(area), err
+		})
+	triangle("tangent_lengths", "tangent_lengths(a, b, c) -> [s-a, s-b, s-c] for the side lengths of a triangle", []string{"a", "b", "c"},
+		func(a, b, c *big.Rat) (py.Object, error) {
+			t, err := geom.TangentLengths(a, b, c)
+			return rationalList(t[:]), err
+		})
 	b["affine"] = builtin("affine", "affine(s, A, t) -> the simplex with every vertex x sent to A x + t", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		a, err := bind("affine", args, kw, []string{"s", "A", "t"}, 3)
 		if err != nil {
