@@ -13,10 +13,10 @@ package exact
 // exact integer roots; π and exp of a rational from binary-split series
 // with exact tail bounds (real_const.go); sin, cos, atan, acos and atan2
 // from Taylor series in interval arithmetic with alternating-series tail
-// bounds (real_func.go). Only exp and log of non-rational arguments rest on
-// a library's accuracy (github.com/ALTree/bigfloat), with 32 bits of slack
-// beyond what is claimed; tests check that claim against independent exact
-// series.
+// bounds (real_func.go). Only log, and exp of anything but a rational of
+// modest size, rest on a library's accuracy (github.com/ALTree/bigfloat):
+// its results at 64 guard bits are trusted to 32 of them, and tests check
+// that against exact-rational series.
 //
 // Each node caches the narrowest enclosure it has found (intersecting the
 // new one with the old) together with the precision it was computed at, so

@@ -372,9 +372,20 @@ func acosPoint(t *big.Float, q uint) ival {
 	return ivRound(ivScale(atanNonneg(r, w), 1), q)
 }
 
-// ivAcos encloses acos on a ⊂ [-1, 1] (acos is decreasing).
+// ivAcos encloses acos on a ⊂ [-1, 1] (acos is decreasing). Away from -1
+// it evaluates 2·atan(√((1 − a)/(1 + a))) on the whole interval at once:
+// the quotient of [1 − hi, 1 − lo] by [1 + lo, 1 + hi] is exactly the
+// monotone image [(1−hi)/(1+hi), (1−lo)/(1+lo)], so nothing is lost to
+// dependency.
 func ivAcos(a ival, p uint) ival {
 	q := p + 8
+	if !a.isPoint() && a.lo.Cmp(big.NewFloat(-1)) > 0 {
+		w := q + 16
+		num := ival{fDown(w).Sub(fOne, a.hi), fUp(w).Sub(fOne, a.lo)}
+		den := ival{fDown(w).Add(fOne, a.lo), fUp(w).Add(fOne, a.hi)}
+		r := ivSqrt(ivQuo(num, den, w), w)
+		return ivRound(ivScale(atanNonneg(r, w), 1), p)
+	}
 	lo := acosPoint(a.hi, q)
 	hi := lo
 	if !a.isPoint() {

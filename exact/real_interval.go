@@ -37,9 +37,8 @@ func fDown(p uint) *big.Float { return new(big.Float).SetPrec(p).SetMode(big.ToN
 func fUp(p uint) *big.Float   { return new(big.Float).SetPrec(p).SetMode(big.ToPositiveInf) }
 
 var (
-	fZero = new(big.Float)
-	fOne  = big.NewFloat(1)
-	fTwo  = big.NewFloat(2)
+	fOne = big.NewFloat(1)
+	fTwo = big.NewFloat(2)
 )
 
 func ivPoint(f *big.Float) ival { return ival{f, f} }
@@ -399,12 +398,13 @@ func bitLen64(k uint64) int {
 func ivPow(a ival, k uint64, p uint) (ival, error) {
 	for _, f := range []*big.Float{a.lo, a.hi} {
 		if f.Sign() != 0 {
-			e := f.MantExp(nil)
-			if e < 0 {
-				e = -e
-			}
-			if float64(e+1)*float64(k) > ivMaxExp {
-				return ival{}, fmt.Errorf("power %d of a number of magnitude 2^%d out of range: %w", k, f.MantExp(nil), ErrOverflow)
+			// log2|f|·k bounds the exponent of every partial product.
+			m := new(big.Float)
+			e := f.MantExp(m)
+			mf, _ := m.Float64()
+			l := float64(e) + math.Log2(math.Abs(mf))
+			if math.Abs(l)*float64(k) > ivMaxExp-4 {
+				return ival{}, fmt.Errorf("power %d of a number of magnitude 2^%d out of range: %w", k, e, ErrOverflow)
 			}
 		}
 	}

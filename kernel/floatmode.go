@@ -100,6 +100,13 @@ func floatEntries(o py.Object) ([]float64, bool) {
 		return []float64{f}, true
 	}
 	switch x := o.(type) {
+	case *Real: // an exact value the float64 code passed through untouched
+		f, err := x.x.Float64(x.cap)
+		return []float64{f}, err == nil
+	case *Matrix:
+		if x.q != nil {
+			return floatEntries(&FloatMatrix{m: x.q.Float()})
+		}
 	case *FloatMatrix:
 		r, c := x.m.Dims()
 		out := make([]float64, 0, r*c)

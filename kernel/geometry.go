@@ -330,6 +330,17 @@ func init() {
 		}
 		return py.NewListFromItems(out), nil
 	})
+	noArgs("facet_area_vectors", func(s *Simplex) (py.Object, error) {
+		vs, err := s.s.FacetAreaVectors()
+		if err != nil {
+			return nil, geomErr("facet_area_vectors", err)
+		}
+		out := make([]py.Object, len(vs))
+		for i, v := range vs {
+			out[i] = &KVector{w: v}
+		}
+		return py.NewListFromItems(out), nil
+	})
 	noArgs("circumradius_sq", func(s *Simplex) (py.Object, error) {
 		r, err := s.s.CircumradiusSq()
 		if err != nil {

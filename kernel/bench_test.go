@@ -1,0 +1,51 @@
+package kernel
+
+import (
+	"testing"
+
+	"assay/cells"
+)
+
+// BenchmarkRealSampledIdentity: a 256-bit identity with square-root sides
+// on 1,000 sampled tetrahedra, the whole notebook run in-process.
+// Target (issue: certified reals): < 1 s.
+func BenchmarkRealSampledIdentity(b *testing.B) {
+	src := []byte("# bench\n\n```cell\n" +
+		"def sides(t):\n" +
+		"    x, y = t.sq_edge(0, 1), t.sq_edge(2, 3)\n" +
+		"    return (sqrt(x) * sqrt(y) + sqrt(t.sq_edge(0, 2)), sqrt(x * y) + sqrt(t.sq_edge(0, 2)))\n" +
+		"identity(\"sqrt(x) sqrt(y) = sqrt(xy) on tetrahedron edges\", sides,\n" +
+		"         over=lambda k: random_simplex(3, seed=k, bound=50, denom=7), samples=1000)\n```\n")
+	nb, err := cells.Parse("bench.md", src)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		rep := Run(nb, Options{Settings: DefaultSettings})
+		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != cells.HoldsToDigits {
+			b.Fatalf("outcome %+v", rep.Outcomes[0])
+		}
+	}
+}
+
+// BenchmarkExactSampledIdentity: exact volume from coordinates against the
+// Cayley–Menger volume on 10,000 random rational tetrahedra, the whole
+// notebook run in-process. Target (design): < 1 s.
+func BenchmarkExactSampledIdentity(b *testing.B) {
+	src := []byte("# bench\n\n```cell\n" +
+		"identity(\"volume from coordinates = Cayley-Menger volume\",\n" +
+		"         lambda t: (t.volume_sq(), cayley_menger(t) / 288),\n" +
+		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=10000, companion=False)\n```\n")
+	nb, err := cells.Parse("bench.md", src)
+	if err != nil {
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		rep := Run(nb, Options{Settings: DefaultSettings})
+		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != cells.Holds {
+			b.Fatalf("outcome %+v", rep.Outcomes[0])
+		}
+	}
+}
