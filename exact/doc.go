@@ -12,7 +12,13 @@
 // resultants and discriminants, all exactly, with the further sentinel
 // errors ErrTooManyTerms, ErrExponentRange, ErrRingMismatch and ErrDegree;
 // the representation and its measurements are described at the top of
-// poly.go.
+// poly.go. Matrices over them (PolyMatrix) give expanded determinants.
+//
+// Certified reals (Real) are lazily evaluated expressions — square and k-th
+// roots, exp, log, sin, cos, atan2, acos, pi — whose enclosures (Interval,
+// exact rational endpoints) always contain the value and shrink as the
+// precision grows; Sign, Digits and Approx refine until certain or until a
+// precision cap, failing with ErrUndecided, ErrDomain or ErrOverflow.
 //
 // The package is pure algebra: it knows nothing of Python, notebook cells or
 // reports. Failures are reported with the sentinel errors ErrDivisionByZero,
