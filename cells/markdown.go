@@ -3,6 +3,8 @@ package cells
 import (
 	"bytes"
 	"fmt"
+	"net/url"
+	"path/filepath"
 	"strconv"
 	"strings"
 )
@@ -25,8 +27,10 @@ func VerdictLabel(c Claim) string {
 
 // RenderMarkdown returns the report as Markdown: the notebook verbatim with,
 // after each cell that has an outcome, its output block and a generated
-// region; with header, a generated summary region at the top. The result
-// parses as the same notebook, and rendering it again gives the same bytes.
+// region; with header, a generated summary region at the top. With
+// r.FigureBase set, each figure is an image link to its file (FigureFiles)
+// with a caption; else a line names it. The result parses as the same
+// notebook, and rendering it again gives the same bytes.
 func RenderMarkdown(r *Report, header bool) []byte {
 	return renderMarkdown(r, header, nil)
 }
@@ -41,20 +45,23 @@ type mdWriter struct {
 	marks   *htmlMarks
 	outcome map[int]*Outcome
 	first   map[int]int // cell -> number of its first claim
+	figure  map[int]int // cell -> number of its first figure
 }
 
 func renderMarkdown(r *Report, header bool, marks *htmlMarks) []byte {
-	w := &mdWriter{r: r, nb: r.Notebook, marks: marks, outcome: map[int]*Outcome{}, first: map[int]int{}}
+	w := &mdWriter{r: r, nb: r.Notebook, marks: marks, outcome: map[int]*Outcome{}, first: map[int]int{}, figure: map[int]int{}}
 	if w.nb == nil {
 		w.nb = &Notebook{}
 	}
 	w.eol = lineEnd(w.nb)
-	n := 1
+	n, nf := 1, 1
 	for i := range r.Outcomes {
 		o := &r.Outcomes[i]
 		w.outcome[o.Cell] = o
 		w.first[o.Cell] = n
 		n += len(o.Claims)
+		w.figure[o.Cell] = nf
+		nf += len(o.Figures)
 	}
 	blocks := w.nb.Blocks
 	if header {
@@ -289,13 +296,23 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 			paras = append(paras, strings.Join(notes, "\n"))
 		}
 	}
-	for _, f := range o.Figures {
-		if w.marks != nil {
+	for i, f := range o.Figures {
+		switch {
+		case w.marks != nil:
 			w.marks.figures = append(w.marks.figures, f)
 			paras = append(paras, w.marks.token("figure"+strconv.Itoa(len(w.marks.figures)-1)))
-			continue
+		case w.r.FigureBase != "":
+			n := w.figure[o.Cell] + i
+			name := strings.Join(strings.Fields(f.Name), " ")
+			caption := fmt.Sprintf("Figure %d", n)
+			if name != "" {
+				caption += ": " + mdInline(name)
+			}
+			paras = append(paras, "!["+mdInline(name)+"]("+linkPath(filepath.Base(figurePath(w.r.FigureBase, n)))+")",
+				"*"+caption+"*")
+		default:
+			paras = append(paras, "*Figure: "+mdInline(f.Name)+"* (an SVG drawing, shown in the HTML report)")
 		}
-		paras = append(paras, "*Figure: "+mdInline(f.Name)+"* (an SVG drawing, shown in the HTML report)")
 	}
 	if e := o.Error; e != nil {
 		at := "**error**"
@@ -323,6 +340,38 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		paras = append(paras, name+" ran in "+seconds(o.Seconds)+".")
 	}
 	return strings.Join(paras, "\n\n") + "\n"
+}
+
+// FigureFile is a figure of a report as a file beside the Markdown report.
+type FigureFile struct {
+	Path string // FigureBase + ".fig" + N + ".svg"
+	SVG  []byte
+}
+
+// FigureFiles lists the report's figures as files, in report order, the
+// N-th (counting from 1 over the whole report) at FigureBase.figN.svg: the
+// files the Markdown report links to. It returns nil when FigureBase is
+// empty.
+func FigureFiles(r *Report) []FigureFile {
+	if r.FigureBase == "" {
+		return nil
+	}
+	var out []FigureFile
+	for _, o := range r.Outcomes {
+		for _, f := range o.Figures {
+			out = append(out, FigureFile{Path: figurePath(r.FigureBase, len(out)+1), SVG: []byte(f.SVG)})
+		}
+	}
+	return out
+}
+
+func figurePath(base string, n int) string { return base + ".fig" + strconv.Itoa(n) + ".svg" }
+
+// linkPath writes a file name as a Markdown link destination: percent-
+// encoded where needed, so spaces, parentheses and entities cannot end or
+// change it.
+func linkPath(name string) string {
+	return strings.ReplaceAll(url.PathEscape(name), "&", "%26")
 }
 
 // claimDetails is a list item with what a claim's table row leaves out.

@@ -154,4 +154,9 @@ type Report struct {
 	Outcomes  []Outcome // one per cell, in cell order
 	Problems  []Problem // notebook-level problems (parse errors); cell errors live in outcomes
 	Seconds   float64   // wall time of the whole run
+	// FigureBase is the path of the Markdown report without its ".md", e.g.
+	// "mesh.report". When set, figures go beside the report as files
+	// (FigureFiles) and the Markdown report links to them; when empty, no
+	// figure files are made and the Markdown report only names its figures.
+	FigureBase string
 }

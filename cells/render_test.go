@@ -10,6 +10,8 @@ import (
 	"sort"
 	"strings"
 	"testing"
+
+	"github.com/gomarkdown/markdown"
 )
 
 var update = flag.Bool("update", false, "rewrite the golden files in testdata/")
@@ -43,13 +45,14 @@ func sampleReport(t *testing.T, src []byte) *Report {
 		t.Fatal(err)
 	}
 	return &Report{
-		Notebook:  nb,
-		SHA256:    "0f1e2d3c4b5a69788796a5b4c3d2e1f00f1e2d3c4b5a69788796a5b4c3d2e1f0",
-		Version:   "0.1.0-test",
-		Seed:      1,
-		Precision: 256,
-		Seconds:   1.5,
-		Problems:  []Problem{{Line: 30, Message: `the figure "triangle" has no caption`}},
+		Notebook:   nb,
+		SHA256:     "0f1e2d3c4b5a69788796a5b4c3d2e1f00f1e2d3c4b5a69788796a5b4c3d2e1f0",
+		Version:    "0.1.0-test",
+		Seed:       1,
+		Precision:  256,
+		Seconds:    1.5,
+		FigureBase: "notebooks/sample.report",
+		Problems:   []Problem{{Line: 30, Message: `the figure "triangle" has no caption`}},
 		Outcomes: []Outcome{
 			{Cell: 1, Status: Ran, Output: "s = 6\n", Seconds: 0.012, Claims: []Claim{{
 				Name: "heron", Kind: "identity", Method: "exact rational arithmetic", Verdict: Holds,
@@ -88,6 +91,8 @@ func readSample(t *testing.T) []byte {
 func TestGoldenMarkdown(t *testing.T) {
 	r := sampleReport(t, readSample(t))
 	golden(t, "sample.report.md", RenderMarkdown(r, true))
+	// Without FigureBase, figures are named, not linked.
+	r.FigureBase = ""
 	golden(t, "sample.inplace.md", RenderMarkdown(r, false))
 }
 
@@ -324,10 +329,17 @@ func TestWriteFileAtomic(t *testing.T) {
 // TestRoundTripTricky: outputs and errors holding fences and region markers,
 // a notebook with a parse error, and a notebook with no cells.
 func TestRoundTripTricky(t *testing.T) {
+	figs := []Figure{{Name: "plain", SVG: "<svg/>"}, {Name: GeneratedEnd, SVG: "<svg/>"},
+		{Name: "*a* [b](c) <d> `e` ![f](g)\n" + GeneratedStart + "\n```", SVG: "<svg/>"}, {Name: "", SVG: "<svg/>"}}
 	for _, tc := range []struct {
 		name, src string
 		outcomes  []Outcome
+		base      string
 	}{
+		{name: "figures", src: "# F\n\n```cell\nplot()\n```\n\n```cell\nplot()\n```\n", base: "out/f (1).report",
+			outcomes: []Outcome{{Cell: 1, Status: Ran, Figures: figs[:2]}, {Cell: 2, Status: Ran, Figures: figs[2:]}}},
+		{name: "figures without files", src: "```cell\nplot()\n```\n",
+			outcomes: []Outcome{{Cell: 1, Status: Ran, Figures: figs}}},
 		{name: "fences and markers in outputs", src: "Intro\n```cell\nprint(x)\n```\nafter\n\n````cell\ny\n````\n",
 			outcomes: []Outcome{
 				{Cell: 1, Status: Ran, Output: "````\n```output\n" + GeneratedEnd + "\n", Tables: []Table{{Rows: [][]string{{GeneratedEnd}}}}},
@@ -340,7 +352,7 @@ func TestRoundTripTricky(t *testing.T) {
 	} {
 		for _, header := range []bool{true, false} {
 			nb, perr := Parse("t.md", []byte(tc.src))
-			r := &Report{Notebook: nb, Outcomes: tc.outcomes, Version: "v"}
+			r := &Report{Notebook: nb, Outcomes: tc.outcomes, Version: "v", FigureBase: tc.base}
 			if perr != nil {
 				r.Problems = []Problem{{Line: perr.(*Error).Line, Message: perr.(*Error).Msg}}
 			}
@@ -403,5 +415,80 @@ func TestHeaderListsLossyFloatCompanions(t *testing.T) {
 	i := strings.Index(md, "Where float64 loses more than half its digits")
 	if i < 0 || !strings.Contains(md[i:], "| 2 | sliver |") || strings.Contains(md[i:strings.Index(md[i:], "/assay:generated")+i], "stable") {
 		t.Errorf("lossy section wrong:\n%s", md)
+	}
+}
+
+func TestFigureFiles(t *testing.T) {
+	svg := func(s string) string { return `<svg xmlns="http://www.w3.org/2000/svg"><title>` + s + `</title></svg>` }
+	r := &Report{FigureBase: filepath.Join("out", "mesh.report"), Outcomes: []Outcome{
+		{Cell: 1, Status: Ran, Figures: []Figure{{Name: "a", SVG: svg("a")}, {Name: "b", SVG: svg("b")}}},
+		{Cell: 2, Status: Ran},
+		{Cell: 3, Status: Failed, Figures: []Figure{{Name: "c", SVG: svg("c")}}},
+	}}
+	got := FigureFiles(r)
+	want := []FigureFile{
+		{filepath.Join("out", "mesh.report.fig1.svg"), []byte(svg("a"))},
+		{filepath.Join("out", "mesh.report.fig2.svg"), []byte(svg("b"))},
+		{filepath.Join("out", "mesh.report.fig3.svg"), []byte(svg("c"))},
+	}
+	if !reflect.DeepEqual(got, want) {
+		t.Errorf("FigureFiles = %+v, want %+v", got, want)
+	}
+	r.FigureBase = ""
+	if got := FigureFiles(r); got != nil {
+		t.Errorf("FigureFiles without FigureBase = %+v, want nil", got)
+	}
+	r.FigureBase = "x"
+	r.Outcomes = []Outcome{{Cell: 1, Status: Ran}}
+	if got := FigureFiles(r); got != nil {
+		t.Errorf("FigureFiles without figures = %+v, want nil", got)
+	}
+}
+
+// The Markdown report links each figure file by its base name, numbered as
+// FigureFiles numbers them, with the name escaped in the link text and the
+// caption; file names that Markdown would misread are percent-encoded.
+func TestMarkdownFigureLinks(t *testing.T) {
+	nb, err := Parse("n.md", []byte("# N\n\n```cell\na\n```\n\n```cell\nb\n```\n"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	r := &Report{Notebook: nb, FigureBase: filepath.Join("some dir", "n (draft)&.report"), Outcomes: []Outcome{
+		{Cell: 1, Status: Ran, Figures: []Figure{{Name: "first", SVG: "<svg/>"}}},
+		{Cell: 2, Status: Ran, Figures: []Figure{{Name: "*bold* [x](y) <b> a_b\nline two", SVG: "<svg/>"}}},
+	}}
+	md := string(RenderMarkdown(r, true))
+	for _, want := range []string{
+		"![first](n%20%28draft%29%26.report.fig1.svg)\n\n*Figure 1: first*\n",
+		`![\*bold\* \[x\](y) \<b\> a\_b line two](n%20%28draft%29%26.report.fig2.svg)` + "\n\n" +
+			`*Figure 2: \*bold\* \[x\](y) \<b\> a\_b line two*` + "\n",
+	} {
+		if !strings.Contains(md, want) {
+			t.Errorf("the report lacks %q:\n%s", want, md)
+		}
+	}
+	if strings.Contains(md, "some dir") {
+		t.Errorf("the link is not relative to the report's folder:\n%s", md)
+	}
+	files := FigureFiles(r)
+	if len(files) != 2 || filepath.Base(files[1].Path) != "n (draft)&.report.fig2.svg" {
+		t.Errorf("FigureFiles = %+v", files)
+	}
+	// The links sit inside generated regions: the report parses as the notebook.
+	again, err := Parse("n.md", []byte(md))
+	if err != nil {
+		t.Fatal(err)
+	}
+	sameBlocks(t, "figure links", again.Blocks, nb.Blocks)
+	// A Markdown reader sees an image of the file (gomarkdown keeps the
+	// backslashes in alt text, where CommonMark would drop them).
+	html := string(markdown.ToHTML([]byte(md), nil, nil))
+	if !strings.Contains(html, `<p><img src="n%20%28draft%29%26.report.fig2.svg" alt="\*bold\* \[x\](y) \&lt;b\&gt; a\_b line two" /></p>`) {
+		t.Errorf("the image link is misread:\n%s", html)
+	}
+	// Without FigureBase, the figure is named, not linked.
+	r.FigureBase = ""
+	if md := string(RenderMarkdown(r, true)); strings.Contains(md, "![") || !strings.Contains(md, "*Figure: first* (an SVG drawing, shown in the HTML report)") {
+		t.Errorf("without FigureBase:\n%s", md)
 	}
 }

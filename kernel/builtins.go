@@ -72,8 +72,9 @@ func (s *Session) install(b py.StringDict) {
 	claims := map[string]func(line int, args py.Tuple, kw py.StringDict) (py.Object, error){
 		"identity":      s.identity,
 		"factorization": s.factorization,
+		"limit":         s.limit,
 	}
-	docs := map[string]string{"identity": identityDoc, "factorization": factorizationDoc}
+	docs := map[string]string{"identity": identityDoc, "factorization": factorizationDoc, "limit": limitDoc}
 	for name, impl := range claims {
 		b[name] = builtin(name, docs[name], func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 			return impl(s.line, args, kw)
@@ -97,6 +98,8 @@ func (s *Session) install(b py.StringDict) {
 	s.installPolynomials(b)
 	s.installReals(b)
 	s.installGeometry(b)
+	s.installLimits(b)
+	b["plot"] = builtin("plot", plotDoc, s.plot)
 }
 
 func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {

@@ -507,3 +507,37 @@ func TestFloatAuditSkipsWithoutCompanion(t *testing.T) {
 		t.Errorf("float %+v note %q", c.Float, c.Note)
 	}
 }
+
+// Limits: classical values and orders (sin(t)/t -> 1 with order 2, any
+// calculus text), a wrong expectation, a blow-up, no convergence, and a
+// function that raises partway.
+func TestLimitClaims(t *testing.T) {
+	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, toward=0, expect=1)
+limit("wrong", lambda t: sin(t) / t, toward=0, expect=frac(101, 100))
+limit("blow-up", lambda t: 1 / t**2, toward=0)
+limit("oscillates", lambda t: sin(1 / t), toward=0, steps=20)
+limit("raises", lambda t: sin(t) / t if t > frac(1, 2**10) else 1 / 0, toward=0, expect=1, steps=20)
+limit("near 2", lambda t: (t**2 - 4) / (t - 2), toward=2, expect=4)`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	want := []cells.Verdict{cells.HoldsToDigits, cells.Fails, cells.Fails, cells.Undecided, cells.HoldsToDigits, cells.HoldsToDigits}
+	for i, c := range o.Claims {
+		if c.Verdict != want[i] {
+			t.Errorf("%s: verdict %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])
+		}
+	}
+	if !strings.Contains(o.Claims[0].Note, "order ≈ 2.0") || !strings.Contains(o.Claims[0].Note, "not a certified bound") {
+		t.Errorf("sinc note: %q", o.Claims[0].Note)
+	}
+	if !strings.Contains(o.Claims[2].Residual, "h^−2") {
+		t.Errorf("blow-up residual: %q", o.Claims[2].Residual)
+	}
+	if !strings.Contains(o.Claims[4].Note, "stopped early") || !strings.Contains(o.Claims[4].Note, "step 9 (t = 1/1024)") {
+		t.Errorf("raises note: %q", o.Claims[4].Note)
+	}
+	if len(o.Tables) != 6 || len(o.Figures) < 6 {
+		t.Errorf("%d tables and %d figures, want a table and figures per limit", len(o.Tables), len(o.Figures))
+	}
+}

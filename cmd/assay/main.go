@@ -184,6 +184,11 @@ Flags:
 			fmt.Fprintf(stdout, "%s left unchanged: it could not be parsed\n", path)
 			return 2
 		}
+		rep.FigureBase = strings.TrimSuffix(path, filepath.Ext(path))
+		if err := writeFigures(rep); err != nil {
+			fmt.Fprintln(stderr, "assay run:", err)
+			return 2
+		}
 		if err := cells.WriteFileAtomic(path, cells.RenderMarkdown(rep, false)); err != nil {
 			fmt.Fprintln(stderr, "assay run:", err)
 			return 2
@@ -198,6 +203,11 @@ Flags:
 	}
 	if samePath(mdPath, path) {
 		fmt.Fprintf(stderr, "assay run: the report path %s is the notebook itself; use --in-place to write outputs into the notebook\n", mdPath)
+		return 2
+	}
+	rep.FigureBase = strings.TrimSuffix(mdPath, filepath.Ext(mdPath))
+	if err := writeFigures(rep); err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
 		return 2
 	}
 	if err := cells.WriteFileAtomic(mdPath, cells.RenderMarkdown(rep, true)); err != nil {
@@ -305,6 +315,16 @@ func load(path string, opt kernel.Options) (*cells.Report, error) {
 		return rep, nil
 	}
 	return kernel.Run(nb, opt), nil
+}
+
+// writeFigures writes each figure of the report as an SVG file beside it.
+func writeFigures(rep *cells.Report) error {
+	for _, f := range cells.FigureFiles(rep) {
+		if err := cells.WriteFileAtomic(f.Path, f.SVG); err != nil {
+			return err
+		}
+	}
+	return nil
 }
 
 func samePath(a, b string) bool {

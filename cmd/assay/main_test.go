@@ -84,6 +84,8 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"real-divide-unseparated.md", 5, "cannot be separated from zero", nil},
 		{"precision-zero.md", 3, "at least 2", nil},
 		{"precision-above-cap.md", 4, "above the precision cap", nil},
+		{"limit-bad-toward.md", 4, "toward must be an exact number or infinity", nil},
+		{"limit-bad-ratio.md", 4, "ratio must be an exact number between 0 and 1", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {
@@ -252,10 +254,11 @@ func TestDemoReportsAreCurrent(t *testing.T) {
 			continue
 		}
 		t.Run(filepath.Base(nb), func(t *testing.T) {
-			committed := strings.TrimSuffix(nb, ".md") + ".report.md"
+			committed, _ := filepath.Abs(strings.TrimSuffix(nb, ".md") + ".report.md")
 			old, _ := os.ReadFile(committed)
 			oldHTML, _ := os.ReadFile(strings.TrimSuffix(committed, ".md") + ".html")
-			out := filepath.Join(t.TempDir(), "r.md")
+			// Same file name as the committed report, so figure links agree.
+			out := filepath.Join(t.TempDir(), filepath.Base(committed))
 			// The report names the notebook by the path given; run from the
 			// repository root so it reads notebooks/x.md.
 			wd, _ := os.Getwd()
@@ -264,7 +267,7 @@ func TestDemoReportsAreCurrent(t *testing.T) {
 			rel, _ := filepath.Rel("../..", nb)
 			rel = filepath.ToSlash(rel)
 			if *update {
-				out = strings.TrimPrefix(committed, "../../")
+				out = committed
 			}
 			if code, stdout, stderr := assay(t, "run", "-o", out, rel); code != 0 {
 				t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
@@ -279,6 +282,15 @@ func TestDemoReportsAreCurrent(t *testing.T) {
 			}
 			if normalizeTimes(freshHTML) != normalizeTimes(oldHTML) {
 				t.Errorf("the HTML report of %s is stale: run `go test ./cmd/assay -update`", nb)
+			}
+			figures, _ := filepath.Glob(strings.TrimSuffix(out, ".md") + ".fig*.svg")
+			for _, f := range figures {
+				committedFig := filepath.Join(filepath.Dir(committed), filepath.Base(f))
+				want, err := os.ReadFile(committedFig)
+				got, _ := os.ReadFile(f)
+				if err != nil || !bytes.Equal(got, want) {
+					t.Errorf("figure %s is stale or missing: run `go test ./cmd/assay -update`", committedFig)
+				}
 			}
 		})
 	}
@@ -301,7 +313,7 @@ func TestReferenceNotebooks(t *testing.T) {
 		if err := json.Unmarshal([]byte(out), &doc); err != nil {
 			t.Fatalf("%s: %v", nb, err)
 		}
-		if code != 0 || len(doc.Errors) > 0 || len(doc.Claims) < 10 {
+		if code != 0 || len(doc.Errors) > 0 || len(doc.Claims) < 5 {
 			t.Errorf("%s: exit %d, %d claims, errors %v", nb, code, len(doc.Claims), doc.Errors)
 		}
 		for _, c := range doc.Claims {
