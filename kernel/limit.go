@@ -94,21 +94,23 @@ func walk(sp sequenceSpec, f py.Object) (ts, hs []*big.Rat, values []py.Object, 
 	return ts, hs, values, nil
 }
 
-// approximations turns values into big.Float midpoints at prec bits.
+// approximations turns values into big.Float midpoints at prec bits. A
+// value that cannot be had (a domain error, the precision cap) ends the
+// walk there: the values before it are returned with the reason.
 func approximations(values []py.Object, prec, cap uint) ([]*big.Float, error) {
-	out := make([]*big.Float, len(values))
+	out := make([]*big.Float, 0, len(values))
 	for i, v := range values {
 		x, ok := realOf(v)
 		if !ok {
-			return nil, fmt.Errorf("f returned %s at step %d, not an exact number or a real", typeName(v), i)
+			return nil, py.ExceptionNewf(py.TypeError, "limit(): f returned %s at step %d, not an exact number or a real%s", typeName(v), i, floatHint(v))
 		}
 		iv, err := x.Approx(prec, cap)
 		if err != nil {
-			return nil, fmt.Errorf("step %d: %v", i, err)
+			return out, fmt.Errorf("the value at step %d could not be certified: %v", i, err)
 		}
 		mid := new(big.Rat).Add(iv.Lo, iv.Hi)
 		mid.Quo(mid, big.NewRat(2, 1))
-		out[i] = new(big.Float).SetPrec(prec).SetRat(mid)
+		out = append(out, new(big.Float).SetPrec(prec).SetRat(mid))
 	}
 	return out, nil
 }
@@ -172,8 +174,11 @@ func (s *Session) limit(line int, args py.Tuple, kw py.StringDict) (py.Object, e
 	c.Method, c.Precision = "extrapolation", int(prec)
 	ts, hs, values, werr := walk(sp, a[1])
 	floats, aerr := approximations(values, prec, t.cap)
+	if floats == nil && aerr != nil {
+		return nil, aerr // f returned something that is not a number
+	}
 	if aerr != nil {
-		return nil, py.ExceptionNewf(py.ValueError, "limit(): %v", aerr)
+		werr, ts, hs = aerr, ts[:len(floats)], hs[:len(floats)]
 	}
 	var est limits.Estimate
 	if len(floats) >= 3 {
