@@ -541,3 +541,20 @@ limit("near 2", lambda t: (t**2 - 4) / (t - 2), toward=2, expect=4)`)
 		t.Errorf("%d tables and %d figures, want a table and figures per limit", len(o.Tables), len(o.Figures))
 	}
 }
+
+func TestPlot(t *testing.T) {
+	rep := runHere(t, `xs = [frac(1, 2**k) for k in range(1, 8)]
+plot(xs, [x**2 for x in xs], title="squares", logx=True, logy=True, label="x^2")
+plot(series=[(xs, [x for x in xs], "x"), (xs, [sqrt(x) for x in xs], "sqrt x")], title="two series")`)
+	o := rep.Outcomes[0]
+	if o.Error != nil || len(o.Figures) != 2 || o.Figures[0].Name != "squares" || !strings.Contains(o.Figures[1].SVG, "<svg") ||
+		!strings.Contains(o.Figures[1].SVG, "sqrt x") {
+		t.Fatalf("figures: %+v %v", o.Error, len(o.Figures))
+	}
+	expectErrors(t, []errorCase{
+		{"plot([1, 2], [1])", "2 x values and 1 y values"},
+		{"plot()", "needs xs and ys"},
+		{"plot([1, 2], [1, 2], logx=1)", "True or False"},
+		{"plot([0, -1], [1, 2], logx=True)", "ValueError"},
+	})
+}
