@@ -263,24 +263,21 @@ func (s *Session) limitTable(name string, ts []*big.Rat, values []*big.Float, es
 		Header: []string{"k", "t", "f(t)", "difference", extrapolant},
 		Rows:   rows,
 	})
-	spec := figure.Spec{Title: "limit: " + name, XLabel: "t", YLabel: "f(t)", LogX: true,
+	alongWalk := figure.Spec{Title: "f(t) along the walk", XLabel: "t", YLabel: "f(t)", LogX: true,
 		Series: []figure.Series{{Label: "f(t)", X: xs, Y: ys, Lines: true, Points: true}}}
 	if len(errs) > 0 {
-		spec = figure.Spec{Title: "limit: " + name + " — distance to the estimated limit", XLabel: "t", YLabel: "|f(t) − L|", LogX: true, LogY: true,
-			Series: []figure.Series{{Label: "|f(t) − L|", X: xs, Y: errs, Lines: true, Points: true}}}
+		s.addFigure("limit “"+name+"”: distance to the estimated limit", figure.Spec{
+			Title: "distance to the estimated limit", XLabel: "t", YLabel: "|f(t) − L|", LogX: true, LogY: true,
+			Series: []figure.Series{{Label: "|f(t) − L|", X: xs, Y: errs, Lines: true, Points: true}}})
 	}
-	s.addFigure(spec)
-	if len(errs) > 0 {
-		s.addFigure(figure.Spec{Title: "limit: " + name + " — f(t)", XLabel: "t", YLabel: "f(t)", LogX: true,
-			Series: []figure.Series{{Label: "f(t)", X: xs, Y: ys, Lines: true, Points: true}}})
-	}
+	s.addFigure("limit “"+name+"”: f(t) along the walk", alongWalk)
 }
 
 // addFigure draws spec into the cell's figures. A figure that cannot be
 // drawn (every point off a logarithmic axis, say) is left out: the table
 // beside it has the numbers.
-func (s *Session) addFigure(spec figure.Spec) {
+func (s *Session) addFigure(name string, spec figure.Spec) {
 	if svg, err := figure.SVG(spec); err == nil {
-		s.outcome.Figures = append(s.outcome.Figures, cells.Figure{Name: spec.Title, SVG: svg})
+		s.outcome.Figures = append(s.outcome.Figures, cells.Figure{Name: name, SVG: svg})
 	}
 }
