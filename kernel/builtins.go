@@ -73,8 +73,9 @@ func (s *Session) install(b py.StringDict) {
 		"identity":      s.identity,
 		"factorization": s.factorization,
 		"limit":         s.limit,
+		"inequality":    s.inequality,
 	}
-	docs := map[string]string{"identity": identityDoc, "factorization": factorizationDoc, "limit": limitDoc}
+	docs := map[string]string{"identity": identityDoc, "factorization": factorizationDoc, "limit": limitDoc, "inequality": inequalityDoc}
 	for name, impl := range claims {
 		b[name] = builtin(name, docs[name], func(args py.Tuple, kw py.StringDict) (py.Object, error) {
 			return impl(s.line, args, kw)

@@ -558,3 +558,44 @@ plot(series=[(xs, [x for x in xs], "x"), (xs, [sqrt(x) for x in xs], "sqrt x")],
 		{"plot([0, -1], [1, 2], logx=True)", "ValueError"},
 	})
 }
+
+// Inequalities: Euler's R >= 3r for tetrahedra (Euler 1765 for triangles;
+// Klamkin and Tsintsifas 1979 for simplices) with equality for the regular
+// one; a facet's area is below the sum of the other three (classical); a
+// deliberately strengthened R >= 3.1 r is caught with an exact counterexample.
+func TestInequalities(t *testing.T) {
+	rep := runHere(t, `def tet(k):
+    return random_simplex(3, seed=k, bound=20)
+def euler(s):
+    return (3 * s.inradius(), sqrt(s.circumradius_sq()))
+inequality("Euler R >= 3r", euler, over=tet, samples=40)
+def facets(s):
+    F = [sqrt(a) for a in s.facet_areas_sq()]
+    return (F[0], F[1] + F[2] + F[3])
+inequality("a facet below the other three", facets, over=tet, samples=40)
+regular = distance_simplex(matrix([[0, 1, 1, 1], [1, 0, 1, 1], [1, 1, 0, 1], [1, 1, 1, 0]]))
+inequality("Euler equality, regular tetrahedron", 3 * regular.inradius(), sqrt(regular.circumradius_sq()))
+inequality("strengthened Euler R >= 3.1 r (false)", lambda s: (frac(31, 10) * s.inradius(), sqrt(s.circumradius_sq())), over=lambda k: regular, samples=1)
+inequality("exact and true", frac(1, 3), frac(1, 2))
+inequality("exact and false", frac(2, 3), frac(1, 2))
+inequality("x^2 <= x/2 (false from x = 1/2 on)", lambda x: (x * x, x / 2), over=lambda k: frac(k + 1, 4), samples=6)`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: line %d: %s", o.Error.Line, o.Error.Message)
+	}
+	want := []cells.Verdict{cells.Holds, cells.Holds, cells.HoldsToDigits, cells.Fails, cells.Holds, cells.Fails, cells.Fails}
+	for i, c := range o.Claims {
+		if c.Verdict != want[i] {
+			t.Errorf("%s: %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])
+		}
+	}
+	if c := o.Claims[3]; !strings.Contains(c.Note, "certified negative") || c.Worst == "" {
+		t.Errorf("strengthened inequality: note %q worst %q", c.Note, c.Worst)
+	}
+	if c := o.Claims[6]; !strings.Contains(c.Note, "exact counterexample") || c.Worst != "sample 5: 3/2" || c.Residual != "slack -3/2" {
+		t.Errorf("exact counterexample: note %q worst %q residual %q", c.Note, c.Worst, c.Residual)
+	}
+	if c := o.Claims[5]; c.Residual != "slack -1/6" {
+		t.Errorf("exact slack: %q", c.Residual)
+	}
+}

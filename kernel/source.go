@@ -12,7 +12,7 @@ import (
 )
 
 // claimNames are the builtins whose call sites are tagged with their line.
-var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true}
+var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true, "inequality": true}
 
 // siteName is the hidden builtin that tags a claim call with its line.
 const siteName = "__claim_site__"
