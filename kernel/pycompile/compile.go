@@ -11,10 +11,10 @@
 // itself closed over), the original indexed free variables from zero instead
 // of after the cell variables, so LOAD_DEREF and LOAD_CLOSURE read the wrong
 // cell and [[i + j for j in range(m)] for i in range(n)] silently used i for
-// m. The two changed places are marked "assay fix". Comments marked
-// "upstream gap:" are gpython's own notes of what its compiler leaves out. A second fix: the
-// original never filled Code.Cell2arg, so a parameter that a comprehension
-// or closure captured read as unbound.
+// m. A second fix: the original never filled Code.Cell2arg, so a parameter
+// that a comprehension or closure captured read as unbound. The changed
+// places are marked "assay fix"; comments marked "upstream gap:" are
+// gpython's own notes of what its compiler leaves out.
 package pycompile
 
 // upstream gap: name mangling
