@@ -4,9 +4,9 @@
 
 // Package pycompile is the Python compiler of gpython v0.2.0 (package
 // github.com/go-python/gpython/compile, BSD licence in LICENSE beside this
-// file), copied with one fix so that assay links it instead of the original.
+// file), copied with two fixes so that assay links it instead of the original.
 //
-// The fix: in a code object that has both cell variables and free variables
+// The first fix: in a code object that has both cell variables and free variables
 // (a comprehension nested in another inside a function, or a closure that is
 // itself closed over), the original indexed free variables from zero instead
 // of after the cell variables, so LOAD_DEREF and LOAD_CLOSURE read the wrong
