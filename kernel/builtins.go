@@ -101,6 +101,7 @@ func (s *Session) install(b py.StringDict) {
 	s.installGeometry(b)
 	s.installLimits(b)
 	b["plot"] = builtin("plot", plotDoc, s.plot)
+	b["box"] = builtin("box", "box(dim, lo, hi, denom=1, seed=None) -> a family of random rational points; g(k) gives point k", s.box)
 }
 
 func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {

@@ -346,7 +346,7 @@ func pair(o py.Object, what string) (py.Object, py.Object, error) {
 
 func (s *Session) identity(line int, args py.Tuple, kw py.StringDict) (py.Object, error) {
 	start := time.Now()
-	a, err := bind("identity", args, kw, []string{"name", "lhs", "rhs", "over", "samples", "digits", "companion"}, 2)
+	a, err := bind("identity", args, kw, []string{"name", "lhs", "rhs", "over", "samples", "digits", "companion", "degree"}, 2)
 	if err != nil {
 		return nil, err
 	}
@@ -366,13 +366,17 @@ func (s *Session) identity(line int, args py.Tuple, kw py.StringDict) (py.Object
 		if a[2] != nil {
 			return nil, py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) takes no rhs")
 		}
-		if err := s.sampled(&c, t, a[1], a[3], a[4], companion); err != nil {
+		zippel, err := schwartzZippel(a[3], a[7])
+		if err != nil {
+			return nil, err
+		}
+		if err := s.sampled(&c, t, a[1], a[3], a[4], companion, zippel); err != nil {
 			return nil, err
 		}
 		return s.record(c, start), nil
 	}
-	if a[4] != nil {
-		return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= needs over= (the function making sample k)")
+	if a[4] != nil || a[7] != nil {
+		return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= and degree= need over= (the function making sample k)")
 	}
 	lhs, rhs := a[1], a[2]
 	var call func() (py.Object, py.Object, error)
@@ -498,7 +502,7 @@ func (s *Session) factorization(line int, args py.Tuple, kw py.StringDict) (py.O
 // maxSamples bounds a sweep so a typo cannot run for hours.
 const maxSamples = 10_000_000
 
-func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool) error {
+func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
 	if !callable(f) || !callable(over) {
 		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
 	}
@@ -510,18 +514,24 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 		return py.ExceptionNewf(py.ValueError, "identity(): samples must be between 1 and %d, got %d", maxSamples, n)
 	}
 	var results []residual
-	failing := 0
+	failing, raised := 0, 0
 	var worstAudit *cells.FloatAudit
 	var worstAuditSample int64
 	skipped := ""
 	for k := int64(0); k < n; k++ {
 		sample, err := py.Call(over, py.Tuple{py.Int(k)}, nil)
 		if err != nil {
-			return err
+			_, msg := describe(err, 0)
+			return py.ExceptionNewf(py.ValueError, "the sample generator raised at sample %d: %s", k, msg)
 		}
 		res, err := py.Call(f, py.Tuple{sample}, nil)
 		if err != nil {
-			return err
+			// One sample that raises does not end the sweep: it makes the
+			// claim undecided, and the report names the sample.
+			_, msg := describe(err, 0)
+			results = append(results, residual{text: fmt.Sprintf("f raised: %s", clip(msg, 160)), size: new(big.Rat), undecided: true})
+			raised++
+			continue
 		}
 		lhs, rhs, err := pair(res, fmt.Sprintf("f(sample %d)", k))
 		if err != nil {
@@ -572,6 +582,14 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 	}
 	if failing > 0 {
 		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", failing, n)
+	}
+	if raised > 0 && c.Verdict == cells.Undecided {
+		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", raised, n)
+	} else if raised > 0 {
+		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", raised, n)
+	}
+	if c.Verdict == cells.Holds && zippel != nil {
+		c.Note += "; " + zippel(n)
 	}
 	switch {
 	case skipped != "":

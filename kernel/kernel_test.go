@@ -599,3 +599,33 @@ inequality("x^2 <= x/2 (false from x = 1/2 on)", lambda x: (x * x, x / 2), over=
 		t.Errorf("exact slack: %q", c.Residual)
 	}
 }
+
+// Sampled claims: integer samples with degree= turn an all-zero sweep into
+// the Schwartz–Zippel bound (Schwartz 1980; Zippel 1979); a sample on which
+// f raises leaves the claim undecided and names that sample; box() is
+// reproducible and stays in its range.
+func TestSampledClaims(t *testing.T) {
+	rep := runHere(t, `identity("square of a sum", lambda p: ((p[0] + p[1]) ** 2, p[0] ** 2 + 2 * p[0] * p[1] + p[1] ** 2),
+         over=box(2, -1000, 1000), samples=20, degree=2)
+identity("a pole at 3", lambda x: (1 / (x - 3), 1 / (x - 3)), over=lambda k: k, samples=6)
+g = box(3, -5, 5, denom=10, seed=4)
+print(g(7) == g(7), all([-5 <= c <= 5 for k in range(50) for c in g(k)]), len(g(0)))`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	if c := o.Claims[0]; c.Verdict != cells.Holds || !strings.Contains(c.Note, "(2/2001)^20 = 10^-60.0") {
+		t.Errorf("Schwartz–Zippel note: %s %q", c.Verdict, c.Note)
+	}
+	if c := o.Claims[1]; c.Verdict != cells.Undecided || c.Worst != "sample 3: 3" || !strings.Contains(c.Residual, "ZeroDivisionError") {
+		t.Errorf("raising sample: %s worst %q residual %q", c.Verdict, c.Worst, c.Residual)
+	}
+	if o.Output != "True True 3\n" {
+		t.Errorf("box output %q", o.Output)
+	}
+	expectErrors(t, []errorCase{
+		{"identity(\"x\", lambda p: (p, p), over=box(1, 0, 9, denom=3), samples=3, degree=2)", "integer points"},
+		{"identity(\"x\", lambda p: (p, p), over=lambda k: [1, 2][k], samples=3)", "sample generator raised at sample 2"},
+		{"box(0, 1, 2)", "1 <= dim"},
+	})
+}
