@@ -288,7 +288,6 @@ func (p *Poly) n() int                { return len(p.num) }
 func (p *Poly) monoAt(i int) []uint64 { return p.mono[i*p.w : (i+1)*p.w] }
 func (p *Poly) nvars() int            { return (p.w - 1) * perWord }
 func (p *Poly) small(i int) bool      { return p.bnum == nil || p.bnum[i] == nil }
-func (p *Poly) integral() bool        { return p.den == nil }
 func (p *Poly) denOr1() *big.Int      { return orOne(p.den) }
 
 var bigOne = big.NewInt(1)
@@ -341,14 +340,6 @@ func (p *Poly) monoW(w int) []uint64 {
 		copy(out[i*w:], p.monoAt(i))
 	}
 	return out
-}
-
-// widen returns p with w >= p.w words per monomial (sharing coefficients).
-func (p *Poly) widen(w int) *Poly {
-	if w <= p.w {
-		return p
-	}
-	return &Poly{ring: p.ring, w: w, mono: p.monoW(w), num: p.num, bnum: p.bnum, den: p.den}
 }
 
 // polyBuilder collects terms in decreasing order.
