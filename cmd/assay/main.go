@@ -27,7 +27,7 @@ Usage:
   assay version                     print the version
 
 Examples:
-  assay run notebooks/mesh-determinants.md
+  assay run notebooks/mesh-orientation.md
   assay check --json notebooks/*.md
 
 Exit status: 0 every claim holds; 1 a claim fails or is undecided;
@@ -119,6 +119,15 @@ func (f *runFlags) options(fs *flag.FlagSet) (kernel.Options, error) {
 		Command: []string{exe, "kernel"}}, nil
 }
 
+// helpOrUsageError is the exit status after a flag parse stopped: 0 when
+// help was asked for, 2 for a bad flag (the flag package printed why).
+func helpOrUsageError(err error) int {
+	if errors.Is(err, flag.ErrHelp) {
+		return 0
+	}
+	return 2
+}
+
 // parseInterspersed lets flags follow the notebook names, as users type them.
 func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 	var names []string
@@ -148,7 +157,7 @@ func runCommand(args []string, stdout, stderr io.Writer) int {
 Runs every cell of NOTEBOOK and writes NOTEBOOK.report.md and NOTEBOOK.report.html.
 
 Example:
-  assay run -o /tmp/mesh.md --seed 7 notebooks/mesh-determinants.md
+  assay run -o /tmp/mesh.md --seed 7 notebooks/mesh-orientation.md
 
 Flags:
 `)
@@ -156,7 +165,7 @@ Flags:
 	}
 	names, err := parseInterspersed(fs, args)
 	if err != nil {
-		return 2
+		return helpOrUsageError(err)
 	}
 	if len(names) != 1 {
 		fmt.Fprintln(stderr, "assay run: give exactly one notebook")
@@ -252,7 +261,7 @@ Flags:
 	}
 	names, err := parseInterspersed(fs, args)
 	if err != nil {
-		return 2
+		return helpOrUsageError(err)
 	}
 	if len(names) == 0 {
 		fmt.Fprintln(stderr, "assay check: give at least one notebook")
@@ -350,7 +359,7 @@ reply per line on stdout. 'assay run' drives it as a child process.
 `)
 	}
 	if err := fs.Parse(args); err != nil {
-		return 2
+		return helpOrUsageError(err)
 	}
 	if v, err := strconv.ParseInt(os.Getenv("ASSAY_MAX_MEMORY"), 10, 64); err == nil && v > 0 {
 		debug.SetMemoryLimit(v) // soft: the parent enforces the hard cap
