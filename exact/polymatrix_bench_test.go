@@ -132,8 +132,7 @@ func BenchmarkPolyDetMethods(b *testing.B) {
 		id   int
 	}{
 		{"auto", pmDetAuto},
-		{"laplace-packed", pmDetLaplace},
-		{"laplace-poly", pmDetLaplacePoly},
+		{"laplace", pmDetLaplace},
 		{"bareiss", pmDetBareiss},
 	}
 	for _, sh := range pmShapes(b) {
