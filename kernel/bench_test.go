@@ -16,17 +16,7 @@ func BenchmarkRealSampledIdentity(b *testing.B) {
 		"    return (sqrt(x) * sqrt(y) + sqrt(t.sq_edge(0, 2)), sqrt(x * y) + sqrt(t.sq_edge(0, 2)))\n" +
 		"identity(\"sqrt(x) sqrt(y) = sqrt(xy) on tetrahedron edges\", sides,\n" +
 		"         over=lambda k: random_simplex(3, seed=k, bound=50, denom=7), samples=1000)\n```\n")
-	nb, err := cells.Parse("bench.md", src)
-	if err != nil {
-		b.Fatal(err)
-	}
-	b.ResetTimer()
-	for i := 0; i < b.N; i++ {
-		rep := Run(nb, Options{Settings: DefaultSettings})
-		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != cells.HoldsToDigits {
-			b.Fatalf("outcome %+v", rep.Outcomes[0])
-		}
-	}
+	benchNotebook(b, src, cells.HoldsToDigits)
 }
 
 // BenchmarkExactSampledIdentity: exact volume from coordinates against the
@@ -37,6 +27,12 @@ func BenchmarkExactSampledIdentity(b *testing.B) {
 		"identity(\"volume from coordinates = Cayley-Menger volume\",\n" +
 		"         lambda t: (t.volume_sq(), cayley_menger(t) / 288),\n" +
 		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=10000, companion=False)\n```\n")
+	benchNotebook(b, src, cells.Holds)
+}
+
+// benchNotebook runs a one-claim notebook in-process b.N times and checks
+// the claim's verdict every time.
+func benchNotebook(b *testing.B, src []byte, want cells.Verdict) {
 	nb, err := cells.Parse("bench.md", src)
 	if err != nil {
 		b.Fatal(err)
@@ -44,7 +40,7 @@ func BenchmarkExactSampledIdentity(b *testing.B) {
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
 		rep := Run(nb, Options{Settings: DefaultSettings})
-		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != cells.Holds {
+		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != want {
 			b.Fatalf("outcome %+v", rep.Outcomes[0])
 		}
 	}

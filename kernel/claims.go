@@ -502,41 +502,68 @@ func (s *Session) factorization(line int, args py.Tuple, kw py.StringDict) (py.O
 // maxSamples bounds a sweep so a typo cannot run for hours.
 const maxSamples = 10_000_000
 
-func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
-	if !callable(f) || !callable(over) {
-		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
-	}
-	n, err := intArg("identity", "samples", samples, 100)
+// sampleCount reads samples=N (default 100) for a sampled claim.
+func sampleCount(fn string, samples py.Object) (int64, error) {
+	n, err := intArg(fn, "samples", samples, 100)
 	if err != nil {
-		return err
+		return 0, err
 	}
 	if n < 1 || n > maxSamples {
-		return py.ExceptionNewf(py.ValueError, "identity(): samples must be between 1 and %d, got %d", maxSamples, n)
+		return 0, py.ExceptionNewf(py.ValueError, "%s(): samples must be between 1 and %d, got %d", fn, maxSamples, n)
 	}
-	var results []residual
-	failing, raised := 0, 0
-	var worstAudit *cells.FloatAudit
-	var worstAuditSample int64
-	skipped := ""
+	return n, nil
+}
+
+// sweep makes sample k = g(k) for k < n, calls f on it and hands the pair
+// f returns to visit. A sample on which f raises goes to raised, or, when
+// raised is nil, ends the sweep with that error; a generator that raises
+// always ends it, naming k.
+func sweep(f, g py.Object, n int64, raised func(k int64, msg string), visit func(k int64, sample, a, b py.Object) error) error {
 	for k := int64(0); k < n; k++ {
-		sample, err := py.Call(over, py.Tuple{py.Int(k)}, nil)
+		sample, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
 		if err != nil {
 			_, msg := describe(err, 0)
 			return py.ExceptionNewf(py.ValueError, "the sample generator raised at sample %d: %s", k, msg)
 		}
 		res, err := py.Call(f, py.Tuple{sample}, nil)
 		if err != nil {
-			// One sample that raises does not end the sweep: it makes the
-			// claim undecided, and the report names the sample.
+			if raised == nil {
+				return err
+			}
 			_, msg := describe(err, 0)
-			results = append(results, residual{text: fmt.Sprintf("f raised: %s", clip(msg, 160)), size: new(big.Rat), undecided: true})
-			raised++
+			raised(k, msg)
 			continue
 		}
-		lhs, rhs, err := pair(res, fmt.Sprintf("f(sample %d)", k))
+		a, b, err := pair(res, fmt.Sprintf("f(sample %d)", k))
 		if err != nil {
 			return err
 		}
+		if err := visit(k, sample, a, b); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
+	if !callable(f) || !callable(over) {
+		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
+	}
+	n, err := sampleCount("identity", samples)
+	if err != nil {
+		return err
+	}
+	var results []residual
+	failing, raised := 0, 0
+	var worstAudit *cells.FloatAudit
+	var worstAuditSample int64
+	skipped := ""
+	err = sweep(f, over, n, func(k int64, msg string) {
+		// One sample that raises does not end the sweep: it makes the
+		// claim undecided, and the report names the sample.
+		results = append(results, residual{text: fmt.Sprintf("f raised: %s", clip(msg, 160)), size: new(big.Rat), undecided: true})
+		raised++
+	}, func(k int64, sample, lhs, rhs py.Object) error {
 		r, err := measure(s.ring, t, lhs, rhs)
 		if err != nil {
 			return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
@@ -564,6 +591,10 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 				worstAudit, worstAuditSample = audit, k
 			}
 		}
+		return nil
+	})
+	if err != nil {
+		return err
 	}
 	w := worst(results)
 	w.verdict(c, int(n))

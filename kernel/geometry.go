@@ -115,14 +115,11 @@ func (s *Session) installGeometry(b py.StringDict) {
 		if err != nil {
 			return nil, err
 		}
-		m, err := matrixFrom(s.ring, a[0])
+		q, err := s.rationalMatrixArg("distance_simplex() (for indeterminate distances use cayley_menger(D) or volume_sq(D))", a[0])
 		if err != nil {
 			return nil, err
 		}
-		if m.q == nil {
-			return nil, py.ExceptionNewf(py.TypeError, "distance_simplex() needs rational squared distances; for indeterminate ones use cayley_menger(D) or volume_sq(D)")
-		}
-		g, err := geom.FromSquaredDistances(m.q)
+		g, err := geom.FromSquaredDistances(q)
 		if err != nil {
 			return nil, geomErr("distance_simplex", err)
 		}
@@ -156,18 +153,15 @@ func (s *Session) installGeometry(b py.StringDict) {
 		if err != nil {
 			return nil, err
 		}
-		m, err := matrixFrom(s.ring, a[0])
+		q, err := s.rationalMatrixArg("embeddable", a[0])
 		if err != nil {
 			return nil, err
-		}
-		if m.q == nil {
-			return nil, symbolicRefusal("embeddable")
 		}
 		k, err := intArg("embeddable", "k", a[1], 0)
 		if err != nil || k < 0 {
 			return nil, py.ExceptionNewf(py.ValueError, "embeddable(D, k) needs a dimension k >= 0")
 		}
-		ok, reason, err := geom.Embeddable(m.q, int(k))
+		ok, reason, err := geom.Embeddable(q, int(k))
 		if err != nil {
 			return nil, geomErr("embeddable", err)
 		}
@@ -206,18 +200,15 @@ func (s *Session) installGeometry(b py.StringDict) {
 		if !ok {
 			return nil, py.ExceptionNewf(py.TypeError, "affine(s, A, t): s must be a simplex, got %s", typeName(a[0]))
 		}
-		m, err := matrixFrom(s.ring, a[1])
+		m, err := s.rationalMatrixArg("affine", a[1])
 		if err != nil {
 			return nil, err
-		}
-		if m.q == nil {
-			return nil, symbolicRefusal("affine")
 		}
 		t, err := rationalVector(a[2], "affine: t")
 		if err != nil {
 			return nil, err
 		}
-		g, err := sx.s.Affine(m.q, t)
+		g, err := sx.s.Affine(m, t)
 		if err != nil {
 			return nil, geomErr("affine", err)
 		}
@@ -260,6 +251,18 @@ func (s *Session) installGeometry(b py.StringDict) {
 	family("needle", "needle(t) -> a needle tetrahedron: three vertices close together (edges ~ t), the fourth far", geom.Needle)
 	family("cap", "cap(t) -> a cap tetrahedron: one vertex at height ~ t over the inside of the opposite face", geom.Cap)
 	family("wedge_tetrahedron", "wedge_tetrahedron(t) -> a wedge tetrahedron: two vertices collapse (one edge ~ t)", geom.WedgeTetrahedron)
+}
+
+// rationalMatrixArg reads a matrix argument that must have rational entries.
+func (s *Session) rationalMatrixArg(what string, o py.Object) (*exact.Matrix, error) {
+	m, err := matrixFrom(s.ring, o)
+	if err != nil {
+		return nil, err
+	}
+	if m.q == nil {
+		return nil, symbolicRefusal(what)
+	}
+	return m.q, nil
 }
 
 // distanceFunction applies a function of squared distances, rational or polynomial.

@@ -96,30 +96,19 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 		if a[2] != nil || !callable(a[1]) || !callable(a[3]) {
 			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, f, over=g, samples=N) needs functions f and g and no third argument")
 		}
-		if samples, err = intArg("inequality", "samples", a[4], 100); err != nil {
+		if samples, err = sampleCount("inequality", a[4]); err != nil {
 			return nil, err
 		}
-		if samples < 1 || samples > maxSamples {
-			return nil, py.ExceptionNewf(py.ValueError, "inequality(): samples must be between 1 and %d, got %d", maxSamples, samples)
-		}
-		for k := int64(0); k < samples; k++ {
-			sample, err := py.Call(a[3], py.Tuple{py.Int(k)}, nil)
-			if err != nil {
-				return nil, err
-			}
-			res, err := py.Call(a[1], py.Tuple{sample}, nil)
-			if err != nil {
-				return nil, err
-			}
-			l, g, err := pair(res, fmt.Sprintf("f(sample %d)", k))
-			if err != nil {
-				return nil, err
-			}
+		err = sweep(a[1], a[3], samples, nil, func(k int64, _, l, g py.Object) error {
 			sl, err := measureSlack(t, l, g)
 			if err != nil {
-				return nil, py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
+				return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
 			}
 			results = append(results, sl)
+			return nil
+		})
+		if err != nil {
+			return nil, err
 		}
 	} else {
 		if a[2] == nil || a[4] != nil {

@@ -317,6 +317,14 @@ func init() {
 		if q.IsZero() {
 			return nil, py.ExceptionNewf(py.ZeroDivisionError, "division by the zero polynomial")
 		}
+		// DivExact is fast; the remainder, for the message, only when it fails.
+		quo, exactly, err := p.DivExact(q)
+		if err != nil {
+			return nil, polyErr(err)
+		}
+		if exactly {
+			return resultObject(quo), nil
+		}
 		quo, rem, err := p.Divide(q)
 		if err != nil {
 			return nil, polyErr(err)
