@@ -439,6 +439,59 @@ func mulDense128(kp []uint64, cp []int64, kq []uint64, cq []int64, out *kronOut)
 
 const fibHash = 0x9E3779B97F4A7C15
 
+// hashSlot is a slot of the product hash tables: the int64 and the 128-bit
+// accumulators differ only in what they add, which the hot loops spell out;
+// growing the table and reading it out in order are shared.
+type hashSlot interface {
+	slotKey() uint64 // key+1; 0 for an empty slot
+	isZero() bool    // the accumulated coefficient cancelled
+}
+
+func (s slot64) slotKey() uint64  { return s.key }
+func (s slot64) isZero() bool     { return s.v == 0 }
+func (s slot128) slotKey() uint64 { return s.key }
+func (s slot128) isZero() bool    { return s.lo|s.hi == 0 }
+
+// hashGrow rehashes the occupied slots of old into a table of 2^logSize.
+func hashGrow[S hashSlot](old []S, logSize int) []S {
+	t := make([]S, 1<<logSize)
+	mask := uint64(len(t) - 1)
+	for _, s := range old {
+		if k := s.slotKey(); k != 0 {
+			h := k * fibHash >> (64 - logSize)
+			for t[h].slotKey() != 0 {
+				h = (h + 1) & mask
+			}
+			t[h] = s
+		}
+	}
+	return t
+}
+
+// hashDescending lists the positions of the slots holding a non-zero
+// coefficient, largest key (the canonical order's first term) first. It
+// sorts the bare keys and finds each slot again by probing: measured faster
+// than sorting positions by an indirect key.
+func hashDescending[S hashSlot](t []S, count, logSize int) []int {
+	keys := make([]uint64, 0, count)
+	for _, s := range t {
+		if s.slotKey() != 0 && !s.isZero() {
+			keys = append(keys, s.slotKey())
+		}
+	}
+	slices.Sort(keys)
+	mask := uint64(len(t) - 1)
+	pos := make([]int, len(keys))
+	for x, key := range keys {
+		h := key * fibHash >> (64 - logSize)
+		for t[h].slotKey() != key {
+			h = (h + 1) & mask
+		}
+		pos[len(keys)-1-x] = int(h)
+	}
+	return pos
+}
+
 type slot64 struct {
 	key uint64 // key+1; 0 for an empty slot
 	v   int64
@@ -474,36 +527,12 @@ func mulHash64(kp []uint64, cp []int64, kq []uint64, cq []int64, out *kronOut) e
 					return tooManyTerms(out.op, out.limit)
 				}
 				logSize++
-				old := t
-				t = make([]slot64, 1<<logSize)
-				mask := uint64(len(t) - 1)
-				for _, s := range old {
-					if s.key != 0 {
-						h := s.key * fibHash >> (64 - logSize)
-						for t[h].key != 0 {
-							h = (h + 1) & mask
-						}
-						t[h] = s
-					}
-				}
+				t = hashGrow(t, logSize)
 			}
 		}
 	}
-	keys := make([]uint64, 0, count)
-	for _, s := range t {
-		if s.key != 0 && s.v != 0 {
-			keys = append(keys, s.key)
-		}
-	}
-	slices.Sort(keys)
-	mask := uint64(len(t) - 1)
-	for x := len(keys) - 1; x >= 0; x-- {
-		key := keys[x]
-		h := key * fibHash >> (64 - logSize)
-		for t[h].key != key {
-			h = (h + 1) & mask
-		}
-		if err := out.small(key-1, t[h].v); err != nil {
+	for _, h := range hashDescending(t, count, logSize) {
+		if err := out.small(t[h].key-1, t[h].v); err != nil {
 			return err
 		}
 	}
@@ -549,36 +578,12 @@ func mulHash128(kp []uint64, cp []int64, kq []uint64, cq []int64, out *kronOut) 
 					return tooManyTerms(out.op, out.limit)
 				}
 				logSize++
-				old := t
-				t = make([]slot128, 1<<logSize)
-				mask := uint64(len(t) - 1)
-				for _, s := range old {
-					if s.key != 0 {
-						h := s.key * fibHash >> (64 - logSize)
-						for t[h].key != 0 {
-							h = (h + 1) & mask
-						}
-						t[h] = s
-					}
-				}
+				t = hashGrow(t, logSize)
 			}
 		}
 	}
-	keys := make([]uint64, 0, count)
-	for _, s := range t {
-		if s.key != 0 && s.lo|s.hi != 0 {
-			keys = append(keys, s.key)
-		}
-	}
-	slices.Sort(keys)
-	mask := uint64(len(t) - 1)
-	for x := len(keys) - 1; x >= 0; x-- {
-		key := keys[x]
-		h := key * fibHash >> (64 - logSize)
-		for t[h].key != key {
-			h = (h + 1) & mask
-		}
-		if err := out.wide(key-1, t[h].hi, t[h].lo); err != nil {
+	for _, h := range hashDescending(t, count, logSize) {
+		if err := out.wide(t[h].key-1, t[h].hi, t[h].lo); err != nil {
 			return err
 		}
 	}
