@@ -288,6 +288,11 @@ func (s *Session) rng(explicit py.Object) (*rand.Rand, error) {
 		}
 		return rand.New(rand.NewPCG(uint64(seed), 0x6173736179)), nil
 	}
+	if s.sweeping {
+		// Sample k must be the same whichever kernel computes it, and
+		// in whatever order: a draw may depend on k, not on earlier draws.
+		return nil, py.ExceptionNewf(py.ValueError, "a random draw without seed= inside a sampled claim's f or g: pass seed= (for instance seed=k) so that sample k can be rebuilt, and split among workers")
+	}
 	s.draws++
 	return rand.New(rand.NewPCG(uint64(s.seed), uint64(s.cell)<<32|s.draws)), nil
 }

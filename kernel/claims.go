@@ -165,12 +165,16 @@ func realResidual(d *exact.Real, t target) (residual, error) {
 	return residual{text: fmt.Sprintf("|r| < 1e-%d", n), size: width, real: true, certified: n}, nil
 }
 
-// worst combines the residuals of entries or samples: any failure wins,
-// then undecided, then the fewest certified digits; the largest failing
-// residual is the one shown.
+// worst combines the residuals of entries: any failure wins, then
+// undecided, then the fewest certified digits; the largest failing
+// residual is the one shown, the first on ties.
 func worst(rs []residual) residual {
-	pick := worstIndex(rs)
-	out := rs[pick]
+	out := rs[0]
+	for _, r := range rs[1:] {
+		if compareResiduals(r, out) > 0 {
+			out = r
+		}
+	}
 	for _, r := range rs {
 		out.symbolic = out.symbolic || r.symbolic
 		out.real = out.real || r.real
@@ -178,36 +182,32 @@ func worst(rs []residual) residual {
 	return out
 }
 
-// worstIndex is the position of the residual that worst reports.
-func worstIndex(rs []residual) int {
-	pick := -1
-	rank := func(r residual) int {
-		switch {
-		case !r.zero && r.certified == 0 && !r.undecided:
-			return 3 // fails
-		case r.undecided:
-			return 2
-		case r.certified > 0:
-			return 1
-		}
-		return 0
+// rank orders residuals by how bad they are for the claim.
+func (r residual) rank() int {
+	switch {
+	case !r.zero && r.certified == 0 && !r.undecided:
+		return 3 // fails
+	case r.undecided:
+		return 2
+	case r.certified > 0:
+		return 1
 	}
-	for i, r := range rs {
-		if pick < 0 {
-			pick = i
-			continue
-		}
-		w := rs[pick]
-		switch rr, rw := rank(r), rank(w); {
-		case rr > rw:
-			pick = i
-		case rr == rw && rr == 3 && r.size.Cmp(w.size) > 0:
-			pick = i
-		case rr == rw && rr == 1 && r.certified < w.certified:
-			pick = i
-		}
+	return 0
+}
+
+// compareResiduals is positive when a is worse than b, negative when
+// better, and 0 when worst has no reason to prefer either.
+func compareResiduals(a, b residual) int {
+	ra, rb := a.rank(), b.rank()
+	switch {
+	case ra != rb:
+		return ra - rb
+	case ra == 3:
+		return a.size.Cmp(b.size)
+	case ra == 1:
+		return b.certified - a.certified
 	}
-	return pick
+	return 0
 }
 
 // verdict states what a residual means for the claim.
@@ -514,35 +514,37 @@ func sampleCount(fn string, samples py.Object) (int64, error) {
 	return n, nil
 }
 
-// sweep makes sample k = g(k) for k < n, calls f on it and hands the pair
-// f returns to visit. A sample on which f raises goes to raised, or, when
-// raised is nil, ends the sweep with that error; a generator that raises
-// always ends it, naming k.
-func sweep(f, g py.Object, n int64, raised func(k int64, msg string), visit func(k int64, sample, a, b py.Object) error) error {
-	for k := int64(0); k < n; k++ {
+// sweep computes a sampled claim's share of samples: sample k = g(k),
+// then f(sample), whose pair goes to visit. A sample on which f raises
+// goes to raised and the sweep goes on; any other error ends the share and
+// is returned with its sample index.
+func (s *Session) sweep(a Ask, sh Share, f, g py.Object, raised func(k int64, msg string), visit func(k int64, sample, x, y py.Object) error) (int64, *SweepError) {
+	s.sweeping = true
+	defer func() { s.sweeping = false }()
+	var failed *SweepError
+	done, _ := s.forShare(a, sh, func(k int64) error {
 		sample, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
 		if err != nil {
 			_, msg := describe(err, 0)
-			return py.ExceptionNewf(py.ValueError, "the sample generator raised at sample %d: %s", k, msg)
+			failed = &SweepError{K: k, Type: "ValueError", Message: fmt.Sprintf("the sample generator raised at sample %d: %s", k, msg)}
+			return err
 		}
 		res, err := py.Call(f, py.Tuple{sample}, nil)
 		if err != nil {
-			if raised == nil {
-				return err
-			}
 			_, msg := describe(err, 0)
 			raised(k, msg)
-			continue
+			return nil
 		}
-		a, b, err := pair(res, fmt.Sprintf("f(sample %d)", k))
+		x, y, err := pair(res, fmt.Sprintf("f(sample %d)", k))
+		if err == nil {
+			err = visit(k, sample, x, y)
+		}
 		if err != nil {
-			return err
+			failed = sweepError(k, err)
 		}
-		if err := visit(k, sample, a, b); err != nil {
-			return err
-		}
-	}
-	return nil
+		return err
+	})
+	return done, failed
 }
 
 func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
@@ -553,50 +555,56 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 	if err != nil {
 		return err
 	}
-	var results []residual
-	failing, raised := 0, 0
-	var worstAudit *cells.FloatAudit
-	var worstAuditSample int64
-	skipped := ""
-	err = sweep(f, over, n, func(k int64, msg string) {
-		// One sample that raises does not end the sweep: it makes the
-		// claim undecided, and the report names the sample.
-		results = append(results, residual{text: fmt.Sprintf("f raised: %s", clip(msg, 160)), size: new(big.Rat), undecided: true})
-		raised++
-	}, func(k int64, sample, lhs, rhs py.Object) error {
-		r, err := measure(s.ring, t, lhs, rhs)
-		if err != nil {
-			return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
-		}
-		if !r.zero && r.certified == 0 && !r.undecided {
-			failing++
-		}
-		results = append(results, r)
-		if companion && skipped == "" {
-			call := func() (py.Object, py.Object, error) {
-				fs, err := floatValue(sample)
-				if err != nil {
-					return nil, nil, err
-				}
-				res, err := py.Call(f, py.Tuple{fs}, nil)
-				if err != nil {
-					return nil, nil, err
-				}
-				return pair(res, fmt.Sprintf("f(sample %d)", k))
+	ask := Ask{Claim: c.Name, Phase: phaseSweep, Line: c.Line, Samples: n}
+	tally, err := s.distribute(ask, func(sh Share) Tally {
+		began := time.Now()
+		it := &IdentityTally{}
+		done, failed := s.sweep(ask, sh, f, over, func(k int64, msg string) {
+			// One sample that raises does not end the sweep: it makes the
+			// claim undecided, and the report names the sample.
+			it.add(k, residual{text: fmt.Sprintf("f raised: %s", clip(msg, 160)), size: new(big.Rat), undecided: true})
+			it.Raised++
+		}, func(k int64, sample, lhs, rhs py.Object) error {
+			r, err := measure(s.ring, t, lhs, rhs)
+			if err != nil {
+				return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
 			}
-			audit, why := s.companion(call, lhs, rhs)
-			if why != "" {
-				skipped = why
-			} else if worstAudit == nil || audit.DigitsLost > worstAudit.DigitsLost {
-				worstAudit, worstAuditSample = audit, k
+			it.add(k, r)
+			if companion && it.Skip == nil {
+				call := func() (py.Object, py.Object, error) {
+					fs, err := floatValue(sample)
+					if err != nil {
+						return nil, nil, err
+					}
+					res, err := py.Call(f, py.Tuple{fs}, nil)
+					if err != nil {
+						return nil, nil, err
+					}
+					return pair(res, fmt.Sprintf("f(sample %d)", k))
+				}
+				audit, why := s.companion(call, lhs, rhs)
+				if why != "" {
+					it.Skip = &SampleNote{K: k, Text: why}
+				} else {
+					it.merge(&IdentityTally{Audit: &SampleAudit{K: k, Audit: *audit}})
+				}
 			}
-		}
-		return nil
+			return nil
+		})
+		return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Identity: it}
 	})
 	if err != nil {
 		return err
 	}
-	w := worst(results)
+	if tally.Err != nil {
+		return tally.Err.raise()
+	}
+	it := tally.Identity
+	if it == nil || it.Worst == nil {
+		return py.ExceptionNewf(py.RuntimeError, "claim %q: the merged tally has no samples", c.Name)
+	}
+	w := it.Worst.residual()
+	w.symbolic, w.real = it.Symbolic, it.Real
 	w.verdict(c, int(n))
 	c.Samples = int(n)
 	if w.real {
@@ -604,30 +612,26 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 	}
 	if c.Verdict != cells.Holds {
 		// Rebuild the worst sample (g is deterministic) rather than keep them all.
-		k := worstIndex(results)
-		sample, err := py.Call(over, py.Tuple{py.Int(k)}, nil)
-		if err != nil {
-			return err
-		}
-		c.Worst = fmt.Sprintf("sample %d: %s", k, clip(str(sample), 200))
+		c.Worst = fmt.Sprintf("sample %d: %s", it.Worst.K, clip(str(mustCall(over, it.Worst.K)), 200))
 	}
-	if failing > 0 {
-		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", failing, n)
+	if it.Failing > 0 {
+		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, n)
 	}
-	if raised > 0 && c.Verdict == cells.Undecided {
-		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", raised, n)
-	} else if raised > 0 {
-		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", raised, n)
+	if it.Raised > 0 && c.Verdict == cells.Undecided {
+		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", it.Raised, n)
+	} else if it.Raised > 0 {
+		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", it.Raised, n)
 	}
 	if c.Verdict == cells.Holds && zippel != nil {
 		c.Note += "; " + zippel(n)
 	}
 	switch {
-	case skipped != "":
-		c.Note += "; " + skipped
-	case worstAudit != nil:
-		c.Float = worstAudit
-		c.Float.Residual += fmt.Sprintf(" (at sample %d, where float64 lost most)", worstAuditSample)
+	case it.Skip != nil:
+		c.Note += "; " + it.Skip.Text
+	case it.Audit != nil:
+		audit := it.Audit.Audit
+		audit.Residual += fmt.Sprintf(" (at sample %d, where float64 lost most)", it.Audit.K)
+		c.Float = &audit
 	}
 	return nil
 }

@@ -78,7 +78,7 @@ func (sl slack) text() string {
 
 func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Object, error) {
 	start := time.Now()
-	a, err := bind("inequality", args, kw, []string{"name", "lesser", "greater", "over", "samples", "digits"}, 2)
+	a, err := bind("inequality", args, kw, []string{"name", "lesser", "greater", "over", "samples", "digits", "search"}, 2)
 	if err != nil {
 		return nil, err
 	}
@@ -90,86 +90,159 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 	if err != nil {
 		return nil, err
 	}
-	var results []slack
+	search := a[6] == py.True
+	if a[6] != nil && a[6] != py.True && a[6] != py.False {
+		return nil, py.ExceptionNewf(py.TypeError, "inequality(): search must be True or False")
+	}
+	it := &InequalityTally{}
 	var samples int64
+	var found *SearchTally
 	if a[3] != nil {
-		if a[2] != nil || !callable(a[1]) || !callable(a[3]) {
+		f, g := a[1], a[3]
+		if a[2] != nil || !callable(f) || !callable(g) {
 			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, f, over=g, samples=N) needs functions f and g and no third argument")
 		}
 		if samples, err = sampleCount("inequality", a[4]); err != nil {
 			return nil, err
 		}
-		err = sweep(a[1], a[3], samples, nil, func(k int64, _, l, g py.Object) error {
-			sl, err := measureSlack(t, l, g)
-			if err != nil {
-				return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
-			}
-			results = append(results, sl)
-			return nil
+		ask := Ask{Claim: c.Name, Phase: phaseSweep, Line: c.Line, Samples: samples}
+		tally, err := s.distribute(ask, func(sh Share) Tally {
+			began := time.Now()
+			part := &InequalityTally{}
+			done, failed := s.sweep(ask, sh, f, g, func(k int64, msg string) {
+				part.Raised++
+				if part.FirstRaise == nil {
+					part.FirstRaise = &SampleNote{K: k, Text: clip(msg, 160)}
+				}
+			}, func(k int64, _, l, gr py.Object) error {
+				sl, err := measureSlack(t, l, gr)
+				if err != nil {
+					return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
+				}
+				part.add(k, sl)
+				return nil
+			})
+			return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Inequality: part}
 		})
 		if err != nil {
 			return nil, err
 		}
+		if tally.Err != nil {
+			return nil, tally.Err.raise()
+		}
+		if tally.Inequality != nil {
+			it = tally.Inequality
+		}
+		if search && it.Violations == 0 && len(it.Smallest) > 0 {
+			if found, err = s.search(c, t, f, g, it.Smallest); err != nil {
+				return nil, err
+			}
+		}
 	} else {
-		if a[2] == nil || a[4] != nil {
-			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N)")
+		if a[2] == nil || a[4] != nil || search {
+			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N, search=False)")
 		}
 		sl, err := measureSlack(t, a[1], a[2])
 		if err != nil {
 			return nil, err
 		}
-		results = append(results, sl)
+		it.add(0, sl)
 	}
-	// The smallest slack decides; a violation anywhere fails the claim.
-	worst, violations, loose := 0, 0, 0
-	for k, sl := range results {
-		if sl.lo.Cmp(results[worst].lo) < 0 {
-			worst = k
-		}
-		switch sl.verdict {
-		case cells.Fails:
-			violations++
-		case cells.HoldsToDigits:
-			loose++
-		}
+	judgeInequality(&c, it, found, samples, t, a[3])
+	return s.record(c, start), nil
+}
+
+// add records one instance's slack; the printed forms are made only for
+// the few smallest.
+func (t *InequalityTally) add(k int64, sl slack) {
+	switch sl.verdict {
+	case cells.Fails:
+		t.Violations++
+	case cells.HoldsToDigits:
+		t.Loose++
 	}
-	w := results[worst]
-	c.Residual = "slack " + w.text()
+	cand := SampleSlack{K: k, Lo: sl.lo.RatString(), Exact: sl.exact, Verdict: sl.verdict, Ratio: sl.ratio}
+	if len(t.Smallest) == keepSmallest && compareSlacks(cand, t.Smallest[len(t.Smallest)-1]) >= 0 {
+		return
+	}
+	cand.Text = sl.text()
+	t.Smallest = mergeSmallest(t.Smallest, []SampleSlack{cand})
+}
+
+// judgeInequality gives the verdict: any certified violation fails the
+// claim (a sample or a point the search found); a sample f could not
+// evaluate leaves it undecided; a slack not certified either way leaves it
+// holding to digits.
+func judgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples int64, t target, g py.Object) {
 	c.Samples = int(samples)
-	if !w.exact {
+	where := func(sl SampleSlack) string {
+		if sl.Sample != "" {
+			return sl.Sample
+		}
+		return fmt.Sprintf("sample %d: %s", sl.K, clip(str(mustCall(g, sl.K)), 200))
+	}
+	if len(it.Smallest) == 0 {
+		c.Verdict, c.Residual = cells.Undecided, "none: f raised on every sample"
+		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
+		c.Note = fmt.Sprintf("f raised on all %d samples (the first is shown): %s", samples, it.FirstRaise.Text)
+		return
+	}
+	w := it.Smallest[0]
+	searched := found != nil && found.Best != nil
+	if searched && compareSlacks(*found.Best, w) < 0 {
+		w = *found.Best
+	}
+	fromSearch := searched && w.Sample != ""
+	c.Residual = "slack " + w.Text
+	if !w.Exact {
 		c.Method, c.Precision = realMethod, int(t.bits)
+	}
+	if samples > 0 && (w.Verdict != cells.Holds || it.Violations > 0 || fromSearch) {
+		c.Worst = where(w)
+	}
+	ratio := ""
+	if w.Ratio != "" {
+		ratio = "; lesser/greater = " + w.Ratio + " there"
 	}
 	every := "for this instance"
 	if samples > 0 {
 		every = fmt.Sprintf("on all %d samples (evidence, not a proof, of the general statement)", samples)
-		if w.verdict != cells.Holds || violations > 0 {
-			c.Worst = fmt.Sprintf("sample %d: %s", worst, clip(str(mustCall(a[3], worst)), 200))
-		}
-	}
-	ratio := ""
-	if w.ratio != "" {
-		ratio = "; lesser/greater = " + w.ratio + " there"
 	}
 	switch {
-	case violations > 0:
+	case w.Verdict == cells.Fails && fromSearch:
 		c.Verdict = cells.Fails
-		c.Note = fmt.Sprintf("violated: the smallest slack is certified negative%s; %d of %d instances violate it", ratio, violations, len(results))
-		if w.exact {
+		c.Note = fmt.Sprintf("violated at a point the counterexample search found (all %d samples held)%s: the slack there is certified negative", samples, ratio)
+		if w.Exact {
+			c.Note += " — an exact counterexample at the rational configuration shown"
+		} else {
+			c.Note += " at the rational configuration shown"
+		}
+	case it.Violations > 0:
+		c.Verdict = cells.Fails
+		n := max(samples, 1)
+		c.Note = fmt.Sprintf("violated: the smallest slack is certified negative%s; %d of %d instances violate it", ratio, it.Violations, n)
+		if w.Exact {
 			c.Note += " — an exact counterexample"
 		}
-	case loose > 0:
+	case it.Raised > 0:
+		c.Verdict = cells.Undecided
+		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
+		c.Note = fmt.Sprintf("f raised on %d of %d samples (the first is shown: %s); the sweep went on, and a claim with samples it could not evaluate cannot hold", it.Raised, samples, it.FirstRaise.Text)
+	case it.Loose > 0 || w.Verdict == cells.HoldsToDigits:
 		c.Verdict, c.Digits = cells.HoldsToDigits, t.digits()
 		c.Note = fmt.Sprintf("the smallest slack could not be certified non-negative: any violation is below 10^-%d%s; evidence, not a proof", t.digits(), ratio)
 	default:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s; the smallest slack is shown%s", every, ratio)
 	}
-	return s.record(c, start), nil
+	if searched || (found != nil && found.Skipped != "") {
+		c.Note += "; " + found.describe(fromSearch)
+	}
 }
 
 // mustCall rebuilds sample k for the report (g is deterministic); on an
 // error it gives the message instead.
-func mustCall(g py.Object, k int) py.Object {
+func mustCall(g py.Object, k int64) py.Object {
 	v, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
 	if err != nil {
 		_, msg := describe(err, 0)

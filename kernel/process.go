@@ -3,7 +3,6 @@ package kernel
 import (
 	"bytes"
 	"encoding/json"
-	"errors"
 	"fmt"
 	"io"
 	"os"
@@ -13,8 +12,6 @@ import (
 	"sync"
 	"sync/atomic"
 	"time"
-
-	"assay/cells"
 )
 
 // LimitError is a cell stopped by a limit, or a kernel process that died.
@@ -24,21 +21,30 @@ type LimitError struct {
 
 func (e *LimitError) Error() string { return e.Message }
 
-// Process is a kernel child process driven over JSON lines.
+// Process is a kernel child process driven over JSON lines. Its replies
+// go to the inbox its driver gave it.
 type Process struct {
 	cmd     *exec.Cmd
 	stdin   io.WriteCloser
-	replies chan Reply
-	exited  chan struct{}
+	exited  chan struct{} // closed when the process has ended
+	gone    chan struct{} // closed when the driver stops listening
 	stderr  *head
 	maxMem  int64
 	overMem atomic.Bool
 }
 
-// StartProcess starts command (e.g. ["/path/assay", "kernel"]) and opens a
-// session with the given settings. maxMemory (bytes) caps the child's
-// resident memory; the child is killed when it crosses the cap.
-func StartProcess(command []string, s Settings, maxMemory int64) (*Process, error) {
+// message is one reply from a process, or the news that it died.
+type message struct {
+	from  *Process
+	reply Reply
+	dead  bool
+}
+
+// startProcess starts command (e.g. ["/path/assay", "kernel"]) and asks it
+// to open a session with the given settings; that reply, like every later
+// one, arrives in inbox. maxMemory (bytes) caps the child's resident
+// memory; the child is killed when it crosses the cap.
+func startProcess(command []string, s Settings, maxMemory int64, inbox chan<- message) (*Process, error) {
 	cmd := exec.Command(command[0], command[1:]...)
 	cmd.Env = append(os.Environ(), "ASSAY_MAX_MEMORY="+strconv.FormatInt(maxMemory, 10))
 	stdin, err := cmd.StdinPipe()
@@ -49,10 +55,16 @@ func StartProcess(command []string, s Settings, maxMemory int64) (*Process, erro
 	if err != nil {
 		return nil, err
 	}
-	p := &Process{cmd: cmd, stdin: stdin, replies: make(chan Reply, 4), exited: make(chan struct{}), stderr: &head{max: 16 << 10}, maxMem: maxMemory}
+	p := &Process{cmd: cmd, stdin: stdin, exited: make(chan struct{}), gone: make(chan struct{}), stderr: &head{max: 16 << 10}, maxMem: maxMemory}
 	cmd.Stderr = p.stderr
 	if err := cmd.Start(); err != nil {
 		return nil, fmt.Errorf("cannot start the kernel process: %w", err)
+	}
+	deliver := func(m message) {
+		select {
+		case inbox <- m:
+		case <-p.gone:
+		}
 	}
 	go func() {
 		dec := json.NewDecoder(stdout)
@@ -61,58 +73,32 @@ func StartProcess(command []string, s Settings, maxMemory int64) (*Process, erro
 			if err := dec.Decode(&r); err != nil {
 				break
 			}
-			p.replies <- r
+			deliver(message{from: p, reply: r})
 		}
 		cmd.Wait()
 		close(p.exited)
+		deliver(message{from: p, dead: true})
 	}()
 	if maxMemory > 0 {
 		go p.watchMemory()
 	}
-	reply, err := p.request(Request{Op: "start", Settings: &s}, 30*time.Second)
-	if err != nil {
+	if err := p.send(Request{Op: "start", Settings: &s}); err != nil {
 		p.Close()
 		return nil, err
-	}
-	if reply.Error != "" {
-		p.Close()
-		return nil, errors.New("kernel process: " + reply.Error)
 	}
 	return p, nil
 }
 
-// Run runs one cell, waiting at most timeout. A crossed limit or a dead
-// process is returned as *LimitError; the process is then unusable.
-func (p *Process) Run(c Cell, timeout time.Duration) (cells.Outcome, Settings, error) {
-	reply, err := p.request(Request{Op: "run", Cell: &c}, timeout)
-	if err != nil {
-		return cells.Outcome{}, Settings{}, err
-	}
-	if reply.Error != "" || reply.Outcome == nil {
-		return cells.Outcome{}, Settings{}, &LimitError{Message: "kernel process refused the cell: " + reply.Error}
-	}
-	return *reply.Outcome, reply.Settings, nil
-}
-
-func (p *Process) request(req Request, timeout time.Duration) (Reply, error) {
+// send writes one request line; a dead process is a *LimitError.
+func (p *Process) send(req Request) error {
 	line, err := json.Marshal(req)
 	if err != nil {
-		return Reply{}, err
+		return err
 	}
 	if _, err := p.stdin.Write(append(line, '\n')); err != nil {
-		return Reply{}, p.death()
+		return p.death()
 	}
-	timer := time.NewTimer(timeout)
-	defer timer.Stop()
-	select {
-	case r := <-p.replies:
-		return r, nil
-	case <-p.exited:
-		return Reply{}, p.death()
-	case <-timer.C:
-		p.kill()
-		return Reply{}, &LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)}
-	}
+	return nil
 }
 
 // death explains why the process ended.
@@ -133,6 +119,11 @@ func (p *Process) death() error {
 }
 
 func (p *Process) kill() {
+	select {
+	case <-p.gone:
+	default:
+		close(p.gone)
+	}
 	if p.cmd.Process != nil {
 		p.cmd.Process.Kill()
 	}
@@ -171,6 +162,11 @@ func (p *Process) watchMemory() {
 
 // Close ends the process.
 func (p *Process) Close() error {
+	select {
+	case <-p.gone:
+	default:
+		close(p.gone)
+	}
 	p.stdin.Close()
 	select {
 	case <-p.exited:

@@ -15,9 +15,12 @@ const Version = "0.1.0"
 // Request is one line from the driver to a kernel process.
 type Request struct {
 	// Op is "start" (first line: make the session) or "run" (run one cell).
+	// Op "answer" is the driver's reply to an Exchange, sent only while a
+	// cell is waiting for it.
 	Op       string    `json:"op"`
 	Settings *Settings `json:"settings,omitempty"` // with start
 	Cell     *Cell     `json:"cell,omitempty"`     // with run
+	Answer   *Answer   `json:"answer,omitempty"`   // with answer
 }
 
 // Reply is one line from a kernel process to the driver.
@@ -26,6 +29,11 @@ type Reply struct {
 	Settings Settings       `json:"settings"`          // settings in force after the request
 	Outcome  *cells.Outcome `json:"outcome,omitempty"` // with run
 	Error    string         `json:"error,omitempty"`   // a request the kernel could not take
+	// While a cell runs, a kernel whose settings say Driven may send
+	// exchanges (each answered by one "answer" request) and progress
+	// lines (not answered) before the cell's reply.
+	Exchange *Exchange `json:"exchange,omitempty"`
+	Progress *Progress `json:"progress,omitempty"`
 }
 
 // maxLine bounds one protocol line (a cell's source or outcome).
@@ -61,6 +69,8 @@ func Serve(in io.Reader, out io.Writer) error {
 				var err error
 				if sess, err = NewSession(s); err != nil {
 					reply.Error = err.Error()
+				} else if s.Driven {
+					sess.coord = wire{sc: sc, send: func(r Reply) error { return enc.Encode(r) }}
 				}
 			case "run":
 				switch {

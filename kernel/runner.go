@@ -3,6 +3,8 @@ package kernel
 import (
 	"crypto/sha256"
 	"encoding/hex"
+	"fmt"
+	"io"
 	"time"
 
 	"assay/cells"
@@ -18,6 +20,14 @@ type Options struct {
 	// Command starts a kernel process, e.g. ["/usr/bin/assay", "kernel"].
 	// Empty runs cells in this process, without time or memory limits.
 	Command []string
+	// Workers is how many kernel processes share a large sampled claim
+	// (with Command only); helpers start at the first such claim.
+	Workers int
+	// Shard makes this run one shard of several: it computes the samples
+	// k with k % Shard.Count == Shard.Index. Zero: not sharded.
+	Shard Share
+	// Progress, when set, shows the progress of long sweeps (a terminal).
+	Progress io.Writer
 }
 
 // DefaultMaxTerms is the default cap on the terms of a polynomial.
@@ -29,45 +39,55 @@ const (
 	DefaultMaxMemory = 2 << 30
 )
 
-// executor runs cells: a child process, or a session in this process.
-type executor interface {
-	run(c Cell, timeout time.Duration) (cells.Outcome, Settings, error)
-	close()
-}
-
-type processExecutor struct{ p *Process }
-
-func (e processExecutor) run(c Cell, t time.Duration) (cells.Outcome, Settings, error) {
-	return e.p.Run(c, t)
-}
-func (e processExecutor) close() { e.p.Close() }
-
-type sessionExecutor struct{ s *Session }
-
-func (e sessionExecutor) run(c Cell, _ time.Duration) (cells.Outcome, Settings, error) {
-	o := e.s.Run(c)
-	return o, e.s.Settings(), nil
-}
-func (e sessionExecutor) close() { e.s.Close() }
-
-func start(opt Options) (executor, error) {
-	if len(opt.Command) == 0 {
-		s, err := NewSession(opt.Settings)
-		if err != nil {
-			return nil, err
-		}
-		return sessionExecutor{s}, nil
-	}
-	p, err := StartProcess(opt.Command, opt.Settings, opt.MaxMemory)
-	if err != nil {
-		return nil, err
-	}
-	return processExecutor{p}, nil
-}
-
 // Run runs every cell of a notebook top to bottom in one namespace and
 // returns the report. It never fails: problems end up in the report.
 func Run(nb *cells.Notebook, opt Options) *cells.Report {
+	rep, _ := run(nb, opt, nil)
+	return rep
+}
+
+// RunShard runs a notebook as shard opt.Shard of a sharded run and returns
+// the part to merge, with the shard's report (whose sampled claims cover
+// only the shard's samples).
+func RunShard(nb *cells.Notebook, opt Options) (*cells.Report, *Part) {
+	rep, d := run(nb, opt, nil)
+	part := &Part{Format: PartFormat, Version: Version, Notebook: nb.Path, SHA256: rep.SHA256, Source: string(nb.Source),
+		Settings: opt.Settings, Shard: int(opt.Shard.Index) + 1, Shards: int(opt.Shard.Count), Claims: []PartClaim{}}
+	if d != nil {
+		part.Claims = append(part.Claims, d.collected...)
+	}
+	for _, o := range rep.Outcomes {
+		if o.Error != nil {
+			part.Errors = append(part.Errors, *o.Error)
+		}
+	}
+	part.Errors = append(part.Errors, rep.Problems...)
+	return rep, part
+}
+
+// Merge joins the parts of a sharded run (each named, for messages) into
+// the report a single run gives: it replays the notebook they carry, and
+// each sampled claim takes the merged tallies of the shards instead of
+// sweeping again. The settings come from the parts.
+func Merge(parts []*Part, names []string, opt Options) (*cells.Report, error) {
+	set, err := checkParts(parts, names)
+	if err != nil {
+		return nil, err
+	}
+	first := set.parts[0]
+	if first.Version != Version {
+		return nil, fmt.Errorf("the parts were written by assay %s; this is assay %s, whose results may differ: merge with the version that ran the shards", first.Version, Version)
+	}
+	nb, err := cells.Parse(first.Notebook, []byte(first.Source))
+	if err != nil {
+		return nil, fmt.Errorf("the notebook in the parts no longer parses: %v", err)
+	}
+	opt.Settings, opt.Shard = first.Settings, Share{}
+	rep, _ := run(nb, opt, set)
+	return rep, nil
+}
+
+func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *driver) {
 	began := time.Now()
 	if opt.Timeout <= 0 {
 		opt.Timeout = DefaultTimeout
@@ -92,15 +112,15 @@ func Run(nb *cells.Notebook, opt Options) *cells.Report {
 	}
 	defer func() { rep.Seconds = time.Since(began).Seconds() }()
 	if len(list) == 0 {
-		return rep
+		return rep, nil
 	}
-	exec, err := start(opt)
+	d, err := newDriver(opt)
 	if err != nil {
 		rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
-		return rep
+		return rep, nil
 	}
-	defer func() { exec.close() }()
-	var done []Cell // cells that ran cleanly, for a replay after a restart
+	d.parts = parts
+	defer d.close()
 	for i, b := range list {
 		c := Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}
 		timeout := opt.Timeout
@@ -108,7 +128,7 @@ func Run(nb *cells.Notebook, opt Options) *cells.Report {
 			timeout = b.Options.Timeout
 		}
 		cellStart := time.Now()
-		out, s, err := exec.run(c, timeout)
+		out, s, err := d.run(c, timeout)
 		if err != nil {
 			out = cells.Outcome{Cell: b.Index, Status: cells.Failed, Seconds: time.Since(cellStart).Seconds(),
 				Error: &cells.Problem{Cell: b.Index, Line: b.Line, Message: err.Error()}}
@@ -118,27 +138,17 @@ func Run(nb *cells.Notebook, opt Options) *cells.Report {
 			}
 			// The namespace died with the process: start afresh and replay
 			// the cells that ran cleanly so later cells see their names.
-			exec.close()
-			if exec, err = start(opt); err != nil {
+			if err := d.restart(opt.Timeout); err != nil {
 				rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
-				return rep
-			}
-			for _, d := range done {
-				if _, _, err := exec.run(d, opt.Timeout); err != nil {
-					break
-				}
+				return rep, d
 			}
 			continue
 		}
 		rep.Outcomes[i] = out
 		rep.Seed, rep.Precision = s.Seed, s.Precision
-		if out.Status == cells.Failed {
-			if !opt.KeepGoing {
-				break
-			}
-			continue
+		if out.Status == cells.Failed && !opt.KeepGoing {
+			break
 		}
-		done = append(done, c)
 	}
-	return rep
+	return rep, d
 }

@@ -26,6 +26,9 @@ type Settings struct {
 	MaxTerms int `json:"max_terms,omitempty"`
 	// MaxPrecision caps the bits of any certified-real refinement (0: DefaultMaxPrecision).
 	MaxPrecision int `json:"max_precision,omitempty"`
+	// Driven means a driver answers the kernel's exchanges: it splits
+	// sampled claims among workers and shards and merges their tallies.
+	Driven bool `json:"driven,omitempty"`
 }
 
 // DefaultMaxPrecision is the default cap, in bits, on refining a certified real
@@ -42,6 +45,8 @@ type Session struct {
 	ring     *exact.Ring // the notebook's polynomial variables
 	settings Settings
 	claimAt  map[string]int // claim name -> line where it was made
+	coord    coordinator    // splits and merges sampled claims
+	sweeping bool           // inside a sampled claim's f or g
 
 	// Per-cell state, reset by Run.
 	cell      int
@@ -66,7 +71,7 @@ func NewSession(s Settings) (*Session, error) {
 		return nil, err
 	}
 	pyext.Install(ctx.store.Builtins)
-	sess := &Session{ctx: ctx, settings: s, claimAt: map[string]int{}, ring: exact.NewRing()}
+	sess := &Session{ctx: ctx, settings: s, claimAt: map[string]int{}, ring: exact.NewRing(), coord: solo{}}
 	sess.ring.SetMaxTerms(s.MaxTerms)
 	sess.install(ctx.store.Builtins.Globals)
 	sys := ctx.store.MustGetModule("sys").Globals
@@ -193,16 +198,22 @@ func exceptionLine(e *py.Exception, fallback int) int {
 	return fallback
 }
 
-func exceptionText(e *py.Exception) string {
-	name := e.Base.Name
+// exceptionMessage is an exception's arguments, without its type name.
+func exceptionMessage(e *py.Exception) string {
 	var parts []string
-	for _, a := range e.Args.(py.Tuple) {
+	args, _ := e.Args.(py.Tuple)
+	for _, a := range args {
 		s, err := py.StrAsString(a)
 		if err == nil {
 			parts = append(parts, s)
 		}
 	}
-	text := strings.Join(parts, ", ")
+	return strings.Join(parts, ", ")
+}
+
+func exceptionText(e *py.Exception) string {
+	name := e.Base.Name
+	text := exceptionMessage(e)
 	if name == "SyntaxError" {
 		if off, ok := e.Dict["offset"].(py.Int); ok && off > 0 {
 			text += fmt.Sprintf(" (column %d)", int(off))

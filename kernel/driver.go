@@ -1,0 +1,452 @@
+package kernel
+
+import (
+	"errors"
+	"fmt"
+	"reflect"
+	"strings"
+	"time"
+
+	"assay/cells"
+)
+
+// helperThreshold is the smallest sweep for which a driver starts its
+// helper workers: below it, starting processes costs more than it saves.
+const helperThreshold = 256
+
+// driver runs a notebook's cells in a kernel — a child process, or a
+// session in this process — and answers its exchanges: it splits sampled
+// claims among workers (helper processes that replay the notebook in step
+// with the main one), among shards, or fills them in from merged parts,
+// and merges the tallies.
+type driver struct {
+	opt   Options
+	shard Share // this run's shard; {0, 1} when not sharded
+
+	sess *Session // in-process mode
+
+	workers []*worker // process mode; workers[0] is the main kernel
+	inbox   chan message
+	history []ran // cells the main kernel has run, for helpers to replay
+	current Cell
+	tried   bool // helpers were started (or could not be)
+
+	settled   map[string]settledTally
+	open      map[string]*opening
+	parts     *partSet    // merge mode
+	collected []PartClaim // shard mode: this shard's tallies, in order
+	progress  *progressLine
+}
+
+type ran struct {
+	cell   Cell
+	failed bool
+}
+
+// worker is one kernel process and what it is doing.
+type worker struct {
+	p        *Process
+	index    int
+	starting bool   // its session is not open yet
+	queue    []ran  // cells to run: a helper's replay, then the current cell
+	running  *ran   // the cell it runs, nil when idle
+	asking   string // the exchange it waits on, "" when not waiting
+	final    *Reply // its reply for the current cell
+}
+
+type settledTally struct {
+	ask   Ask
+	tally Tally
+}
+
+// opening is an exchange in progress: the workers that asked, then their tallies.
+type opening struct {
+	ask      Ask
+	askers   []*worker
+	tallies  []Tally
+	assigned bool
+}
+
+func newDriver(opt Options) (*driver, error) {
+	d := &driver{opt: opt, shard: Share{Index: 0, Count: 1}, settled: map[string]settledTally{}, open: map[string]*opening{}}
+	if opt.Shard.Count > 0 {
+		d.shard = opt.Shard
+	}
+	d.progress = newProgressLine(opt.Progress)
+	return d, d.start()
+}
+
+// start opens the main kernel.
+func (d *driver) start() error {
+	if len(d.opt.Command) == 0 {
+		s, err := NewSession(d.opt.Settings)
+		if err != nil {
+			return err
+		}
+		s.coord = local{d}
+		d.sess = s
+		return nil
+	}
+	d.inbox = make(chan message, 16)
+	s := d.opt.Settings
+	s.Driven = true
+	p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.inbox)
+	if err != nil {
+		return err
+	}
+	m := <-d.inbox
+	switch {
+	case m.dead:
+		return p.death()
+	case m.reply.Error != "":
+		p.Close()
+		return errors.New("kernel process: " + m.reply.Error)
+	}
+	d.workers = []*worker{{p: p}}
+	d.tried = d.opt.Workers <= 1
+	return nil
+}
+
+// close ends every kernel; settled tallies are kept for a restart.
+func (d *driver) close() {
+	if d.sess != nil {
+		d.sess.Close()
+		d.sess = nil
+	}
+	for _, w := range d.workers {
+		w.p.Close()
+	}
+	d.workers, d.history, d.open = nil, nil, map[string]*opening{}
+	d.progress.clear()
+}
+
+// restart replaces a dead kernel with a fresh one and replays the cells
+// that ran cleanly, so later cells see their names.
+func (d *driver) restart(timeout time.Duration) error {
+	clean := d.history
+	d.close()
+	if err := d.start(); err != nil {
+		return err
+	}
+	for _, r := range clean {
+		if r.failed {
+			continue
+		}
+		if _, _, err := d.run(r.cell, timeout); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// run runs one cell in every worker and returns the main kernel's outcome.
+// A crossed limit or a dead process is a *LimitError; the kernels are then
+// unusable until restart.
+func (d *driver) run(c Cell, timeout time.Duration) (cells.Outcome, Settings, error) {
+	if d.sess != nil {
+		o := d.sess.Run(c)
+		d.history = append(d.history, ran{cell: c, failed: o.Status == cells.Failed})
+		return o, d.sess.Settings(), nil
+	}
+	d.current = c
+	for _, w := range d.workers {
+		w.final = nil
+		w.queue = append(w.queue, ran{cell: c})
+		if err := d.next(w); err != nil {
+			return d.abort(err)
+		}
+	}
+	timer := time.NewTimer(timeout)
+	defer timer.Stop()
+	for !d.finished() {
+		if err := d.stuck(); err != nil {
+			return d.abort(err)
+		}
+		select {
+		case m := <-d.inbox:
+			if err := d.receive(m); err != nil {
+				return d.abort(err)
+			}
+		case <-timer.C:
+			return d.abort(&LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)})
+		}
+	}
+	d.progress.clear()
+	main := d.workers[0].final
+	out := *main.Outcome
+	for _, w := range d.workers[1:] {
+		if why := disagreement(out, *w.final.Outcome); why != "" && out.Error == nil {
+			out.Status = cells.Failed
+			out.Error = &cells.Problem{Cell: c.Index, Line: c.Line, Message: fmt.Sprintf("worker %d disagrees with the main kernel: %s; the notebook is not deterministic (does a result depend on something other than the seed?)", w.index, why)}
+		}
+	}
+	d.history = append(d.history, ran{cell: c, failed: out.Status == cells.Failed})
+	return out, main.Settings, nil
+}
+
+// abort ends every kernel after an error in the middle of a cell.
+func (d *driver) abort(err error) (cells.Outcome, Settings, error) {
+	for _, w := range d.workers {
+		w.p.kill()
+	}
+	var le *LimitError
+	if !errors.As(err, &le) {
+		err = &LimitError{Message: err.Error()}
+	}
+	return cells.Outcome{}, Settings{}, err
+}
+
+// finished says every worker has replied for the current cell.
+func (d *driver) finished() bool {
+	for _, w := range d.workers {
+		if w.final == nil {
+			return false
+		}
+	}
+	return true
+}
+
+// next sends an idle worker the next cell of its queue.
+func (d *driver) next(w *worker) error {
+	if w.starting || w.running != nil || len(w.queue) == 0 {
+		return nil
+	}
+	r := w.queue[0]
+	w.queue = w.queue[1:]
+	w.running = &r
+	return d.named(w, w.p.send(Request{Op: "run", Cell: &r.cell}))
+}
+
+// named prefixes a helper's error with its number.
+func (d *driver) named(w *worker, err error) error {
+	if err == nil || w.index == 0 {
+		return err
+	}
+	return &LimitError{Message: fmt.Sprintf("worker %d: %v", w.index, err)}
+}
+
+// receive handles one message from a worker.
+func (d *driver) receive(m message) error {
+	var w *worker
+	for _, x := range d.workers {
+		if x.p == m.from {
+			w = x
+		}
+	}
+	if w == nil {
+		return nil // from a process already closed
+	}
+	if m.dead {
+		return d.named(w, m.from.death())
+	}
+	r := m.reply
+	switch {
+	case r.Progress != nil:
+		d.progress.update(w.index, *r.Progress)
+		return nil
+	case r.Exchange != nil:
+		return d.named(w, d.onExchange(w, *r.Exchange))
+	case r.Error != "":
+		return d.named(w, &LimitError{Message: "kernel process refused the cell: " + r.Error})
+	case w.starting:
+		w.starting = false
+		return d.next(w)
+	case w.running == nil || r.Outcome == nil:
+		return d.named(w, &LimitError{Message: "kernel process sent a reply nobody asked for"})
+	}
+	done := *w.running
+	w.running = nil
+	failed := r.Outcome.Status == cells.Failed
+	if done.cell.Index == d.current.Index && len(w.queue) == 0 {
+		w.final = &r
+	} else if failed != done.failed {
+		return d.named(w, &LimitError{Message: fmt.Sprintf("replaying cell %d (line %d) gave another result than the main kernel did; the notebook is not deterministic", done.cell.Index, done.cell.Line)})
+	}
+	return d.next(w)
+}
+
+// stuck reports workers that wait on exchanges no one else will join:
+// they ran different code, so their results cannot be merged.
+func (d *driver) stuck() error {
+	var waiting []string
+	for _, w := range d.workers {
+		switch {
+		case w.starting || (w.running != nil && w.asking == ""):
+			return nil // still working
+		case w.asking != "":
+			a := strings.SplitN(w.asking, "\x00", 2)[0]
+			waiting = append(waiting, fmt.Sprintf("worker %d waits at claim %q", w.index, a))
+		default:
+			waiting = append(waiting, fmt.Sprintf("worker %d finished the cell", w.index))
+		}
+	}
+	for _, w := range d.workers {
+		if w.asking != "" {
+			return &LimitError{Message: "the workers ran different code (" + strings.Join(waiting, ", ") + "); a sampled claim's f or g, or the code before it, depends on something other than the sample index and the seed"}
+		}
+	}
+	return nil
+}
+
+// onExchange handles an ask or a tally from a worker.
+func (d *driver) onExchange(w *worker, e Exchange) error {
+	a := e.Ask
+	if e.Tally == nil {
+		if t, err := d.known(a); err != nil || t != nil {
+			return d.answer(w, t, err)
+		}
+		o := d.open[a.key()]
+		if o == nil {
+			o = &opening{ask: a}
+			d.open[a.key()] = o
+		}
+		if o.ask != a || o.assigned {
+			return d.answer(w, nil, fmt.Errorf("the workers disagree about claim %q (line %d): the notebook is not deterministic", a.Claim, a.Line))
+		}
+		o.askers = append(o.askers, w)
+		w.asking = a.key()
+		if w.index == 0 && !d.tried && a.Phase == phaseSweep && a.Samples >= helperThreshold {
+			d.startHelpers()
+		}
+		if len(o.askers) < len(d.workers) {
+			return nil
+		}
+		o.assigned = true
+		n := int64(len(o.askers))
+		for _, x := range o.askers {
+			sh := Share{Index: d.shard.Index + d.shard.Count*int64(x.index), Count: d.shard.Count * n}
+			if a.Phase == phaseSearch {
+				sh = Share{Index: int64(x.index), Count: n}
+			}
+			x.asking = ""
+			if err := d.named(x, x.p.send(Request{Op: "answer", Answer: &Answer{Share: &sh}})); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	o := d.open[a.key()]
+	if o == nil || !o.assigned || o.ask != a {
+		return d.answer(w, nil, fmt.Errorf("claim %q: a tally came for an exchange that was not open", a.Claim))
+	}
+	w.asking = a.key()
+	o.tallies = append(o.tallies, *e.Tally)
+	if len(o.tallies) < len(o.askers) {
+		return nil
+	}
+	delete(d.open, a.key())
+	t := d.settle(a, o.tallies)
+	for _, x := range o.askers {
+		if err := d.answer(x, &t, nil); err != nil {
+			return err
+		}
+	}
+	return nil
+}
+
+// answer sends a worker the result of an exchange, or an error that its
+// cell will raise.
+func (d *driver) answer(w *worker, t *Tally, err error) error {
+	w.asking = ""
+	ans := Answer{Result: t}
+	if err != nil {
+		ans = Answer{Error: err.Error()}
+	}
+	return d.named(w, w.p.send(Request{Op: "answer", Answer: &ans}))
+}
+
+// startHelpers starts the helper workers; each replays the cells the main
+// kernel has run, then joins it in the current cell. A helper that cannot
+// start is left out: the run is slower, not different.
+func (d *driver) startHelpers() {
+	d.tried = true
+	s := d.opt.Settings
+	s.Driven = true
+	for i := 1; i < d.opt.Workers; i++ {
+		p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.inbox)
+		if err != nil {
+			return
+		}
+		queue := append(append([]ran(nil), d.history...), ran{cell: d.current})
+		d.workers = append(d.workers, &worker{p: p, index: i, starting: true, queue: queue})
+	}
+}
+
+// known gives the merged tally of an exchange the driver already holds:
+// settled earlier (a replay), or joined from the parts being merged. A
+// shard run skips the counterexample search: it runs at the merge, over
+// the worst samples of all shards.
+func (d *driver) known(a Ask) (*Tally, error) {
+	if s, ok := d.settled[a.key()]; ok {
+		if s.ask != a {
+			return nil, fmt.Errorf("claim %q was asked for twice, differently (line %d, %d samples, then line %d, %d samples)", a.Claim, s.ask.Line, s.ask.Samples, a.Line, a.Samples)
+		}
+		return &s.tally, nil
+	}
+	if a.Phase == phaseSearch && d.shard.Count > 1 {
+		return &Tally{Search: &SearchTally{Skipped: "this is one shard; the search runs when the parts are merged"}}, nil
+	}
+	if d.parts != nil && a.Phase == phaseSweep {
+		t, err := d.parts.tally(a)
+		if t != nil {
+			d.settled[a.key()] = settledTally{ask: a, tally: *t}
+		}
+		return t, err
+	}
+	return nil, nil
+}
+
+// settle merges the tallies of an exchange's shares and keeps the result.
+func (d *driver) settle(a Ask, shares []Tally) Tally {
+	var t Tally
+	for _, s := range shares {
+		t.Merge(s)
+	}
+	d.settled[a.key()] = settledTally{ask: a, tally: t}
+	if d.shard.Count > 1 && a.Phase == phaseSweep {
+		d.collected = append(d.collected, PartClaim{Ask: a, Tally: t})
+	}
+	d.progress.clear()
+	return t
+}
+
+// local is the coordinator of a session the driver runs in this process.
+type local struct{ d *driver }
+
+func (l local) exchange(e Exchange) (Answer, error) {
+	t, err := l.d.known(e.Ask)
+	switch {
+	case err != nil:
+		return Answer{Error: err.Error()}, nil
+	case t != nil:
+		return Answer{Result: t}, nil
+	case e.Tally == nil:
+		sh := l.d.shard
+		if e.Phase == phaseSearch {
+			sh = Share{Index: 0, Count: 1}
+		}
+		return Answer{Share: &sh}, nil
+	}
+	m := l.d.settle(e.Ask, []Tally{*e.Tally})
+	return Answer{Result: &m}, nil
+}
+
+func (l local) progress(p Progress) { l.d.progress.update(0, p) }
+
+// disagreement compares what two workers said about the same cell.
+func disagreement(a, b cells.Outcome) string {
+	if a.Status != b.Status {
+		return fmt.Sprintf("the cell %s in one and %s in the other", a.Status, b.Status)
+	}
+	if len(a.Claims) != len(b.Claims) {
+		return fmt.Sprintf("%d claims against %d", len(a.Claims), len(b.Claims))
+	}
+	for i := range a.Claims {
+		x, y := a.Claims[i], b.Claims[i]
+		x.Seconds, y.Seconds = 0, 0
+		if !reflect.DeepEqual(x, y) {
+			return fmt.Sprintf("claim %q reads %s %q in one and %s %q in the other", x.Name, x.Verdict, x.Residual, y.Verdict, y.Residual)
+		}
+	}
+	return ""
+}

@@ -1,0 +1,58 @@
+package kernel
+
+import (
+	"fmt"
+	"io"
+	"time"
+)
+
+// progressLine shows how far a long sweep has got on a terminal: samples
+// done, rate and time left, summed over workers, redrawn in place.
+type progressLine struct {
+	w     io.Writer
+	claim string
+	began time.Time
+	done  map[int]int64 // by worker
+	total map[int]int64
+	shown bool
+}
+
+func newProgressLine(w io.Writer) *progressLine {
+	if w == nil {
+		return nil
+	}
+	return &progressLine{w: w}
+}
+
+// update records a worker's count and redraws the line.
+func (p *progressLine) update(worker int, pr Progress) {
+	if p == nil {
+		return
+	}
+	if pr.Claim != p.claim {
+		p.claim, p.began = pr.Claim, time.Now().Add(-progressEvery)
+		p.done, p.total = map[int]int64{}, map[int]int64{}
+	}
+	p.done[worker], p.total[worker] = pr.Done, pr.Total
+	var done, total int64
+	for i, n := range p.done {
+		done += n
+		total += p.total[i]
+	}
+	rate := float64(done) / time.Since(p.began).Seconds()
+	left := ""
+	if rate > 0 {
+		left = fmt.Sprintf(", about %s left", (time.Duration(float64(total-done)/rate*float64(time.Second))).Round(time.Second))
+	}
+	fmt.Fprintf(p.w, "\r\033[K%s: %d of %d samples, %.0f a second%s", clip(p.claim, 48), done, total, rate, left)
+	p.shown = true
+}
+
+// clear removes the line once its sweep is over.
+func (p *progressLine) clear() {
+	if p == nil || !p.shown {
+		return
+	}
+	fmt.Fprint(p.w, "\r\033[K")
+	p.shown, p.claim = false, ""
+}
