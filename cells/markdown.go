@@ -381,7 +381,11 @@ func claimDetails(n int, c Claim) string {
 		facts = append(facts, fmt.Sprintf("%d samples (seed %d)", c.Samples, c.Seed))
 	}
 	if c.Worst != "" {
-		facts = append(facts, "largest residual at "+codeSpan(c.Worst))
+		at := "largest residual at "
+		if c.Kind == "inequality" {
+			at = "smallest slack at "
+		}
+		facts = append(facts, at+codeSpan(c.Worst))
 	}
 	if c.Precision > 0 {
 		facts = append(facts, fmt.Sprintf("%d-bit precision", c.Precision))

@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"reflect"
+	"runtime"
 	"strings"
 	"time"
 
@@ -30,6 +31,7 @@ type driver struct {
 	history []ran // cells the main kernel has run, for helpers to replay
 	current Cell
 	tried   bool // helpers were started (or could not be)
+	peak    int  // most workers at once, for tests
 
 	settled   map[string]settledTally
 	open      map[string]*opening
@@ -90,7 +92,7 @@ func (d *driver) start() error {
 	d.inbox = make(chan message, 16)
 	s := d.opt.Settings
 	s.Driven = true
-	p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.inbox)
+	p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
 	if err != nil {
 		return err
 	}
@@ -105,6 +107,14 @@ func (d *driver) start() error {
 	d.workers = []*worker{{p: p}}
 	d.tried = d.opt.Workers <= 1
 	return nil
+}
+
+// procs shares the cores among the workers.
+func (d *driver) procs() int {
+	if d.opt.Workers <= 1 {
+		return 0
+	}
+	return max(1, runtime.NumCPU()/d.opt.Workers)
 }
 
 // close ends every kernel; settled tallies are kept for a restart.
@@ -363,12 +373,13 @@ func (d *driver) startHelpers() {
 	s := d.opt.Settings
 	s.Driven = true
 	for i := 1; i < d.opt.Workers; i++ {
-		p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.inbox)
+		p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
 		if err != nil {
 			return
 		}
 		queue := append(append([]ran(nil), d.history...), ran{cell: d.current})
 		d.workers = append(d.workers, &worker{p: p, index: i, starting: true, queue: queue})
+		d.peak = max(d.peak, len(d.workers))
 	}
 }
 

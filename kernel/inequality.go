@@ -211,12 +211,13 @@ func judgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	switch {
 	case w.Verdict == cells.Fails && fromSearch:
 		c.Verdict = cells.Fails
-		c.Note = fmt.Sprintf("violated at a point the counterexample search found (all %d samples held)%s: the slack there is certified negative", samples, ratio)
+		c.Note = fmt.Sprintf("violated at a point the counterexample search found, though all %d samples held: at the rational configuration shown the slack is ", samples)
 		if w.Exact {
-			c.Note += " — an exact counterexample at the rational configuration shown"
+			c.Note += "exactly negative — an exact counterexample"
 		} else {
-			c.Note += " at the rational configuration shown"
+			c.Note += "certified negative by interval arithmetic — a counterexample"
 		}
+		c.Note += ratio
 	case it.Violations > 0:
 		c.Verdict = cells.Fails
 		n := max(samples, 1)
@@ -236,7 +237,7 @@ func judgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		c.Note = fmt.Sprintf("slack certified >= 0 %s; the smallest slack is shown%s", every, ratio)
 	}
 	if searched || (found != nil && found.Skipped != "") {
-		c.Note += "; " + found.describe(fromSearch)
+		c.Note += "; " + found.describe(fromSearch && w.Verdict == cells.Fails)
 	}
 }
 

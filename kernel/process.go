@@ -44,9 +44,15 @@ type message struct {
 // to open a session with the given settings; that reply, like every later
 // one, arrives in inbox. maxMemory (bytes) caps the child's resident
 // memory; the child is killed when it crosses the cap.
-func startProcess(command []string, s Settings, maxMemory int64, inbox chan<- message) (*Process, error) {
+// procs, when positive, is the number of threads the child may run Go
+// code on (GOMAXPROCS): workers that share the cores should not each
+// think they own all of them.
+func startProcess(command []string, s Settings, maxMemory int64, procs int, inbox chan<- message) (*Process, error) {
 	cmd := exec.Command(command[0], command[1:]...)
 	cmd.Env = append(os.Environ(), "ASSAY_MAX_MEMORY="+strconv.FormatInt(maxMemory, 10))
+	if _, set := os.LookupEnv("GOMAXPROCS"); procs > 0 && !set {
+		cmd.Env = append(cmd.Env, "GOMAXPROCS="+strconv.Itoa(procs))
+	}
 	stdin, err := cmd.StdinPipe()
 	if err != nil {
 		return nil, err

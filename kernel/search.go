@@ -183,7 +183,9 @@ func (s *Session) descend(t target, f, g py.Object, k int64) (*SampleSlack, int6
 		return v
 	}
 	start := append([]float64(nil), p.x...)
-	res, err := optimize.Minimize(optimize.Problem{Func: objective}, start,
+	// An optimizer that stops early still leaves its best point; one that
+	// fails leaves the start.
+	res, _ := optimize.Minimize(optimize.Problem{Func: objective}, start,
 		&optimize.Settings{FuncEvaluations: searchEvaluations}, &optimize.NelderMead{SimplexSize: 0.05 * max(scale, 1)})
 	best := start
 	if res != nil && res.F < 2 {

@@ -1,21 +1,29 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"testing"
 )
 
+// buildAssay builds the assay binary into a temporary folder.
+func buildAssay(b *testing.B) (dir, bin string) {
+	b.Helper()
+	dir = b.TempDir()
+	bin = filepath.Join(dir, "assay")
+	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
+		b.Fatalf("build: %v\n%s", err, out)
+	}
+	return dir, bin
+}
+
 // BenchmarkCheckOneCell times `assay check` on a one-cell notebook as a user
 // runs it: the built binary, which starts its kernel child process.
 // Target (DESIGN.md): < 100 ms.
 func BenchmarkCheckOneCell(b *testing.B) {
-	dir := b.TempDir()
-	bin := filepath.Join(dir, "assay")
-	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
-		b.Fatalf("build: %v\n%s", err, out)
-	}
+	dir, bin := buildAssay(b)
 	nb := filepath.Join(dir, "one.md")
 	src := "# one cell\n\n```cell\nidentity(\"det of a 3x3\", det(matrix([[2, 0, 1], [1, 3, 2], [1, 1, 1]])), 0)\n```\n"
 	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
@@ -26,5 +34,30 @@ func BenchmarkCheckOneCell(b *testing.B) {
 		if out, err := exec.Command(bin, "check", nb).CombinedOutput(); err != nil {
 			b.Fatalf("check: %v\n%s", err, out)
 		}
+	}
+}
+
+// BenchmarkSampledIdentityWorkers times the whole run of a notebook with a
+// 10,000-sample exact identity over random rational tetrahedra (exact
+// volume against Cayley–Menger), as a user runs it, with 1 and 2 kernel
+// processes. Target (issue: sampled claims): < 1 s with 2 workers.
+func BenchmarkSampledIdentityWorkers(b *testing.B) {
+	dir, bin := buildAssay(b)
+	nb := filepath.Join(dir, "sweep.md")
+	src := "# sweep\n\n```cell\n" +
+		"identity(\"volume from coordinates = Cayley-Menger volume\",\n" +
+		"         lambda t: (t.volume_sq(), cayley_menger(t) / 288),\n" +
+		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=10000, companion=False)\n```\n"
+	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
+		b.Fatal(err)
+	}
+	for _, w := range []int{1, 2} {
+		b.Run(fmt.Sprintf("workers=%d", w), func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if out, err := exec.Command(bin, "check", "--workers", fmt.Sprint(w), nb).CombinedOutput(); err != nil {
+					b.Fatalf("check: %v\n%s", err, out)
+				}
+			}
+		})
 	}
 }

@@ -9,6 +9,7 @@ import (
 	"io"
 	"os"
 	"path/filepath"
+	"runtime"
 	"runtime/debug"
 	"strconv"
 	"strings"
@@ -23,12 +24,16 @@ const usage = `assay checks geometric formulas in Markdown notebooks, exactly.
 Usage:
   assay run [flags] NOTEBOOK        run a notebook, write NOTEBOOK.report.md and .html
   assay check [flags] NOTEBOOK...   run notebooks, print one line per claim
+  assay run --shard i/n NOTEBOOK    run shard i of n, write a part file to merge
+  assay merge [flags] PART...       join the parts of a sharded run into its report
   assay kernel                      serve the JSON-lines kernel protocol on stdin/stdout
   assay version                     print the version
 
 Examples:
   assay run notebooks/mesh-orientation.md
   assay check --json notebooks/*.md
+  assay run --shard 2/8 notebooks/sliver-limits.md
+  assay merge -o sliver.report.md notebooks/sliver-limits.part-*-of-8.json
 
 Exit status: 0 every claim holds; 1 a claim fails or is undecided;
 2 the notebook could not be run (parse error, cell error, limit crossed).
@@ -49,6 +54,8 @@ func mainCode(args []string, stdout, stderr io.Writer) int {
 		return runCommand(args[1:], stdout, stderr)
 	case "check":
 		return checkCommand(args[1:], stdout, stderr)
+	case "merge":
+		return mergeCommand(args[1:], stdout, stderr)
 	case "kernel":
 		return kernelCommand(args[1:], stderr)
 	case "version", "--version":
@@ -64,9 +71,7 @@ func mainCode(args []string, stdout, stderr io.Writer) int {
 
 // runFlags are the flags shared by run and check.
 type runFlags struct {
-	timeout        time.Duration
-	maxMemory      byteSize
-	keep           bool
+	limits
 	strictOn       bool
 	seedValue      int64
 	precisionValue int
@@ -74,20 +79,64 @@ type runFlags struct {
 	maxPrecision   int
 }
 
+// limits are the flags of every command that runs kernels.
+type limits struct {
+	timeout   time.Duration
+	maxMemory byteSize
+	keep      bool
+	workers   int
+}
+
+func addLimitFlags(fs *flag.FlagSet, l *limits) {
+	l.maxMemory = kernel.DefaultMaxMemory
+	fs.DurationVar(&l.timeout, "timeout", kernel.DefaultTimeout, "time limit per cell (a cell's timeout= option wins)")
+	fs.Var(&l.maxMemory, "max-memory", "memory cap of each kernel process, e.g. 512MiB or 4GiB")
+	fs.IntVar(&l.workers, "workers", runtime.NumCPU(), "kernel processes that share a large sampled claim")
+	fs.BoolVar(&l.keep, "keep-going", false, "run the remaining cells after a cell fails")
+}
+
+// options checks the limits and makes the kernel options they give.
+func (l *limits) options(s kernel.Settings, stderr io.Writer) (kernel.Options, error) {
+	if l.timeout <= 0 {
+		return kernel.Options{}, fmt.Errorf("--timeout must be positive, got %s", l.timeout)
+	}
+	if l.workers < 1 || l.workers > 256 {
+		return kernel.Options{}, fmt.Errorf("--workers must be between 1 and 256, got %d", l.workers)
+	}
+	exe, err := os.Executable()
+	if err != nil {
+		return kernel.Options{}, fmt.Errorf("cannot find the assay executable to start a kernel: %w", err)
+	}
+	opt := kernel.Options{Settings: s, Timeout: l.timeout, MaxMemory: int64(l.maxMemory), KeepGoing: l.keep,
+		Command: []string{exe, "kernel"}, Workers: l.workers}
+	if isTerminal(stderr) {
+		opt.Progress = stderr
+	}
+	return opt, nil
+}
+
+// isTerminal says whether w is a terminal, where progress lines belong.
+func isTerminal(w io.Writer) bool {
+	f, ok := w.(*os.File)
+	if !ok {
+		return false
+	}
+	st, err := f.Stat()
+	return err == nil && st.Mode()&os.ModeCharDevice != 0
+}
+
 func addRunFlags(fs *flag.FlagSet) *runFlags {
-	f := &runFlags{maxMemory: kernel.DefaultMaxMemory}
+	f := &runFlags{}
 	fs.Int64Var(&f.seedValue, "seed", kernel.DefaultSettings.Seed, "random seed for the run (overrides setup(seed=…))")
 	fs.IntVar(&f.precisionValue, "precision", kernel.DefaultSettings.Precision, "working precision in bits (overrides setup(precision=…))")
-	fs.DurationVar(&f.timeout, "timeout", kernel.DefaultTimeout, "time limit per cell (a cell's timeout= option wins)")
-	fs.Var(&f.maxMemory, "max-memory", "memory cap of the kernel process, e.g. 512MiB or 4GiB")
 	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
 	fs.IntVar(&f.maxPrecision, "max-precision", kernel.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
-	fs.BoolVar(&f.keep, "keep-going", false, "run the remaining cells after a cell fails")
+	addLimitFlags(fs, &f.limits)
 	fs.BoolVar(&f.strictOn, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
 	return f
 }
 
-func (f *runFlags) options(fs *flag.FlagSet) (kernel.Options, error) {
+func (f *runFlags) options(fs *flag.FlagSet, stderr io.Writer) (kernel.Options, error) {
 	s := kernel.DefaultSettings
 	fs.Visit(func(fl *flag.Flag) {
 		switch fl.Name {
@@ -108,15 +157,7 @@ func (f *runFlags) options(fs *flag.FlagSet) (kernel.Options, error) {
 	if s.Precision > s.MaxPrecision {
 		return kernel.Options{}, fmt.Errorf("--precision %d is above --max-precision %d", s.Precision, s.MaxPrecision)
 	}
-	if f.timeout <= 0 {
-		return kernel.Options{}, fmt.Errorf("--timeout must be positive, got %s", f.timeout)
-	}
-	exe, err := os.Executable()
-	if err != nil {
-		return kernel.Options{}, fmt.Errorf("cannot find the assay executable to start a kernel: %w", err)
-	}
-	return kernel.Options{Settings: s, Timeout: f.timeout, MaxMemory: int64(f.maxMemory), KeepGoing: f.keep,
-		Command: []string{exe, "kernel"}}, nil
+	return f.limits.options(s, stderr)
 }
 
 // helpOrUsageError is the exit status after a flag parse stopped: 0 when
@@ -126,6 +167,22 @@ func helpOrUsageError(err error) int {
 		return 0
 	}
 	return 2
+}
+
+// parseNames parses a command's flags and file names. When it cannot go
+// on (help, a bad flag, a wrong number of names) ok is false and code is
+// the exit status.
+func parseNames(fs *flag.FlagSet, args []string, stderr io.Writer, wrongCount string, countOK func(int) bool) (names []string, code int, ok bool) {
+	names, err := parseInterspersed(fs, args)
+	if err != nil {
+		return nil, helpOrUsageError(err), false
+	}
+	if !countOK(len(names)) {
+		fmt.Fprintln(stderr, wrongCount)
+		fs.Usage()
+		return nil, 2, false
+	}
+	return names, 0, true
 }
 
 // parseInterspersed lets flags follow the notebook names, as users type them.
@@ -146,38 +203,48 @@ func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 func runCommand(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("run", flag.ContinueOnError)
 	fs.SetOutput(stderr)
-	out := fs.String("o", "", "path of the Markdown report (default: NOTEBOOK.report.md beside the notebook)")
+	out := fs.String("o", "", "path of the Markdown report, or of the part file with --shard (default: beside the notebook)")
 	html := fs.Bool("html", true, "also write the HTML report beside the Markdown one")
 	noHTML := fs.Bool("no-html", false, "do not write the HTML report")
 	inPlace := fs.Bool("in-place", false, "write outputs into the notebook itself as output blocks")
+	shard := fs.String("shard", "", "run shard i of n (e.g. 2/8) and write a part file for assay merge")
 	rf := addRunFlags(fs)
 	fs.Usage = func() {
 		fmt.Fprint(stderr, `Usage: assay run [flags] NOTEBOOK
 
 Runs every cell of NOTEBOOK and writes NOTEBOOK.report.md and NOTEBOOK.report.html.
+With --shard i/n it computes only shard i of every sampled claim and writes
+NOTEBOOK.part-i-of-n.json; assay merge joins the n parts into the report.
 
-Example:
+Examples:
   assay run -o /tmp/mesh.md --seed 7 notebooks/mesh-orientation.md
+  assay run --shard 2/8 notebooks/sliver-limits.md
 
 Flags:
 `)
 		fs.PrintDefaults()
 	}
-	names, err := parseInterspersed(fs, args)
-	if err != nil {
-		return helpOrUsageError(err)
+	names, code, ok := parseNames(fs, args, stderr, "assay run: give exactly one notebook", func(n int) bool { return n == 1 })
+	if !ok {
+		return code
 	}
-	if len(names) != 1 {
-		fmt.Fprintln(stderr, "assay run: give exactly one notebook")
-		fs.Usage()
-		return 2
-	}
-	opt, err := rf.options(fs)
+	opt, err := rf.options(fs, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, "assay run:", err)
 		return 2
 	}
 	path := names[0]
+	if *shard != "" {
+		if *inPlace {
+			fmt.Fprintln(stderr, "assay run: --shard writes a part file, not the notebook; drop --in-place")
+			return 2
+		}
+		if opt.Shard, err = parseShard(*shard); err != nil {
+			fmt.Fprintln(stderr, "assay run:", err)
+			return 2
+		}
+		return runShard(path, *out, opt, stdout, stderr)
+	}
 	rep, err := load(path, opt)
 	if err != nil {
 		fmt.Fprintln(stderr, "assay run:", err)
@@ -206,39 +273,164 @@ Flags:
 		fmt.Fprintf(stdout, "outputs written into %s\n", path)
 		return cells.ExitCode(rep, rf.strictOn)
 	}
-	mdPath := *out
+	return writeReport("assay run", rep, *out, *html && !*noHTML, rf.strictOn, stdout, stderr)
+}
+
+// writeReport writes a report (Markdown, figures, and HTML unless told
+// not to) beside its notebook or at mdPath, prints the claims, and returns
+// the exit status.
+func writeReport(cmd string, rep *cells.Report, mdPath string, html, strict bool, stdout, stderr io.Writer) int {
+	path := rep.Notebook.Path
 	if mdPath == "" {
 		mdPath = strings.TrimSuffix(path, filepath.Ext(path)) + ".report.md"
 	}
 	if samePath(mdPath, path) {
-		fmt.Fprintf(stderr, "assay run: the report path %s is the notebook itself; use --in-place to write outputs into the notebook\n", mdPath)
+		fmt.Fprintf(stderr, "%s: the report path %s is the notebook itself; use --in-place to write outputs into the notebook\n", cmd, mdPath)
 		return 2
 	}
 	rep.FigureBase = strings.TrimSuffix(mdPath, filepath.Ext(mdPath))
 	if err := writeFigures(rep); err != nil {
-		fmt.Fprintln(stderr, "assay run:", err)
+		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
 		return 2
 	}
 	if err := cells.WriteFileAtomic(mdPath, cells.RenderMarkdown(rep, true)); err != nil {
-		fmt.Fprintln(stderr, "assay run:", err)
+		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
 		return 2
 	}
 	written := []string{mdPath}
-	if *html && !*noHTML {
+	if html {
 		htmlPath := strings.TrimSuffix(mdPath, filepath.Ext(mdPath)) + ".html"
 		if samePath(htmlPath, path) {
-			fmt.Fprintf(stderr, "assay run: the HTML report path %s is the notebook itself\n", htmlPath)
+			fmt.Fprintf(stderr, "%s: the HTML report path %s is the notebook itself\n", cmd, htmlPath)
 			return 2
 		}
 		if err := cells.WriteFileAtomic(htmlPath, cells.RenderHTML(rep)); err != nil {
-			fmt.Fprintln(stderr, "assay run:", err)
+			fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
 			return 2
 		}
 		written = append(written, htmlPath)
 	}
 	cells.RenderCheck(stdout, rep)
 	fmt.Fprintf(stdout, "report: %s\n", strings.Join(written, ", "))
-	return cells.ExitCode(rep, rf.strictOn)
+	return cells.ExitCode(rep, strict)
+}
+
+// parseShard reads a shard spec i/n, 1 <= i <= n.
+func parseShard(spec string) (kernel.Share, error) {
+	is, ns, ok := strings.Cut(spec, "/")
+	i, err1 := strconv.Atoi(strings.TrimSpace(is))
+	n, err2 := strconv.Atoi(strings.TrimSpace(ns))
+	switch {
+	case !ok || err1 != nil || err2 != nil:
+		return kernel.Share{}, fmt.Errorf("--shard wants i/n, shard i of n, such as 2/8; got %q", spec)
+	case n < 1 || n > 1_000_000:
+		return kernel.Share{}, fmt.Errorf("--shard %s: n must be between 1 and 1000000", spec)
+	case i < 1 || i > n:
+		return kernel.Share{}, fmt.Errorf("--shard %s: i must be between 1 and n = %d (shards are numbered from 1)", spec, n)
+	}
+	return kernel.Share{Index: int64(i - 1), Count: int64(n)}, nil
+}
+
+// runShard runs one shard and writes its part file.
+func runShard(path, partPath string, opt kernel.Options, stdout, stderr io.Writer) int {
+	src, err := os.ReadFile(path)
+	if err != nil {
+		fmt.Fprintf(stderr, "assay run: cannot read notebook %s: %v\n", path, unwrapPath(err))
+		return 2
+	}
+	nb, err := cells.Parse(path, src)
+	if err != nil {
+		fmt.Fprintf(stderr, "assay run: %s: %v (no part written: fix the notebook and run the shard again)\n", path, err)
+		return 2
+	}
+	_, part := kernel.RunShard(nb, opt)
+	if partPath == "" {
+		partPath = fmt.Sprintf("%s.part-%d-of-%d.json", strings.TrimSuffix(path, filepath.Ext(path)), part.Shard, part.Shards)
+	}
+	if samePath(partPath, path) {
+		fmt.Fprintf(stderr, "assay run: the part path %s is the notebook itself\n", partPath)
+		return 2
+	}
+	if err := cells.WriteFileAtomic(partPath, part.Encode()); err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	var samples int64
+	for _, c := range part.Claims {
+		samples += c.Tally.Computed
+	}
+	for _, e := range part.Errors {
+		fmt.Fprintf(stdout, "error  line %d: %s\n", e.Line, e.Message)
+	}
+	fmt.Fprintf(stdout, "shard %d/%d: %d sampled claims, %d samples computed; part written to %s\n", part.Shard, part.Shards, len(part.Claims), samples, partPath)
+	if len(part.Errors) > 0 {
+		return 2
+	}
+	return 0
+}
+
+func mergeCommand(args []string, stdout, stderr io.Writer) int {
+	fs := flag.NewFlagSet("merge", flag.ContinueOnError)
+	fs.SetOutput(stderr)
+	out := fs.String("o", "", "path of the Markdown report (default: NOTEBOOK.report.md beside the notebook the parts name)")
+	html := fs.Bool("html", true, "also write the HTML report beside the Markdown one")
+	noHTML := fs.Bool("no-html", false, "do not write the HTML report")
+	strict := fs.Bool("strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
+	var lim limits
+	addLimitFlags(fs, &lim)
+	fs.Usage = func() {
+		fmt.Fprint(stderr, `Usage: assay merge [flags] PART...
+
+Joins the part files of a sharded run (assay run --shard i/n, for i = 1..n)
+into the report a single run gives. The notebook, seed and precision come
+from the parts; merge replays the notebook, taking each sampled claim from
+the parts instead of sweeping it again.
+
+Example:
+  assay merge -o sliver.report.md notebooks/sliver-limits.part-*-of-8.json
+
+Flags:
+`)
+		fs.PrintDefaults()
+	}
+	names, code, ok := parseNames(fs, args, stderr, "assay merge: give the part files of a sharded run", func(n int) bool { return n > 0 })
+	if !ok {
+		return code
+	}
+	var parts []*kernel.Part
+	for _, name := range names {
+		data, err := os.ReadFile(name)
+		if err != nil {
+			fmt.Fprintf(stderr, "assay merge: cannot read part %s: %v\n", name, unwrapPath(err))
+			return 2
+		}
+		p, err := kernel.ParsePart(name, data)
+		if err != nil {
+			fmt.Fprintln(stderr, "assay merge:", err)
+			return 2
+		}
+		parts = append(parts, p)
+	}
+	opt, err := lim.options(kernel.Settings{}, stderr)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay merge:", err)
+		return 2
+	}
+	rep, err := kernel.Merge(parts, names, opt)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay merge:", err)
+		return 2
+	}
+	return writeReport("assay merge", rep, *out, *html && !*noHTML, *strict, stdout, stderr)
+}
+
+// unwrapPath drops the path an *os.PathError repeats.
+func unwrapPath(err error) error {
+	var pe *os.PathError
+	if errors.As(err, &pe) {
+		return pe.Err
+	}
+	return err
 }
 
 func checkCommand(args []string, stdout, stderr io.Writer) int {
@@ -259,16 +451,11 @@ Flags:
 `)
 		fs.PrintDefaults()
 	}
-	names, err := parseInterspersed(fs, args)
-	if err != nil {
-		return helpOrUsageError(err)
+	names, code, ok := parseNames(fs, args, stderr, "assay check: give at least one notebook", func(n int) bool { return n > 0 })
+	if !ok {
+		return code
 	}
-	if len(names) == 0 {
-		fmt.Fprintln(stderr, "assay check: give at least one notebook")
-		fs.Usage()
-		return 2
-	}
-	opt, err := rf.options(fs)
+	opt, err := rf.options(fs, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, "assay check:", err)
 		return 2
@@ -298,11 +485,7 @@ Flags:
 func load(path string, opt kernel.Options) (*cells.Report, error) {
 	src, err := os.ReadFile(path)
 	if err != nil {
-		var pe *os.PathError
-		if errors.As(err, &pe) {
-			return nil, fmt.Errorf("cannot read notebook %s: %v", path, pe.Err)
-		}
-		return nil, err
+		return nil, fmt.Errorf("cannot read notebook %s: %v", path, unwrapPath(err))
 	}
 	nb, err := cells.Parse(path, src)
 	if err != nil {

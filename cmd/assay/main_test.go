@@ -86,6 +86,10 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"precision-above-cap.md", 4, "above the precision cap", nil},
 		{"limit-bad-toward.md", 4, "toward must be an exact number or infinity", nil},
 		{"limit-bad-ratio.md", 4, "ratio must be an exact number between 0 and 1", nil},
+		{"sweep-generator-raises.md", 7, "the sample generator raised at sample 3: IndexError", nil},
+		{"sweep-wrong-shape.md", 4, "f(sample 0) must return a pair (lhs, rhs), got a tuple", nil},
+		{"sweep-seedless-draw.md", 5, "random draw without seed=", nil},
+		{"search-not-numbers.md", 5, "this one holds a str", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {
@@ -332,5 +336,81 @@ func TestInPlaceLeavesUnparsableNotebookAlone(t *testing.T) {
 	after, _ := os.ReadFile(nb)
 	if code != 2 || !bytes.Equal(before, after) || !strings.Contains(out, "left unchanged") {
 		t.Errorf("exit %d, changed %v\n%s", code, !bytes.Equal(before, after), out)
+	}
+}
+
+// One worker, two workers, and three shards merged all write the same
+// report (apart from lines stating times).
+func TestWorkersAndShardsWriteTheSameReport(t *testing.T) {
+	nb := copyNotebook(t, "../../testdata/reference/sampling.md")
+	dir := filepath.Dir(nb)
+	report := func(name string) string {
+		data, err := os.ReadFile(filepath.Join(dir, name))
+		if err != nil {
+			t.Fatal(err)
+		}
+		return normalizeTimes(data)
+	}
+	if code, out, errs := assay(t, "run", "--workers", "1", "-o", filepath.Join(dir, "one.md"), nb); code != 0 {
+		t.Fatalf("one worker: exit %d\n%s%s", code, out, errs)
+	}
+	if code, out, errs := assay(t, "run", "--workers", "2", "-o", filepath.Join(dir, "two.md"), nb); code != 0 {
+		t.Fatalf("two workers: exit %d\n%s%s", code, out, errs)
+	}
+	var parts []string
+	for i := 3; i >= 1; i-- {
+		code, out, errs := assay(t, "run", "--shard", fmt.Sprintf("%d/3", i), nb)
+		part := strings.TrimSuffix(nb, ".md") + fmt.Sprintf(".part-%d-of-3.json", i)
+		if code != 0 || !strings.Contains(out, "part written to "+part) {
+			t.Fatalf("shard %d: exit %d\n%s%s", i, code, out, errs)
+		}
+		parts = append(parts, part)
+	}
+	args := append([]string{"merge", "-o", filepath.Join(dir, "merged.md")}, parts...)
+	if code, out, errs := assay(t, args...); code != 0 {
+		t.Fatalf("merge: exit %d\n%s%s", code, out, errs)
+	}
+	one := report("one.md")
+	if report("two.md") != one {
+		t.Errorf("two workers wrote another report than one worker")
+	}
+	if report("merged.md") != one {
+		t.Errorf("three shards merged wrote another report than one run")
+	}
+	if report("merged.html") != report("one.html") {
+		t.Errorf("the merged HTML report differs")
+	}
+}
+
+// Bad shard specs, worker counts and part files: one clear message each.
+func TestShardAndMergeBadInput(t *testing.T) {
+	nb := copyNotebook(t, "../../testdata/reference/sampling.md")
+	notPart := filepath.Join(t.TempDir(), "notes.json")
+	os.WriteFile(notPart, []byte(`{"hello": 1}`), 0o644)
+	cases := []struct {
+		args []string
+		want string
+	}{
+		{[]string{"run", "--shard", "3/2", nb}, "i must be between 1 and n = 2"},
+		{[]string{"run", "--shard", "0/2", nb}, "i must be between 1 and n = 2"},
+		{[]string{"run", "--shard", "two", nb}, "--shard wants i/n"},
+		{[]string{"run", "--shard", "1/0", nb}, "n must be between 1"},
+		{[]string{"run", "--shard", "1/2", "--in-place", nb}, "drop --in-place"},
+		{[]string{"run", "--workers", "0", nb}, "--workers must be between 1 and 256"},
+		{[]string{"merge"}, "give the part files"},
+		{[]string{"merge", notPart}, "is not an assay part file"},
+		{[]string{"merge", filepath.Join(t.TempDir(), "gone.json")}, "cannot read part"},
+	}
+	for _, c := range cases {
+		code, out, errs := assay(t, c.args...)
+		if code != 2 || !strings.Contains(out+errs, c.want) {
+			t.Errorf("%v: exit %d, want 2 and %q\n%s%s", c.args, code, c.want, out, errs)
+		}
+	}
+	// Half of a run is refused, naming the missing shard.
+	assay(t, "run", "--shard", "1/2", nb)
+	code, _, errs := assay(t, "merge", strings.TrimSuffix(nb, ".md")+".part-1-of-2.json")
+	if code != 2 || !strings.Contains(errs, "shard 2/2 is missing") {
+		t.Errorf("incomplete merge: exit %d, %q", code, errs)
 	}
 }
