@@ -315,8 +315,11 @@ func TestProgressLine(t *testing.T) {
 	p := newProgressLine(&b)
 	p.update(0, Progress{Claim: "c", Done: 300, Total: 5000})
 	p.update(1, Progress{Claim: "c", Done: 200, Total: 5000})
-	if s := b.String(); !strings.Contains(s, "c: 500 of 10000 samples") || !strings.Contains(s, "left") {
+	if s := b.String(); !strings.Contains(s, "c: 500 of 10,000 samples") || !strings.Contains(s, "left") {
 		t.Errorf("progress %q", s)
+	}
+	if grouped(1234567) != "1,234,567" || grouped(-1234) != "-1,234" || grouped(999) != "999" {
+		t.Errorf("grouped: %s %s %s", grouped(1234567), grouped(-1234), grouped(999))
 	}
 	b.Reset()
 	p.clear()

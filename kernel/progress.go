@@ -41,10 +41,14 @@ func (p *progressLine) update(worker int, pr Progress) {
 	}
 	rate := float64(done) / time.Since(p.began).Seconds()
 	left := ""
-	if rate > 0 {
-		left = fmt.Sprintf(", about %s left", (time.Duration(float64(total-done)/rate*float64(time.Second))).Round(time.Second))
+	if rate > 0 && total > done {
+		secs := float64(total-done) / rate
+		left = fmt.Sprintf(", about %.0f s left", secs)
+		if secs < 1 {
+			left = ", under a second left"
+		}
 	}
-	fmt.Fprintf(p.w, "\r\033[K%s: %d of %d samples, %.0f a second%s", clip(p.claim, 48), done, total, rate, left)
+	fmt.Fprintf(p.w, "\r\033[K%s: %s of %s samples, %s a second%s", clip(p.claim, 48), grouped(done), grouped(total), grouped(int64(rate)), left)
 	p.shown = true
 }
 
@@ -55,4 +59,13 @@ func (p *progressLine) clear() {
 	}
 	fmt.Fprint(p.w, "\r\033[K")
 	p.shown, p.claim = false, ""
+}
+
+// grouped prints n with thousands separated by commas.
+func grouped(n int64) string {
+	s := fmt.Sprint(n)
+	for i := len(s) - 3; i > 0 && s[i-1] != '-'; i -= 3 {
+		s = s[:i] + "," + s[i:]
+	}
+	return s
 }

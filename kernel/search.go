@@ -76,15 +76,21 @@ func (st *SearchTally) describe(violated bool) string {
 type params struct {
 	x      []float64
 	lo, hi float64 // bounds on every number (±Inf when the family has none)
+	den    int64   // the finest denominator a point may have
 	build  func(q []*big.Rat) (py.Object, error)
 }
+
+// finestDenominator is the grid a search rounds to when the family sets none.
+const finestDenominator = 1 << 24
 
 // parametrize finds the numbers of a sample: exact numbers, lists and
 // tuples of them, and simplices given by points.
 func parametrize(sample, family py.Object) (params, error) {
-	p := params{lo: math.Inf(-1), hi: math.Inf(1)}
+	// Within a box family the search stays in the box and on its grid, so
+	// a counterexample is a member of the family the claim is about.
+	p := params{lo: math.Inf(-1), hi: math.Inf(1), den: finestDenominator}
 	if b, ok := family.(*Box); ok {
-		p.lo, p.hi = float64(b.lo), float64(b.hi)
+		p.lo, p.hi, p.den = float64(b.lo), float64(b.hi), b.denom
 	}
 	build, err := collect(sample, &p.x)
 	if err != nil {
@@ -176,7 +182,7 @@ func (s *Session) descend(t target, f, g py.Object, k int64) (*SampleSlack, int6
 	}
 	objective := func(x []float64) float64 {
 		evals++
-		v, ok := s.relativeSlack(f, p, p.round(x, 1<<24))
+		v, ok := s.relativeSlack(f, p, p.round(x, finestDenominator))
 		if !ok {
 			return 2 // worse than any relative slack, which lies in [-1, 1]
 		}
@@ -194,17 +200,18 @@ func (s *Session) descend(t target, f, g py.Object, k int64) (*SampleSlack, int6
 	// The simplest rationals near the best point that still violate are
 	// the counterexample; without a violation, the finest rounding.
 	var kept *SampleSlack
-	for den := int64(1); den <= 1<<24; den *= 2 {
-		q := p.round(best, den)
-		sl, text, ok := s.exactSlack(t, f, p, q)
-		if !ok {
-			continue
-		}
-		if sl.Verdict == cells.Fails || den == 1<<24 {
+	for den := int64(1); ; den = min(2*den, p.den) {
+		sl, text, ok := s.exactSlack(t, f, p, p.round(best, den))
+		if ok {
 			sl.Sample = "found by search: " + clip(text, 400)
-			return &sl, evals
+			kept = &sl
+			if sl.Verdict == cells.Fails {
+				break
+			}
 		}
-		kept = &sl
+		if den == p.den {
+			break
+		}
 	}
 	return kept, evals
 }
