@@ -128,13 +128,15 @@ func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
 			return nil, py.ExceptionNewf(py.TypeError, "print() has no argument %q", k)
 		}
 	}
+	var b strings.Builder
 	for i, a := range args {
 		if i > 0 {
-			s.out.WriteString(sep)
+			b.WriteString(sep)
 		}
-		s.out.WriteString(str(a))
+		b.WriteString(str(a))
 	}
-	s.out.WriteString(end)
+	b.WriteString(end)
+	s.write(b.String())
 	return py.None, nil
 }
 
@@ -197,8 +199,7 @@ func (s *Session) show(args py.Tuple, kw py.StringDict) (py.Object, error) {
 			text = label + " = " + text
 		}
 	}
-	s.out.WriteString(text)
-	s.out.WriteString("\n")
+	s.write(text + "\n")
 	return py.None, nil
 }
 
@@ -240,7 +241,9 @@ func (s *Session) table(args py.Tuple, kw py.StringDict) (py.Object, error) {
 		}
 		t.Rows = append(t.Rows, row)
 	}
-	s.outcome.Tables = append(s.outcome.Tables, t)
+	if s.shows() {
+		s.outcome.Tables = append(s.outcome.Tables, t)
+	}
 	return py.None, nil
 }
 

@@ -420,6 +420,9 @@ func (s *Session) newClaim(kind string, name py.Object, line int) (cells.Claim, 
 	if err != nil {
 		return cells.Claim{}, err
 	}
+	if s.sweeping {
+		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "%s(%q) inside a sampled claim's f or g: a claim cannot be made per sample; return both sides from f instead", kind, n)
+	}
 	if prev, dup := s.claimAt[n]; dup {
 		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "claim name %q is already used at line %d; give each claim its own name", n, prev)
 	}
@@ -519,7 +522,7 @@ func sampleCount(fn string, samples py.Object) (int64, error) {
 // goes to raised and the sweep goes on; any other error ends the share and
 // is returned with its sample index.
 func (s *Session) sweep(a Ask, sh Share, f, g py.Object, raised func(k int64, msg string), visit func(k int64, sample, x, y py.Object) error) (int64, *SweepError) {
-	s.sweeping = true
+	s.sweeping, s.printed = true, false
 	defer func() { s.sweeping = false }()
 	var failed *SweepError
 	done, _ := s.forShare(a, sh, func(k int64) error {
@@ -591,7 +594,7 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 			}
 			return nil
 		})
-		return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Identity: it}
+		return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Identity: it, Printed: s.printed}
 	})
 	if err != nil {
 		return err
@@ -625,6 +628,7 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 	if c.Verdict == cells.Holds && zippel != nil {
 		c.Note += "; " + zippel(n)
 	}
+	c.Note += printedNote(tally)
 	switch {
 	case it.Skip != nil:
 		c.Note += "; " + it.Skip.Text
@@ -634,6 +638,14 @@ func (s *Session) sampled(c *cells.Claim, t target, f, over, samples py.Object, 
 		c.Float = &audit
 	}
 	return nil
+}
+
+// printedNote tells the reader that f or g printed during a sweep.
+func printedNote(t Tally) string {
+	if !t.Printed {
+		return ""
+	}
+	return "; f or g printed during the sweep, and that text is left out of the report: samples may be computed by other kernels, in any order"
 }
 
 // clip shortens s to at most n runes.

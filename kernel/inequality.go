@@ -97,6 +97,7 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 	it := &InequalityTally{}
 	var samples int64
 	var found *SearchTally
+	printed := ""
 	if a[3] != nil {
 		f, g := a[1], a[3]
 		if a[2] != nil || !callable(f) || !callable(g) {
@@ -122,7 +123,7 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 				part.add(k, sl)
 				return nil
 			})
-			return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Inequality: part}
+			return Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Inequality: part, Printed: s.printed}
 		})
 		if err != nil {
 			return nil, err
@@ -133,6 +134,7 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 		if tally.Inequality != nil {
 			it = tally.Inequality
 		}
+		printed = printedNote(tally)
 		if search && it.Violations == 0 && len(it.Smallest) > 0 {
 			if found, err = s.search(c, t, f, g, it.Smallest); err != nil {
 				return nil, err
@@ -149,6 +151,7 @@ func (s *Session) inequality(line int, args py.Tuple, kw py.StringDict) (py.Obje
 		it.add(0, sl)
 	}
 	judgeInequality(&c, it, found, samples, t, a[3])
+	c.Note += printed
 	return s.record(c, start), nil
 }
 

@@ -246,10 +246,17 @@ func TestSampledBadInput(t *testing.T) {
 	})
 	// f raising on one sample: the sweep goes on, the claim is undecided
 	// and names that sample.
-	rep := runHere(t, `inequality("a pole at 4", lambda x: (0, 1 / (x - 4) ** 2), over=lambda k: k, samples=10)`)
+	rep := runHere(t, `inequality("a pole at 4", lambda x: (0, 1 / (x - 4) ** 2), over=lambda k: k, samples=10)
+def nested(k):
+    identity("inner", k, k)
+    return (k, k)
+identity("a claim inside f", nested, over=lambda k: k, samples=3)`)
 	c := rep.Outcomes[0].Claims[0]
 	if c.Verdict != cells.Undecided || c.Worst != "sample 4: 4" || !strings.Contains(c.Note, "f raised on 1 of 10 samples") {
 		t.Errorf("raising sample: %s worst %q note %q", c.Verdict, c.Worst, c.Note)
+	}
+	if c := rep.Outcomes[0].Claims; len(c) != 2 || c[1].Verdict != cells.Undecided || !strings.Contains(c[1].Residual, "a claim cannot be made per sample") {
+		t.Errorf("a claim inside f: %+v", c)
 	}
 }
 
@@ -326,4 +333,22 @@ func TestProgressLine(t *testing.T) {
 	if b.String() != "\r\033[K" {
 		t.Errorf("clear wrote %q", b.String())
 	}
+}
+
+// What f prints during a sweep is left out, and the claim says so, so that
+// one kernel and several write the same report.
+func TestPrintingInsideASweep(t *testing.T) {
+	src := `def f(k):
+    print("sample", k)
+    return (k, k)
+identity("noisy", f, over=lambda k: k, samples=300)
+print("after")`
+	one := runHere(t, src)
+	o := one.Outcomes[0]
+	if o.Output != "after\n" || !strings.Contains(o.Claims[0].Note, "printed during the sweep") {
+		t.Errorf("output %q note %q", o.Output, o.Claims[0].Note)
+	}
+	t.Setenv("ASSAY_TEST_KERNEL", "1")
+	two := Run(notebook(t, src), Options{Settings: DefaultSettings, Command: []string{os.Args[0]}, Workers: 2})
+	sameRuns(t, "2 workers", one, two)
 }

@@ -111,6 +111,8 @@ func (s *Session) plot(args py.Tuple, kw py.StringDict) (py.Object, error) {
 	if name == "" {
 		name = fmt.Sprintf("figure %d of cell %d", len(s.outcome.Figures)+1, s.cell)
 	}
-	s.outcome.Figures = append(s.outcome.Figures, cells.Figure{Name: name, SVG: svg})
+	if s.shows() {
+		s.outcome.Figures = append(s.outcome.Figures, cells.Figure{Name: name, SVG: svg})
+	}
 	return py.None, nil
 }

@@ -47,6 +47,7 @@ type Session struct {
 	claimAt  map[string]int // claim name -> line where it was made
 	coord    coordinator    // splits and merges sampled claims
 	sweeping bool           // inside a sampled claim's f or g
+	printed  bool           // f or g printed during the sweep
 
 	// Per-cell state, reset by Run.
 	cell      int
@@ -225,6 +226,24 @@ func exceptionText(e *py.Exception) string {
 	return name + ": " + text
 }
 
+// write appends text to the cell's output.
+func (s *Session) write(text string) {
+	if s.shows() {
+		s.out.WriteString(text)
+	}
+}
+
+// shows says whether output may go into the report now. During a sweep it
+// may not: a sample may be computed by any kernel, so what it prints, shows
+// or plots cannot be put in order; it is left out, and the claim says so.
+func (s *Session) shows() bool {
+	if s.sweeping {
+		s.printed = true
+		return false
+	}
+	return true
+}
+
 // outputStream stands in for sys.stdout so writes land in the cell's output.
 type outputStream struct{ s *Session }
 
@@ -239,7 +258,7 @@ func init() {
 		if err != nil {
 			return nil, err
 		}
-		self.(*outputStream).s.out.WriteString(text)
+		self.(*outputStream).s.write(text)
 		return py.Int(len(text)), nil
 	}, 0, "write(text) appends to the cell's output")
 	outputStreamType.Dict["flush"] = py.MustNewMethod("flush", func(self py.Object) (py.Object, error) {

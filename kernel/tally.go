@@ -20,6 +20,7 @@ type Tally struct {
 	Computed int64       `json:"computed"` // samples computed
 	Seconds  float64     `json:"seconds"`  // longest wall time of a share
 	Err      *SweepError `json:"error,omitempty"`
+	Printed  bool        `json:"printed,omitempty"` // f or g printed; the text was left out
 
 	Identity   *IdentityTally   `json:"identity,omitempty"`
 	Inequality *InequalityTally `json:"inequality,omitempty"`
@@ -107,6 +108,7 @@ const keepSmallest = 4
 func (t *Tally) Merge(o Tally) {
 	t.Computed += o.Computed
 	t.Seconds = max(t.Seconds, o.Seconds)
+	t.Printed = t.Printed || o.Printed
 	if o.Err != nil && (t.Err == nil || o.Err.K < t.Err.K) {
 		t.Err = o.Err
 	}
