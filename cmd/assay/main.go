@@ -32,12 +32,12 @@ Usage:
 Examples:
   assay run notebooks/mesh-orientation.md
   assay check --json notebooks/*.md
-  assay run --shard 2/8 notebooks/sliver-limits.md
-  assay merge -o sliver.report.md notebooks/sliver-limits.part-*-of-8.json
+  assay run --shard 2/8 notebooks/mesh-quality-bounds.md
+  assay merge -o bounds.report.md notebooks/mesh-quality-bounds.part-*-of-8.json
 
 Exit status: 0 every claim holds; 1 a claim fails or is undecided;
 2 the notebook could not be run (parse error, cell error, limit crossed).
-Run 'assay run --help' or 'assay check --help' for the flags.
+Run 'assay run --help', 'assay check --help' or 'assay merge --help' for the flags.
 `
 
 func main() {
@@ -218,7 +218,7 @@ NOTEBOOK.part-i-of-n.json; assay merge joins the n parts into the report.
 
 Examples:
   assay run -o /tmp/mesh.md --seed 7 notebooks/mesh-orientation.md
-  assay run --shard 2/8 notebooks/sliver-limits.md
+  assay run --shard 2/8 notebooks/mesh-quality-bounds.md
 
 Flags:
 `)
@@ -387,7 +387,7 @@ from the parts; merge replays the notebook, taking each sampled claim from
 the parts instead of sweeping it again.
 
 Example:
-  assay merge -o sliver.report.md notebooks/sliver-limits.part-*-of-8.json
+  assay merge -o bounds.report.md notebooks/mesh-quality-bounds.part-*-of-8.json
 
 Flags:
 `)
