@@ -423,6 +423,7 @@ func (s *Session) newClaim(kind string, name py.Object, line int) (cells.Claim, 
 	if s.sweeping {
 		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "%s(%q) inside a sampled claim's f or g: a claim cannot be made per sample; return both sides from f instead", kind, n)
 	}
+	s.elsewhere = 0
 	if prev, dup := s.claimAt[n]; dup {
 		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "claim name %q is already used at line %d; give each claim its own name", n, prev)
 	}
@@ -431,7 +432,8 @@ func (s *Session) newClaim(kind string, name py.Object, line int) (cells.Claim, 
 
 // record files a decided claim with the cell and returns whether it holds.
 func (s *Session) record(c cells.Claim, start time.Time) py.Object {
-	c.Seconds = time.Since(start).Seconds()
+	c.Seconds = time.Since(start).Seconds() + s.elsewhere
+	s.elsewhere = 0
 	s.claimAt[c.Name] = c.Line
 	s.outcome.Claims = append(s.outcome.Claims, c)
 	return py.NewBool(c.Verdict == cells.Holds)

@@ -102,6 +102,10 @@ func (w wire) progress(p Progress) { w.send(Reply{Version: Version, Progress: &p
 // makes the share's tally, and the driver merges the shares.
 func (s *Session) distribute(a Ask, compute func(Share) Tally) (Tally, error) {
 	ans, err := s.coord.exchange(Exchange{Ask: a})
+	if err == nil && ans.Result != nil {
+		// Computed elsewhere (merged parts): the claim's time includes it.
+		s.elsewhere += ans.Result.Seconds
+	}
 	if err == nil && ans.Error == "" && ans.Result == nil {
 		if ans.Share == nil || ans.Share.Count < 1 || ans.Share.Index < 0 {
 			return Tally{}, py.ExceptionNewf(py.RuntimeError, "the driver gave no valid share for claim %q", a.Claim)

@@ -48,6 +48,9 @@ type Session struct {
 	coord    coordinator    // splits and merges sampled claims
 	sweeping bool           // inside a sampled claim's f or g
 	printed  bool           // f or g printed during the sweep
+	// elsewhere is the time other kernels spent on the claim being made,
+	// when their result came whole (a merge of shard parts).
+	elsewhere float64
 
 	// Per-cell state, reset by Run.
 	cell      int
