@@ -219,7 +219,10 @@ func (r residual) verdict(c *cells.Claim, samples int) {
 	switch {
 	case r.zero && r.symbolic:
 		c.Verdict, c.Method = cells.Holds, polyMethod
-		c.Note = "the expanded difference is the zero polynomial " + every + ": a proof of the identity for all values of the variables"
+		c.Note = "the expanded difference is the zero polynomial: a proof of the identity for all values of the variables"
+		if samples > 0 {
+			c.Note = fmt.Sprintf("the expanded difference is the zero polynomial on each of the %d samples: for each sample, a proof for all values of the variables; for the general statement, evidence, not a proof", samples)
+		}
 	case r.zero && samples > 0:
 		c.Verdict = cells.Holds
 		c.Note = "exact zero residual " + every + ": each instance is proved; for the general statement this is evidence, not a proof"

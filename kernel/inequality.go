@@ -235,12 +235,15 @@ func judgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	case it.Loose > 0 || w.Verdict == cells.HoldsToDigits:
 		c.Verdict, c.Digits = cells.HoldsToDigits, t.digits()
 		c.Note = fmt.Sprintf("the smallest slack could not be certified non-negative: any violation is below 10^-%d%s; evidence, not a proof", t.digits(), ratio)
+	case fromSearch:
+		c.Verdict = cells.Holds
+		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, whose slack, the smallest, is shown%s", every, ratio)
 	default:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s; the smallest slack is shown%s", every, ratio)
 	}
 	if searched || (found != nil && found.Skipped != "") {
-		c.Note += "; " + found.describe(fromSearch && w.Verdict == cells.Fails)
+		c.Note += "; " + found.describe(fromSearch && w.Verdict == cells.Fails, fromSearch)
 	}
 }
 

@@ -56,8 +56,9 @@ func (s *Session) search(c cells.Claim, t target, f, g py.Object, starts []Sampl
 	return tally.Search, nil
 }
 
-// describe says what the search did, for the claim's note.
-func (st *SearchTally) describe(violated bool) string {
+// describe says what the search did, for the claim's note: whether it
+// found the violation, or else a smaller slack than any sample's.
+func (st *SearchTally) describe(violated, smaller bool) string {
 	if st.Skipped != "" {
 		return "counterexample search skipped: " + st.Skipped
 	}
@@ -65,8 +66,8 @@ func (st *SearchTally) describe(violated bool) string {
 	switch {
 	case violated:
 		return how + fmt.Sprintf(" found the violation, starting from sample %d", st.Start)
-	case st.Best != nil && st.Best.Sample != "":
-		return how + " found no violation; the smallest slack it reached is shown, and is smaller than any sample's"
+	case smaller:
+		return how + fmt.Sprintf(" found no violation; the point it reached from sample %d is a place to look, not a bound", st.Start)
 	}
 	return how + " found no violation and no smaller slack than the samples'"
 }
