@@ -125,11 +125,7 @@ func (p *Process) death() error {
 }
 
 func (p *Process) kill() {
-	select {
-	case <-p.gone:
-	default:
-		close(p.gone)
-	}
+	p.unheard()
 	if p.cmd.Process != nil {
 		p.cmd.Process.Kill()
 	}
@@ -166,13 +162,19 @@ func (p *Process) watchMemory() {
 	}
 }
 
-// Close ends the process.
-func (p *Process) Close() error {
+// unheard tells the process's reader that no one listens any more, so it
+// never blocks on the inbox. The driver calls it from one goroutine only.
+func (p *Process) unheard() {
 	select {
 	case <-p.gone:
 	default:
 		close(p.gone)
 	}
+}
+
+// Close ends the process.
+func (p *Process) Close() error {
+	p.unheard()
 	p.stdin.Close()
 	select {
 	case <-p.exited:

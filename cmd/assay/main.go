@@ -333,9 +333,9 @@ func parseShard(spec string) (kernel.Share, error) {
 
 // runShard runs one shard and writes its part file.
 func runShard(path, partPath string, opt kernel.Options, stdout, stderr io.Writer) int {
-	src, err := os.ReadFile(path)
+	src, err := readNotebook(path)
 	if err != nil {
-		fmt.Fprintf(stderr, "assay run: cannot read notebook %s: %v\n", path, unwrapPath(err))
+		fmt.Fprintln(stderr, "assay run:", err)
 		return 2
 	}
 	nb, err := cells.Parse(path, src)
@@ -424,6 +424,15 @@ Flags:
 	return writeReport("assay merge", rep, *out, *html && !*noHTML, *strict, stdout, stderr)
 }
 
+// readNotebook reads a notebook file, with a message that names it.
+func readNotebook(path string) ([]byte, error) {
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return nil, fmt.Errorf("cannot read notebook %s: %v", path, unwrapPath(err))
+	}
+	return src, nil
+}
+
 // unwrapPath drops the path an *os.PathError repeats.
 func unwrapPath(err error) error {
 	var pe *os.PathError
@@ -483,9 +492,9 @@ Flags:
 // a report (with the problem and no cells run); only an unreadable file is
 // an error.
 func load(path string, opt kernel.Options) (*cells.Report, error) {
-	src, err := os.ReadFile(path)
+	src, err := readNotebook(path)
 	if err != nil {
-		return nil, fmt.Errorf("cannot read notebook %s: %v", path, unwrapPath(err))
+		return nil, err
 	}
 	nb, err := cells.Parse(path, src)
 	if err != nil {

@@ -397,6 +397,7 @@ func TestShardAndMergeBadInput(t *testing.T) {
 		{[]string{"run", "--shard", "1/0", nb}, "n must be between 1"},
 		{[]string{"run", "--shard", "1/2", "--in-place", nb}, "drop --in-place"},
 		{[]string{"run", "--workers", "0", nb}, "--workers must be between 1 and 256"},
+		{[]string{"run", "--shard", "1/2", filepath.Join(t.TempDir(), "gone.md")}, "cannot read notebook"},
 		{[]string{"merge"}, "give the part files"},
 		{[]string{"merge", notPart}, "is not an assay part file"},
 		{[]string{"merge", filepath.Join(t.TempDir(), "gone.json")}, "cannot read part"},
