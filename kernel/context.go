@@ -7,8 +7,6 @@ import (
 	"github.com/go-python/gpython/py"
 	"github.com/go-python/gpython/vm"
 
-	"assay/kernel/pycompile"
-
 	// Modules a cell may import. The interpreter's os, glob and tempfile
 	// modules are deliberately not linked in: cells get no files or processes.
 	_ "github.com/go-python/gpython/stdlib/builtin"
@@ -16,13 +14,6 @@ import (
 	_ "github.com/go-python/gpython/stdlib/string"
 	_ "github.com/go-python/gpython/stdlib/sys"
 )
-
-func init() {
-	// The builtin module links the interpreter's own compiler, whose init
-	// also sets py.Compile; this package's init runs after it and installs
-	// the copy with the closure-index fix.
-	py.Compile = pycompile.Compile
-}
 
 // sandboxMessage is appended to every refusal so the author knows why.
 const sandboxMessage = "notebook cells have no files, processes or network"

@@ -120,6 +120,25 @@ func TestExactArithmetic(t *testing.T) {
 	expectPrints(t, cases)
 }
 
+// TestClosures keeps the five closure cases that gpython v0.2.0 compiled
+// wrongly (fixed upstream in the version go.mod names). The expected values
+// are what the Python language reference's execution model (naming and
+// binding, closures) prescribes.
+func TestClosures(t *testing.T) {
+	expectPrints(t, []printCase{
+		// a free variable in a code object that also has cells
+		{"def f(n):\n    m = n\n    return [[i * 10 + j for j in range(m)] for i in range(n)]\nprint(f(2))", "[[0, 1], [10, 11]]"},
+		// a parameter captured by a comprehension
+		{"def f(n):\n    return [[i + j for j in range(n)] for i in range(n)]\nprint(f(2))", "[[0, 1], [1, 2]]"},
+		// a parameter captured by a closure
+		{"def adder(x):\n    return lambda y: x + y\nprint(adder(3)(4))", "7"},
+		// a closure that is itself closed over
+		{"def outer(a):\n    def middle(b):\n        return [a + b + k for k in range(2)]\n    return middle(10)\nprint(outer(100))", "[110, 111]"},
+		// keyword-only and star arguments captured
+		{"def f(*xs, scale=2):\n    return [scale * x for x in xs]\nprint(f(1, 2))", "[2, 4]"},
+	})
+}
+
 func TestMatrices(t *testing.T) {
 	cases := []printCase{
 		{"print(det(matrix([[1, 2], [3, 4]])))", "-2"},

@@ -11,7 +11,7 @@ import (
 
 	"assay/cells"
 	"assay/exact"
-	"assay/kernel/pyext"
+	"assay/kernel/interp/pyext"
 )
 
 // Settings are the run-wide defaults a session starts with.
