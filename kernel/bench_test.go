@@ -4,6 +4,7 @@ import (
 	"testing"
 
 	"assay/cells"
+	"assay/kernel/session"
 )
 
 // BenchmarkRealSampledIdentity: a 256-bit identity with square-root sides
@@ -39,7 +40,7 @@ func benchNotebook(b *testing.B, src []byte, want cells.Verdict) {
 	}
 	b.ResetTimer()
 	for i := 0; i < b.N; i++ {
-		rep := Run(nb, Options{Settings: DefaultSettings})
+		rep := Run(nb, Options{Settings: session.DefaultSettings})
 		if c := rep.Outcomes[0].Claims; len(c) != 1 || c[0].Verdict != want {
 			b.Fatalf("outcome %+v", rep.Outcomes[0])
 		}

@@ -1,6 +1,8 @@
-// Package kernel runs notebook cells. It embeds the Python-syntax interpreter
-// gpython, binds exact rationals and matrices as Python objects with
-// operators, records claims, sandboxes cells (no files, processes or
-// network), and speaks the JSON-lines protocol of the kernel process that
-// `assay run` drives as a child, enforcing per-cell timeouts and a memory cap.
+// Package kernel is the parent side of a notebook run: it drives kernels —
+// child processes started through package proto, or a session in this
+// process — cell by cell, enforces each cell's time limit, starts helper
+// workers for large sampled claims and merges their tallies, writes and
+// merges the parts of a sharded run, and shows a sweep's progress. It turns
+// a parsed notebook into a report; the cells themselves run in package
+// session.
 package kernel

@@ -9,6 +9,9 @@ import (
 	"time"
 
 	"assay/cells"
+	"assay/kernel/claim"
+	"assay/kernel/proto"
+	"assay/kernel/session"
 )
 
 // helperThreshold is the smallest sweep for which a driver starts its
@@ -22,14 +25,14 @@ const helperThreshold = 256
 // and merges the tallies.
 type driver struct {
 	opt   Options
-	shard Share // this run's shard; {0, 1} when not sharded
+	shard claim.Share // this run's shard; {0, 1} when not sharded
 
-	sess *Session // in-process mode
+	sess *session.Session // in-process mode
 
 	workers []*worker // process mode; workers[0] is the main kernel
-	inbox   chan message
+	inbox   chan proto.Message
 	history []ran // cells the main kernel has run, for helpers to replay
-	current Cell
+	current session.Cell
 	tried   bool // helpers were started (or could not be)
 	peak    int  // most workers at once, for tests
 
@@ -41,36 +44,36 @@ type driver struct {
 }
 
 type ran struct {
-	cell   Cell
+	cell   session.Cell
 	failed bool
 }
 
 // worker is one kernel process and what it is doing.
 type worker struct {
-	p        *Process
+	p        *proto.Process
 	index    int
-	starting bool   // its session is not open yet
-	queue    []ran  // cells to run: a helper's replay, then the current cell
-	running  *ran   // the cell it runs, nil when idle
-	asking   string // the exchange it waits on, "" when not waiting
-	final    *Reply // its reply for the current cell
+	starting bool         // its session is not open yet
+	queue    []ran        // cells to run: a helper's replay, then the current cell
+	running  *ran         // the cell it runs, nil when idle
+	asking   string       // the exchange it waits on, "" when not waiting
+	final    *proto.Reply // its reply for the current cell
 }
 
 type settledTally struct {
-	ask   Ask
-	tally Tally
+	ask   claim.Ask
+	tally claim.Tally
 }
 
 // opening is an exchange in progress: the workers that asked, then their tallies.
 type opening struct {
-	ask      Ask
+	ask      claim.Ask
 	askers   []*worker
-	tallies  []Tally
+	tallies  []claim.Tally
 	assigned bool
 }
 
 func newDriver(opt Options) (*driver, error) {
-	d := &driver{opt: opt, shard: Share{Index: 0, Count: 1}, settled: map[string]settledTally{}, open: map[string]*opening{}}
+	d := &driver{opt: opt, shard: claim.Share{Index: 0, Count: 1}, settled: map[string]settledTally{}, open: map[string]*opening{}}
 	if opt.Shard.Count > 0 {
 		d.shard = opt.Shard
 	}
@@ -81,28 +84,28 @@ func newDriver(opt Options) (*driver, error) {
 // start opens the main kernel.
 func (d *driver) start() error {
 	if len(d.opt.Command) == 0 {
-		s, err := NewSession(d.opt.Settings)
+		s, err := session.New(d.opt.Settings)
 		if err != nil {
 			return err
 		}
-		s.coord = local{d}
+		s.SetCoordinator(local{d})
 		d.sess = s
 		return nil
 	}
-	d.inbox = make(chan message, 16)
+	d.inbox = make(chan proto.Message, 16)
 	s := d.opt.Settings
 	s.Driven = true
-	p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
+	p, err := proto.Start(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
 	if err != nil {
 		return err
 	}
 	m := <-d.inbox
 	switch {
-	case m.dead:
-		return p.death()
-	case m.reply.Error != "":
+	case m.Dead:
+		return p.Death()
+	case m.Reply.Error != "":
 		p.Close()
-		return errors.New("kernel process: " + m.reply.Error)
+		return errors.New("kernel process: " + m.Reply.Error)
 	}
 	d.workers = []*worker{{p: p}}
 	d.tried = d.opt.Workers <= 1
@@ -152,7 +155,7 @@ func (d *driver) restart(timeout time.Duration) error {
 // run runs one cell in every worker and returns the main kernel's outcome.
 // A crossed limit or a dead process is a *LimitError; the kernels are then
 // unusable until restart.
-func (d *driver) run(c Cell, timeout time.Duration) (cells.Outcome, Settings, error) {
+func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, session.Settings, error) {
 	if d.sess != nil {
 		o := d.sess.Run(c)
 		d.history = append(d.history, ran{cell: c, failed: o.Status == cells.Failed})
@@ -178,7 +181,7 @@ func (d *driver) run(c Cell, timeout time.Duration) (cells.Outcome, Settings, er
 				return d.abort(err)
 			}
 		case <-timer.C:
-			return d.abort(&LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)})
+			return d.abort(&proto.LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)})
 		}
 	}
 	d.progress.clear()
@@ -195,15 +198,15 @@ func (d *driver) run(c Cell, timeout time.Duration) (cells.Outcome, Settings, er
 }
 
 // abort ends every kernel after an error in the middle of a cell.
-func (d *driver) abort(err error) (cells.Outcome, Settings, error) {
+func (d *driver) abort(err error) (cells.Outcome, session.Settings, error) {
 	for _, w := range d.workers {
-		w.p.kill()
+		w.p.Kill()
 	}
-	var le *LimitError
+	var le *proto.LimitError
 	if !errors.As(err, &le) {
-		err = &LimitError{Message: err.Error()}
+		err = &proto.LimitError{Message: err.Error()}
 	}
-	return cells.Outcome{}, Settings{}, err
+	return cells.Outcome{}, session.Settings{}, err
 }
 
 // finished says every worker has replied for the current cell.
@@ -224,7 +227,7 @@ func (d *driver) next(w *worker) error {
 	r := w.queue[0]
 	w.queue = w.queue[1:]
 	w.running = &r
-	return d.named(w, w.p.send(Request{Op: "run", Cell: &r.cell}))
+	return d.named(w, w.p.Send(proto.Request{Op: "run", Cell: &r.cell}))
 }
 
 // named prefixes a helper's error with its number.
@@ -232,24 +235,24 @@ func (d *driver) named(w *worker, err error) error {
 	if err == nil || w.index == 0 {
 		return err
 	}
-	return &LimitError{Message: fmt.Sprintf("worker %d: %v", w.index, err)}
+	return &proto.LimitError{Message: fmt.Sprintf("worker %d: %v", w.index, err)}
 }
 
 // receive handles one message from a worker.
-func (d *driver) receive(m message) error {
+func (d *driver) receive(m proto.Message) error {
 	var w *worker
 	for _, x := range d.workers {
-		if x.p == m.from {
+		if x.p == m.From {
 			w = x
 		}
 	}
 	if w == nil {
 		return nil // from a process already closed
 	}
-	if m.dead {
-		return d.named(w, m.from.death())
+	if m.Dead {
+		return d.named(w, m.From.Death())
 	}
-	r := m.reply
+	r := m.Reply
 	switch {
 	case r.Progress != nil:
 		d.progress.update(w.index, *r.Progress)
@@ -257,12 +260,12 @@ func (d *driver) receive(m message) error {
 	case r.Exchange != nil:
 		return d.named(w, d.onExchange(w, *r.Exchange))
 	case r.Error != "":
-		return d.named(w, &LimitError{Message: "kernel process refused the cell: " + r.Error})
+		return d.named(w, &proto.LimitError{Message: "kernel process refused the cell: " + r.Error})
 	case w.starting:
 		w.starting = false
 		return d.next(w)
 	case w.running == nil || r.Outcome == nil:
-		return d.named(w, &LimitError{Message: "kernel process sent a reply nobody asked for"})
+		return d.named(w, &proto.LimitError{Message: "kernel process sent a reply nobody asked for"})
 	}
 	done := *w.running
 	w.running = nil
@@ -270,7 +273,7 @@ func (d *driver) receive(m message) error {
 	if done.cell.Index == d.current.Index && len(w.queue) == 0 {
 		w.final = &r
 	} else if failed != done.failed {
-		return d.named(w, &LimitError{Message: fmt.Sprintf("replaying cell %d (line %d) gave another result than the main kernel did; the notebook is not deterministic", done.cell.Index, done.cell.Line)})
+		return d.named(w, &proto.LimitError{Message: fmt.Sprintf("replaying cell %d (line %d) gave another result than the main kernel did; the notebook is not deterministic", done.cell.Index, done.cell.Line)})
 	}
 	return d.next(w)
 }
@@ -292,30 +295,30 @@ func (d *driver) stuck() error {
 	}
 	for _, w := range d.workers {
 		if w.asking != "" {
-			return &LimitError{Message: "the workers ran different code (" + strings.Join(waiting, ", ") + "); a sampled claim's f or g, or the code before it, depends on something other than the sample index and the seed"}
+			return &proto.LimitError{Message: "the workers ran different code (" + strings.Join(waiting, ", ") + "); a sampled claim's f or g, or the code before it, depends on something other than the sample index and the seed"}
 		}
 	}
 	return nil
 }
 
 // onExchange handles an ask or a tally from a worker.
-func (d *driver) onExchange(w *worker, e Exchange) error {
+func (d *driver) onExchange(w *worker, e claim.Exchange) error {
 	a := e.Ask
 	if e.Tally == nil {
 		if t, err := d.known(a); err != nil || t != nil {
 			return d.answer(w, t, err)
 		}
-		o := d.open[a.key()]
+		o := d.open[a.Key()]
 		if o == nil {
 			o = &opening{ask: a}
-			d.open[a.key()] = o
+			d.open[a.Key()] = o
 		}
 		if o.ask != a || o.assigned {
 			return d.answer(w, nil, fmt.Errorf("the workers disagree about claim %q (line %d): the notebook is not deterministic", a.Claim, a.Line))
 		}
 		o.askers = append(o.askers, w)
-		w.asking = a.key()
-		if w.index == 0 && !d.tried && a.Phase == phaseSweep && a.Samples >= helperThreshold {
+		w.asking = a.Key()
+		if w.index == 0 && !d.tried && a.Phase == claim.PhaseSweep && a.Samples >= helperThreshold {
 			d.startHelpers()
 		}
 		if len(o.askers) < len(d.workers) {
@@ -324,27 +327,27 @@ func (d *driver) onExchange(w *worker, e Exchange) error {
 		o.assigned = true
 		n := int64(len(o.askers))
 		for _, x := range o.askers {
-			sh := Share{Index: d.shard.Index + d.shard.Count*int64(x.index), Count: d.shard.Count * n}
-			if a.Phase == phaseSearch {
-				sh = Share{Index: int64(x.index), Count: n}
+			sh := claim.Share{Index: d.shard.Index + d.shard.Count*int64(x.index), Count: d.shard.Count * n}
+			if a.Phase == claim.PhaseSearch {
+				sh = claim.Share{Index: int64(x.index), Count: n}
 			}
 			x.asking = ""
-			if err := d.named(x, x.p.send(Request{Op: "answer", Answer: &Answer{Share: &sh}})); err != nil {
+			if err := d.named(x, x.p.Send(proto.Request{Op: "answer", Answer: &claim.Answer{Share: &sh}})); err != nil {
 				return err
 			}
 		}
 		return nil
 	}
-	o := d.open[a.key()]
+	o := d.open[a.Key()]
 	if o == nil || !o.assigned || o.ask != a {
 		return d.answer(w, nil, fmt.Errorf("claim %q: a tally came for an exchange that was not open", a.Claim))
 	}
-	w.asking = a.key()
+	w.asking = a.Key()
 	o.tallies = append(o.tallies, *e.Tally)
 	if len(o.tallies) < len(o.askers) {
 		return nil
 	}
-	delete(d.open, a.key())
+	delete(d.open, a.Key())
 	t := d.settle(a, o.tallies)
 	for _, x := range o.askers {
 		if err := d.answer(x, &t, nil); err != nil {
@@ -356,13 +359,13 @@ func (d *driver) onExchange(w *worker, e Exchange) error {
 
 // answer sends a worker the result of an exchange, or an error that its
 // cell will raise.
-func (d *driver) answer(w *worker, t *Tally, err error) error {
+func (d *driver) answer(w *worker, t *claim.Tally, err error) error {
 	w.asking = ""
-	ans := Answer{Result: t}
+	ans := claim.Answer{Result: t}
 	if err != nil {
-		ans = Answer{Error: err.Error()}
+		ans = claim.Answer{Error: err.Error()}
 	}
-	return d.named(w, w.p.send(Request{Op: "answer", Answer: &ans}))
+	return d.named(w, w.p.Send(proto.Request{Op: "answer", Answer: &ans}))
 }
 
 // startHelpers starts the helper workers; each replays the cells the main
@@ -373,7 +376,7 @@ func (d *driver) startHelpers() {
 	s := d.opt.Settings
 	s.Driven = true
 	for i := 1; i < d.opt.Workers; i++ {
-		p, err := startProcess(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
+		p, err := proto.Start(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
 		if err != nil {
 			return
 		}
@@ -387,20 +390,20 @@ func (d *driver) startHelpers() {
 // settled earlier (a replay), or joined from the parts being merged. A
 // shard run skips the counterexample search: it runs at the merge, over
 // the worst samples of all shards.
-func (d *driver) known(a Ask) (*Tally, error) {
-	if s, ok := d.settled[a.key()]; ok {
+func (d *driver) known(a claim.Ask) (*claim.Tally, error) {
+	if s, ok := d.settled[a.Key()]; ok {
 		if s.ask != a {
 			return nil, fmt.Errorf("claim %q was asked for twice, differently (line %d, %d samples, then line %d, %d samples)", a.Claim, s.ask.Line, s.ask.Samples, a.Line, a.Samples)
 		}
 		return &s.tally, nil
 	}
-	if a.Phase == phaseSearch && d.shard.Count > 1 {
-		return &Tally{Search: &SearchTally{Skipped: "this is one shard; the search runs when the parts are merged"}}, nil
+	if a.Phase == claim.PhaseSearch && d.shard.Count > 1 {
+		return &claim.Tally{Search: &claim.SearchTally{Skipped: "this is one shard; the search runs when the parts are merged"}}, nil
 	}
-	if d.parts != nil && a.Phase == phaseSweep {
+	if d.parts != nil && a.Phase == claim.PhaseSweep {
 		t, err := d.parts.tally(a)
 		if t != nil {
-			d.settled[a.key()] = settledTally{ask: a, tally: *t}
+			d.settled[a.Key()] = settledTally{ask: a, tally: *t}
 		}
 		return t, err
 	}
@@ -408,13 +411,13 @@ func (d *driver) known(a Ask) (*Tally, error) {
 }
 
 // settle merges the tallies of an exchange's shares and keeps the result.
-func (d *driver) settle(a Ask, shares []Tally) Tally {
-	var t Tally
+func (d *driver) settle(a claim.Ask, shares []claim.Tally) claim.Tally {
+	var t claim.Tally
 	for _, s := range shares {
 		t.Merge(s)
 	}
-	d.settled[a.key()] = settledTally{ask: a, tally: t}
-	if d.shard.Count > 1 && a.Phase == phaseSweep {
+	d.settled[a.Key()] = settledTally{ask: a, tally: t}
+	if d.shard.Count > 1 && a.Phase == claim.PhaseSweep {
 		d.collected = append(d.collected, PartClaim{Ask: a, Tally: t})
 	}
 	d.progress.clear()
@@ -424,25 +427,27 @@ func (d *driver) settle(a Ask, shares []Tally) Tally {
 // local is the coordinator of a session the driver runs in this process.
 type local struct{ d *driver }
 
-func (l local) exchange(e Exchange) (Answer, error) {
+// Exchange answers from the driver's own state.
+func (l local) Exchange(e claim.Exchange) (claim.Answer, error) {
 	t, err := l.d.known(e.Ask)
 	switch {
 	case err != nil:
-		return Answer{Error: err.Error()}, nil
+		return claim.Answer{Error: err.Error()}, nil
 	case t != nil:
-		return Answer{Result: t}, nil
+		return claim.Answer{Result: t}, nil
 	case e.Tally == nil:
 		sh := l.d.shard
-		if e.Phase == phaseSearch {
-			sh = Share{Index: 0, Count: 1}
+		if e.Phase == claim.PhaseSearch {
+			sh = claim.Share{Index: 0, Count: 1}
 		}
-		return Answer{Share: &sh}, nil
+		return claim.Answer{Share: &sh}, nil
 	}
-	m := l.d.settle(e.Ask, []Tally{*e.Tally})
-	return Answer{Result: &m}, nil
+	m := l.d.settle(e.Ask, []claim.Tally{*e.Tally})
+	return claim.Answer{Result: &m}, nil
 }
 
-func (l local) progress(p Progress) { l.d.progress.update(0, p) }
+// Progress shows the sweep's progress.
+func (l local) Progress(p claim.Progress) { l.d.progress.update(0, p) }
 
 // disagreement compares what two workers said about the same cell.
 func disagreement(a, b cells.Outcome) string {

@@ -7,6 +7,8 @@ import (
 	"strings"
 
 	"assay/cells"
+	"assay/kernel/claim"
+	"assay/kernel/session"
 )
 
 // PartFormat names the partial-result file format; it changes when the
@@ -17,15 +19,15 @@ const PartFormat = "assay-part-1"
 // merge: the tallies of its share of every sampled claim, and the notebook
 // itself, so that the merge needs no other file.
 type Part struct {
-	Format   string      `json:"format"`
-	Version  string      `json:"version"`
-	Notebook string      `json:"notebook"` // path as given to the shard run
-	SHA256   string      `json:"sha256"`
-	Source   string      `json:"source"`
-	Settings Settings    `json:"settings"`
-	Shard    int         `json:"shard"` // 1-based
-	Shards   int         `json:"shards"`
-	Claims   []PartClaim `json:"claims"`
+	Format   string           `json:"format"`
+	Version  string           `json:"version"`
+	Notebook string           `json:"notebook"` // path as given to the shard run
+	SHA256   string           `json:"sha256"`
+	Source   string           `json:"source"`
+	Settings session.Settings `json:"settings"`
+	Shard    int              `json:"shard"` // 1-based
+	Shards   int              `json:"shards"`
+	Claims   []PartClaim      `json:"claims"`
 	// Errors are the cell errors of the shard run, for its user; the merge
 	// meets them again when it replays the notebook.
 	Errors []cells.Problem `json:"errors,omitempty"`
@@ -33,8 +35,8 @@ type Part struct {
 
 // PartClaim is one sampled claim's tally in a part.
 type PartClaim struct {
-	Ask   Ask   `json:"ask"`
-	Tally Tally `json:"tally"`
+	Ask   claim.Ask   `json:"ask"`
+	Tally claim.Tally `json:"tally"`
 }
 
 // ParsePart reads a part file's contents; name is for messages.
@@ -113,13 +115,13 @@ func checkParts(parts []*Part, names []string) (*partSet, error) {
 // tally joins the parts' tallies of one sweep. A sweep no part has is
 // computed by the merge itself (nil, nil); one that only some parts have
 // means the shards ran different code, and cannot be merged.
-func (s *partSet) tally(a Ask) (*Tally, error) {
-	var t Tally
+func (s *partSet) tally(a claim.Ask) (*claim.Tally, error) {
+	var t claim.Tally
 	var have, lack []string
 	for i, p := range s.parts {
 		found := false
 		for _, c := range p.Claims {
-			if c.Ask.key() != a.key() {
+			if c.Ask.Key() != a.Key() {
 				continue
 			}
 			if c.Ask != a {

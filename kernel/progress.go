@@ -4,6 +4,9 @@ import (
 	"fmt"
 	"io"
 	"time"
+
+	"assay/kernel/claim"
+	"assay/kernel/session"
 )
 
 // progressLine shows how far a long sweep has got on a terminal: samples
@@ -25,12 +28,12 @@ func newProgressLine(w io.Writer) *progressLine {
 }
 
 // update records a worker's count and redraws the line.
-func (p *progressLine) update(worker int, pr Progress) {
+func (p *progressLine) update(worker int, pr claim.Progress) {
 	if p == nil {
 		return
 	}
 	if pr.Claim != p.claim {
-		p.claim, p.began = pr.Claim, time.Now().Add(-progressEvery)
+		p.claim, p.began = pr.Claim, time.Now().Add(-session.ProgressEvery)
 		p.done, p.total = map[int]int64{}, map[int]int64{}
 	}
 	p.done[worker], p.total[worker] = pr.Done, pr.Total
@@ -48,7 +51,7 @@ func (p *progressLine) update(worker int, pr Progress) {
 			left = ", under a second left"
 		}
 	}
-	fmt.Fprintf(p.w, "\r\033[K%s: %s of %s samples, %s a second%s", clip(p.claim, 48), grouped(done), grouped(total), grouped(int64(rate)), left)
+	fmt.Fprintf(p.w, "\r\033[K%s: %s of %s samples, %s a second%s", claim.Clip(p.claim, 48), grouped(done), grouped(total), grouped(int64(rate)), left)
 	p.shown = true
 }
 

@@ -9,11 +9,14 @@ import (
 
 	"assay/cells"
 	"assay/exact"
+	"assay/kernel/claim"
+	"assay/kernel/proto"
+	"assay/kernel/session"
 )
 
 // Options control a notebook run.
 type Options struct {
-	Settings  Settings
+	Settings  session.Settings
 	Timeout   time.Duration // per-cell default; a cell's timeout= option wins
 	MaxMemory int64         // bytes; the kernel process is killed above it
 	KeepGoing bool          // run later cells after a cell fails
@@ -25,7 +28,7 @@ type Options struct {
 	Workers int
 	// Shard makes this run one shard of several: it computes the samples
 	// k with k % Shard.Count == Shard.Index. Zero: not sharded.
-	Shard Share
+	Shard claim.Share
 	// Progress, when set, shows the progress of long sweeps (a terminal).
 	Progress io.Writer
 }
@@ -51,7 +54,7 @@ func Run(nb *cells.Notebook, opt Options) *cells.Report {
 // only the shard's samples).
 func RunShard(nb *cells.Notebook, opt Options) (*cells.Report, *Part) {
 	rep, d := run(nb, opt, nil)
-	part := &Part{Format: PartFormat, Version: Version, Notebook: nb.Path, SHA256: rep.SHA256, Source: string(nb.Source),
+	part := &Part{Format: PartFormat, Version: proto.Version, Notebook: nb.Path, SHA256: rep.SHA256, Source: string(nb.Source),
 		Settings: opt.Settings, Shard: int(opt.Shard.Index) + 1, Shards: int(opt.Shard.Count), Claims: []PartClaim{}}
 	if d != nil {
 		part.Claims = append(part.Claims, d.collected...)
@@ -75,14 +78,14 @@ func Merge(parts []*Part, names []string, opt Options) (*cells.Report, error) {
 		return nil, err
 	}
 	first := set.parts[0]
-	if first.Version != Version {
-		return nil, fmt.Errorf("the parts were written by assay %s; this is assay %s, whose results may differ: merge with the version that ran the shards", first.Version, Version)
+	if first.Version != proto.Version {
+		return nil, fmt.Errorf("the parts were written by assay %s; this is assay %s, whose results may differ: merge with the version that ran the shards", first.Version, proto.Version)
 	}
 	nb, err := cells.Parse(first.Notebook, []byte(first.Source))
 	if err != nil {
 		return nil, fmt.Errorf("the notebook in the parts no longer parses: %v", err)
 	}
-	opt.Settings, opt.Shard = first.Settings, Share{}
+	opt.Settings, opt.Shard = first.Settings, claim.Share{}
 	rep, _ := run(nb, opt, set)
 	return rep, nil
 }
@@ -96,13 +99,13 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 		opt.MaxMemory = DefaultMaxMemory
 	}
 	if opt.Settings.Precision == 0 {
-		opt.Settings.Precision = DefaultSettings.Precision
+		opt.Settings.Precision = session.DefaultSettings.Precision
 	}
 	sum := sha256.Sum256(nb.Source)
 	rep := &cells.Report{
 		Notebook:  nb,
 		SHA256:    hex.EncodeToString(sum[:]),
-		Version:   Version,
+		Version:   proto.Version,
 		Seed:      opt.Settings.Seed,
 		Precision: opt.Settings.Precision,
 	}
@@ -122,7 +125,7 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 	d.parts = parts
 	defer d.close()
 	for i, b := range list {
-		c := Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}
+		c := session.Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}
 		timeout := opt.Timeout
 		if b.Options.Timeout > 0 {
 			timeout = b.Options.Timeout

@@ -10,13 +10,15 @@ import (
 	"os"
 	"path/filepath"
 	"runtime"
-	"runtime/debug"
 	"strconv"
 	"strings"
 	"time"
 
 	"assay/cells"
 	"assay/kernel"
+	"assay/kernel/claim"
+	"assay/kernel/proto"
+	"assay/kernel/session"
 )
 
 const usage = `assay checks geometric formulas in Markdown notebooks, exactly.
@@ -59,7 +61,7 @@ func mainCode(args []string, stdout, stderr io.Writer) int {
 	case "kernel":
 		return kernelCommand(args[1:], stderr)
 	case "version", "--version":
-		fmt.Fprintf(stdout, "assay %s\n", kernel.Version)
+		fmt.Fprintf(stdout, "assay %s\n", proto.Version)
 		return 0
 	case "help", "-h", "--help", "-help":
 		fmt.Fprint(stdout, usage)
@@ -96,7 +98,7 @@ func addLimitFlags(fs *flag.FlagSet, l *limits) {
 }
 
 // options checks the limits and makes the kernel options they give.
-func (l *limits) options(s kernel.Settings, stderr io.Writer) (kernel.Options, error) {
+func (l *limits) options(s session.Settings, stderr io.Writer) (kernel.Options, error) {
 	if l.timeout <= 0 {
 		return kernel.Options{}, fmt.Errorf("--timeout must be positive, got %s", l.timeout)
 	}
@@ -127,17 +129,17 @@ func isTerminal(w io.Writer) bool {
 
 func addRunFlags(fs *flag.FlagSet) *runFlags {
 	f := &runFlags{}
-	fs.Int64Var(&f.seedValue, "seed", kernel.DefaultSettings.Seed, "random seed for the run (overrides setup(seed=…))")
-	fs.IntVar(&f.precisionValue, "precision", kernel.DefaultSettings.Precision, "working precision in bits (overrides setup(precision=…))")
+	fs.Int64Var(&f.seedValue, "seed", session.DefaultSettings.Seed, "random seed for the run (overrides setup(seed=…))")
+	fs.IntVar(&f.precisionValue, "precision", session.DefaultSettings.Precision, "working precision in bits (overrides setup(precision=…))")
 	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
-	fs.IntVar(&f.maxPrecision, "max-precision", kernel.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
+	fs.IntVar(&f.maxPrecision, "max-precision", session.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
 	addLimitFlags(fs, &f.limits)
 	fs.BoolVar(&f.strictOn, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
 	return f
 }
 
 func (f *runFlags) options(fs *flag.FlagSet, stderr io.Writer) (kernel.Options, error) {
-	s := kernel.DefaultSettings
+	s := session.DefaultSettings
 	fs.Visit(func(fl *flag.Flag) {
 		switch fl.Name {
 		case "seed":
@@ -316,19 +318,19 @@ func writeReport(cmd string, rep *cells.Report, mdPath string, html, strict bool
 }
 
 // parseShard reads a shard spec i/n, 1 <= i <= n.
-func parseShard(spec string) (kernel.Share, error) {
+func parseShard(spec string) (claim.Share, error) {
 	is, ns, ok := strings.Cut(spec, "/")
 	i, err1 := strconv.Atoi(strings.TrimSpace(is))
 	n, err2 := strconv.Atoi(strings.TrimSpace(ns))
 	switch {
 	case !ok || err1 != nil || err2 != nil:
-		return kernel.Share{}, fmt.Errorf("--shard wants i/n, shard i of n, such as 2/8; got %q", spec)
+		return claim.Share{}, fmt.Errorf("--shard wants i/n, shard i of n, such as 2/8; got %q", spec)
 	case n < 1 || n > 1_000_000:
-		return kernel.Share{}, fmt.Errorf("--shard %s: n must be between 1 and 1000000", spec)
+		return claim.Share{}, fmt.Errorf("--shard %s: n must be between 1 and 1000000", spec)
 	case i < 1 || i > n:
-		return kernel.Share{}, fmt.Errorf("--shard %s: i must be between 1 and n = %d (shards are numbered from 1)", spec, n)
+		return claim.Share{}, fmt.Errorf("--shard %s: i must be between 1 and n = %d (shards are numbered from 1)", spec, n)
 	}
-	return kernel.Share{Index: int64(i - 1), Count: int64(n)}, nil
+	return claim.Share{Index: int64(i - 1), Count: int64(n)}, nil
 }
 
 // runShard runs one shard and writes its part file.
@@ -411,7 +413,7 @@ Flags:
 		}
 		parts = append(parts, p)
 	}
-	opt, err := lim.options(kernel.Settings{}, stderr)
+	opt, err := lim.options(session.Settings{}, stderr)
 	if err != nil {
 		fmt.Fprintln(stderr, "assay merge:", err)
 		return 2
@@ -553,13 +555,7 @@ reply per line on stdout. 'assay run' drives it as a child process.
 	if err := fs.Parse(args); err != nil {
 		return helpOrUsageError(err)
 	}
-	if v, err := strconv.ParseInt(os.Getenv("ASSAY_MAX_MEMORY"), 10, 64); err == nil && v > 0 {
-		debug.SetMemoryLimit(v) // soft: the parent enforces the hard cap
-	}
-	// A runaway recursion should end the cell in a second, not after
-	// growing a gigabyte of stack.
-	debug.SetMaxStack(64 << 20)
-	if err := kernel.Serve(os.Stdin, os.Stdout); err != nil {
+	if err := proto.ServeChild(os.Stdin, os.Stdout); err != nil {
 		fmt.Fprintln(stderr, "assay kernel:", err)
 		return 2
 	}
@@ -569,7 +565,7 @@ reply per line on stdout. 'assay run' drives it as a child process.
 // byteSize is a flag value like 2GiB, 512MiB, 100MB or a plain byte count.
 type byteSize int64
 
-func (b *byteSize) String() string { return kernel.FormatBytes(int64(*b)) }
+func (b *byteSize) String() string { return proto.FormatBytes(int64(*b)) }
 
 func (b *byteSize) Set(s string) error {
 	t := strings.TrimSpace(s)

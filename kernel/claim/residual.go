@@ -1,0 +1,266 @@
+package claim
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+
+	"assay/cells"
+	"assay/exact"
+	"assay/exact/geom"
+)
+
+// Methods as the report names them.
+const (
+	ExactMethod = "exact rational arithmetic"
+	PolyMethod  = "exact polynomial arithmetic (expanded)"
+	RealMethod  = "certified interval arithmetic"
+)
+
+// log10of2 turns bits into decimal digits.
+const log10of2 = 0.30102999566398120
+
+// Target is the precision a claim with real sides is decided to.
+type Target struct {
+	Bits uint // |residual| must be certified below 2^-Bits for "holds to digits"
+	Cap  uint // refinement stops here: undecided
+}
+
+// Digits is the number of decimal digits that Bits certify.
+func (t Target) Digits() int { return int(float64(t.Bits) * log10of2) }
+
+// BitsForDigits is the precision that certifies n decimal digits.
+func BitsForDigits(n int64) uint { return uint(float64(n)/log10of2) + 1 }
+
+// Residual is lhs − rhs, measured exactly or certified.
+type Residual struct {
+	Text      string   // printed residual
+	Size      *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
+	Zero      bool     // exactly zero
+	Symbolic  bool     // a polynomial difference: zero proves the identity for all values
+	Real      bool     // decided by interval arithmetic
+	Certified int      // for a real residual enclosing 0: |residual| < 10^-Certified
+	Undecided bool     // the precision cap came first
+}
+
+// Exact is the residual of an exact rational difference.
+func Exact(d *big.Rat) Residual {
+	return Residual{Text: exact.FormatRat(d), Size: new(big.Rat).Abs(d), Zero: d.Sign() == 0}
+}
+
+// Zero is the residual of sides that agree exactly.
+func Zero() Residual { return Exact(new(big.Rat)) }
+
+// OfPoly is the residual of an expanded polynomial difference.
+func OfPoly(d *exact.Poly) Residual {
+	return Residual{Text: Preview(d), Size: big.NewRat(int64(d.Len()), 1), Zero: d.IsZero(), Symbolic: true}
+}
+
+// OfReal decides a certified real difference: exactly when it is known to
+// be rational, else by refining its enclosure to the target.
+func OfReal(d *exact.Real, t Target) (Residual, error) {
+	if q, ok := d.Rat(); ok {
+		return Exact(q), nil
+	}
+	iv, err := d.Approx(t.Bits, t.Cap)
+	switch {
+	case err != nil && errors.Is(err, exact.ErrUndecided):
+		return Residual{Text: fmt.Sprintf("not separated from 0 at the cap of %d bits", t.Cap), Size: new(big.Rat), Real: true, Undecided: true}, nil
+	case err != nil:
+		return Residual{}, err
+	}
+	if iv.Lo.Sign() > 0 || iv.Hi.Sign() < 0 {
+		text, derr := d.Digits(12, t.Cap)
+		if derr != nil {
+			text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
+		}
+		bound := new(big.Rat).Abs(iv.Lo)
+		if h := new(big.Rat).Abs(iv.Hi); h.Cmp(bound) > 0 {
+			bound = h
+		}
+		return Residual{Text: text + " (certified non-zero)", Size: bound, Real: true}, nil
+	}
+	n := t.Digits()
+	width := new(big.Rat).Sub(iv.Hi, iv.Lo)
+	return Residual{Text: fmt.Sprintf("|r| < 1e-%d", n), Size: width, Real: true, Certified: n}, nil
+}
+
+// OfKVector is the residual of a difference of k-vectors: its largest coefficient.
+func OfKVector(d *geom.KVector) Residual {
+	size := new(big.Rat)
+	for _, bl := range d.Components() {
+		if c := new(big.Rat).Abs(bl.Coef); c.Cmp(size) > 0 {
+			size = c
+		}
+	}
+	return Residual{Text: d.String(), Size: size, Zero: d.IsZero()}
+}
+
+// OfMatrices compares two matrices over Q entry by entry.
+func OfMatrices(a, b *exact.Matrix) (Residual, error) {
+	d, err := a.Sub(b)
+	if err != nil {
+		return Residual{}, err
+	}
+	size := new(big.Rat)
+	for i := 0; i < d.Rows(); i++ {
+		for j := 0; j < d.Cols(); j++ {
+			if e := new(big.Rat).Abs(d.At(i, j)); e.Cmp(size) > 0 {
+				size = e
+			}
+		}
+	}
+	text := "0"
+	if size.Sign() != 0 {
+		text = "difference " + d.String()
+		if d.Rows()*d.Cols() > 16 {
+			text = "largest entry of the difference: " + exact.FormatRat(size)
+		}
+	}
+	return Residual{Text: text, Size: size, Zero: size.Sign() == 0}, nil
+}
+
+// OfPolyMatrices compares two polynomial matrices entry by entry; the
+// first non-zero entry of the difference is shown.
+func OfPolyMatrices(a, b *exact.PolyMatrix) (Residual, error) {
+	d, err := a.Sub(b)
+	if err != nil {
+		return Residual{}, err
+	}
+	for i := 0; i < d.Rows(); i++ {
+		for j := 0; j < d.Cols(); j++ {
+			if e := d.At(i, j); !e.IsZero() {
+				return Residual{Text: fmt.Sprintf("entry [%d, %d] of the difference: %s", i, j, Preview(e)), Size: big.NewRat(int64(e.Len()), 1), Symbolic: true}, nil
+			}
+		}
+	}
+	return Residual{Text: "0", Size: new(big.Rat), Zero: true, Symbolic: true}, nil
+}
+
+// Worst combines the residuals of entries: any failure wins, then
+// undecided, then the fewest certified digits; the largest failing
+// residual is the one shown, the first on ties.
+func Worst(rs []Residual) Residual {
+	out := rs[0]
+	for _, r := range rs[1:] {
+		if Compare(r, out) > 0 {
+			out = r
+		}
+	}
+	for _, r := range rs {
+		out.Symbolic = out.Symbolic || r.Symbolic
+		out.Real = out.Real || r.Real
+	}
+	return out
+}
+
+// Entries combines the residuals of the entries of two lists: the worst,
+// labelled with its entry; "0" when every entry is zero.
+func Entries(rs []Residual) Residual {
+	for i := range rs {
+		rs[i].Text = fmt.Sprintf("entry %d: %s", i, rs[i].Text)
+	}
+	w := Worst(append(rs, Zero()))
+	if w.Zero {
+		w.Text = "0"
+	}
+	return w
+}
+
+// rank orders residuals by how bad they are for the claim.
+func (r Residual) rank() int {
+	switch {
+	case !r.Zero && r.Certified == 0 && !r.Undecided:
+		return 3 // fails
+	case r.Undecided:
+		return 2
+	case r.Certified > 0:
+		return 1
+	}
+	return 0
+}
+
+// Failing reports whether the residual makes its claim fail.
+func (r Residual) Failing() bool { return r.rank() == 3 }
+
+// Compare is positive when a is worse than b, negative when better, and 0
+// when Worst has no reason to prefer either.
+func Compare(a, b Residual) int {
+	ra, rb := a.rank(), b.rank()
+	switch {
+	case ra != rb:
+		return ra - rb
+	case ra == 3:
+		return a.Size.Cmp(b.Size)
+	case ra == 1:
+		return b.Certified - a.Certified
+	}
+	return 0
+}
+
+// Decide states what a residual means for the claim: its verdict, method,
+// residual and note. samples is 0 for a single instance.
+func (r Residual) Decide(c *cells.Claim, samples int) {
+	every := "for this instance"
+	if samples > 0 {
+		every = fmt.Sprintf("on each of the %d samples", samples)
+	}
+	switch {
+	case r.Zero && r.Symbolic:
+		c.Verdict, c.Method = cells.Holds, PolyMethod
+		c.Note = "the expanded difference is the zero polynomial: a proof of the identity for all values of the variables"
+		if samples > 0 {
+			c.Note = fmt.Sprintf("the expanded difference is the zero polynomial on each of the %d samples: for each sample, a proof for all values of the variables; for the general statement, evidence, not a proof", samples)
+		}
+	case r.Zero && samples > 0:
+		c.Verdict = cells.Holds
+		c.Note = "exact zero residual " + every + ": each instance is proved; for the general statement this is evidence, not a proof"
+	case r.Zero:
+		c.Verdict = cells.Holds
+		c.Note = "exact zero residual: a proof for this instance"
+	case r.Certified > 0:
+		c.Verdict, c.Method, c.Digits = cells.HoldsToDigits, RealMethod, r.Certified
+		c.Note = fmt.Sprintf("certified |residual| < 10^-%d %s: evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision", r.Certified, every)
+	case r.Undecided:
+		c.Verdict, c.Method = cells.Undecided, RealMethod
+		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits="
+	case r.Symbolic:
+		c.Verdict, c.Method = cells.Fails, PolyMethod
+		c.Note = "the expanded difference is a non-zero polynomial"
+	case r.Real:
+		c.Verdict, c.Method = cells.Fails, RealMethod
+		c.Note = "the residual is certified non-zero: its enclosure excludes 0"
+	default:
+		c.Verdict = cells.Fails
+		c.Note = "exact non-zero residual"
+	}
+	c.Residual = r.Text
+}
+
+// Preview prints a polynomial, or its first terms and the count when long.
+func Preview(p *exact.Poly) string {
+	const shown = 6
+	s := p.String()
+	if p.Len() <= shown+2 {
+		return s
+	}
+	// Terms are separated by " + " and " - " at the top level of the text.
+	seps := 0
+	for i := 0; i+3 <= len(s); i++ {
+		if s[i] == ' ' && (s[i+1] == '+' || s[i+1] == '-') && s[i+2] == ' ' {
+			if seps++; seps == shown {
+				return fmt.Sprintf("%s + … (%d terms in all)", s[:i], p.Len())
+			}
+		}
+	}
+	return s
+}
+
+// Clip shortens s to at most n runes.
+func Clip(s string, n int) string {
+	r := []rune(s)
+	if len(r) <= n {
+		return s
+	}
+	return string(r[:n-1]) + "…"
+}

@@ -1,0 +1,65 @@
+package claim
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"math/big"
+	"math/rand/v2"
+	"testing"
+
+	"assay/cells"
+)
+
+// Merging is free of order and grouping: any split of per-sample tallies,
+// merged in any order, gives the tally of one sequential sweep. Ties
+// (equal residuals, equal slacks, equal digits lost) are frequent here.
+func TestTallyMergeIsOrderFree(t *testing.T) {
+	r := rand.New(rand.NewPCG(3, 4))
+	const n = 200
+	per := make([]Tally, n)
+	for k := range per {
+		size := big.NewRat(int64(r.IntN(4)), 1)
+		res := Residual{Text: fmt.Sprint("r", k), Size: size, Zero: size.Sign() == 0}
+		switch r.IntN(5) {
+		case 0:
+			res.Undecided, res.Zero = true, false
+		case 1:
+			res.Certified, res.Zero, res.Real = 10+r.IntN(3), false, true
+		}
+		it := &IdentityTally{}
+		it.Add(int64(k), res)
+		it.AddAudit(int64(k), cells.FloatAudit{DigitsLost: float64(r.IntN(3))})
+		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Verdict: cells.Holds}
+		per[k] = Tally{Computed: 1, Identity: it, Inequality: &InequalityTally{Smallest: []SampleSlack{sl}}}
+	}
+	var want Tally
+	for _, p := range per {
+		want.Merge(p)
+	}
+	// The first sample among equally bad ones is the one reported, as a
+	// plain scan k = 0, 1, … would report it.
+	first := 0
+	for k := range per {
+		if Compare(per[k].Identity.Worst.Residual(), per[first].Identity.Worst.Residual()) > 0 {
+			first = k
+		}
+	}
+	if want.Identity.Worst.K != int64(first) {
+		t.Errorf("worst sample %d, want the first of the worst, %d", want.Identity.Worst.K, first)
+	}
+	wantJSON, _ := json.Marshal(want)
+	for trial := 0; trial < 50; trial++ {
+		groups := make([]Tally, 1+r.IntN(6))
+		for _, k := range r.Perm(n) {
+			groups[r.IntN(len(groups))].Merge(per[k])
+		}
+		var got Tally
+		for _, g := range r.Perm(len(groups)) {
+			got.Merge(groups[g])
+		}
+		if gotJSON, _ := json.Marshal(got); !bytes.Equal(gotJSON, wantJSON) {
+			t.Fatalf("trial %d: merged tally differs:\n%s\n%s", trial, gotJSON, wantJSON)
+		}
+	}
+}

@@ -1,0 +1,211 @@
+package interp
+
+import (
+	"fmt"
+	"strings"
+
+	"github.com/go-python/gpython/py"
+)
+
+// Args are a call's arguments matched to its parameters by name.
+type Args struct {
+	fn       string
+	args     py.Tuple // the call as it was made
+	kw       py.StringDict
+	names    []string
+	values   []py.Object
+	rest     py.Tuple      // positional arguments beyond the named ones, with a "*name" parameter
+	keywords py.StringDict // keywords no parameter names, with a "**name" parameter
+}
+
+// Bind matches positional and keyword arguments to the parameters of the
+// function fn, written as in its signature: "name" must be given, "name="
+// may be left out, "*name" takes the positional arguments left over and
+// "**name" the keywords no parameter has. Every later reading is by name.
+func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, error) {
+	a := Args{fn: fn, args: args, kw: kw}
+	var required []bool
+	star, starStar := false, false
+	for _, p := range params {
+		switch {
+		case strings.HasPrefix(p, "**"):
+			starStar = true
+		case strings.HasPrefix(p, "*"):
+			star = true
+		default:
+			name, optional := strings.CutSuffix(p, "=")
+			a.names = append(a.names, name)
+			required = append(required, !optional)
+		}
+	}
+	a.values = make([]py.Object, len(a.names))
+	if len(args) > len(a.names) {
+		if !star {
+			return Args{}, py.ExceptionNewf(py.TypeError, "%s() takes at most %d arguments (%d given)", fn, len(a.names), len(args))
+		}
+		a.rest = args[len(a.names):]
+		args = args[:len(a.names)]
+	}
+	copy(a.values, args)
+	for k, v := range kw {
+		i := a.index(k)
+		if i < 0 {
+			if starStar {
+				if a.keywords == nil {
+					a.keywords = py.StringDict{}
+				}
+				a.keywords[k] = v
+				continue
+			}
+			return Args{}, py.ExceptionNewf(py.TypeError, "%s() has no argument %q (it takes %v)", fn, k, a.names)
+		}
+		if a.values[i] != nil {
+			return Args{}, py.ExceptionNewf(py.TypeError, "%s() got two values for %q", fn, k)
+		}
+		a.values[i] = v
+	}
+	for i, name := range a.names {
+		if required[i] && a.values[i] == nil {
+			return Args{}, py.ExceptionNewf(py.TypeError, "%s() is missing its argument %q", fn, name)
+		}
+	}
+	return a, nil
+}
+
+// Call is the call's arguments as they were given, to pass them on.
+func (a Args) Call() (py.Tuple, py.StringDict) { return a.args, a.kw }
+
+// Rest is the positional arguments a "*name" parameter took.
+func (a Args) Rest() py.Tuple { return a.rest }
+
+// Keywords is the keyword arguments a "**name" parameter took.
+func (a Args) Keywords() py.StringDict { return a.keywords }
+
+func (a Args) index(name string) int {
+	for i, n := range a.names {
+		if n == name {
+			return i
+		}
+	}
+	return -1
+}
+
+// Get is the argument of that name, or nil when it was not given.
+// Asking for a name the signature lacks is a fault in assay.
+func (a Args) Get(name string) py.Object {
+	i := a.index(name)
+	if i < 0 {
+		panic(fmt.Sprintf("%s() has no parameter %q", a.fn, name))
+	}
+	return a.values[i]
+}
+
+// Has reports whether the argument was given (None counts as given).
+func (a Args) Has(name string) bool { return a.Get(name) != nil }
+
+// Given reports whether the argument was given and is not None.
+func (a Args) Given(name string) bool {
+	o := a.Get(name)
+	return o != nil && o != py.None
+}
+
+// Int reads an integer argument, def when it is absent or None.
+func (a Args) Int(name string, def int64) (int64, error) {
+	return Int(a.fn, name, a.Get(name), def)
+}
+
+// String reads a string argument that must be given.
+func (a Args) String(name string) (string, error) {
+	return String(a.fn, name, a.Get(name))
+}
+
+// Bool reads True or False, def when it is absent or None.
+func (a Args) Bool(name string, def bool) (bool, error) {
+	return Bool(a.fn, name, a.Get(name), def)
+}
+
+// Text is str() of the argument, def when it is absent or None.
+func (a Args) Text(name, def string) string {
+	o := a.Get(name)
+	if o == nil || o == py.None {
+		return def
+	}
+	return Str(o)
+}
+
+// Int reads an optional integer: an int, or any value that is one exactly
+// (it answers __index__, as an integral rational does).
+func Int(fn, name string, o py.Object, def int64) (int64, error) {
+	if o == nil || o == py.None {
+		return def, nil
+	}
+	switch x := o.(type) {
+	case py.Int:
+		return int64(x), nil
+	case *py.BigInt:
+		if v, err := x.GoInt64(); err == nil {
+			return v, nil
+		}
+	case py.Bool:
+	case py.I__index__:
+		if v, err := x.M__index__(); err == nil {
+			return int64(v), nil
+		}
+	}
+	return 0, py.ExceptionNewf(py.TypeError, "%s(): %s must be an integer, got %s", fn, name, TypeName(o))
+}
+
+// String reads a string argument.
+func String(fn, name string, o py.Object) (string, error) {
+	s, ok := o.(py.String)
+	if !ok {
+		return "", py.ExceptionNewf(py.TypeError, "%s(): %s must be a string, got %s", fn, name, TypeName(o))
+	}
+	return string(s), nil
+}
+
+// Bool reads True or False, def when absent or None.
+func Bool(fn, name string, o py.Object, def bool) (bool, error) {
+	if o == nil || o == py.None {
+		return def, nil
+	}
+	b, ok := o.(py.Bool)
+	if !ok {
+		return false, py.ExceptionNewf(py.TypeError, "%s(): %s must be True or False", fn, name)
+	}
+	return bool(b), nil
+}
+
+// Str is str(o), or the type's name in angle brackets when o cannot print itself.
+func Str(o py.Object) string {
+	s, err := py.StrAsString(o)
+	if err != nil {
+		return fmt.Sprintf("<%s>", o.Type().Name)
+	}
+	return s
+}
+
+// TypeName names o's type as a message does: "a rational", "a list".
+func TypeName(o py.Object) string {
+	if o == nil {
+		return "nothing"
+	}
+	return "a " + o.Type().Name
+}
+
+// Callable reports whether o can be called.
+func Callable(o py.Object) bool {
+	_, ok := o.(py.I__call__)
+	return ok
+}
+
+// Items are the entries of a list or a tuple.
+func Items(o py.Object) ([]py.Object, bool) {
+	switch x := o.(type) {
+	case *py.List:
+		return x.Items, true
+	case py.Tuple:
+		return x, true
+	}
+	return nil, false
+}

@@ -1,0 +1,106 @@
+package session
+
+import (
+	"github.com/go-python/gpython/py"
+
+	"assay/kernel/interp"
+)
+
+// claimNames are the claim builtins, whose call sites are tagged with their line.
+var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true, "inequality": true}
+
+// claimBuiltin is a claim's implementation, told the notebook line of its call.
+type claimBuiltin func(line int, a interp.Args) (py.Object, error)
+
+// install puts the notebook's names into the builtins module.
+func (s *Session) install(b py.StringDict) {
+	b["print"] = interp.Func("print", "print(*values, sep=' ', end='\\n') writes to the cell's output", s.print)
+	s.env.Install(b)
+	for _, f := range []struct {
+		name   string
+		params []string
+		doc    string
+		fn     func(interp.Args) (py.Object, error)
+	}{
+		{"show", []string{"value", "label="}, "show(value, label=None) puts a value in the report", s.show},
+		{"table", []string{"rows", "header="}, "table(rows, header=None) puts a table in the report", s.table},
+		{"setup", []string{"precision=", "seed="}, "setup(precision=256, seed=1) sets notebook defaults; command-line flags win", s.setup},
+		{"plot", plotParams, plotDoc, s.plot},
+		{"sequence", []string{"f", "toward=", "steps=", "ratio="}, "sequence(f, toward=0, steps=30, ratio=1/2) -> [(t, f(t)), ...] along the same walk limit() takes", s.sequence},
+	} {
+		b[f.name] = bound(f.name, f.doc, f.params, f.fn)
+	}
+	claims := map[string]struct {
+		params []string
+		doc    string
+		fn     claimBuiltin
+	}{
+		"identity":      {identityParams, identityDoc, s.identity},
+		"factorization": {[]string{"name", "p", "factors"}, factorizationDoc, s.factorization},
+		"limit":         {limitParams, limitDoc, s.limit},
+		"inequality":    {inequalityParams, inequalityDoc, s.inequality},
+	}
+	at := func(name string, line func() int) *py.Method {
+		c := claims[name]
+		return bound(name, c.doc, c.params, func(a interp.Args) (py.Object, error) { return c.fn(line(), a) })
+	}
+	for name := range claims {
+		b[name] = at(name, func() int { return s.line })
+	}
+	b[interp.ClaimSite] = interp.Func(interp.ClaimSite, "internal: tags a claim call with its notebook line", func(args py.Tuple, kw py.StringDict) (py.Object, error) {
+		if len(args) != 2 {
+			return nil, py.ExceptionNewf(py.TypeError, "%s takes a line and a function", interp.ClaimSite)
+		}
+		line, _ := args[0].(py.Int)
+		fn := args[1]
+		m, ok := fn.(*py.Method)
+		if !ok || b[m.Name] != fn {
+			return fn, nil // the name was rebound by the notebook: call it as it is
+		}
+		if _, known := claims[m.Name]; !known {
+			return fn, nil
+		}
+		return at(m.Name, func() int { return int(line) }), nil
+	})
+}
+
+// bound makes a builtin that reads its arguments by name.
+func bound(name, doc string, params []string, fn func(interp.Args) (py.Object, error)) *py.Method {
+	return interp.Func(name, doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
+		a, err := interp.Bind(name, args, kw, params...)
+		if err != nil {
+			return nil, err
+		}
+		return fn(a)
+	})
+}
+
+func (s *Session) setup(a interp.Args) (py.Object, error) {
+	if a.Has("precision") {
+		p, err := a.Int("precision", 0)
+		if err != nil {
+			return nil, err
+		}
+		if p < 2 {
+			return nil, py.ExceptionNewf(py.ValueError, "setup(): precision must be at least 2 bits, got %d", p)
+		}
+		if p > int64(s.settings.MaxPrecision) {
+			return nil, py.ExceptionNewf(py.ValueError, "setup(): precision %d is above the precision cap of %d bits (raise it with --max-precision)", p, s.settings.MaxPrecision)
+		}
+		if !s.settings.PrecisionFixed {
+			s.settings.Precision = int(p)
+			s.precision = int(p)
+		}
+	}
+	if a.Has("seed") {
+		seed, err := a.Int("seed", 0)
+		if err != nil {
+			return nil, err
+		}
+		if !s.settings.SeedFixed {
+			s.settings.Seed = seed
+			s.env.SetSeed(seed)
+		}
+	}
+	return py.None, nil
+}

@@ -1,0 +1,195 @@
+package session
+
+import (
+	"fmt"
+	"math/big"
+	"time"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/cells"
+	"assay/kernel/claim"
+	"assay/kernel/interp"
+)
+
+const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs: exactly for numbers, polynomials
+and matrices, to the working precision for certified reals (digits=N sets it).
+identity(name, f) calls f() for (lhs, rhs).
+identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1.`
+
+var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree="}
+
+func (s *Session) identity(line int, a interp.Args) (py.Object, error) {
+	start := time.Now()
+	c, err := s.newClaim("identity", a.Get("name"), line)
+	if err != nil {
+		return nil, err
+	}
+	t, err := s.target("identity", a)
+	if err != nil {
+		return nil, err
+	}
+	companion := true
+	if a.Has("companion") {
+		b, ok := a.Get("companion").(py.Bool)
+		if !ok {
+			return nil, py.ExceptionNewf(py.TypeError, "identity(): companion must be True or False")
+		}
+		companion = bool(b)
+	}
+	if a.Has("over") { // sampled form
+		if a.Has("rhs") {
+			return nil, py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) takes no rhs")
+		}
+		zippel, err := schwartzZippel(a.Get("over"), a.Get("degree"))
+		if err != nil {
+			return nil, err
+		}
+		if err := s.sampled(&c, t, a.Get("lhs"), a.Get("over"), a.Get("samples"), companion, zippel); err != nil {
+			return nil, err
+		}
+		return s.record(c, start), nil
+	}
+	if a.Has("samples") || a.Has("degree") {
+		return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= and degree= need over= (the function making sample k)")
+	}
+	lhs, rhs := a.Get("lhs"), a.Get("rhs")
+	var call func() (py.Object, py.Object, error)
+	if rhs == nil {
+		f := lhs
+		if !interp.Callable(f) {
+			return nil, py.ExceptionNewf(py.TypeError, "identity(name, lhs, rhs) is missing rhs (or pass a function returning (lhs, rhs))")
+		}
+		call = func() (py.Object, py.Object, error) {
+			res, err := py.Call(f, nil, nil)
+			if err != nil {
+				return nil, nil, err
+			}
+			return pair(res, "the identity's function")
+		}
+		if lhs, rhs, err = call(); err != nil {
+			return nil, err
+		}
+	}
+	r, err := s.measure(t, lhs, rhs)
+	if err != nil {
+		return nil, err
+	}
+	r.Decide(&c, 0)
+	if call != nil && companion {
+		audit, skipped := s.companion(call, lhs, rhs)
+		c.Float = audit
+		if skipped != "" {
+			c.Note += "; " + skipped
+		}
+	}
+	if r.Real {
+		c.Precision = int(t.Bits)
+	}
+	return s.record(c, start), nil
+}
+
+// newClaim starts the record of a claim, checking that its name is new.
+func (s *Session) newClaim(kind string, name py.Object, line int) (cells.Claim, error) {
+	n, err := interp.String(kind, "name", name)
+	if err != nil {
+		return cells.Claim{}, err
+	}
+	if s.env.Sweeping {
+		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "%s(%q) inside a sampled claim's f or g: a claim cannot be made per sample; return both sides from f instead", kind, n)
+	}
+	s.elsewhere = 0
+	if prev, dup := s.claimAt[n]; dup {
+		return cells.Claim{}, py.ExceptionNewf(py.ValueError, "claim name %q is already used at line %d; give each claim its own name", n, prev)
+	}
+	return cells.Claim{Name: n, Kind: kind, Method: claim.ExactMethod, Seed: s.env.Seed(), Cell: s.cell, Line: line}, nil
+}
+
+// record files a decided claim with the cell and returns whether it holds.
+func (s *Session) record(c cells.Claim, start time.Time) py.Object {
+	c.Seconds = time.Since(start).Seconds() + s.elsewhere
+	s.elsewhere = 0
+	s.claimAt[c.Name] = c.Line
+	s.outcome.Claims = append(s.outcome.Claims, c)
+	return py.NewBool(c.Verdict == cells.Holds)
+}
+
+// sampled decides identity(name, f, over=g, samples=N).
+func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
+	if !interp.Callable(f) || !interp.Callable(over) {
+		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
+	}
+	n, err := sampleCount("identity", samples)
+	if err != nil {
+		return err
+	}
+	ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: n}
+	tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
+		began := time.Now()
+		it := &claim.IdentityTally{}
+		done, failed := s.sweep(ask, sh, f, over, func(k int64, msg string) {
+			// One sample that raises does not end the sweep: it makes the
+			// claim undecided, and the report names the sample.
+			it.Add(k, claim.Residual{Text: fmt.Sprintf("f raised: %s", claim.Clip(msg, 160)), Size: new(big.Rat), Undecided: true})
+			it.Raised++
+		}, func(k int64, sample, lhs, rhs py.Object) error {
+			r, err := s.measure(t, lhs, rhs)
+			if err != nil {
+				return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
+			}
+			it.Add(k, r)
+			if companion && it.Skip == nil {
+				audit, why := s.companion(s.floatCall(f, sample, k), lhs, rhs)
+				if why != "" {
+					it.Skip = &claim.SampleNote{K: k, Text: why}
+				} else {
+					it.AddAudit(k, *audit)
+				}
+			}
+			return nil
+		})
+		return claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Identity: it, Printed: s.printed}
+	})
+	if err != nil {
+		return err
+	}
+	if tally.Err != nil {
+		return raise(tally.Err)
+	}
+	it := tally.Identity
+	if it == nil || it.Worst == nil {
+		return py.ExceptionNewf(py.RuntimeError, "claim %q: the merged tally has no samples", c.Name)
+	}
+	w := it.Worst.Residual()
+	w.Symbolic, w.Real = it.Symbolic, it.Real
+	w.Decide(c, int(n))
+	c.Samples = int(n)
+	if w.Real {
+		c.Precision = int(t.Bits)
+	}
+	if c.Verdict != cells.Holds {
+		// Rebuild the worst sample (g is deterministic) rather than keep them all.
+		c.Worst = fmt.Sprintf("sample %d: %s", it.Worst.K, claim.Clip(sampleText(over, it.Worst.K), 200))
+	}
+	if it.Failing > 0 {
+		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, n)
+	}
+	if it.Raised > 0 && c.Verdict == cells.Undecided {
+		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", it.Raised, n)
+	} else if it.Raised > 0 {
+		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", it.Raised, n)
+	}
+	if c.Verdict == cells.Holds && zippel != nil {
+		c.Note += "; " + zippel(n)
+	}
+	c.Note += printedNote(tally)
+	switch {
+	case it.Skip != nil:
+		c.Note += "; " + it.Skip.Text
+	case it.Audit != nil:
+		audit := it.Audit.Audit
+		audit.Residual += fmt.Sprintf(" (at sample %d, where float64 lost most)", it.Audit.K)
+		c.Float = &audit
+	}
+	return nil
+}

@@ -1,0 +1,155 @@
+package session
+
+import (
+	"fmt"
+	"os"
+	"runtime/debug"
+	"strings"
+	"time"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/cells"
+	"assay/kernel/interp"
+	"assay/kernel/interp/pyext"
+	"assay/kernel/values"
+)
+
+// Settings are the run-wide defaults a session starts with.
+type Settings struct {
+	Seed      int64 `json:"seed"`
+	Precision int   `json:"precision"`
+	// SeedFixed and PrecisionFixed mean the command line set them, so a
+	// notebook's setup() cannot change them.
+	SeedFixed      bool `json:"seed_fixed,omitempty"`
+	PrecisionFixed bool `json:"precision_fixed,omitempty"`
+	// MaxTerms caps the terms of any polynomial (0: exact.DefaultMaxTerms).
+	MaxTerms int `json:"max_terms,omitempty"`
+	// MaxPrecision caps the bits of any certified-real refinement (0: DefaultMaxPrecision).
+	MaxPrecision int `json:"max_precision,omitempty"`
+	// Driven means a driver answers the kernel's exchanges: it splits
+	// sampled claims among workers and shards and merges their tallies.
+	Driven bool `json:"driven,omitempty"`
+}
+
+// DefaultMaxPrecision is the default cap, in bits, on refining a certified real
+// (about 39,000 decimal digits).
+const DefaultMaxPrecision = 1 << 17
+
+// DefaultSettings are used when neither flags nor setup() say otherwise.
+var DefaultSettings = Settings{Seed: 1, Precision: 256}
+
+// Session is one notebook's interpreter: one namespace shared by its cells.
+type Session struct {
+	sandbox  *interp.Sandbox
+	globals  py.StringDict
+	env      *values.Env
+	settings Settings
+	claimAt  map[string]int // claim name -> line where it was made
+	coord    Coordinator    // splits and merges sampled claims
+	printed  bool           // f or g printed during the sweep
+	// elsewhere is the time other kernels spent on the claim being made,
+	// when their result came whole (a merge of shard parts).
+	elsewhere float64
+
+	// Per-cell state, reset by Run.
+	cell      int
+	line      int
+	precision int // working precision in bits for this cell
+	out       strings.Builder
+	outcome   *cells.Outcome
+}
+
+// New makes a session with a fresh namespace.
+func New(s Settings) (*Session, error) {
+	if s.Precision == 0 {
+		s.Precision = DefaultSettings.Precision
+	}
+	if s.MaxPrecision == 0 {
+		s.MaxPrecision = DefaultMaxPrecision
+	}
+	env := values.NewEnv(s.MaxTerms, uint(s.MaxPrecision))
+	sb, err := interp.NewSandbox(env)
+	if err != nil {
+		return nil, err
+	}
+	pyext.Install(sb.Builtins())
+	sess := &Session{sandbox: sb, env: env, settings: s, claimAt: map[string]int{}, coord: solo{}}
+	sess.install(sb.Builtins().Globals)
+	stream := &outputStream{s: sess}
+	sys := sb.Sys()
+	for _, name := range []string{"stdout", "stderr", "__stdout__", "__stderr__"} {
+		sys[name] = stream
+	}
+	if sess.globals, err = sb.Main(); err != nil {
+		return nil, err
+	}
+	return sess, nil
+}
+
+// Settings reports the settings in force (setup() may have changed them).
+func (s *Session) Settings() Settings { return s.settings }
+
+// SetCoordinator gives the session the driver that splits its sampled claims.
+func (s *Session) SetCoordinator(c Coordinator) { s.coord = c }
+
+// Close releases the interpreter.
+func (s *Session) Close() { s.sandbox.Close() }
+
+// Cell is one cell to run.
+type Cell struct {
+	Index   int               `json:"cell"`
+	Line    int               `json:"line"` // notebook line of the first source line
+	Source  string            `json:"source"`
+	Options cells.CellOptions `json:"options"`
+}
+
+// Run executes one cell in the session's namespace and returns its outcome.
+// Go panics inside builtins become the cell's error, never a crash.
+func (s *Session) Run(c Cell) (out cells.Outcome) {
+	start := time.Now()
+	s.cell, s.line = c.Index, c.Line
+	s.out.Reset()
+	seed := s.settings.Seed
+	if c.Options.Seed != nil {
+		seed = *c.Options.Seed
+	}
+	s.env.StartCell(c.Index, seed)
+	s.precision = s.settings.Precision
+	if c.Options.Precision > 0 {
+		s.precision = c.Options.Precision
+	}
+	out = cells.Outcome{Cell: c.Index, Status: cells.Ran}
+	s.outcome = &out
+	if s.precision > s.settings.MaxPrecision {
+		out.Status = cells.Failed
+		out.Error = &cells.Problem{Cell: c.Index, Line: c.Line - 1, Message: fmt.Sprintf("precision=%d is above the precision cap of %d bits (raise it with --max-precision)", s.precision, s.settings.MaxPrecision)}
+		return out
+	}
+	defer func() {
+		if r := recover(); r != nil {
+			// Builtins and operators have their own guard; this one is the
+			// last resort. The Go stack goes to the kernel's standard error,
+			// for a developer, never into a report.
+			fmt.Fprintf(os.Stderr, "assay: internal error in cell %d: %v\n%s", c.Index, r, debug.Stack())
+			out.Status = cells.Failed
+			out.Error = &cells.Problem{Cell: c.Index, Line: c.Line, Message: fmt.Sprintf("internal error: %v (a fault in assay, not in the notebook)", r)}
+		}
+		out.Output = s.out.String()
+		out.Seconds = time.Since(start).Seconds()
+		s.outcome = nil
+	}()
+	code, err := interp.Compile(c.Index, c.Line, c.Source, claimNames)
+	if err == nil {
+		_, err = s.sandbox.RunCode(code, s.globals, s.globals, nil)
+	}
+	if err != nil {
+		out.Status = cells.Failed
+		line, msg := interp.Describe(err, c.Line)
+		if last := c.Line + strings.Count(strings.TrimRight(c.Source, "\n"), "\n"); line > last {
+			line = last // "unexpected EOF" points past the cell
+		}
+		out.Error = &cells.Problem{Cell: c.Index, Line: line, Message: msg}
+	}
+	return out
+}

@@ -1,0 +1,125 @@
+package session
+
+import (
+	"fmt"
+	"math"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/kernel/claim"
+	"assay/kernel/interp"
+	"assay/kernel/values"
+)
+
+// maxSamples bounds a sweep so a typo cannot run for hours.
+const maxSamples = 10_000_000
+
+// sampleCount reads samples=N (default 100) for a sampled claim.
+func sampleCount(fn string, samples py.Object) (int64, error) {
+	n, err := interp.Int(fn, "samples", samples, 100)
+	if err != nil {
+		return 0, err
+	}
+	if n < 1 || n > maxSamples {
+		return 0, py.ExceptionNewf(py.ValueError, "%s(): samples must be between 1 and %d, got %d", fn, maxSamples, n)
+	}
+	return n, nil
+}
+
+// sweep computes a sampled claim's share of samples: sample k = g(k),
+// then f(sample), whose pair goes to visit. A sample on which f raises
+// goes to raised and the sweep goes on; any other error ends the share and
+// is returned with its sample index.
+func (s *Session) sweep(a claim.Ask, sh claim.Share, f, g py.Object, raised func(k int64, msg string), visit func(k int64, sample, x, y py.Object) error) (int64, *claim.SweepError) {
+	s.env.Sweeping, s.printed = true, false
+	defer func() { s.env.Sweeping = false }()
+	var failed *claim.SweepError
+	done, _ := s.forShare(a, sh, func(k int64) error {
+		sample, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
+		if err != nil {
+			failed = &claim.SweepError{K: k, Type: "ValueError", Message: fmt.Sprintf("the sample generator raised at sample %d: %s", k, interp.Message(err))}
+			return err
+		}
+		res, err := py.Call(f, py.Tuple{sample}, nil)
+		if err != nil {
+			raised(k, interp.Message(err))
+			return nil
+		}
+		x, y, err := pair(res, fmt.Sprintf("f(sample %d)", k))
+		if err == nil {
+			err = visit(k, sample, x, y)
+		}
+		if err != nil {
+			failed = sweepError(k, err)
+		}
+		return err
+	})
+	return done, failed
+}
+
+// sweepError records an error that ended the sweep at sample k.
+func sweepError(k int64, err error) *claim.SweepError {
+	e := &claim.SweepError{K: k, Type: "ValueError", Message: interp.Message(err)}
+	if pe, ok := err.(*py.Exception); ok {
+		e.Type, e.Message = pe.Base.Name, interp.ExceptionMessage(pe)
+	}
+	return e
+}
+
+// raise turns a recorded sweep error back into the exception it was.
+func raise(e *claim.SweepError) error {
+	kinds := map[string]*py.Type{"TypeError": py.TypeError, "ValueError": py.ValueError,
+		"ZeroDivisionError": py.ZeroDivisionError, "ArithmeticError": py.ArithmeticError}
+	kind, ok := kinds[e.Type]
+	if !ok {
+		kind = py.ValueError
+	}
+	return py.ExceptionNewf(kind, "%s", e.Message)
+}
+
+// sampleText rebuilds sample k for the report (g is deterministic); on an
+// error it gives the message instead.
+func sampleText(g py.Object, k int64) string { return interp.Str(sampleAt(g, k)) }
+
+func sampleAt(g py.Object, k int64) py.Object {
+	v, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
+	if err != nil {
+		return py.String(interp.Message(err))
+	}
+	return v
+}
+
+// printedNote tells the reader that f or g printed during a sweep.
+func printedNote(t claim.Tally) string {
+	if !t.Printed {
+		return ""
+	}
+	return "; f or g printed during the sweep, and that text is left out of the report: samples may be computed by other kernels, in any order"
+}
+
+// schwartzZippel turns degree=d on a sampled identity into the statement
+// it licenses: a non-zero polynomial of total degree <= d vanishes at a
+// uniformly random point of S^n with probability at most d/|S|
+// (Schwartz 1980, Zippel 1979), so N independent zero samples leave a
+// false identity a chance of at most (d/|S|)^N.
+func schwartzZippel(over, degree py.Object) (func(n int64) string, error) {
+	if degree == nil || degree == py.None {
+		return nil, nil
+	}
+	d, err := interp.Int("identity", "degree", degree, 0)
+	if err != nil || d < 1 {
+		return nil, py.ExceptionNewf(py.ValueError, "identity(): degree must be a positive integer (the total degree of lhs - rhs)")
+	}
+	b, ok := over.(*values.Box)
+	if !ok || !b.Integer() {
+		return nil, py.ExceptionNewf(py.TypeError, "identity(): degree= needs over=box(dim, lo, hi) with integer points (denom=1), so the sample set S is known")
+	}
+	size := b.Hi - b.Lo + 1
+	return func(n int64) string {
+		if d >= size {
+			return fmt.Sprintf("Schwartz–Zippel gives nothing here: degree %d is not below |S| = %d", d, size)
+		}
+		log10 := float64(n) * math.Log10(float64(d)/float64(size))
+		return fmt.Sprintf("Schwartz–Zippel: a false polynomial identity of degree <= %d passes %d independent samples from {%d..%d}^%d with probability at most (%d/%d)^%d = 10^%.1f", d, n, b.Lo, b.Hi, b.Dim, d, size, n, log10)
+	}, nil
+}

@@ -1,0 +1,58 @@
+package values
+
+import (
+	"github.com/go-python/gpython/py"
+)
+
+// Quotient answers a / b exactly for exact numbers, where the interpreter
+// would make a float64 of int / int; in float64 code it leaves / to the
+// interpreter, as ordinary code would divide. Env is the interp.Arithmetic
+// of its session's sandbox.
+func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
+	if e.Float {
+		return nil, false, nil
+	}
+	x, ok1 := ExactOf(a)
+	y, ok2 := ExactOf(b)
+	if ok1 && !ok2 {
+		// int / polynomial would otherwise fail inside the int's own
+		// division with a message about float conversion.
+		if d, ok := b.(py.I__rtruediv__); ok && isNotebookValue(b) {
+			res, err := d.M__rtruediv__(a)
+			return res, res != py.NotImplemented || err != nil, err
+		}
+	}
+	if !ok1 || !ok2 {
+		return nil, false, nil
+	}
+	q, err := quotient(x, y)
+	if err != nil {
+		return nil, true, err
+	}
+	return e.Rational(q), true, nil
+}
+
+// Power answers int ** negative int with an exact rational.
+func (e *Env) Power(a, b py.Object) (py.Object, bool, error) {
+	if e.Float || !isExactScalar(a) {
+		return nil, false, nil
+	}
+	k, ok := ExactOf(b)
+	if !ok || k.Sign() >= 0 {
+		return nil, false, nil
+	}
+	if _, isRational := a.(*Rational); isRational {
+		return nil, false, nil // Rational.__pow__ answers already
+	}
+	res, err := e.power(a, b)
+	return res, true, err
+}
+
+// isNotebookValue reports whether o is one of the kernel's own value types.
+func isNotebookValue(o py.Object) bool {
+	switch o.(type) {
+	case *Rational, *Polynomial, *Matrix, *Real:
+		return true
+	}
+	return false
+}

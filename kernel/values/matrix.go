@@ -1,0 +1,738 @@
+package values
+
+import (
+	"fmt"
+	"math/big"
+	"strings"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/exact"
+	"assay/kernel/interp"
+)
+
+// Matrix is an exact matrix in a cell: over Q, or over Q[variables] when an
+// entry is a polynomial. Exactly one of q and p is set.
+type Matrix struct {
+	q   *exact.Matrix
+	p   *exact.PolyMatrix
+	env *Env
+}
+
+// MatrixType is the Python type of Matrix.
+var MatrixType = py.NewType("matrix", "An exact matrix of rationals or polynomials: matrix([[1, 2], [3, frac(1, 2)]]).")
+
+// Type returns MatrixType.
+func (m *Matrix) Type() *py.Type { return MatrixType }
+
+// RationalMatrix wraps a matrix over Q.
+func (e *Env) RationalMatrix(q *exact.Matrix) *Matrix { return &Matrix{q: q, env: e} }
+
+// PolyMatrix wraps a polynomial matrix, as a rational one when every entry is constant.
+func (e *Env) PolyMatrix(p *exact.PolyMatrix) *Matrix {
+	if q, ok := p.Constant(); ok {
+		return &Matrix{q: q, env: e}
+	}
+	return &Matrix{p: p, env: e}
+}
+
+// Rational is the matrix over Q, when it is one.
+func (m *Matrix) Rational() (*exact.Matrix, bool) { return m.q, m.q != nil }
+
+// Lifted is m over Q[variables].
+func (m *Matrix) Lifted() *exact.PolyMatrix {
+	if m.p != nil {
+		return m.p
+	}
+	return exact.PolyMatrixFrom(m.env.Ring, m.q)
+}
+
+func (m *Matrix) rows() int {
+	if m.q != nil {
+		return m.q.Rows()
+	}
+	return m.p.Rows()
+}
+
+func (m *Matrix) cols() int {
+	if m.q != nil {
+		return m.q.Cols()
+	}
+	return m.p.Cols()
+}
+
+// entry returns m[i, j] as a notebook value.
+func (m *Matrix) entry(i, j int) py.Object {
+	if m.q != nil {
+		return m.env.Rational(m.q.At(i, j))
+	}
+	return m.env.PolyResult(m.p.At(i, j))
+}
+
+// MatrixOf builds a matrix from a list of rows of exact numbers and polynomials.
+func (e *Env) MatrixOf(o py.Object) (*Matrix, error) {
+	if m, ok := o.(*Matrix); ok {
+		return m, nil
+	}
+	rows, err := Sequence(o, "matrix rows")
+	if err != nil {
+		return nil, err
+	}
+	if len(rows) == 0 {
+		return nil, py.ExceptionNewf(py.ValueError, "matrix needs at least one row")
+	}
+	grid := make([][]py.Object, len(rows))
+	symbolic := false
+	for i, row := range rows {
+		if grid[i], err = Sequence(row, fmt.Sprintf("row %d of the matrix", i)); err != nil {
+			return nil, err
+		}
+		for j, x := range grid[i] {
+			switch x.(type) {
+			case *Polynomial:
+				symbolic = true
+			default:
+				if !isExactScalar(x) {
+					return nil, py.ExceptionNewf(py.TypeError, "matrix entry [%d, %d] is %s, not an exact number or a polynomial%s", i, j, interp.TypeName(x), FloatHint(x))
+				}
+			}
+		}
+	}
+	if symbolic {
+		prows := make([][]*exact.Poly, len(grid))
+		for i, row := range grid {
+			prows[i] = make([]*exact.Poly, len(row))
+			for j, x := range row {
+				prows[i][j], _ = e.Poly(x)
+			}
+		}
+		p, err := exact.NewPolyMatrix(e.Ring, prows)
+		if err != nil {
+			return nil, interp.Exception(err)
+		}
+		return e.PolyMatrix(p), nil
+	}
+	qrows := make([][]*big.Rat, len(grid))
+	for i, row := range grid {
+		qrows[i] = make([]*big.Rat, len(row))
+		for j, x := range row {
+			qrows[i][j], _ = ExactOf(x)
+		}
+	}
+	q, err := exact.NewMatrix(qrows)
+	if err != nil {
+		return nil, interp.Exception(err)
+	}
+	return e.RationalMatrix(q), nil
+}
+
+// RationalMatrixArg reads a matrix argument that must have rational entries.
+func (e *Env) RationalMatrixArg(what string, o py.Object) (*exact.Matrix, error) {
+	m, err := e.MatrixOf(o)
+	if err != nil {
+		return nil, err
+	}
+	if m.q == nil {
+		return nil, symbolicRefusal(what)
+	}
+	return m.q, nil
+}
+
+// columnOrMatrix accepts a list of numbers (a column) or a matrix.
+func (e *Env) columnOrMatrix(o py.Object) (*exact.Matrix, bool, error) {
+	if m, ok := o.(*Matrix); ok {
+		if m.q == nil {
+			return nil, false, symbolicRefusal("solve")
+		}
+		return m.q, false, nil
+	}
+	items, err := Sequence(o, "right-hand side")
+	if err != nil {
+		return nil, false, err
+	}
+	rows := make([]py.Object, len(items))
+	for i, it := range items {
+		rows[i] = py.Tuple{it}
+	}
+	q, err := e.RationalMatrixArg("solve", py.NewListFromItems(rows))
+	return q, true, err
+}
+
+func symbolicRefusal(op string) error {
+	return py.ExceptionNewf(py.TypeError, "%s needs a matrix of rationals, and this one has polynomial entries; put values in first with M.at(a=…)", op)
+}
+
+func (e *Env) column(m *exact.Matrix, j int) *py.List {
+	out := make([]py.Object, m.Rows())
+	for i := range out {
+		out[i] = e.Rational(m.At(i, j))
+	}
+	return py.NewListFromItems(out)
+}
+
+func (e *Env) matrixBuiltins(b py.StringDict) {
+	setBuiltins(b, []builtin{
+		{"matrix", params("rows"), "matrix(rows) -> exact matrix over Q", e.matrix},
+		{"det", params("M"), "det(M) -> exact determinant of a square matrix", e.det},
+		{"unit_matrix", params("n"), "unit_matrix(n) -> the n x n identity matrix", e.unitMatrix},
+		{"random_matrix", params("rows", "cols", "bound=", "denom=", "seed="), "random_matrix(rows, cols, bound=10, denom=1, seed=None) -> matrix of random rationals p/q, |p| <= bound, 1 <= q <= denom", e.randomMatrix},
+	})
+}
+
+func (e *Env) matrix(a interp.Args) (py.Object, error) {
+	if e.Float {
+		return floatMatrixFromRows(a.Get("rows"))
+	}
+	return e.MatrixOf(a.Get("rows"))
+}
+
+func (e *Env) det(a interp.Args) (py.Object, error) {
+	if f, ok := a.Get("M").(*FloatMatrix); ok {
+		d, err := exact.FloatDet(f.m)
+		return py.Float(d), err
+	}
+	if e.Float {
+		f, err := floatMatrixFromRows(a.Get("M"))
+		if err != nil {
+			return nil, err
+		}
+		d, err := exact.FloatDet(f.m)
+		return py.Float(d), err
+	}
+	m, err := e.MatrixOf(a.Get("M"))
+	if err != nil {
+		return nil, err
+	}
+	if m.rows() != m.cols() {
+		return nil, py.ExceptionNewf(py.ValueError, "det needs a square matrix, got %dx%d", m.rows(), m.cols())
+	}
+	return m.det()
+}
+
+func (e *Env) unitMatrix(a interp.Args) (py.Object, error) {
+	n, err := a.Int("n", 0)
+	if err != nil {
+		return nil, err
+	}
+	if n < 1 || n > 10000 {
+		return nil, py.ExceptionNewf(py.ValueError, "unit_matrix(n) needs 1 <= n <= 10000, got %d", n)
+	}
+	return e.RationalMatrix(exact.Identity(int(n))), nil
+}
+
+func (e *Env) randomMatrix(a interp.Args) (py.Object, error) {
+	var n [4]int64
+	for i, spec := range []struct {
+		name string
+		def  int64
+	}{{"rows", 0}, {"cols", 0}, {"bound", 10}, {"denom", 1}} {
+		var err error
+		if n[i], err = a.Int(spec.name, spec.def); err != nil {
+			return nil, err
+		}
+	}
+	if n[0] < 1 || n[1] < 1 || n[0]*n[1] > 1<<20 || n[2] < 0 || n[3] < 1 {
+		return nil, py.ExceptionNewf(py.ValueError, "random_matrix needs rows, cols >= 1 (at most 2^20 entries), bound >= 0 and denom >= 1")
+	}
+	r, err := e.Rand(a.Get("seed"))
+	if err != nil {
+		return nil, err
+	}
+	m := exact.Zeros(int(n[0]), int(n[1]))
+	for i := 0; i < int(n[0]); i++ {
+		for j := 0; j < int(n[1]); j++ {
+			p := r.Int64N(2*n[2]+1) - n[2]
+			q := r.Int64N(n[3]) + 1
+			m.Set(i, j, big.NewRat(p, q))
+		}
+	}
+	return e.RationalMatrix(m), nil
+}
+
+func init() {
+	setMethods(MatrixType, []method[*Matrix]{
+		{"det", nil, "det() -> the exact determinant (expanded, for polynomial entries)", inFloatToo("det", (*Matrix).detMethod)},
+		{"rank", nil, "rank() -> the rank over Q", inFloatToo("rank", overQ("rank", (*Matrix).rank))},
+		{"transpose", nil, "transpose() -> the transposed matrix", inFloatToo("transpose", (*Matrix).transpose)},
+		{"inverse", nil, "inverse() -> the exact inverse; ZeroDivisionError if singular", inFloatToo("inverse", overQ("inverse", (*Matrix).inverse))},
+		{"solve", params("b"), "solve(b) -> x with M x = b; b a list (gives a list) or a matrix", inFloatToo("solve", overQ("solve", (*Matrix).solve))},
+		{"nullspace", nil, "nullspace() -> a list of basis vectors of {x : M x = 0}", inFloatToo("nullspace", overQ("nullspace", (*Matrix).nullspace))},
+		{"minor", params("rows", "cols"), "minor(rows, cols) -> determinant of the submatrix on those rows and columns", inFloatToo("minor", (*Matrix).minor)},
+		{"submatrix", params("rows", "cols"), "submatrix(rows, cols) -> the matrix on those rows and columns", inFloatToo("submatrix", (*Matrix).submatrixMethod)},
+		{"trace", nil, "trace() -> sum of the diagonal", inFloatToo("trace", (*Matrix).trace)},
+		{"rows", nil, "rows() -> the entries as a list of rows", inFloatToo("rows", (*Matrix).rowList)},
+		{"at", params("*values", "**values"), "M.at(a=2, b=3) -> the matrix with those values put in for the variables", inFloatToo("at", (*Matrix).at)},
+		{"characteristic_polynomial", params("variable"), "characteristic_polynomial(\"t\") -> det(t*I - M) as a polynomial in t", inFloatToo("characteristic_polynomial", overQ("characteristic_polynomial", (*Matrix).characteristicPolynomial))},
+		{"to_float", nil, "to_float() -> the float64 companion (gonum) of this matrix", inFloatToo("to_float", overQ("to_float", (*Matrix).toFloat))},
+	})
+	MatrixType.Dict["shape"] = &py.Property{Fget: func(self py.Object) (py.Object, error) {
+		m := self.(*Matrix)
+		return py.Tuple{py.Int(m.rows()), py.Int(m.cols())}, nil
+	}, Doc: "(rows, columns)"}
+}
+
+// inFloatToo makes a method run on the float64 companion in float64 code.
+func inFloatToo(name string, f func(*Matrix, interp.Args) (py.Object, error)) func(*Matrix, interp.Args) (py.Object, error) {
+	return func(m *Matrix, a interp.Args) (py.Object, error) {
+		if m.env.Float {
+			return m.floatMethod(name, a)
+		}
+		return f(m, a)
+	}
+}
+
+// overQ makes a method refuse matrices with polynomial entries.
+func overQ(name string, f func(*Matrix, interp.Args) (py.Object, error)) func(*Matrix, interp.Args) (py.Object, error) {
+	return func(m *Matrix, a interp.Args) (py.Object, error) {
+		if m.q == nil {
+			return nil, symbolicRefusal(name + "()")
+		}
+		return f(m, a)
+	}
+}
+
+func (m *Matrix) detMethod(interp.Args) (py.Object, error) { return m.det() }
+
+func (m *Matrix) rank(interp.Args) (py.Object, error) { return py.Int(m.q.Rank()), nil }
+
+func (m *Matrix) transpose(interp.Args) (py.Object, error) {
+	if m.q != nil {
+		return m.env.RationalMatrix(m.q.Transpose()), nil
+	}
+	return m.env.PolyMatrix(m.p.Transpose()), nil
+}
+
+func (m *Matrix) inverse(interp.Args) (py.Object, error) {
+	inv, err := m.q.Inverse()
+	if err != nil {
+		return nil, err
+	}
+	return m.env.RationalMatrix(inv), nil
+}
+
+func (m *Matrix) solve(a interp.Args) (py.Object, error) {
+	b, isVector, err := m.env.columnOrMatrix(a.Get("b"))
+	if err != nil {
+		return nil, err
+	}
+	x, err := m.q.Solve(b)
+	if err != nil {
+		return nil, err
+	}
+	if isVector {
+		return m.env.column(x, 0), nil
+	}
+	return m.env.RationalMatrix(x), nil
+}
+
+func (m *Matrix) nullspace(interp.Args) (py.Object, error) {
+	n := m.q.Nullspace()
+	out := make([]py.Object, n.Cols())
+	for j := range out {
+		out[j] = m.env.column(n, j)
+	}
+	return py.NewListFromItems(out), nil
+}
+
+func (m *Matrix) minor(a interp.Args) (py.Object, error) {
+	s, err := m.submatrix("minor", a)
+	if err != nil {
+		return nil, err
+	}
+	if s.rows() != s.cols() {
+		return nil, py.ExceptionNewf(py.ValueError, "minor needs as many rows as columns, got %d and %d", s.rows(), s.cols())
+	}
+	return s.det()
+}
+
+func (m *Matrix) submatrixMethod(a interp.Args) (py.Object, error) {
+	return m.submatrix("submatrix", a)
+}
+
+func (m *Matrix) trace(interp.Args) (py.Object, error) {
+	if m.rows() != m.cols() {
+		return nil, py.ExceptionNewf(py.ValueError, "trace needs a square matrix, got %dx%d", m.rows(), m.cols())
+	}
+	t := m.env.Ring.Const(new(big.Rat))
+	for i := 0; i < m.rows(); i++ {
+		e, _ := m.env.Poly(m.entry(i, i))
+		t = t.Add(e)
+	}
+	return m.env.PolyResult(t), nil
+}
+
+func (m *Matrix) rowList(interp.Args) (py.Object, error) {
+	rows := make([]py.Object, m.rows())
+	for i := range rows {
+		rows[i] = m.row(i)
+	}
+	return py.NewListFromItems(rows), nil
+}
+
+func (m *Matrix) at(a interp.Args) (py.Object, error) {
+	if err := byName(a, "at() takes values by name: M.at(a=2, b=3)"); err != nil {
+		return nil, err
+	}
+	if m.q != nil {
+		return m, nil
+	}
+	vals, err := m.env.keywordValues("at", a.Keywords())
+	if err != nil {
+		return nil, err
+	}
+	return m.env.PolyMatrix(m.p.Eval(vals)), nil
+}
+
+func (m *Matrix) characteristicPolynomial(a interp.Args) (py.Object, error) {
+	var t *exact.Poly
+	switch v := a.Get("variable").(type) {
+	case py.String:
+		var err error
+		if t, err = m.env.Ring.Var(string(v)); err != nil {
+			return nil, py.ExceptionNewf(py.ValueError, "characteristic_polynomial(): %v", err)
+		}
+	default:
+		i, err := m.env.variableIndex("characteristic_polynomial", v)
+		if err != nil {
+			return nil, err
+		}
+		t, _ = m.env.Ring.Var(m.env.Ring.Names()[i])
+	}
+	c, err := exact.CharacteristicPolynomial(m.q, t)
+	if err != nil {
+		return nil, err
+	}
+	return m.env.Polynomial(c), nil
+}
+
+func (m *Matrix) toFloat(interp.Args) (py.Object, error) { return &FloatMatrix{m: m.q.Float()}, nil }
+
+// det is the exact determinant: a rational, or an expanded polynomial.
+func (m *Matrix) det() (py.Object, error) {
+	if m.q != nil {
+		d, err := m.q.Det()
+		if err != nil {
+			return nil, err
+		}
+		return m.env.Rational(d), nil
+	}
+	d, err := m.p.Det()
+	if err != nil {
+		return nil, err
+	}
+	return m.env.PolyResult(d), nil
+}
+
+func (m *Matrix) submatrix(name string, a interp.Args) (*Matrix, error) {
+	r, err := indexList(a.Get("rows"), name+" rows")
+	if err != nil {
+		return nil, err
+	}
+	c, err := indexList(a.Get("cols"), name+" cols")
+	if err != nil {
+		return nil, err
+	}
+	if m.q != nil {
+		s, err := m.q.Submatrix(r, c)
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RationalMatrix(s), nil
+	}
+	s, err := m.p.Submatrix(r, c)
+	if err != nil {
+		return nil, err
+	}
+	return m.env.PolyMatrix(s), nil
+}
+
+func (m *Matrix) row(i int) *py.List {
+	row := make([]py.Object, m.cols())
+	for j := range row {
+		row[j] = m.entry(i, j)
+	}
+	return py.NewListFromItems(row)
+}
+
+// M__getitem__ reads M[i, j] (an entry) or M[i] (a row as a list).
+func (m *Matrix) M__getitem__(key py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__getitem__", &res, &err)
+	if m.env.Float && m.q != nil {
+		return (&FloatMatrix{m: m.q.Float()}).M__getitem__(key)
+	}
+	rows, cols := m.rows(), m.cols()
+	index := func(o py.Object, n int, what string) (int, error) {
+		k, err := py.Index(o)
+		if err != nil {
+			return 0, py.ExceptionNewf(py.TypeError, "matrix %s index must be an integer", what)
+		}
+		i := int(k)
+		if i < 0 {
+			i += n
+		}
+		if i < 0 || i >= n {
+			return 0, py.ExceptionNewf(py.IndexError, "matrix %s index %d out of range for a %dx%d matrix", what, int(k), rows, cols)
+		}
+		return i, nil
+	}
+	if t, ok := key.(py.Tuple); ok {
+		if len(t) != 2 {
+			return nil, py.ExceptionNewf(py.TypeError, "matrix index needs [row, column]")
+		}
+		i, err := index(t[0], rows, "row")
+		if err != nil {
+			return nil, err
+		}
+		j, err := index(t[1], cols, "column")
+		if err != nil {
+			return nil, err
+		}
+		return m.entry(i, j), nil
+	}
+	i, err := index(key, rows, "row")
+	if err != nil {
+		return nil, err
+	}
+	return m.row(i), nil
+}
+
+// M__len__ is the number of rows.
+func (m *Matrix) M__len__() (res py.Object, err error) {
+	defer interp.Recover("matrix.__len__", &res, &err)
+	return py.Int(m.rows()), nil
+}
+
+// arith combines two matrices, over Q when both are rational.
+func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error)) (py.Object, error) {
+	other, ok := o.(*Matrix)
+	if !ok {
+		return py.NotImplemented, nil
+	}
+	a, b := m, other
+	if swap {
+		a, b = b, a
+	}
+	if a.q != nil && b.q != nil {
+		r, err := q(a.q, b.q)
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RationalMatrix(r), nil
+	}
+	r, err := p(a.Lifted(), b.Lifted())
+	if err != nil {
+		return nil, err
+	}
+	return m.env.PolyMatrix(r), nil
+}
+
+// scale multiplies by an exact number or a polynomial.
+func (m *Matrix) scale(o py.Object) (py.Object, error) {
+	if s, ok := ExactOf(o); ok && m.q != nil {
+		return m.env.RationalMatrix(m.q.Scale(s)), nil
+	}
+	p, ok := m.env.Poly(o)
+	if !ok {
+		return py.NotImplemented, nil
+	}
+	r, err := m.Lifted().Scale(p)
+	if err != nil {
+		return nil, err
+	}
+	return m.env.PolyMatrix(r), nil
+}
+
+// M__add__ adds entrywise.
+func (m *Matrix) M__add__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__add__", &res, &err)
+	if m.env.Float {
+		return m.floatOperator(o, false, py.Add)
+	}
+	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add)
+}
+
+// M__sub__ subtracts entrywise.
+func (m *Matrix) M__sub__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__sub__", &res, &err)
+	if m.env.Float {
+		return m.floatOperator(o, false, py.Sub)
+	}
+	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub)
+}
+
+// M__mul__ is the matrix product, or scaling by a number or polynomial.
+func (m *Matrix) M__mul__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__mul__", &res, &err)
+	if m.env.Float {
+		return m.floatOperator(o, false, py.Mul)
+	}
+	if _, ok := o.(*Matrix); ok {
+		return m.arith(o, false, (*exact.Matrix).Mul, (*exact.PolyMatrix).Mul)
+	}
+	return m.scale(o)
+}
+
+// M__rmul__ scales by a number or polynomial on the left.
+func (m *Matrix) M__rmul__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__rmul__", &res, &err)
+	if m.env.Float {
+		return m.floatOperator(o, true, py.Mul)
+	}
+	return m.scale(o)
+}
+
+// M__truediv__ divides by an exact non-zero number.
+func (m *Matrix) M__truediv__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__truediv__", &res, &err)
+	s, ok := ExactOf(o)
+	if !ok {
+		return py.NotImplemented, nil
+	}
+	if s.Sign() == 0 {
+		return nil, py.ExceptionNewf(py.ZeroDivisionError, "matrix divided by zero")
+	}
+	return m.scale(m.env.Rational(new(big.Rat).Inv(s)))
+}
+
+// M__pow__ raises a square matrix to an integer power (negative: of the inverse).
+func (m *Matrix) M__pow__(o, mod py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__pow__", &res, &err)
+	k, err := py.Index(o)
+	if err != nil || mod != py.None {
+		return nil, py.ExceptionNewf(py.TypeError, "a matrix power needs an integer exponent")
+	}
+	if k > MaxExponent || k < -MaxExponent {
+		return nil, py.ExceptionNewf(py.OverflowError, "matrix exponent %d is too large (limit %d)", k, MaxExponent)
+	}
+	if m.q == nil {
+		if k < 0 {
+			return nil, symbolicRefusal("a negative power")
+		}
+		if m.rows() != m.cols() {
+			return nil, py.ExceptionNewf(py.ValueError, "a matrix power needs a square matrix, got %dx%d", m.rows(), m.cols())
+		}
+		r := exact.PolyMatrixFrom(m.env.Ring, exact.Identity(m.rows()))
+		for i := 0; i < int(k); i++ {
+			if r, err = r.Mul(m.p); err != nil {
+				return nil, err
+			}
+		}
+		return m.env.PolyMatrix(r), nil
+	}
+	p, err := m.q.Power(int(k))
+	if err != nil {
+		return nil, err
+	}
+	return m.env.RationalMatrix(p), nil
+}
+
+// M__neg__ negates every entry.
+func (m *Matrix) M__neg__() (res py.Object, err error) {
+	defer interp.Recover("matrix.__neg__", &res, &err)
+	return m.scale(py.Int(-1))
+}
+
+// M__eq__ is exact equality of shape and entries.
+func (m *Matrix) M__eq__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__eq__", &res, &err)
+	other, ok := o.(*Matrix)
+	if !ok {
+		return py.NotImplemented, nil
+	}
+	if m.q != nil && other.q != nil {
+		return py.NewBool(m.q.Equal(other.q)), nil
+	}
+	return py.NewBool(m.Lifted().Equal(other.Lifted())), nil
+}
+
+// M__ne__ is the negation of M__eq__.
+func (m *Matrix) M__ne__(o py.Object) (res py.Object, err error) {
+	defer interp.Recover("matrix.__ne__", &res, &err)
+	eq, err := m.M__eq__(o)
+	if err != nil || eq == py.NotImplemented {
+		return eq, err
+	}
+	return py.NewBool(eq == py.False), nil
+}
+
+// M__str__ lays the matrix out as aligned rows.
+func (m *Matrix) M__str__() (res py.Object, err error) {
+	defer interp.Recover("matrix.__str__", &res, &err)
+	cells := make([][]string, m.rows())
+	for i := range cells {
+		cells[i] = make([]string, m.cols())
+		for j := range cells[i] {
+			cells[i][j] = interp.Str(m.entry(i, j))
+		}
+	}
+	return py.String(grid(cells)), nil
+}
+
+// M__repr__ is the expression that rebuilds the matrix.
+func (m *Matrix) M__repr__() (res py.Object, err error) {
+	defer interp.Recover("matrix.__repr__", &res, &err)
+	if m.q != nil {
+		return py.String("matrix(" + m.q.String() + ")"), nil
+	}
+	return py.String("matrix(" + m.p.String() + ")"), nil
+}
+
+// grid right-aligns the columns of a table of strings inside brackets.
+func grid(cells [][]string) string {
+	if len(cells) == 0 {
+		return "[]"
+	}
+	width := make([]int, len(cells[0]))
+	for _, row := range cells {
+		for j, s := range row {
+			width[j] = max(width[j], len([]rune(s)))
+		}
+	}
+	var b strings.Builder
+	for i, row := range cells {
+		if i > 0 {
+			b.WriteByte('\n')
+		}
+		b.WriteString("[")
+		for j, s := range row {
+			b.WriteString(" ")
+			b.WriteString(strings.Repeat(" ", width[j]-len([]rune(s))))
+			b.WriteString(s)
+		}
+		b.WriteString(" ]")
+	}
+	return b.String()
+}
+
+// floatMethod runs a method on the float64 companion of m (float64 code).
+func (m *Matrix) floatMethod(name string, a interp.Args) (py.Object, error) {
+	fm, err := FloatValue(m)
+	if err != nil {
+		return nil, err
+	}
+	if _, ok := FloatMatrixType.Dict[name]; !ok {
+		return nil, NoCompanion("M." + name + "()")
+	}
+	attr, err := py.GetAttrString(fm, name)
+	if err != nil {
+		return nil, err
+	}
+	args, kw := a.Call()
+	return py.Call(attr, args, kw)
+}
+
+// floatOperator applies an operator to the float64 companion of m.
+func (m *Matrix) floatOperator(o py.Object, swap bool, op func(a, b py.Object) (py.Object, error)) (py.Object, error) {
+	fm, err := FloatValue(m)
+	if err != nil {
+		return nil, err
+	}
+	other, err := FloatValue(o)
+	if err != nil {
+		return nil, err
+	}
+	if swap {
+		return op(other, fm)
+	}
+	return op(fm, other)
+}

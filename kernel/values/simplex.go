@@ -1,0 +1,432 @@
+package values
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/exact"
+	"assay/exact/geom"
+	"assay/kernel/interp"
+)
+
+// Simplex is a simplex in a cell, given by points or squared distances.
+type Simplex struct {
+	s   *geom.Simplex
+	env *Env
+}
+
+// SimplexType is the Python type of Simplex.
+var SimplexType = py.NewType("simplex", "A simplex: simplex([[0, 0], [1, 0], [0, 1]]) or distance_simplex(D).")
+
+// Type returns SimplexType.
+func (s *Simplex) Type() *py.Type { return SimplexType }
+
+// Value is the simplex.
+func (s *Simplex) Value() *geom.Simplex { return s.s }
+
+// Simplex makes a notebook simplex.
+func (e *Env) Simplex(g *geom.Simplex) *Simplex { return &Simplex{s: g, env: e} }
+
+// geomErr names the builtin a geometry error came from.
+func geomErr(what string, err error) error {
+	switch {
+	case err == nil:
+		return nil
+	case errors.Is(err, geom.ErrDegenerate):
+		return fmt.Errorf("%s: the simplex is degenerate (zero volume): %w", what, err)
+	}
+	return fmt.Errorf("%s: %w", what, err)
+}
+
+// sqrtSum is Σ sqrt(q_i) as a certified real.
+func sqrtSum(qs []*big.Rat) *exact.Real {
+	sum := exact.RealFromRat(new(big.Rat))
+	for _, q := range qs {
+		sum = exact.RealAdd(sum, exact.RealSqrt(exact.RealFromRat(q)))
+	}
+	return sum
+}
+
+func (e *Env) simplexBuiltins(b py.StringDict) {
+	family := func(name, doc string, f func(*big.Rat) *geom.Simplex) builtin {
+		return builtin{name, params("t"), doc, func(a interp.Args) (py.Object, error) {
+			t, ok := ExactOf(a.Get("t"))
+			if !ok || t.Sign() <= 0 {
+				return nil, py.ExceptionNewf(py.ValueError, "%s(t) needs an exact t > 0 (it degenerates as t -> 0)", name)
+			}
+			return e.Simplex(f(t)), nil
+		}}
+	}
+	setBuiltins(b, e.exactOnly([]builtin{
+		{"simplex", params("points"), "simplex(points) -> the simplex with those vertices (rational coordinates, any dimension)", e.simplex},
+		{"distance_simplex", params("D"), "distance_simplex(D) -> the simplex with squared distances D (symmetric, zero diagonal)", e.distanceSimplex},
+		{"cayley_menger", params("D"), "cayley_menger(D) -> the bordered Cayley-Menger determinant of squared distances D (rationals or polynomials)", func(a interp.Args) (py.Object, error) {
+			return e.distanceFunction("cayley_menger", a.Get("D"), (*geom.Simplex).CayleyMenger, geom.CayleyMengerPoly)
+		}},
+		{"volume_sq", params("D"), "volume_sq(D) -> the squared volume of the simplex with squared distances D (rationals or polynomials)", func(a interp.Args) (py.Object, error) {
+			return e.distanceFunction("volume_sq", a.Get("D"), (*geom.Simplex).VolumeSq, geom.VolumeSqPoly)
+		}},
+		{"embeddable", params("D", "k"), "embeddable(D, k) -> (True, \"\") if squared distances D are realised by points in R^k, else (False, reason)", e.embeddable},
+		{"triangle_area_sq", params("a2", "b2", "c2"), "triangle_area_sq(a2, b2, c2) -> the squared area from the squared sides", e.triangleAreaSq},
+		{"tangent_lengths", params("a", "b", "c"), "tangent_lengths(a, b, c) -> [s-a, s-b, s-c] for the side lengths of a triangle", e.tangentLengths},
+		{"affine", params("s", "A", "t"), "affine(s, A, t) -> the simplex with every vertex x sent to A x + t", e.affine},
+		{"random_simplex", params("dim", "seed=", "bound=", "denom="), "random_simplex(dim, seed=None, bound=10, denom=1) -> a reproducible random non-degenerate simplex in R^dim", e.randomSimplex},
+		family("sliver", "sliver(t) -> a tetrahedron with four nearly coplanar, well-spread vertices: volume ~ t", geom.Sliver),
+		family("needle", "needle(t) -> a needle tetrahedron: three vertices close together (edges ~ t), the fourth far", geom.Needle),
+		family("cap", "cap(t) -> a cap tetrahedron: one vertex at height ~ t over the inside of the opposite face", geom.Cap),
+		family("wedge_tetrahedron", "wedge_tetrahedron(t) -> a wedge tetrahedron: two vertices collapse (one edge ~ t)", geom.WedgeTetrahedron),
+	}))
+}
+
+// exactOnly makes builtins refuse to run in float64 code: geometry has no
+// float64 companion yet, so the claim's audit is skipped and says why.
+func (e *Env) exactOnly(table []builtin) []builtin {
+	for i, f := range table {
+		name, fn := f.name, f.fn
+		table[i].fn = func(a interp.Args) (py.Object, error) {
+			if e.Float {
+				return nil, NoCompanion(name + "()")
+			}
+			return fn(a)
+		}
+	}
+	return table
+}
+
+func (e *Env) simplex(a interp.Args) (py.Object, error) {
+	items, err := Sequence(a.Get("points"), "simplex points")
+	if err != nil {
+		return nil, err
+	}
+	pts := make([][]*big.Rat, len(items))
+	for i, it := range items {
+		if pts[i], err = rationalVector(it, fmt.Sprintf("point %d", i)); err != nil {
+			return nil, err
+		}
+	}
+	g, err := geom.FromPoints(pts)
+	if err != nil {
+		return nil, geomErr("simplex", err)
+	}
+	return e.Simplex(g), nil
+}
+
+func (e *Env) distanceSimplex(a interp.Args) (py.Object, error) {
+	q, err := e.RationalMatrixArg("distance_simplex() (for indeterminate distances use cayley_menger(D) or volume_sq(D))", a.Get("D"))
+	if err != nil {
+		return nil, err
+	}
+	g, err := geom.FromSquaredDistances(q)
+	if err != nil {
+		return nil, geomErr("distance_simplex", err)
+	}
+	return e.Simplex(g), nil
+}
+
+// distanceFunction applies a function of squared distances, rational or polynomial.
+func (e *Env) distanceFunction(name string, d py.Object, q func(*geom.Simplex) *big.Rat, p func(*exact.PolyMatrix) (*exact.Poly, error)) (py.Object, error) {
+	if sx, ok := d.(*Simplex); ok {
+		return e.Rational(q(sx.s)), nil
+	}
+	m, err := e.MatrixOf(d)
+	if err != nil {
+		return nil, err
+	}
+	if m.q != nil {
+		g, err := geom.FromSquaredDistances(m.q)
+		if err != nil {
+			return nil, geomErr(name, err)
+		}
+		return e.Rational(q(g)), nil
+	}
+	r, err := p(m.p)
+	if err != nil {
+		return nil, err
+	}
+	return e.PolyResult(r), nil
+}
+
+func (e *Env) embeddable(a interp.Args) (py.Object, error) {
+	q, err := e.RationalMatrixArg("embeddable", a.Get("D"))
+	if err != nil {
+		return nil, err
+	}
+	k, err := a.Int("k", 0)
+	if err != nil || k < 0 {
+		return nil, py.ExceptionNewf(py.ValueError, "embeddable(D, k) needs a dimension k >= 0")
+	}
+	ok, reason, err := geom.Embeddable(q, int(k))
+	if err != nil {
+		return nil, geomErr("embeddable", err)
+	}
+	return py.Tuple{py.NewBool(ok), py.String(reason)}, nil
+}
+
+// sides reads a triangle's three (squared) sides.
+func sides(fn string, a interp.Args, names ...string) ([]*big.Rat, error) {
+	vals := make(py.Tuple, len(names))
+	for i, n := range names {
+		vals[i] = a.Get(n)
+	}
+	return rationalVector(vals, fn)
+}
+
+func (e *Env) triangleAreaSq(a interp.Args) (py.Object, error) {
+	v, err := sides("triangle_area_sq", a, "a2", "b2", "c2")
+	if err != nil {
+		return nil, err
+	}
+	area, err := geom.TriangleAreaSq(v[0], v[1], v[2])
+	if err != nil {
+		return nil, geomErr("triangle_area_sq", err)
+	}
+	return e.Rational(area), nil
+}
+
+func (e *Env) tangentLengths(a interp.Args) (py.Object, error) {
+	v, err := sides("tangent_lengths", a, "a", "b", "c")
+	if err != nil {
+		return nil, err
+	}
+	t, err := geom.TangentLengths(v[0], v[1], v[2])
+	if err != nil {
+		return nil, geomErr("tangent_lengths", err)
+	}
+	return e.list(t[:]), nil
+}
+
+func (e *Env) affine(a interp.Args) (py.Object, error) {
+	sx, ok := a.Get("s").(*Simplex)
+	if !ok {
+		return nil, py.ExceptionNewf(py.TypeError, "affine(s, A, t): s must be a simplex, got %s", interp.TypeName(a.Get("s")))
+	}
+	m, err := e.RationalMatrixArg("affine", a.Get("A"))
+	if err != nil {
+		return nil, err
+	}
+	t, err := rationalVector(a.Get("t"), "affine: t")
+	if err != nil {
+		return nil, err
+	}
+	g, err := sx.s.Affine(m, t)
+	if err != nil {
+		return nil, geomErr("affine", err)
+	}
+	return e.Simplex(g), nil
+}
+
+func (e *Env) randomSimplex(a interp.Args) (py.Object, error) {
+	dim, err := a.Int("dim", 0)
+	if err != nil {
+		return nil, err
+	}
+	bound, err := a.Int("bound", 10)
+	if err != nil {
+		return nil, err
+	}
+	denom, err := a.Int("denom", 1)
+	if err != nil {
+		return nil, err
+	}
+	if dim < 1 || dim > 64 || bound < 1 || denom < 1 {
+		return nil, py.ExceptionNewf(py.ValueError, "random_simplex needs 1 <= dim <= 64, bound >= 1 and denom >= 1")
+	}
+	r, err := e.Rand(a.Get("seed"))
+	if err != nil {
+		return nil, err
+	}
+	return e.Simplex(geom.Random(int(dim), r.Uint64(), bound, denom)), nil
+}
+
+func init() {
+	setMethods(SimplexType, exactMethods([]method[*Simplex]{
+		{"sq_edges", nil, "sq_edges()", func(s *Simplex, _ interp.Args) (py.Object, error) { return s.env.list(s.s.SqEdges()), nil }},
+		{"cayley_menger", nil, "cayley_menger()", func(s *Simplex, _ interp.Args) (py.Object, error) { return s.env.Rational(s.s.CayleyMenger()), nil }},
+		{"cayley_menger_matrix", nil, "cayley_menger_matrix()", func(s *Simplex, _ interp.Args) (py.Object, error) {
+			return s.env.RationalMatrix(s.s.CayleyMengerMatrix()), nil
+		}},
+		{"volume_sq", nil, "volume_sq()", func(s *Simplex, _ interp.Args) (py.Object, error) { return s.env.Rational(s.s.VolumeSq()), nil }},
+		{"volume", nil, "volume()", func(s *Simplex, _ interp.Args) (py.Object, error) {
+			return s.env.Real(exact.RealSqrt(exact.RealFromRat(s.s.VolumeSq()))), nil
+		}},
+		{"facet_areas_sq", nil, "facet_areas_sq()", func(s *Simplex, _ interp.Args) (py.Object, error) { return s.env.list(s.s.FacetContentsSq()), nil }},
+		{"gram", nil, "gram()", func(s *Simplex, _ interp.Args) (py.Object, error) { return s.env.RationalMatrix(s.s.Gram()), nil }},
+		{"dim", nil, "dim()", func(s *Simplex, _ interp.Args) (py.Object, error) { return py.Int(s.s.Dim()), nil }},
+		{"is_degenerate", nil, "is_degenerate()", func(s *Simplex, _ interp.Args) (py.Object, error) { return py.NewBool(s.s.IsDegenerate()), nil }},
+		{"points", nil, "points()", (*Simplex).points},
+		{"facet_area_vectors", nil, "facet_area_vectors()", (*Simplex).facetAreaVectors},
+		{"circumradius_sq", nil, "circumradius_sq()", (*Simplex).circumradiusSq},
+		{"circumcenter", nil, "circumcenter()", (*Simplex).circumcenter},
+		{"inradius", nil, "inradius()", (*Simplex).inradius},
+		{"incenter", nil, "incenter()", (*Simplex).incenter},
+		{"sq_edge", params("i", "j"), "sq_edge(i, j) -> the squared distance between vertices i and j", (*Simplex).sqEdge},
+		{"face", params("indices"), "face(indices) -> the face on those vertices", (*Simplex).face},
+		{"facet", params("i"), "facet(i) -> the facet opposite vertex i", (*Simplex).facet},
+		{"dihedral_cos", params("i", "j"), "dihedral_cos(i, j) -> cosine of the dihedral angle between the facets opposite i and j (exact when rational)", (*Simplex).dihedralCos},
+	}))
+}
+
+// exactMethods makes simplex methods refuse to run in float64 code.
+func exactMethods(table []method[*Simplex]) []method[*Simplex] {
+	for i, m := range table {
+		name, fn := m.name, m.fn
+		table[i].fn = func(s *Simplex, a interp.Args) (py.Object, error) {
+			if s.env.Float {
+				return nil, NoCompanion("simplex." + name + "()")
+			}
+			return fn(s, a)
+		}
+	}
+	return table
+}
+
+func (s *Simplex) points(interp.Args) (py.Object, error) {
+	pts, ok := s.s.Points()
+	if !ok {
+		return nil, py.ExceptionNewf(py.ValueError, "points(): this simplex was built from distances and has no coordinates")
+	}
+	out := make([]py.Object, len(pts))
+	for i, p := range pts {
+		out[i] = s.env.list(p)
+	}
+	return py.NewListFromItems(out), nil
+}
+
+func (s *Simplex) facetAreaVectors(interp.Args) (py.Object, error) {
+	vs, err := s.s.FacetAreaVectors()
+	if err != nil {
+		return nil, geomErr("facet_area_vectors", err)
+	}
+	out := make([]py.Object, len(vs))
+	for i, v := range vs {
+		out[i] = s.env.KVector(v)
+	}
+	return py.NewListFromItems(out), nil
+}
+
+func (s *Simplex) circumradiusSq(interp.Args) (py.Object, error) {
+	r, err := s.s.CircumradiusSq()
+	if err != nil {
+		return nil, geomErr("circumradius_sq", err)
+	}
+	return s.env.Rational(r), nil
+}
+
+func (s *Simplex) circumcenter(interp.Args) (py.Object, error) {
+	c, err := s.s.Circumcenter()
+	if err != nil {
+		return nil, geomErr("circumcenter", err)
+	}
+	return s.env.list(c), nil
+}
+
+func (s *Simplex) inradius(interp.Args) (py.Object, error) {
+	if s.s.IsDegenerate() {
+		return nil, geomErr("inradius", geom.ErrDegenerate)
+	}
+	k := big.NewRat(int64(s.s.Dim()), 1)
+	v := exact.RealMul(exact.RealFromRat(k), exact.RealSqrt(exact.RealFromRat(s.s.VolumeSq())))
+	return s.env.Real(exact.RealQuo(v, sqrtSum(s.s.FacetContentsSq()))), nil
+}
+
+func (s *Simplex) incenter(interp.Args) (py.Object, error) {
+	if s.s.IsDegenerate() {
+		return nil, geomErr("incenter", geom.ErrDegenerate)
+	}
+	pts, ok := s.s.Points()
+	if !ok {
+		return nil, py.ExceptionNewf(py.ValueError, "incenter(): this simplex was built from distances and has no coordinates")
+	}
+	areas := s.s.FacetContentsSq()
+	total := sqrtSum(areas)
+	out := make([]py.Object, len(pts[0]))
+	for c := range out {
+		sum := exact.RealFromRat(new(big.Rat))
+		for i, p := range pts {
+			w := exact.RealMul(exact.RealSqrt(exact.RealFromRat(areas[i])), exact.RealFromRat(p[c]))
+			sum = exact.RealAdd(sum, w)
+		}
+		out[c] = s.env.Real(exact.RealQuo(sum, total))
+	}
+	return py.NewListFromItems(out), nil
+}
+
+func (s *Simplex) sqEdge(a interp.Args) (py.Object, error) {
+	i, j, err := s.vertexPair("sq_edge", a)
+	if err != nil {
+		return nil, err
+	}
+	return s.env.Rational(s.s.SqEdge(i, j)), nil
+}
+
+func (s *Simplex) face(a interp.Args) (py.Object, error) {
+	idx, err := indexList(a.Get("indices"), "face indices")
+	if err != nil {
+		return nil, err
+	}
+	f, err := s.s.Face(idx)
+	if err != nil {
+		return nil, geomErr("face", err)
+	}
+	return s.env.Simplex(f), nil
+}
+
+func (s *Simplex) facet(a interp.Args) (py.Object, error) {
+	i, err := a.Int("i", 0)
+	if err != nil {
+		return nil, err
+	}
+	f, err := s.s.Facet(int(i))
+	if err != nil {
+		return nil, geomErr("facet", err)
+	}
+	return s.env.Simplex(f), nil
+}
+
+func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
+	i, j, err := s.vertexPair("dihedral_cos", a)
+	if err != nil {
+		return nil, err
+	}
+	cos2, sign, err := s.s.DihedralCosSq(i, j)
+	if err != nil {
+		return nil, geomErr("dihedral_cos", err)
+	}
+	c := exact.RealSqrt(exact.RealFromRat(cos2))
+	if sign < 0 {
+		c = exact.RealNeg(c)
+	}
+	return s.env.Real(c), nil
+}
+
+func (s *Simplex) vertexPair(name string, a interp.Args) (int, int, error) {
+	i, err1 := a.Int("i", 0)
+	j, err2 := a.Int("j", 0)
+	n := int64(s.s.Vertices())
+	if err1 != nil || err2 != nil || i < 0 || j < 0 || i >= n || j >= n || i == j {
+		return 0, 0, py.ExceptionNewf(py.ValueError, "%s(i, j) needs two different vertex indices below %d", name, n)
+	}
+	return int(i), int(j), nil
+}
+
+// M__str__ describes the simplex briefly.
+func (s *Simplex) M__str__() (res py.Object, err error) {
+	defer interp.Recover("simplex.__str__", &res, &err)
+	if pts, ok := s.s.Points(); ok {
+		rows := make([]string, len(pts))
+		for i, p := range pts {
+			rows[i] = interp.Str(s.env.list(p))
+		}
+		return py.String(fmt.Sprintf("simplex(%v)", rows)), nil
+	}
+	return py.String(fmt.Sprintf("distance_simplex(%s)", s.s.SqDistances())), nil
+}
+
+// M__repr__ prints the same as str.
+func (s *Simplex) M__repr__() (res py.Object, err error) {
+	defer interp.Recover("simplex.__repr__", &res, &err)
+	return s.M__str__()
+}
