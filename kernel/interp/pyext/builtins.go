@@ -5,17 +5,16 @@ import (
 	"math/big"
 
 	"github.com/go-python/gpython/py"
+
+	"assay/kernel/interp"
 )
 
-// installNumbers adds __format__ to the numeric types so that
-// x.__format__(spec) works as it does in CPython.
+// installNumbers gives the numeric types the __format__ that format() and
+// str.format call.
 func installNumbers() {
 	for _, t := range []*py.Type{py.IntType, py.BigIntType, py.FloatType, py.BoolType} {
-		t.Dict["__format__"] = newMethod("__format__", "x.__format__(format_spec) -> str", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-			if err := noKwargs("__format__", kwargs); err != nil {
-				return nil, err
-			}
-			if err := nargs("__format__", args, 1, 1); err != nil {
+		t.Dict["__format__"] = interp.Method("__format__", "__format__(spec): the number laid out by a format spec", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+			if err := positional("__format__", args, kwargs, 1, 1); err != nil {
 				return nil, err
 			}
 			spec, ok := args[0].(py.String)
@@ -27,92 +26,89 @@ func installNumbers() {
 	}
 }
 
-// installConstructors makes bool(x) callable (gpython's bool type has no
-// constructor), lets int() and float() convert a bool, and makes zip()
-// with no arguments return an empty iterator (gpython's loops forever).
-func installConstructors() {
-	for _, t := range []*py.Type{py.IntType, py.FloatType} {
-		if orig := t.New; orig != nil {
-			t.New = func(metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-				if len(args) == 1 {
-					if b, ok := args[0].(py.Bool); ok {
-						n := py.Int(0)
-						if b {
-							n = 1
-						}
-						args = py.Tuple{n}
-					}
-				}
-				return orig(metatype, args, kwargs)
-			}
-		}
-	}
-	if py.BoolType.New == nil {
-		py.BoolType.New = func(metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-			if err := noKwargs("bool", kwargs); err != nil {
-				return nil, err
-			}
-			if len(args) > 1 {
-				return nil, py.ExceptionNewf(py.TypeError, "bool expected at most 1 argument, got %d", len(args))
-			}
-			if len(args) == 0 {
-				return py.False, nil
-			}
-			t, err := truth(args[0])
-			if err != nil {
-				return nil, err
-			}
-			return py.NewBool(t), nil
-		}
-	}
-	if zipNew := py.ZipType.New; zipNew != nil {
-		py.ZipType.New = func(metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-			if len(args) == 0 {
-				// zip(()) is empty and still a zip object.
-				return zipNew(metatype, py.Tuple{py.Tuple{}}, kwargs)
-			}
-			return zipNew(metatype, args, kwargs)
-		}
+// patchNew replaces typ's constructor by fn, through interp's panic guard;
+// fn gets the constructor it replaces, nil when the type had none.
+func patchNew(typ *py.Type, fn func(orig py.NewFunc, metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error)) {
+	orig := typ.New
+	typ.New = func(metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		return interp.Guard(typ.Name+"()", func() (py.Object, error) { return fn(orig, metatype, args, kwargs) })
 	}
 }
 
-// builtin registers fn as the builtin name in the module.
-func builtin(m *py.Module, name, doc string, fn methodFunc) {
-	meth := newMethod(name, doc, fn)
+// installConstructors gives bool a constructor (upstream has none), lets
+// int() and float() take a bool, and makes zip() with no arguments empty
+// (upstream's never ends).
+func installConstructors() {
+	for _, t := range []*py.Type{py.IntType, py.FloatType} {
+		patchNew(t, func(orig py.NewFunc, metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+			if len(args) == 1 {
+				if b, ok := args[0].(py.Bool); ok {
+					args = py.Tuple{boolInt(b)}
+				}
+			}
+			return orig(metatype, args, kwargs)
+		})
+	}
+	patchNew(py.BoolType, func(_ py.NewFunc, _ *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		if err := positional("bool", args, kwargs, 0, 1); err != nil {
+			return nil, err
+		}
+		if len(args) == 0 {
+			return py.False, nil
+		}
+		t, err := truth(args[0])
+		if err != nil {
+			return nil, err
+		}
+		return py.NewBool(t), nil
+	})
+	patchNew(py.ZipType, func(orig py.NewFunc, metatype *py.Type, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		if len(args) == 0 {
+			// As zip of one empty sequence: empty, and still a zip object.
+			args = py.Tuple{py.Tuple{}}
+		}
+		return orig(metatype, args, kwargs)
+	})
+}
+
+// boolInt is the int a bool stands for.
+func boolInt(b py.Bool) py.Int {
+	if b {
+		return 1
+	}
+	return 0
+}
+
+// builtin stores fn in the module as the builtin name, through interp's
+// panic guard.
+func builtin(m *py.Module, name, doc string, fn func(args py.Tuple, kwargs py.StringDict) (py.Object, error)) {
+	meth := interp.Func(name, doc, fn)
 	meth.Module = m
 	m.Globals[name] = meth
 }
 
 func installBuiltins(m *py.Module) {
-	builtin(m, "round", roundDoc, builtinRound)
-	builtin(m, "callable", "callable(object) -> bool\n\nReturn whether the object is callable (i.e., some kind of function).", builtinCallable)
-	builtin(m, "format", "format(value[, format_spec]) -> string\n\nReturns value.__format__(format_spec); format_spec defaults to \"\".", builtinFormat)
-	builtin(m, "reversed", "reversed(sequence) -> reverse iterator over values of the sequence", builtinReversed)
-	builtin(m, "sorted", "sorted(iterable, key=None, reverse=False) --> new sorted list", builtinSorted)
-	builtin(m, "min", "min(iterable, *[, default=obj, key=func]) -> value\nmin(arg1, arg2, *args, *[, key=func]) -> value\n\nWith a single iterable argument, return its smallest item.", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	builtin(m, "round", "round(x, ndigits=None): x rounded to ndigits decimals, halves to even; an int when ndigits is left out", builtinRound)
+	builtin(m, "callable", "callable(x): whether x can be called", builtinCallable)
+	builtin(m, "format", "format(x, spec=''): x laid out by a format spec", builtinFormat)
+	builtin(m, "reversed", "reversed(seq): an iterator over seq from its last item to its first", builtinReversed)
+	builtin(m, "sorted", "sorted(items, key=None, reverse=False): a new list of the items in order; equal ones keep their order", builtinSorted)
+	builtin(m, "min", "min(items, key=None, default=...) or min(a, b, ...): the smallest, the first of equals", func(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		return minMax("min", args, kwargs, false)
 	})
-	builtin(m, "max", "max(iterable, *[, default=obj, key=func]) -> value\nmax(arg1, arg2, *args, *[, key=func]) -> value\n\nWith a single iterable argument, return its biggest item.", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	builtin(m, "max", "max(items, key=None, default=...) or max(a, b, ...): the largest, the first of equals", func(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		return minMax("max", args, kwargs, true)
 	})
 }
 
-const roundDoc = `round(number[, ndigits]) -> number
-
-Round a number to a given precision in decimal digits (default 0 digits).
-This returns an int when called with one argument, otherwise the
-same type as the number. ndigits may be negative. Halves round to even.`
-
-func builtinRound(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-	var number, ndigits py.Object = nil, py.None
-	if err := py.ParseTupleAndKeywords(args, kwargs, "O|O:round", []string{"number", "ndigits"}, &number, &ndigits); err != nil {
+func builtinRound(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	a, err := interp.Bind("round", args, kwargs, "number", "ndigits=")
+	if err != nil {
 		return nil, err
 	}
+	number, ndigits := a.Get("number"), a.Get("ndigits")
 	if b, ok := number.(py.Bool); ok {
-		number = py.Int(0)
-		if b {
-			number = py.Int(1)
-		}
+		number = boolInt(b)
 	}
 	if res, found, err := callUser(number, "__round__", argsIf(ndigits)...); found {
 		return res, err
@@ -239,26 +235,25 @@ func abs(n int) int {
 	return n
 }
 
-func builtinCallable(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-	if err := noKwargs("callable", kwargs); err != nil {
-		return nil, err
-	}
-	if err := nargs("callable", args, 1, 1); err != nil {
+func builtinCallable(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	if err := positional("callable", args, kwargs, 1, 1); err != nil {
 		return nil, err
 	}
 	o := args[0]
 	if isUserInstance(o) {
 		return py.NewBool(o.(*py.Type).ObjectType.NativeGetAttrOrNil("__call__") != nil), nil
 	}
-	_, ok := o.(py.I__call__)
-	return py.NewBool(ok), nil
+	return py.NewBool(interp.Callable(o)), nil
 }
 
-func builtinFormat(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-	var value py.Object
-	var spec py.Object = py.String("")
-	if err := py.ParseTupleAndKeywords(args, kwargs, "O|O:format", []string{"value", "format_spec"}, &value, &spec); err != nil {
+// builtinFormat takes its arguments by position only, as CPython's does.
+func builtinFormat(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	if err := positional("format", args, kwargs, 1, 2); err != nil {
 		return nil, err
+	}
+	value, spec := args[0], py.Object(py.String(""))
+	if len(args) == 2 {
+		spec = args[1]
 	}
 	s, ok := spec.(py.String)
 	if !ok {
@@ -267,11 +262,8 @@ func builtinFormat(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Obje
 	return formatObject(value, string(s))
 }
 
-func builtinReversed(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-	if err := noKwargs("reversed", kwargs); err != nil {
-		return nil, err
-	}
-	if err := nargs("reversed", args, 1, 1); err != nil {
+func builtinReversed(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	if err := positional("reversed", args, kwargs, 1, 1); err != nil {
 		return nil, err
 	}
 	seq := args[0]
@@ -324,7 +316,7 @@ func builtinReversed(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Ob
 	return reverse(items), nil
 }
 
-func builtinSorted(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+func builtinSorted(args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 	if len(args) != 1 {
 		return nil, py.ExceptionNewf(py.TypeError, "sorted expected 1 argument, got %d", len(args))
 	}

@@ -4,6 +4,8 @@ import (
 	"sort"
 
 	"github.com/go-python/gpython/py"
+
+	"assay/kernel/interp"
 )
 
 // gpython's dict is py.StringDict (type py.StringDictType), a Go map that
@@ -83,7 +85,7 @@ func updateDict(d py.StringDict, other py.Object) error {
 }
 
 func installDict() {
-	dictMethod("keys", 0, 0, "D.keys() -> list of D's keys (a list, not a view)", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("keys", 0, 0, "keys(): the keys, sorted, in a new list", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		keys := sortedKeys(d)
 		items := make([]py.Object, len(keys))
 		for i, k := range keys {
@@ -92,7 +94,7 @@ func installDict() {
 		return py.NewListFromItems(items), nil
 	})
 
-	dictMethod("values", 0, 0, "D.values() -> list of D's values (a list, not a view)", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("values", 0, 0, "values(): the values in a new list, in the order of keys()", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		keys := sortedKeys(d)
 		items := make([]py.Object, len(keys))
 		for i, k := range keys {
@@ -101,7 +103,7 @@ func installDict() {
 		return py.NewListFromItems(items), nil
 	})
 
-	dictMethod("items", 0, 0, "D.items() -> list of D's (key, value) pairs, as 2-tuples (a list, not a view)", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("items", 0, 0, "items(): the (key, value) pairs in a new list, in the order of keys()", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		keys := sortedKeys(d)
 		items := make([]py.Object, len(keys))
 		for i, k := range keys {
@@ -110,7 +112,7 @@ func installDict() {
 		return py.NewListFromItems(items), nil
 	})
 
-	dictMethod("get", 1, 2, "D.get(k[,d]) -> D[k] if k in D, else d.  d defaults to None.", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("get", 1, 2, "get(key, default=None): the value stored under key, or default", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		if k, ok := args[0].(py.String); ok {
 			if v, ok := d[string(k)]; ok {
 				return v, nil
@@ -122,7 +124,7 @@ func installDict() {
 		return py.None, nil
 	})
 
-	dictMethod("setdefault", 1, 2, "D.setdefault(k[,d]) -> D.get(k,d), also set D[k]=d if k not in D", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("setdefault", 1, 2, "setdefault(key, default=None): the value under key, storing default there first if key is absent", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		k, err := strKey(args[0])
 		if err != nil {
 			return nil, err
@@ -138,7 +140,7 @@ func installDict() {
 		return v, nil
 	})
 
-	dictMethod("pop", 1, 2, "D.pop(k[,d]) -> v, remove specified key and return the corresponding value.\nIf key is not found, d is returned if given, otherwise KeyError is raised", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("pop", 1, 2, "pop(key, default): remove key and return its value; default, or KeyError, if it is absent", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		if k, ok := args[0].(py.String); ok {
 			if v, ok := d[string(k)]; ok {
 				delete(d, string(k))
@@ -151,7 +153,7 @@ func installDict() {
 		return nil, keyError(args[0])
 	})
 
-	dictMethod("popitem", 0, 0, "D.popitem() -> (k, v), remove and return some (key, value) pair as a\n2-tuple; but raise KeyError if D is empty.", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("popitem", 0, 0, "popitem(): remove the pair with the last key in sorted order and return it", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		keys := sortedKeys(d)
 		if len(keys) == 0 {
 			return nil, py.ExceptionNewf(py.KeyError, "popitem(): dictionary is empty")
@@ -162,11 +164,7 @@ func installDict() {
 		return py.Tuple{py.String(k), v}, nil
 	})
 
-	py.StringDictType.Dict["update"] = newMethod("update", "D.update([E, ]**F) -> None.  Update D from dict/iterable E and F.", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		d, args, err := receiver[py.StringDict](py.StringDictType, "update", self, args)
-		if err != nil {
-			return nil, err
-		}
+	method(py.StringDictType, "update", "update(other=(), **kw): store the pairs of a dict, mapping or sequence of pairs, then the keywords", func(d py.StringDict, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		if err := nargs("update", args, 0, 1); err != nil {
 			return nil, err
 		}
@@ -181,11 +179,11 @@ func installDict() {
 		return py.None, nil
 	})
 
-	dictMethod("copy", 0, 0, "D.copy() -> a shallow copy of D", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("copy", 0, 0, "copy(): a new dict holding the same pairs", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		return d.Copy(), nil
 	})
 
-	dictMethod("clear", 0, 0, "D.clear() -> None.  Remove all items from D.", func(d py.StringDict, args py.Tuple) (py.Object, error) {
+	dictMethod("clear", 0, 0, "clear(): remove every pair", func(d py.StringDict, args py.Tuple) (py.Object, error) {
 		for k := range d {
 			delete(d, k)
 		}
@@ -194,11 +192,8 @@ func installDict() {
 
 	// fromkeys is a classmethod in CPython: dict.fromkeys(keys) and
 	// {}.fromkeys(keys) both work, so self is ignored.
-	py.StringDictType.Dict["fromkeys"] = newMethod("fromkeys", "dict.fromkeys(iterable[, value]) -> new dict with keys from iterable and values equal to value (default None).", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		if err := noKwargs("fromkeys", kwargs); err != nil {
-			return nil, err
-		}
-		if err := nargs("fromkeys", args, 1, 2); err != nil {
+	py.StringDictType.Dict["fromkeys"] = interp.Method("fromkeys", "fromkeys(keys, value=None): a new dict that maps every key to value", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		if err := positional("fromkeys", args, kwargs, 1, 2); err != nil {
 			return nil, err
 		}
 		var v py.Object = py.None

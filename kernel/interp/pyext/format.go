@@ -15,8 +15,9 @@ import (
 	"github.com/go-python/gpython/py"
 )
 
-// formatSpec is a parsed standard format specifier:
-// [[fill]align][sign][#][0][width][grouping][.precision][type]
+// formatSpec is a parsed standard format specifier: its optional parts
+// are, in order, a fill character with an alignment, a sign, '#', '0', a
+// width, a grouping separator, a precision after '.', and a type letter.
 type formatSpec struct {
 	fill       rune
 	fillSet    bool
@@ -207,11 +208,7 @@ func formatObject(v py.Object, spec string) (py.Object, error) {
 		if spec == "" {
 			return py.Str(x)
 		}
-		n := int64(0)
-		if x {
-			n = 1
-		}
-		s, err := formatInt(big.NewInt(n), spec, "bool")
+		s, err := formatInt(big.NewInt(int64(boolInt(x))), spec, "bool")
 		return py.String(s), err
 	case py.Int:
 		s, err := formatInt(big.NewInt(int64(x)), spec, "int")

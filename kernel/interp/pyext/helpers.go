@@ -3,41 +3,22 @@ package pyext
 import (
 	"fmt"
 	"reflect"
+	"slices"
 	"strings"
 
 	"github.com/go-python/gpython/py"
+
+	"assay/kernel/interp"
 )
 
-// methodFunc is the calling convention of every method and builtin this
-// package defines.
-type methodFunc func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error)
-
-// newMethod wraps fn so that a Go panic inside it becomes a Python
-// exception instead of taking the whole process down (gpython does not
-// recover panics raised by methods), and turns it into a *py.Method.
-func newMethod(name, doc string, fn methodFunc) *py.Method {
-	guarded := func(self py.Object, args py.Tuple, kwargs py.StringDict) (res py.Object, err error) {
-		defer func() {
-			if r := recover(); r != nil {
-				res = nil
-				if exc, ok := r.(*py.Exception); ok {
-					err = exc
-					return
-				}
-				err = py.ExceptionNewf(py.SystemError, "%s: internal error: %v", name, r)
-			}
-		}()
-		return fn(self, args, kwargs)
-	}
-	return py.MustNewMethod(name, guarded, 0, doc)
-}
-
-// noKwargs reports a TypeError if kwargs is not empty.
-func noKwargs(name string, kwargs py.StringDict) error {
+// positional checks the arguments of a function that, like most of
+// CPython's built-in ones, takes between min and max arguments by position
+// and none by keyword.
+func positional(name string, args py.Tuple, kwargs py.StringDict, min, max int) error {
 	if len(kwargs) != 0 {
 		return py.ExceptionNewf(py.TypeError, "%s() takes no keyword arguments", name)
 	}
-	return nil
+	return nargs(name, args, min, max)
 }
 
 // nargs checks the number of positional arguments.
@@ -63,16 +44,14 @@ func plural(n int) string {
 	return "s"
 }
 
-// typeName is the Python name of o's type.
+// typeName is the bare name of o's type. CPython's messages that pyext
+// reproduces quote it bare ("expected str instance, int found"), where
+// interp.TypeName reads as prose ("a list").
 func typeName(o py.Object) string {
-	if o == nil {
-		return "NULL"
-	}
-	t := o.Type()
-	if t == nil {
+	if o == nil || o.Type() == nil {
 		return "object"
 	}
-	return t.Name
+	return o.Type().Name
 }
 
 // isNone reports whether o is absent or None.
@@ -126,18 +105,9 @@ func callUser(o py.Object, name string, args ...py.Object) (res py.Object, found
 
 // iterate calls fn for every item of the iterable obj.
 func iterate(obj py.Object, fn func(py.Object) error) error {
-	switch x := obj.(type) {
-	case py.Tuple:
-		for _, item := range x {
-			if err := fn(item); err != nil {
-				return err
-			}
-		}
-		return nil
-	case *py.List:
-		// Snapshot so that fn may modify the list.
-		items := append([]py.Object(nil), x.Items...)
-		for _, item := range items {
+	if items, ok := interp.Items(obj); ok {
+		// A copy, so that fn may change the list (l.extend(l)).
+		for _, item := range slices.Clone(items) {
 			if err := fn(item); err != nil {
 				return err
 			}
@@ -212,6 +182,26 @@ func sameObject(a, b py.Object) bool {
 	return false
 }
 
+// userCompare asks Python classes for a op b: a's method op, then b's
+// reflected method. found is false when neither is defined or both answer
+// NotImplemented.
+func userCompare(a, b py.Object, op, reflected string) (result, found bool, err error) {
+	for _, c := range []struct {
+		self, other py.Object
+		name        string
+	}{{a, b, op}, {b, a, reflected}} {
+		res, defined, err := callUser(c.self, c.name, c.other)
+		if err != nil {
+			return false, true, err
+		}
+		if defined && res != py.NotImplemented {
+			result, err := truth(res)
+			return result, true, err
+		}
+	}
+	return false, false, nil
+}
+
 // eqObjects is Python's "a is b or a == b", as used by list.index,
 // list.count, list.remove and the in operator of containers.
 func eqObjects(a, b py.Object) (bool, error) {
@@ -221,21 +211,8 @@ func eqObjects(a, b py.Object) (bool, error) {
 	if sameObject(a, b) {
 		return true, nil
 	}
-	if res, found, err := callUser(a, "__eq__", b); found {
-		if err != nil {
-			return false, err
-		}
-		if res != py.NotImplemented {
-			return truth(res)
-		}
-	}
-	if res, found, err := callUser(b, "__eq__", a); found {
-		if err != nil {
-			return false, err
-		}
-		if res != py.NotImplemented {
-			return truth(res)
-		}
+	if eq, found, err := userCompare(a, b, "__eq__", "__eq__"); found || err != nil {
+		return eq, err
 	}
 	if isUserInstance(a) || isUserInstance(b) {
 		return false, nil
@@ -270,21 +247,8 @@ func lessThan(a, b py.Object) (bool, error) {
 			return seqLess(x.Items, y.Items)
 		}
 	}
-	if res, found, err := callUser(a, "__lt__", b); found {
-		if err != nil {
-			return false, err
-		}
-		if res != py.NotImplemented {
-			return truth(res)
-		}
-	}
-	if res, found, err := callUser(b, "__gt__", a); found {
-		if err != nil {
-			return false, err
-		}
-		if res != py.NotImplemented {
-			return truth(res)
-		}
+	if lt, found, err := userCompare(a, b, "__lt__", "__gt__"); found || err != nil {
+		return lt, err
 	}
 	if isUserInstance(a) || isUserInstance(b) {
 		return false, py.ExceptionNewf(py.TypeError, "'<' not supported between instances of '%s' and '%s'", typeName(a), typeName(b))
@@ -317,10 +281,7 @@ func keyError(key py.Object) error {
 // toInt converts an object supporting __index__ to a Go int.
 func toInt(o py.Object) (int, error) {
 	if b, ok := o.(py.Bool); ok {
-		if b {
-			return 1, nil
-		}
-		return 0, nil
+		return int(boolInt(b)), nil
 	}
 	return py.IndexInt(o)
 }
@@ -376,18 +337,24 @@ func receiver[T py.Object](typ *py.Type, name string, self py.Object, args py.Tu
 	return v, args[1:], nil
 }
 
-// positionalMethod registers a method of typ taking positional arguments
-// only, at least min and at most max of them.
-func positionalMethod[T py.Object](typ *py.Type, name string, min, max int, doc string, fn func(self T, args py.Tuple) (py.Object, error)) {
-	typ.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+// method registers a method of typ through interp's panic guard; fn gets
+// the receiver whether the call was bound or made through the type.
+func method[T py.Object](typ *py.Type, name, doc string, fn func(self T, args py.Tuple, kwargs py.StringDict) (py.Object, error)) {
+	typ.Dict[name] = interp.Method(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		v, args, err := receiver[T](typ, name, self, args)
 		if err != nil {
 			return nil, err
 		}
-		if err := noKwargs(name, kwargs); err != nil {
-			return nil, err
-		}
-		if err := nargs(name, args, min, max); err != nil {
+		return fn(v, args, kwargs)
+	})
+}
+
+// positionalMethod registers a method of typ taking positional arguments
+// only, at least min and at most max of them, as CPython's methods of the
+// built-in types do.
+func positionalMethod[T py.Object](typ *py.Type, name string, min, max int, doc string, fn func(self T, args py.Tuple) (py.Object, error)) {
+	method(typ, name, doc, func(v T, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		if err := positional(name, args, kwargs, min, max); err != nil {
 			return nil, err
 		}
 		return fn(v, args)

@@ -1,6 +1,7 @@
 package pyext
 
 import (
+	"slices"
 	"sort"
 
 	"github.com/go-python/gpython/py"
@@ -111,12 +112,12 @@ func sortArgs(name string, kwargs py.StringDict) (key py.Object, reverse bool, e
 }
 
 func installList() {
-	listMethod("append", 1, 1, "L.append(object) -> None -- append object to end", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("append", 1, 1, "append(x): add x at the end", func(l *py.List, args py.Tuple) (py.Object, error) {
 		l.Items = append(l.Items, args[0])
 		return py.None, nil
 	})
 
-	listMethod("extend", 1, 1, "L.extend(iterable) -> None -- extend list by appending elements from the iterable", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("extend", 1, 1, "extend(items): add every item of an iterable at the end", func(l *py.List, args py.Tuple) (py.Object, error) {
 		items, err := collect(args[0])
 		if err != nil {
 			return nil, err
@@ -125,7 +126,7 @@ func installList() {
 		return py.None, nil
 	})
 
-	listMethod("pop", 0, 1, "L.pop([index]) -> item -- remove and return item at index (default last).\nRaises IndexError if list is empty or index is out of range.", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("pop", 0, 1, "pop(i=-1): remove item i and return it", func(l *py.List, args py.Tuple) (py.Object, error) {
 		n := len(l.Items)
 		if n == 0 {
 			return nil, py.ExceptionNewf(py.IndexError, "pop from empty list")
@@ -148,7 +149,7 @@ func installList() {
 		return item, nil
 	})
 
-	listMethod("insert", 2, 2, "L.insert(index, object) -- insert object before index", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("insert", 2, 2, "insert(i, x): put x in front of item i", func(l *py.List, args py.Tuple) (py.Object, error) {
 		i, err := toInt(args[0])
 		if err != nil {
 			return nil, err
@@ -169,7 +170,7 @@ func installList() {
 		return py.None, nil
 	})
 
-	listMethod("index", 1, 3, "L.index(value, [start, [stop]]) -> integer -- return first index of value.\nRaises ValueError if the value is not present.", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("index", 1, 3, "index(x, start=0, end=len): where the first item equal to x is; ValueError if none is", func(l *py.List, args py.Tuple) (py.Object, error) {
 		i, err := indexOf(l.Items, args[0], args[1:])
 		if err != nil {
 			return nil, err
@@ -184,7 +185,7 @@ func installList() {
 		return py.Int(i), nil
 	})
 
-	listMethod("remove", 1, 1, "L.remove(value) -> None -- remove first occurrence of value.\nRaises ValueError if the value is not present.", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("remove", 1, 1, "remove(x): delete the first item equal to x; ValueError if none is", func(l *py.List, args py.Tuple) (py.Object, error) {
 		i, err := indexOf(l.Items, args[0], nil)
 		if err != nil {
 			return nil, err
@@ -196,31 +197,25 @@ func installList() {
 		return py.None, nil
 	})
 
-	listMethod("count", 1, 1, "L.count(value) -> integer -- return number of occurrences of value", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("count", 1, 1, "count(x): how many items equal x", func(l *py.List, args py.Tuple) (py.Object, error) {
 		return countOf(l.Items, args[0])
 	})
 
-	listMethod("reverse", 0, 0, "L.reverse() -- reverse *IN PLACE*", func(l *py.List, args py.Tuple) (py.Object, error) {
-		for i, j := 0, len(l.Items)-1; i < j; i, j = i+1, j-1 {
-			l.Items[i], l.Items[j] = l.Items[j], l.Items[i]
-		}
+	listMethod("reverse", 0, 0, "reverse(): turn the list back to front, in place", func(l *py.List, args py.Tuple) (py.Object, error) {
+		slices.Reverse(l.Items)
 		return py.None, nil
 	})
 
-	listMethod("copy", 0, 0, "L.copy() -> list -- a shallow copy of L", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("copy", 0, 0, "copy(): a new list holding the same items", func(l *py.List, args py.Tuple) (py.Object, error) {
 		return py.NewListFromItems(append([]py.Object(nil), l.Items...)), nil
 	})
 
-	listMethod("clear", 0, 0, "L.clear() -> None -- remove all items from L", func(l *py.List, args py.Tuple) (py.Object, error) {
+	listMethod("clear", 0, 0, "clear(): remove every item", func(l *py.List, args py.Tuple) (py.Object, error) {
 		l.Items = []py.Object{}
 		return py.None, nil
 	})
 
-	py.ListType.Dict["sort"] = newMethod("sort", "L.sort(key=None, reverse=False) -> None -- stable sort *IN PLACE*", func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		l, args, err := receiver[*py.List](py.ListType, "sort", self, args)
-		if err != nil {
-			return nil, err
-		}
+	method(py.ListType, "sort", "sort(key=None, reverse=False): put the items in order, in place; equal ones keep their order", func(l *py.List, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		if len(args) != 0 {
 			return nil, py.ExceptionNewf(py.TypeError, "sort() takes no positional arguments")
 		}
@@ -233,28 +228,7 @@ func installList() {
 }
 
 func installTuple() {
-	tupleMethod := func(name string, min, max int, doc string, fn func(t py.Tuple, args py.Tuple) (py.Object, error)) {
-		py.TupleType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-			t, ok := self.(py.Tuple)
-			if !ok {
-				if len(args) == 0 {
-					return nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' of 'tuple' object needs an argument", name)
-				}
-				if t, ok = args[0].(py.Tuple); !ok {
-					return nil, py.ExceptionNewf(py.TypeError, "descriptor '%s' requires a 'tuple' object but received a '%s'", name, typeName(args[0]))
-				}
-				args = args[1:]
-			}
-			if err := noKwargs(name, kwargs); err != nil {
-				return nil, err
-			}
-			if err := nargs(name, args, min, max); err != nil {
-				return nil, err
-			}
-			return fn(t, args)
-		})
-	}
-	tupleMethod("index", 1, 3, "T.index(value, [start, [stop]]) -> integer -- return first index of value.\nRaises ValueError if the value is not present.", func(t py.Tuple, args py.Tuple) (py.Object, error) {
+	positionalMethod(py.TupleType, "index", 1, 3, "index(x, start=0, end=len): where the first item equal to x is; ValueError if none is", func(t py.Tuple, args py.Tuple) (py.Object, error) {
 		i, err := indexOf(t, args[0], args[1:])
 		if err != nil {
 			return nil, err
@@ -264,7 +238,7 @@ func installTuple() {
 		}
 		return py.Int(i), nil
 	})
-	tupleMethod("count", 1, 1, "T.count(value) -> integer -- return number of occurrences of value", func(t py.Tuple, args py.Tuple) (py.Object, error) {
+	positionalMethod(py.TupleType, "count", 1, 1, "count(x): how many items equal x", func(t py.Tuple, args py.Tuple) (py.Object, error) {
 		return countOf(t, args[0])
 	})
 }

@@ -1,23 +1,40 @@
-// Package pyext fills gaps in gpython (github.com/go-python/gpython), the
-// Python 3.4-syntax interpreter that assay embeds to run notebook cells.
+// Package pyext closes the gaps between upstream gpython, the interpreter
+// that runs notebook cells, and the Python 3 that notebook authors expect.
 //
-// gpython's str, list, dict and tuple types lack many everyday methods
-// ("x".upper(), ",".join(...), "{:.2f}".format(...), l.pop(), d.update(...),
-// ...) and some builtins are missing or wrong (round(2.5) returns 2.0 and
-// round(2.7) returns 2.0, callable, format and reversed are absent, sorted
-// and max cannot compare tuples, bool(x) cannot be called, int(True)
-// fails, zip() never returns). Install adds Go implementations of these
-// that follow CPython 3 semantics.
+// What it adds, each piece written for assay to CPython 3's documented
+// behaviour:
 //
-// Methods are stored in gpython's process-wide type dictionaries
-// (py.StringType.Dict, py.ListType.Dict, py.StringDictType.Dict,
-// py.TupleType.Dict, ...), so they are shared by every py.Context of the
-// process. Builtins are stored in the Globals of the builtins module passed
-// to Install, which is per-context.
+//   - str: the methods upstream lacks (format and format_map with the
+//     format-spec mini-language, title, zfill, center, partition,
+//     splitlines, rsplit, the is… tests, …), and its own count, find,
+//     startswith, endswith, split, replace, strip, lstrip, rstrip, upper and
+//     lower, which upstream gets wrong: start and end arguments (negative,
+//     None, counted in characters), None or a bool for an argument,
+//     maxsplit=-1, stray arguments, and calls through the type such as
+//     map(str.strip, lines), which panic. join differs only in that last
+//     point, so pyext gives it its receiver and leaves the work to upstream.
+//   - list and tuple: pop, insert, index, remove, count, reverse, copy,
+//     clear; extend with any iterable; append through the type; sort that
+//     orders tuples and lists.
+//   - dict: setdefault, pop, popitem, update, copy, clear, fromkeys; get with
+//     a key that is not a str; keys, values and items as lists that agree in
+//     order (sorted, since upstream keeps no insertion order).
+//   - int, float and bool: __format__; bool(x); int(True) and float(True);
+//     zip() with no arguments, whose iterator upstream never ends.
+//   - builtins: callable, format and reversed, which upstream lacks; round
+//     returning an int with halves to even; sorted, min and max that order
+//     tuples, lists and Python classes with __lt__, and take any key.
 //
-// Gaps that live in gpython's Go methods (operators such as % and <, reprs,
-// dict keys that are not str, ...) cannot be reached from outside gpython
-// and are left alone; TestKnownGaps lists them.
+// The tests probe raw upstream for each of these before installing them
+// and fail once upstream has caught up, so that pyext's version can go.
+//
+// Gaps inside gpython's Go code (the % operator, operators of Python
+// classes, dicts with keys that are not str, some reprs) cannot be reached
+// from here; TestGaps lists them too.
+//
+// Methods go into gpython's type dictionaries, which every context of the
+// process shares; builtins go into one context's builtins module. Every
+// piece runs through interp's panic guard.
 package pyext
 
 import (
@@ -28,18 +45,13 @@ import (
 
 var typesOnce sync.Once
 
-// Install adds the missing methods and builtins.
+// Install adds the methods and builtins.
 //
-// Methods go into gpython's global type dictionaries (py.StringType.Dict,
-// py.ListType.Dict, py.StringDictType.Dict, py.TupleType.Dict, ...) and the
-// constructors of bool, int, float and zip are patched; this happens once
-// per process, on the first call, so Install is idempotent. Make the first
-// call before any Python code runs in another goroutine, since gpython reads
-// those dictionaries without locking.
-//
-// Builtins (round, callable, format, reversed, min, max, sorted) are stored
-// in builtins.Globals, replacing gpython's versions where those are broken.
-// builtins may be nil, in which case only the type methods are installed.
+// The type methods and constructors are installed once per process, on the
+// first call; gpython reads its type dictionaries without locking, so make
+// that call before any Python code runs in another goroutine. The builtins
+// go into builtins.Globals on every call, replacing upstream's round, min,
+// max and sorted; builtins may be nil, to install only the type methods.
 func Install(builtins *py.Module) {
 	typesOnce.Do(installTypes)
 	if builtins != nil {

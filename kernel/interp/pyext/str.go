@@ -1,11 +1,14 @@
 package pyext
 
 import (
+	"slices"
 	"strings"
 	"unicode"
 	"unicode/utf8"
 
 	"github.com/go-python/gpython/py"
+
+	"assay/kernel/interp"
 )
 
 // strMethod registers a str method taking positional arguments only, with
@@ -18,13 +21,8 @@ func strMethod(name string, min, max int, doc string, fn func(s string, args py.
 
 // strMethodKw registers a str method that accepts keyword arguments.
 func strMethodKw(name, doc string, fn func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error)) {
-	py.StringType.Dict[name] = newMethod(name, doc, func(self py.Object, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		recv, args, err := receiver[py.String](py.StringType, name, self, args)
-		s := string(recv)
-		if err != nil {
-			return nil, err
-		}
-		return fn(s, args, kwargs)
+	method(py.StringType, name, doc, func(s py.String, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		return fn(string(s), args, kwargs)
 	})
 }
 
@@ -102,6 +100,14 @@ func isASCII(s string) bool {
 	return true
 }
 
+// indexIn is the byte index of the first (or last) sub in s, or -1.
+func indexIn(s, sub string, last bool) int {
+	if last {
+		return strings.LastIndex(s, sub)
+	}
+	return strings.Index(s, sub)
+}
+
 // find searches for sub in s[start:end] (character indices) and returns
 // the character index of the first (or last) match, or -1.
 func find(s string, args py.Tuple, name string, last bool) (int, error) {
@@ -113,12 +119,7 @@ func find(s string, args py.Tuple, name string, last bool) (int, error) {
 	if err != nil || !ok {
 		return -1, err
 	}
-	var i int
-	if last {
-		i = strings.LastIndex(hay, sub)
-	} else {
-		i = strings.Index(hay, sub)
-	}
+	i := indexIn(hay, sub, last)
 	if i < 0 {
 		return -1, nil
 	}
@@ -158,9 +159,9 @@ func affixMatch(s string, args py.Tuple, name string, suffix bool) (py.Object, e
 }
 
 // predicate implements the str.isXXX methods: true if s is not empty and
-// every character satisfies ok.
-func predicate(name string, ok func(rune) bool) {
-	strMethod(name, 0, 0, "S."+name+"() -> bool", func(s string, args py.Tuple) (py.Object, error) {
+// every character satisfies ok, which doc describes.
+func predicate(name, doc string, ok func(rune) bool) {
+	strMethod(name, 0, 0, name+"(): whether the string is not empty and "+doc, func(s string, args py.Tuple) (py.Object, error) {
 		if s == "" {
 			return py.False, nil
 		}
@@ -175,8 +176,8 @@ func predicate(name string, ok func(rune) bool) {
 
 // caseCheck implements isupper and islower: at least one cased character
 // and none of the wrong case.
-func caseCheck(name string, wrong func(rune) bool) {
-	strMethod(name, 0, 0, "S."+name+"() -> bool", func(s string, args py.Tuple) (py.Object, error) {
+func caseCheck(name, doc string, wrong func(rune) bool) {
+	strMethod(name, 0, 0, name+"(): whether "+doc, func(s string, args py.Tuple) (py.Object, error) {
 		cased := false
 		for _, r := range s {
 			if wrong(r) {
@@ -285,19 +286,18 @@ func rsplitWhitespace(s string, max int) []string {
 		out = append(out, string(runes[j:i]))
 		i = j
 	}
-	for l, r := 0, len(out)-1; l < r; l, r = l+1, r-1 {
-		out[l], out[r] = out[r], out[l]
-	}
+	slices.Reverse(out)
 	return out
 }
 
-// splitArgs parses the (sep=None, maxsplit=-1) arguments of split and
+// splitArgs reads the (sep=None, maxsplit=-1) arguments of split and
 // rsplit; sep == nil means whitespace.
 func splitArgs(name string, args py.Tuple, kwargs py.StringDict) (sep *string, max int, err error) {
-	var sepObj, maxObj py.Object = py.None, py.Int(-1)
-	if err := py.ParseTupleAndKeywords(args, kwargs, "|OO:"+name, []string{"sep", "maxsplit"}, &sepObj, &maxObj); err != nil {
+	a, err := interp.Bind(name, args, kwargs, "sep=", "maxsplit=")
+	if err != nil {
 		return nil, 0, err
 	}
+	sepObj, maxObj := a.Get("sep"), a.Get("maxsplit")
 	if !isNone(sepObj) {
 		s, ok := sepObj.(py.String)
 		if !ok {
@@ -309,33 +309,21 @@ func splitArgs(name string, args py.Tuple, kwargs py.StringDict) (sep *string, m
 		str := string(s)
 		sep = &str
 	}
+	if isNone(maxObj) {
+		return sep, -1, nil
+	}
 	max, err = toInt(maxObj)
 	return sep, max, err
 }
 
 func installStr() {
-	strMethod("join", 1, 1, "S.join(iterable) -> str\n\nConcatenate the strings of iterable with S between them.", func(s string, args py.Tuple) (py.Object, error) {
-		var b strings.Builder
-		i := 0
-		err := iterate(args[0], func(item py.Object) error {
-			str, ok := item.(py.String)
-			if !ok {
-				return py.ExceptionNewf(py.TypeError, "sequence item %d: expected str instance, %s found", i, typeName(item))
-			}
-			if i > 0 {
-				b.WriteString(s)
-			}
-			b.WriteString(string(str))
-			i++
-			return nil
-		})
-		if err != nil {
-			return nil, err
-		}
-		return py.String(b.String()), nil
+	// Upstream's join is right once it has its receiver; it cannot be
+	// called through the type (str.join(sep, items)).
+	strMethod("join", 1, 1, "join(items): the strings of items with this string between them", func(s string, args py.Tuple) (py.Object, error) {
+		return py.String(s).Join(args)
 	})
 
-	strMethodKw("format", "S.format(*args, **kwargs) -> str\n\nFormat S with the format string syntax of the Python 3 standard library.", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+	strMethodKw("format", "format(*args, **kwargs): the string with its {} fields filled from the arguments", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
 		f := &formatter{args: args, kw: func(name string) (py.Object, error) {
 			v, ok := kwargs[name]
 			if !ok {
@@ -350,7 +338,7 @@ func installStr() {
 		return py.String(out), nil
 	})
 
-	strMethod("format_map", 1, 1, "S.format_map(mapping) -> str\n\nLike S.format(**mapping).", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("format_map", 1, 1, "format_map(mapping): like format, with named fields looked up in mapping", func(s string, args py.Tuple) (py.Object, error) {
 		mapping := args[0]
 		f := &formatter{kw: func(name string) (py.Object, error) {
 			return py.GetItem(mapping, py.String(name))
@@ -362,7 +350,7 @@ func installStr() {
 		return py.String(out), nil
 	})
 
-	strMethod("__format__", 1, 1, "S.__format__(format_spec) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("__format__", 1, 1, "__format__(spec): the string laid out by a format spec", func(s string, args py.Tuple) (py.Object, error) {
 		spec, err := strArg("__format__", args, 0)
 		if err != nil {
 			return nil, err
@@ -370,15 +358,15 @@ func installStr() {
 		return formatObject(py.String(s), spec)
 	})
 
-	caseMap := func(name string, f func(string) string) {
-		strMethod(name, 0, 0, "S."+name+"() -> str", func(s string, args py.Tuple) (py.Object, error) {
+	caseMap := func(name, doc string, f func(string) string) {
+		strMethod(name, 0, 0, name+"(): "+doc, func(s string, args py.Tuple) (py.Object, error) {
 			return py.String(f(s)), nil
 		})
 	}
-	caseMap("upper", strings.ToUpper)
-	caseMap("lower", strings.ToLower)
-	caseMap("casefold", strings.ToLower)
-	caseMap("swapcase", func(s string) string {
+	caseMap("upper", "the string with every letter in upper case", strings.ToUpper)
+	caseMap("lower", "the string with every letter in lower case", strings.ToLower)
+	caseMap("casefold", "a lower-case form for comparing strings regardless of case", strings.ToLower)
+	caseMap("swapcase", "upper-case letters made lower case and lower-case ones upper", func(s string) string {
 		return strings.Map(func(r rune) rune {
 			switch {
 			case unicode.IsUpper(r):
@@ -389,7 +377,7 @@ func installStr() {
 			return r
 		}, s)
 	})
-	caseMap("title", func(s string) string {
+	caseMap("title", "each word with its first letter upper case and the rest lower", func(s string) string {
 		prevCased := false
 		return strings.Map(func(r rune) rune {
 			out := r
@@ -406,7 +394,7 @@ func installStr() {
 			return out
 		}, s)
 	})
-	caseMap("capitalize", func(s string) string {
+	caseMap("capitalize", "the first character upper case and the rest lower", func(s string) string {
 		r, size := utf8.DecodeRuneInString(s)
 		if size == 0 {
 			return s
@@ -414,7 +402,7 @@ func installStr() {
 		return string(unicode.ToTitle(r)) + strings.ToLower(s[size:])
 	})
 
-	strMethod("count", 1, 3, "S.count(sub[, start[, end]]) -> int\n\nNumber of non-overlapping occurrences of sub in S[start:end].", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("count", 1, 3, "count(sub, start=0, end=len): how often sub occurs in the slice, matches not overlapping", func(s string, args py.Tuple) (py.Object, error) {
 		sub, err := strArg("count", args, 0)
 		if err != nil {
 			return nil, err
@@ -429,8 +417,8 @@ func installStr() {
 		return py.Int(strings.Count(hay, sub)), nil
 	})
 
-	finder := func(name string, last, raise bool) {
-		strMethod(name, 1, 3, "S."+name+"(sub[, start[, end]]) -> int", func(s string, args py.Tuple) (py.Object, error) {
+	finder := func(name, doc string, last, raise bool) {
+		strMethod(name, 1, 3, name+"(sub, start=0, end=len): "+doc, func(s string, args py.Tuple) (py.Object, error) {
 			i, err := find(s, args, name, last)
 			if err != nil {
 				return nil, err
@@ -441,27 +429,27 @@ func installStr() {
 			return py.Int(i), nil
 		})
 	}
-	finder("find", false, false)
-	finder("rfind", true, false)
-	finder("index", false, true)
-	finder("rindex", true, true)
+	finder("find", "where sub first occurs in the slice, or -1", false, false)
+	finder("rfind", "where sub last occurs in the slice, or -1", true, false)
+	finder("index", "where sub first occurs in the slice; ValueError if nowhere", false, true)
+	finder("rindex", "where sub last occurs in the slice; ValueError if nowhere", true, true)
 
-	strMethod("startswith", 1, 3, "S.startswith(prefix[, start[, end]]) -> bool", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("startswith", 1, 3, "startswith(prefix, start=0, end=len): whether the slice begins with prefix, or with one of a tuple of them", func(s string, args py.Tuple) (py.Object, error) {
 		return affixMatch(s, args, "startswith", false)
 	})
-	strMethod("endswith", 1, 3, "S.endswith(suffix[, start[, end]]) -> bool", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("endswith", 1, 3, "endswith(suffix, start=0, end=len): whether the slice finishes with suffix, or with one of a tuple of them", func(s string, args py.Tuple) (py.Object, error) {
 		return affixMatch(s, args, "endswith", true)
 	})
 
-	predicate("isdigit", unicode.IsDigit)
-	predicate("isdecimal", unicode.IsDigit)
-	predicate("isnumeric", unicode.IsNumber)
-	predicate("isalpha", unicode.IsLetter)
-	predicate("isalnum", func(r rune) bool { return unicode.IsLetter(r) || unicode.IsNumber(r) })
-	predicate("isspace", isSpace)
-	caseCheck("isupper", func(r rune) bool { return unicode.IsLower(r) || unicode.IsTitle(r) })
-	caseCheck("islower", func(r rune) bool { return unicode.IsUpper(r) || unicode.IsTitle(r) })
-	strMethod("isidentifier", 0, 0, "S.isidentifier() -> bool", func(s string, args py.Tuple) (py.Object, error) {
+	predicate("isdigit", "every character is a digit", unicode.IsDigit)
+	predicate("isdecimal", "every character is a decimal digit", unicode.IsDigit)
+	predicate("isnumeric", "every character stands for a number", unicode.IsNumber)
+	predicate("isalpha", "every character is a letter", unicode.IsLetter)
+	predicate("isalnum", "every character is a letter or a number", func(r rune) bool { return unicode.IsLetter(r) || unicode.IsNumber(r) })
+	predicate("isspace", "every character is white space", isSpace)
+	caseCheck("isupper", "there is a cased letter and none is lower case", func(r rune) bool { return unicode.IsLower(r) || unicode.IsTitle(r) })
+	caseCheck("islower", "there is a cased letter and none is upper case", func(r rune) bool { return unicode.IsUpper(r) || unicode.IsTitle(r) })
+	strMethod("isidentifier", 0, 0, "isidentifier(): whether the string could name a Python variable", func(s string, args py.Tuple) (py.Object, error) {
 		for i, r := range s {
 			if !(r == '_' || unicode.IsLetter(r) || (i > 0 && unicode.IsDigit(r))) {
 				return py.False, nil
@@ -469,7 +457,7 @@ func installStr() {
 		}
 		return py.NewBool(s != ""), nil
 	})
-	strMethod("isprintable", 0, 0, "S.isprintable() -> bool", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("isprintable", 0, 0, "isprintable(): whether no character is a control or other unprintable one", func(s string, args py.Tuple) (py.Object, error) {
 		for _, r := range s {
 			if !unicode.IsPrint(r) {
 				return py.False, nil
@@ -477,7 +465,7 @@ func installStr() {
 		}
 		return py.True, nil
 	})
-	strMethod("istitle", 0, 0, "S.istitle() -> bool", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("istitle", 0, 0, "istitle(): whether there is a cased letter and every word is capitalised", func(s string, args py.Tuple) (py.Object, error) {
 		cased, prevCased := false, false
 		for _, r := range s {
 			switch {
@@ -498,7 +486,7 @@ func installStr() {
 		return py.NewBool(cased), nil
 	})
 
-	strMethod("zfill", 1, 1, "S.zfill(width) -> str\n\nPad S on the left with zeros, after any sign, to the given width.", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("zfill", 1, 1, "zfill(width): zeros put in front (after a sign) up to width characters", func(s string, args py.Tuple) (py.Object, error) {
 		width, err := toInt(args[0])
 		if err != nil {
 			return nil, err
@@ -514,8 +502,8 @@ func installStr() {
 		return py.String(zeros + s), nil
 	})
 
-	justify := func(name string, place func(s string, fill rune, marg, width int) string) {
-		strMethod(name, 1, 2, "S."+name+"(width[, fillchar]) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	justify := func(name, doc string, place func(s string, fill rune, marg, width int) string) {
+		strMethod(name, 1, 2, name+"(width, fill=' '): "+doc, func(s string, args py.Tuple) (py.Object, error) {
 			width, err := toInt(args[0])
 			if err != nil {
 				return nil, err
@@ -531,20 +519,20 @@ func installStr() {
 			return py.String(place(s, fill, marg, width)), nil
 		})
 	}
-	justify("ljust", func(s string, fill rune, marg, _ int) string {
+	justify("ljust", "the string padded on the right to width characters", func(s string, fill rune, marg, _ int) string {
 		return s + strings.Repeat(string(fill), marg)
 	})
-	justify("rjust", func(s string, fill rune, marg, _ int) string {
+	justify("rjust", "the string padded on the left to width characters", func(s string, fill rune, marg, _ int) string {
 		return strings.Repeat(string(fill), marg) + s
 	})
-	justify("center", func(s string, fill rune, marg, width int) string {
+	justify("center", "the string centred in width characters", func(s string, fill rune, marg, width int) string {
 		// CPython's rule: the odd extra character goes left when width is odd.
 		left := marg/2 + (marg & width & 1)
 		return strings.Repeat(string(fill), left) + s + strings.Repeat(string(fill), marg-left)
 	})
 
-	partition := func(name string, last bool) {
-		strMethod(name, 1, 1, "S."+name+"(sep) -> (head, sep, tail)", func(s string, args py.Tuple) (py.Object, error) {
+	partition := func(name, doc string, last bool) {
+		strMethod(name, 1, 1, name+"(sep): "+doc, func(s string, args py.Tuple) (py.Object, error) {
 			sep, err := strArg(name, args, 0)
 			if err != nil {
 				return nil, err
@@ -552,12 +540,7 @@ func installStr() {
 			if sep == "" {
 				return nil, py.ExceptionNewf(py.ValueError, "empty separator")
 			}
-			var i int
-			if last {
-				i = strings.LastIndex(s, sep)
-			} else {
-				i = strings.Index(s, sep)
-			}
+			i := indexIn(s, sep, last)
 			if i < 0 {
 				if last {
 					return py.Tuple{py.String(""), py.String(""), py.String(s)}, nil
@@ -567,62 +550,61 @@ func installStr() {
 			return py.Tuple{py.String(s[:i]), py.String(sep), py.String(s[i+len(sep):])}, nil
 		})
 	}
-	partition("partition", false)
-	partition("rpartition", true)
+	partition("partition", "(before, sep, after), cut at the first sep", false)
+	partition("rpartition", "(before, sep, after), cut at the last sep", true)
 
-	strMethodKw("splitlines", "S.splitlines([keepends]) -> list of strings", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		var keep py.Object = py.False
-		if err := py.ParseTupleAndKeywords(args, kwargs, "|O:splitlines", []string{"keepends"}, &keep); err != nil {
-			return nil, err
-		}
-		k, err := truth(keep)
+	strMethodKw("splitlines", "splitlines(keepends=False): the lines, with their line breaks only if keepends", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+		a, err := interp.Bind("splitlines", args, kwargs, "keepends=")
 		if err != nil {
 			return nil, err
 		}
-		return listOfStrings(splitlines(s, k)), nil
+		keep := false
+		if a.Has("keepends") {
+			if keep, err = truth(a.Get("keepends")); err != nil {
+				return nil, err
+			}
+		}
+		return listOfStrings(splitlines(s, keep)), nil
 	})
 
-	strMethodKw("split", "S.split(sep=None, maxsplit=-1) -> list of strings", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		sep, max, err := splitArgs("split", args, kwargs)
-		if err != nil {
-			return nil, err
-		}
-		if sep == nil {
-			return listOfStrings(splitWhitespace(s, max)), nil
-		}
+	// splitMethod registers split or rsplit: onSpace cuts at runs of white
+	// space (sep None), onSep at sep; max < 0 means no limit.
+	splitMethod := func(name, doc string, onSpace func(s string, max int) []string, onSep func(s, sep string, max int) []string) {
+		strMethodKw(name, name+"(sep=None, maxsplit=-1): "+doc, func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
+			sep, max, err := splitArgs(name, args, kwargs)
+			if err != nil {
+				return nil, err
+			}
+			if sep == nil {
+				return listOfStrings(onSpace(s, max)), nil
+			}
+			return listOfStrings(onSep(s, *sep, max)), nil
+		})
+	}
+	splitMethod("split", "the pieces between separators (runs of white space when sep is None)", splitWhitespace, func(s, sep string, max int) []string {
 		if max < 0 {
-			return listOfStrings(strings.Split(s, *sep)), nil
+			return strings.Split(s, sep)
 		}
-		return listOfStrings(strings.SplitN(s, *sep, max+1)), nil
+		return strings.SplitN(s, sep, max+1)
 	})
-
-	strMethodKw("rsplit", "S.rsplit(sep=None, maxsplit=-1) -> list of strings\n\nLike split, but splitting from the right.", func(s string, args py.Tuple, kwargs py.StringDict) (py.Object, error) {
-		sep, max, err := splitArgs("rsplit", args, kwargs)
-		if err != nil {
-			return nil, err
-		}
-		if sep == nil {
-			return listOfStrings(rsplitWhitespace(s, max)), nil
-		}
+	splitMethod("rsplit", "like split, but at most maxsplit cuts counted from the end", rsplitWhitespace, func(s, sep string, max int) []string {
 		var parts []string
 		rest := s
 		for max < 0 || len(parts) < max {
-			i := strings.LastIndex(rest, *sep)
+			i := strings.LastIndex(rest, sep)
 			if i < 0 {
 				break
 			}
-			parts = append(parts, rest[i+len(*sep):])
+			parts = append(parts, rest[i+len(sep):])
 			rest = rest[:i]
 		}
 		parts = append(parts, rest)
-		for l, r := 0, len(parts)-1; l < r; l, r = l+1, r-1 {
-			parts[l], parts[r] = parts[r], parts[l]
-		}
-		return listOfStrings(parts), nil
+		slices.Reverse(parts)
+		return parts
 	})
 
-	strip := func(name string, trim func(string, func(rune) bool) string) {
-		strMethod(name, 0, 1, "S."+name+"([chars]) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	strip := func(name, doc string, trim func(string, func(rune) bool) string) {
+		strMethod(name, 0, 1, name+"(chars=None): "+doc, func(s string, args py.Tuple) (py.Object, error) {
 			f, err := charsArg(name, args)
 			if err != nil {
 				return nil, err
@@ -630,11 +612,11 @@ func installStr() {
 			return py.String(trim(s, f)), nil
 		})
 	}
-	strip("strip", strings.TrimFunc)
-	strip("lstrip", strings.TrimLeftFunc)
-	strip("rstrip", strings.TrimRightFunc)
+	strip("strip", "without the given characters (white space if None) at either end", strings.TrimFunc)
+	strip("lstrip", "without the given characters (white space if None) at the start", strings.TrimLeftFunc)
+	strip("rstrip", "without the given characters (white space if None) at the end", strings.TrimRightFunc)
 
-	strMethod("replace", 2, 3, "S.replace(old, new[, count]) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("replace", 2, 3, "replace(old, new, count=-1): old replaced by new, only the first count times if count >= 0", func(s string, args py.Tuple) (py.Object, error) {
 		old, err := strArg("replace", args, 0)
 		if err != nil {
 			return nil, err
@@ -652,14 +634,14 @@ func installStr() {
 		return py.String(strings.Replace(s, old, repl, count)), nil
 	})
 
-	strMethod("removeprefix", 1, 1, "S.removeprefix(prefix) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("removeprefix", 1, 1, "removeprefix(prefix): the string without prefix, if it starts with it", func(s string, args py.Tuple) (py.Object, error) {
 		p, err := strArg("removeprefix", args, 0)
 		if err != nil {
 			return nil, err
 		}
 		return py.String(strings.TrimPrefix(s, p)), nil
 	})
-	strMethod("removesuffix", 1, 1, "S.removesuffix(suffix) -> str", func(s string, args py.Tuple) (py.Object, error) {
+	strMethod("removesuffix", 1, 1, "removesuffix(suffix): the string without suffix, if it ends with it", func(s string, args py.Tuple) (py.Object, error) {
 		p, err := strArg("removesuffix", args, 0)
 		if err != nil {
 			return nil, err
