@@ -134,9 +134,30 @@ func addRunFlags(fs *flag.FlagSet) *runFlags {
 	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
 	fs.IntVar(&f.maxPrecision, "max-precision", session.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
 	addLimitFlags(fs, &f.limits)
-	fs.BoolVar(&f.strictOn, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
+	addStrictFlag(fs, &f.strictOn)
 	return f
 }
+
+func addStrictFlag(fs *flag.FlagSet, strict *bool) {
+	fs.BoolVar(strict, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
+}
+
+// reportFlags say where the reports of run and merge go.
+type reportFlags struct {
+	out          string
+	html, noHTML bool
+}
+
+func addReportFlags(fs *flag.FlagSet, outHelp string) *reportFlags {
+	r := &reportFlags{}
+	fs.StringVar(&r.out, "o", "", outHelp)
+	fs.BoolVar(&r.html, "html", true, "also write the HTML report beside the Markdown one")
+	fs.BoolVar(&r.noHTML, "no-html", false, "do not write the HTML report")
+	return r
+}
+
+// writesHTML says whether the HTML report is wanted.
+func (r *reportFlags) writesHTML() bool { return r.html && !r.noHTML }
 
 func (f *runFlags) options(fs *flag.FlagSet, stderr io.Writer) (kernel.Options, error) {
 	s := session.DefaultSettings
@@ -205,9 +226,7 @@ func parseInterspersed(fs *flag.FlagSet, args []string) ([]string, error) {
 func runCommand(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("run", flag.ContinueOnError)
 	fs.SetOutput(stderr)
-	out := fs.String("o", "", "path of the Markdown report, or of the part file with --shard (default: beside the notebook)")
-	html := fs.Bool("html", true, "also write the HTML report beside the Markdown one")
-	noHTML := fs.Bool("no-html", false, "do not write the HTML report")
+	report := addReportFlags(fs, "path of the Markdown report, or of the part file with --shard (default: beside the notebook)")
 	inPlace := fs.Bool("in-place", false, "write outputs into the notebook itself as output blocks")
 	shard := fs.String("shard", "", "run shard i of n (e.g. 2/8) and write a part file for assay merge")
 	rf := addRunFlags(fs)
@@ -245,7 +264,7 @@ Flags:
 			fmt.Fprintln(stderr, "assay run:", err)
 			return 2
 		}
-		return runShard(path, *out, opt, stdout, stderr)
+		return runShard(path, report.out, opt, stdout, stderr)
 	}
 	rep, err := load(path, opt)
 	if err != nil {
@@ -253,7 +272,7 @@ Flags:
 		return 2
 	}
 	if *inPlace {
-		if *out != "" {
+		if report.out != "" {
 			fmt.Fprintln(stderr, "assay run: --in-place writes the notebook itself; drop -o")
 			return 2
 		}
@@ -275,7 +294,7 @@ Flags:
 		fmt.Fprintf(stdout, "outputs written into %s\n", path)
 		return cells.ExitCode(rep, rf.strictOn)
 	}
-	return writeReport("assay run", rep, *out, *html && !*noHTML, rf.strictOn, stdout, stderr)
+	return writeReport("assay run", rep, report.out, report.writesHTML(), rf.strictOn, stdout, stderr)
 }
 
 // writeReport writes a report (Markdown, figures, and HTML unless told
@@ -374,10 +393,9 @@ func runShard(path, partPath string, opt kernel.Options, stdout, stderr io.Write
 func mergeCommand(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("merge", flag.ContinueOnError)
 	fs.SetOutput(stderr)
-	out := fs.String("o", "", "path of the Markdown report (default: NOTEBOOK.report.md beside the notebook the parts name)")
-	html := fs.Bool("html", true, "also write the HTML report beside the Markdown one")
-	noHTML := fs.Bool("no-html", false, "do not write the HTML report")
-	strict := fs.Bool("strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
+	report := addReportFlags(fs, "path of the Markdown report (default: NOTEBOOK.report.md beside the notebook the parts name)")
+	var strict bool
+	addStrictFlag(fs, &strict)
 	var lim limits
 	addLimitFlags(fs, &lim)
 	fs.Usage = func() {
@@ -423,7 +441,7 @@ Flags:
 		fmt.Fprintln(stderr, "assay merge:", err)
 		return 2
 	}
-	return writeReport("assay merge", rep, *out, *html && !*noHTML, *strict, stdout, stderr)
+	return writeReport("assay merge", rep, report.out, report.writesHTML(), strict, stdout, stderr)
 }
 
 // readNotebook reads a notebook file, with a message that names it.

@@ -119,7 +119,7 @@ func (a Args) String(name string) (string, error) {
 	return String(a.fn, name, a.Get(name))
 }
 
-// Bool reads True or False, def when it is absent or None.
+// Bool reads True or False, def when it is absent; None is refused.
 func (a Args) Bool(name string, def bool) (bool, error) {
 	return Bool(a.fn, name, a.Get(name), def)
 }
@@ -164,9 +164,10 @@ func String(fn, name string, o py.Object) (string, error) {
 	return string(s), nil
 }
 
-// Bool reads True or False, def when absent or None.
+// Bool reads True or False, def when absent. None is refused: a flag that
+// reads as "not given" when it was given would be a quiet misreading.
 func Bool(fn, name string, o py.Object, def bool) (bool, error) {
-	if o == nil || o == py.None {
+	if o == nil {
 		return def, nil
 	}
 	b, ok := o.(py.Bool)

@@ -54,7 +54,9 @@ func newSandbox(arith Arithmetic) (*Sandbox, error) {
 	}
 	b := ctx.store.Builtins.Globals
 	delete(b, "input") // would read the kernel protocol from stdin
-	b["open"] = refusal("open")
+	for _, name := range []string{"open", "exit", "quit"} {
+		b[name] = refusal(name)
+	}
 	sys := ctx.store.MustGetModule("sys").Globals
 	for _, name := range []string{"stdin", "__stdin__", "executable", "argv", "path", "exit"} {
 		delete(sys, name)

@@ -1,16 +1,22 @@
 package session
 
 import (
+	"time"
+
 	"github.com/go-python/gpython/py"
 
+	"assay/cells"
+	"assay/kernel/claim"
 	"assay/kernel/interp"
 )
 
 // claimNames are the claim builtins, whose call sites are tagged with their line.
 var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true, "inequality": true}
 
-// claimBuiltin is a claim's implementation, told the notebook line of its call.
-type claimBuiltin func(line int, a interp.Args) (py.Object, error)
+// claimBuiltin decides a claim: it fills in the record c, which is opened
+// (named, placed at its line) and filed by makeClaim. t is the precision
+// the claim is decided to.
+type claimBuiltin func(c *cells.Claim, t claim.Target, a interp.Args) error
 
 // install puts the notebook's names into the builtins module.
 func (s *Session) install(b py.StringDict) {
@@ -42,7 +48,7 @@ func (s *Session) install(b py.StringDict) {
 	}
 	at := func(name string, line func() int) *py.Method {
 		c := claims[name]
-		return bound(name, c.doc, c.params, func(a interp.Args) (py.Object, error) { return c.fn(line(), a) })
+		return bound(name, c.doc, c.params, func(a interp.Args) (py.Object, error) { return s.makeClaim(name, line(), a, c.fn) })
 	}
 	for name := range claims {
 		b[name] = at(name, func() int { return s.line })
@@ -62,6 +68,27 @@ func (s *Session) install(b py.StringDict) {
 		}
 		return at(m.Name, func() int { return int(line) }), nil
 	})
+}
+
+// makeClaim opens the record of a claim of the given kind made at line,
+// lets decide fill it in, and files it with the cell. It returns whether
+// the claim holds.
+func (s *Session) makeClaim(kind string, line int, a interp.Args, decide claimBuiltin) (py.Object, error) {
+	start := time.Now()
+	c, err := s.newClaim(kind, a.Get("name"), line)
+	if err != nil {
+		return nil, err
+	}
+	t := claim.Target{Bits: uint(s.precision), Cap: uint(s.settings.MaxPrecision)}
+	if kind != "factorization" {
+		if t, err = s.target(kind, a); err != nil {
+			return nil, err
+		}
+	}
+	if err := decide(&c, t, a); err != nil {
+		return nil, err
+	}
+	return s.record(c, start), nil
 }
 
 // bound makes a builtin that reads its arguments by name.

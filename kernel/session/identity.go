@@ -19,46 +19,30 @@ identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1.`
 
 var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree="}
 
-func (s *Session) identity(line int, a interp.Args) (py.Object, error) {
-	start := time.Now()
-	c, err := s.newClaim("identity", a.Get("name"), line)
+func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error {
+	companion, err := a.Bool("companion", true)
 	if err != nil {
-		return nil, err
-	}
-	t, err := s.target("identity", a)
-	if err != nil {
-		return nil, err
-	}
-	companion := true
-	if a.Has("companion") {
-		b, ok := a.Get("companion").(py.Bool)
-		if !ok {
-			return nil, py.ExceptionNewf(py.TypeError, "identity(): companion must be True or False")
-		}
-		companion = bool(b)
+		return err
 	}
 	if a.Has("over") { // sampled form
 		if a.Has("rhs") {
-			return nil, py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) takes no rhs")
+			return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) takes no rhs")
 		}
 		zippel, err := schwartzZippel(a.Get("over"), a.Get("degree"))
 		if err != nil {
-			return nil, err
+			return err
 		}
-		if err := s.sampled(&c, t, a.Get("lhs"), a.Get("over"), a.Get("samples"), companion, zippel); err != nil {
-			return nil, err
-		}
-		return s.record(c, start), nil
+		return s.sampled(c, t, a.Get("lhs"), a.Get("over"), a.Get("samples"), companion, zippel)
 	}
 	if a.Has("samples") || a.Has("degree") {
-		return nil, py.ExceptionNewf(py.TypeError, "identity(): samples= and degree= need over= (the function making sample k)")
+		return py.ExceptionNewf(py.TypeError, "identity(): samples= and degree= need over= (the function making sample k)")
 	}
 	lhs, rhs := a.Get("lhs"), a.Get("rhs")
 	var call func() (py.Object, py.Object, error)
 	if rhs == nil {
 		f := lhs
 		if !interp.Callable(f) {
-			return nil, py.ExceptionNewf(py.TypeError, "identity(name, lhs, rhs) is missing rhs (or pass a function returning (lhs, rhs))")
+			return py.ExceptionNewf(py.TypeError, "identity(name, lhs, rhs) is missing rhs (or pass a function returning (lhs, rhs))")
 		}
 		call = func() (py.Object, py.Object, error) {
 			res, err := py.Call(f, nil, nil)
@@ -68,14 +52,14 @@ func (s *Session) identity(line int, a interp.Args) (py.Object, error) {
 			return pair(res, "the identity's function")
 		}
 		if lhs, rhs, err = call(); err != nil {
-			return nil, err
+			return err
 		}
 	}
 	r, err := s.measure(t, lhs, rhs)
 	if err != nil {
-		return nil, err
+		return err
 	}
-	r.Decide(&c, 0)
+	r.Decide(c, 0)
 	if call != nil && companion {
 		audit, skipped := s.companion(call, lhs, rhs)
 		c.Float = audit
@@ -86,7 +70,7 @@ func (s *Session) identity(line int, a interp.Args) (py.Object, error) {
 	if r.Real {
 		c.Precision = int(t.Bits)
 	}
-	return s.record(c, start), nil
+	return nil
 }
 
 // newClaim starts the record of a claim, checking that its name is new.

@@ -5,6 +5,7 @@ import (
 
 	"github.com/go-python/gpython/py"
 
+	"assay/cells"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -30,19 +31,10 @@ func slack(t claim.Target, lesser, greater py.Object) (claim.Slack, error) {
 	return sl, interp.Exception(err)
 }
 
-func (s *Session) inequality(line int, a interp.Args) (py.Object, error) {
-	start := time.Now()
-	c, err := s.newClaim("inequality", a.Get("name"), line)
-	if err != nil {
-		return nil, err
-	}
-	t, err := s.target("inequality", a)
-	if err != nil {
-		return nil, err
-	}
+func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) error {
 	search, err := a.Bool("search", false)
-	if err != nil || a.Get("search") == py.None {
-		return nil, py.ExceptionNewf(py.TypeError, "inequality(): search must be True or False")
+	if err != nil {
+		return err
 	}
 	it := &claim.InequalityTally{}
 	var samples int64
@@ -51,10 +43,10 @@ func (s *Session) inequality(line int, a interp.Args) (py.Object, error) {
 	if a.Has("over") {
 		f, g := a.Get("lesser"), a.Get("over")
 		if a.Has("greater") || !interp.Callable(f) || !interp.Callable(g) {
-			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, f, over=g, samples=N) needs functions f and g and no third argument")
+			return py.ExceptionNewf(py.TypeError, "inequality(name, f, over=g, samples=N) needs functions f and g and no third argument")
 		}
 		if samples, err = sampleCount("inequality", a.Get("samples")); err != nil {
-			return nil, err
+			return err
 		}
 		ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: samples}
 		tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
@@ -76,10 +68,10 @@ func (s *Session) inequality(line int, a interp.Args) (py.Object, error) {
 			return claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Inequality: part, Printed: s.printed}
 		})
 		if err != nil {
-			return nil, err
+			return err
 		}
 		if tally.Err != nil {
-			return nil, raise(tally.Err)
+			return raise(tally.Err)
 		}
 		if tally.Inequality != nil {
 			it = tally.Inequality
@@ -87,21 +79,21 @@ func (s *Session) inequality(line int, a interp.Args) (py.Object, error) {
 		printed = printedNote(tally)
 		if search && it.Violations == 0 && len(it.Smallest) > 0 {
 			if found, err = s.search(c.Name, c.Line, t, f, g, it.Smallest); err != nil {
-				return nil, err
+				return err
 			}
 		}
 	} else {
 		if !a.Has("greater") || a.Has("samples") || search {
-			return nil, py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N, search=False)")
+			return py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N, search=False)")
 		}
 		sl, err := slack(t, a.Get("lesser"), a.Get("greater"))
 		if err != nil {
-			return nil, err
+			return err
 		}
 		it.Add(0, sl)
 	}
 	g := a.Get("over")
-	claim.JudgeInequality(&c, it, found, samples, t, func(k int64) string { return sampleText(g, k) })
+	claim.JudgeInequality(c, it, found, samples, t, func(k int64) string { return sampleText(g, k) })
 	c.Note += printed
-	return s.record(c, start), nil
+	return nil
 }

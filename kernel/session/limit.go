@@ -4,13 +4,13 @@ import (
 	"fmt"
 	"math"
 	"math/big"
-	"time"
 
 	"github.com/go-python/gpython/py"
 
 	"assay/cells"
 	"assay/exact"
 	"assay/exact/limits"
+	"assay/kernel/claim"
 	"assay/kernel/figure"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -128,29 +128,20 @@ func (s *Session) sequence(a interp.Args) (py.Object, error) {
 	return py.NewListFromItems(out), nil
 }
 
-func (s *Session) limit(line int, a interp.Args) (py.Object, error) {
-	start := time.Now()
-	c, err := s.newClaim("limit", a.Get("name"), line)
-	if err != nil {
-		return nil, err
-	}
+func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 	f := a.Get("f")
 	if !interp.Callable(f) {
-		return nil, py.ExceptionNewf(py.TypeError, "limit(name, f, …) needs a function of t")
+		return py.ExceptionNewf(py.TypeError, "limit(name, f, …) needs a function of t")
 	}
 	sp, err := walkArgs("limit", a)
 	if err != nil {
-		return nil, err
-	}
-	t, err := s.target("limit", a)
-	if err != nil {
-		return nil, err
+		return err
 	}
 	var expect *exact.Real
 	if a.Given("expect") {
 		var ok bool
 		if expect, ok = values.RealOf(a.Get("expect")); !ok {
-			return nil, py.ExceptionNewf(py.TypeError, "limit(): expect must be an exact number or a real, got %s%s", interp.TypeName(a.Get("expect")), values.FloatHint(a.Get("expect")))
+			return py.ExceptionNewf(py.TypeError, "limit(): expect must be an exact number or a real, got %s%s", interp.TypeName(a.Get("expect")), values.FloatHint(a.Get("expect")))
 		}
 	}
 	// Extrapolation cancels digits: evaluate f three times more precisely than the target.
@@ -159,7 +150,7 @@ func (s *Session) limit(line int, a interp.Args) (py.Object, error) {
 	ts, hs, vals, werr := s.walk(sp, f)
 	floats, aerr := approximations(vals, prec, t.Cap)
 	if floats == nil && aerr != nil {
-		return nil, aerr // f returned something that is not a number
+		return aerr // f returned something that is not a number
 	}
 	if aerr != nil {
 		werr, ts, hs = aerr, ts[:len(floats)], hs[:len(floats)]
@@ -182,7 +173,7 @@ func (s *Session) limit(line int, a interp.Args) (py.Object, error) {
 	case expect != nil:
 		iv, err := expect.Approx(prec, t.Cap)
 		if err != nil {
-			return nil, err
+			return err
 		}
 		e := midpoint(iv, prec)
 		verdict, digits, gap := limits.Compare(est, e)
@@ -205,7 +196,7 @@ func (s *Session) limit(line int, a interp.Args) (py.Object, error) {
 		c.Note += fmt.Sprintf("; the walk stopped early: %v", werr)
 	}
 	s.limitTable(c.Name, ts, floats, est)
-	return s.record(c, start), nil
+	return nil
 }
 
 // limitCaveat says how the estimate was made and what it is worth.

@@ -20,9 +20,6 @@ var plotParams = []string{"xs=", "ys=", "label=", "title=", "xlabel=", "ylabel="
 func (s *Session) plot(a interp.Args) (py.Object, error) {
 	flags := map[string]bool{"logx": false, "logy": false, "lines": true, "points": true}
 	for _, name := range []string{"logx", "logy", "lines", "points"} {
-		if a.Get(name) == py.None {
-			return nil, py.ExceptionNewf(py.TypeError, "plot(): %s must be True or False", name)
-		}
 		v, err := a.Bool(name, flags[name])
 		if err != nil {
 			return nil, err

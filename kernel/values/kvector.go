@@ -75,7 +75,8 @@ func (k *KVector) components(interp.Args) (py.Object, error) {
 	return py.NewListFromItems(out), nil
 }
 
-func (k *KVector) arith(o py.Object, op func(a, b *geom.KVector) (*geom.KVector, error)) (py.Object, error) {
+func (k *KVector) arith(o py.Object, op func(a, b *geom.KVector) (*geom.KVector, error)) (res py.Object, err error) {
+	defer interp.Recover("k-vector arithmetic", &res, &err)
 	other, ok := o.(*KVector)
 	if !ok {
 		return py.NotImplemented, nil
@@ -88,16 +89,10 @@ func (k *KVector) arith(o py.Object, op func(a, b *geom.KVector) (*geom.KVector,
 }
 
 // M__add__ adds k-vectors of the same grade and ambient dimension.
-func (k *KVector) M__add__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("kvector.__add__", &res, &err)
-	return k.arith(o, (*geom.KVector).Add)
-}
+func (k *KVector) M__add__(o py.Object) (py.Object, error) { return k.arith(o, (*geom.KVector).Add) }
 
 // M__sub__ subtracts.
-func (k *KVector) M__sub__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("kvector.__sub__", &res, &err)
-	return k.arith(o, (*geom.KVector).Sub)
-}
+func (k *KVector) M__sub__(o py.Object) (py.Object, error) { return k.arith(o, (*geom.KVector).Sub) }
 
 // M__mul__ scales by an exact number.
 func (k *KVector) M__mul__(o py.Object) (res py.Object, err error) {

@@ -503,7 +503,8 @@ func (m *Matrix) M__len__() (res py.Object, err error) {
 }
 
 // arith combines two matrices, over Q when both are rational.
-func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error)) (py.Object, error) {
+func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error)) (res py.Object, err error) {
+	defer interp.Recover("matrix arithmetic", &res, &err)
 	other, ok := o.(*Matrix)
 	if !ok {
 		return py.NotImplemented, nil

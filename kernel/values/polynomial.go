@@ -402,7 +402,8 @@ func (p *Polynomial) operands(o py.Object, swap bool) (a, b *exact.Poly, ok bool
 	return p.p, q, true, nil
 }
 
-func (p *Polynomial) arith(o py.Object, swap bool, op func(a, b *exact.Poly) (*exact.Poly, error)) (py.Object, error) {
+func (p *Polynomial) arith(o py.Object, swap bool, op func(a, b *exact.Poly) (*exact.Poly, error)) (res py.Object, err error) {
+	defer interp.Recover("polynomial arithmetic", &res, &err)
 	a, b, ok, err := p.operands(o, swap)
 	if err != nil || !ok {
 		if err == nil {
@@ -422,40 +423,22 @@ func polySub(a, b *exact.Poly) (*exact.Poly, error) { return a.Sub(b), nil }
 func polyMul(a, b *exact.Poly) (*exact.Poly, error) { return a.Mul(b) }
 
 // M__add__ adds.
-func (p *Polynomial) M__add__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__add__", &res, &err)
-	return p.arith(o, false, polyAdd)
-}
+func (p *Polynomial) M__add__(o py.Object) (py.Object, error) { return p.arith(o, false, polyAdd) }
 
 // M__radd__ adds.
-func (p *Polynomial) M__radd__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__radd__", &res, &err)
-	return p.arith(o, true, polyAdd)
-}
+func (p *Polynomial) M__radd__(o py.Object) (py.Object, error) { return p.arith(o, true, polyAdd) }
 
 // M__sub__ subtracts.
-func (p *Polynomial) M__sub__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__sub__", &res, &err)
-	return p.arith(o, false, polySub)
-}
+func (p *Polynomial) M__sub__(o py.Object) (py.Object, error) { return p.arith(o, false, polySub) }
 
 // M__rsub__ subtracts.
-func (p *Polynomial) M__rsub__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__rsub__", &res, &err)
-	return p.arith(o, true, polySub)
-}
+func (p *Polynomial) M__rsub__(o py.Object) (py.Object, error) { return p.arith(o, true, polySub) }
 
 // M__mul__ multiplies.
-func (p *Polynomial) M__mul__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__mul__", &res, &err)
-	return p.arith(o, false, polyMul)
-}
+func (p *Polynomial) M__mul__(o py.Object) (py.Object, error) { return p.arith(o, false, polyMul) }
 
 // M__rmul__ multiplies.
-func (p *Polynomial) M__rmul__(o py.Object) (res py.Object, err error) {
-	defer interp.Recover("polynomial.__rmul__", &res, &err)
-	return p.arith(o, true, polyMul)
-}
+func (p *Polynomial) M__rmul__(o py.Object) (py.Object, error) { return p.arith(o, true, polyMul) }
 
 // M__truediv__ divides by an exact non-zero number; polynomial divisors go through divide().
 func (p *Polynomial) M__truediv__(o py.Object) (res py.Object, err error) {

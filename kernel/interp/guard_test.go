@@ -1,0 +1,98 @@
+package interp
+
+import (
+	"fmt"
+	"strings"
+	"testing"
+
+	"github.com/go-python/gpython/py"
+
+	"assay/exact"
+)
+
+// A Go panic behind a builtin or an operator becomes a RuntimeError the
+// notebook can catch, naming the function, with no Go stack in its text.
+func TestRecoverTurnsPanicsIntoExceptions(t *testing.T) {
+	operator := func() (res py.Object, err error) {
+		defer Recover("rational.__add__", &res, &err)
+		var m map[string]int
+		m["x"]++ // a nil-map write panics
+		return py.None, nil
+	}
+	_, err := operator()
+	if !py.IsException(py.RuntimeError, err) || !strings.Contains(err.Error(), "rational.__add__") || strings.Contains(err.Error(), "goroutine") || strings.Contains(err.Error(), ".go:") {
+		t.Errorf("panic gave %v", err)
+	}
+	f := Func("boom", "", func(py.Tuple, py.StringDict) (py.Object, error) { panic("no") })
+	if _, err := f.Call(nil, nil); !py.IsException(py.RuntimeError, err) || !strings.Contains(err.Error(), "boom()") {
+		t.Errorf("builtin panic gave %v", err)
+	}
+	// A Python exception raised by panic passes as itself.
+	raise := Func("raise", "", func(py.Tuple, py.StringDict) (py.Object, error) {
+		panic(py.ExceptionNewf(py.KeyError, "k"))
+	})
+	if _, err := raise.Call(nil, nil); !py.IsException(py.KeyError, err) {
+		t.Errorf("a raised exception became %v", err)
+	}
+}
+
+// Go errors from the mathematics reach the notebook as the exception a
+// Python author expects, with their message.
+func TestExceptionTranslatesGoErrors(t *testing.T) {
+	cases := []struct {
+		err  error
+		want *py.Type
+	}{
+		{exact.ErrDivisionByZero, py.ZeroDivisionError},
+		{fmt.Errorf("inverse: %w", exact.ErrSingular), py.ZeroDivisionError},
+		{exact.ErrTooManyTerms, py.MemoryError},
+		{fmt.Errorf("sign at 128 bits: %w", exact.ErrUndecided), py.ArithmeticError},
+		{exact.ErrDomain, py.ValueError},
+		{fmt.Errorf("something else"), py.ValueError},
+		{py.ExceptionNewf(py.IndexError, "i"), py.IndexError},
+	}
+	for _, c := range cases {
+		got := Exception(c.err)
+		if !py.IsException(c.want, got) || !strings.Contains(got.Error(), strings.SplitN(c.err.Error(), ":", 2)[0]) {
+			t.Errorf("%v became %v, want %s", c.err, got, c.want.Name)
+		}
+	}
+	if Exception(nil) != nil {
+		t.Error("nil is not an error")
+	}
+}
+
+// Arguments are read by name whatever way they were passed.
+func TestBindReadsByName(t *testing.T) {
+	a, err := Bind("f", py.Tuple{py.Int(1), py.Int(2), py.Int(3)}, py.StringDict{"c": py.True, "z": py.Int(9)}, "a", "b=", "*rest", "**more")
+	if err != nil {
+		t.Fatal(err)
+	}
+	if n, _ := a.Int("a", 0); n != 1 || !a.Has("b") || len(a.Rest()) != 1 || a.Keywords()["z"] != py.Int(9) {
+		t.Errorf("bound %+v", a)
+	}
+	if a.Keywords()["c"] != py.True || a.Has("b") && a.Get("b") != py.Int(2) {
+		t.Errorf("keywords %v, b = %v", a.Keywords(), a.Get("b"))
+	}
+	if d, err := a.Bool("b", false); err == nil {
+		t.Errorf("an int read as a bool: %v", d)
+	}
+	bad := []struct {
+		args py.Tuple
+		kw   py.StringDict
+		want string
+	}{
+		{nil, nil, `f() is missing its argument "a"`},
+		{py.Tuple{py.Int(1), py.Int(2)}, nil, "f() takes at most 1 arguments (2 given)"},
+		{py.Tuple{py.Int(1)}, py.StringDict{"a": py.Int(2)}, `f() got two values for "a"`},
+		{nil, py.StringDict{"q": py.Int(2)}, `f() has no argument "q"`},
+	}
+	for _, c := range bad {
+		if _, err := Bind("f", c.args, c.kw, "a"); err == nil || !strings.Contains(err.Error(), c.want) {
+			t.Errorf("%v %v: %v, want %q", c.args, c.kw, err, c.want)
+		}
+	}
+	if _, err := Int("f", "n", py.String("x"), 0); err == nil || !strings.Contains(err.Error(), "n must be an integer") {
+		t.Errorf("Int of a string: %v", err)
+	}
+}
