@@ -170,28 +170,44 @@ func (r *Rational) binary(other py.Object, swap bool, op func(x, y *big.Rat) (*b
 }
 
 // M__add__ adds exactly.
-func (r *Rational) M__add__(o py.Object) (py.Object, error) { return r.binary(o, false, ratAdd, py.Add) }
+func (r *Rational) M__add__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, ratAdd, py.Add)
+}
 
 // M__radd__ adds exactly.
-func (r *Rational) M__radd__(o py.Object) (py.Object, error) { return r.binary(o, true, ratAdd, py.Add) }
+func (r *Rational) M__radd__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, ratAdd, py.Add)
+}
 
 // M__sub__ subtracts exactly.
-func (r *Rational) M__sub__(o py.Object) (py.Object, error) { return r.binary(o, false, ratSub, py.Sub) }
+func (r *Rational) M__sub__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, ratSub, py.Sub)
+}
 
 // M__rsub__ subtracts exactly.
-func (r *Rational) M__rsub__(o py.Object) (py.Object, error) { return r.binary(o, true, ratSub, py.Sub) }
+func (r *Rational) M__rsub__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, ratSub, py.Sub)
+}
 
 // M__mul__ multiplies exactly.
-func (r *Rational) M__mul__(o py.Object) (py.Object, error) { return r.binary(o, false, ratMul, py.Mul) }
+func (r *Rational) M__mul__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, ratMul, py.Mul)
+}
 
 // M__rmul__ multiplies exactly.
-func (r *Rational) M__rmul__(o py.Object) (py.Object, error) { return r.binary(o, true, ratMul, py.Mul) }
+func (r *Rational) M__rmul__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, ratMul, py.Mul)
+}
 
 // M__truediv__ divides exactly.
-func (r *Rational) M__truediv__(o py.Object) (py.Object, error) { return r.binary(o, false, quotient, py.TrueDiv) }
+func (r *Rational) M__truediv__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, quotient, py.TrueDiv)
+}
 
 // M__rtruediv__ divides exactly.
-func (r *Rational) M__rtruediv__(o py.Object) (py.Object, error) { return r.binary(o, true, quotient, py.TrueDiv) }
+func (r *Rational) M__rtruediv__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, quotient, py.TrueDiv)
+}
 
 // M__pow__ raises to an integer power exactly.
 func (r *Rational) M__pow__(o, mod py.Object) (res py.Object, err error) {
@@ -329,19 +345,31 @@ func (r *Rational) compare(o py.Object, test func(int) bool) (res py.Object, err
 }
 
 // M__eq__ compares exactly (a float compares by its exact binary value).
-func (r *Rational) M__eq__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c == 0 }) }
+func (r *Rational) M__eq__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c == 0 })
+}
 
 // M__ne__ compares exactly.
-func (r *Rational) M__ne__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c != 0 }) }
+func (r *Rational) M__ne__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c != 0 })
+}
 
 // M__lt__ compares exactly.
-func (r *Rational) M__lt__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c < 0 }) }
+func (r *Rational) M__lt__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c < 0 })
+}
 
 // M__le__ compares exactly.
-func (r *Rational) M__le__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c <= 0 }) }
+func (r *Rational) M__le__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c <= 0 })
+}
 
 // M__gt__ compares exactly.
-func (r *Rational) M__gt__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c > 0 }) }
+func (r *Rational) M__gt__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c > 0 })
+}
 
 // M__ge__ compares exactly.
-func (r *Rational) M__ge__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c >= 0 }) }
+func (r *Rational) M__ge__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c >= 0 })
+}

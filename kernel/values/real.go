@@ -230,22 +230,34 @@ func (r *Real) binary(o py.Object, swap bool, op func(a, b *exact.Real) *exact.R
 }
 
 // M__add__ adds.
-func (r *Real) M__add__(o py.Object) (py.Object, error) { return r.binary(o, false, exact.RealAdd, py.Add) }
+func (r *Real) M__add__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, exact.RealAdd, py.Add)
+}
 
 // M__radd__ adds.
-func (r *Real) M__radd__(o py.Object) (py.Object, error) { return r.binary(o, true, exact.RealAdd, py.Add) }
+func (r *Real) M__radd__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, exact.RealAdd, py.Add)
+}
 
 // M__sub__ subtracts.
-func (r *Real) M__sub__(o py.Object) (py.Object, error) { return r.binary(o, false, exact.RealSub, py.Sub) }
+func (r *Real) M__sub__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, exact.RealSub, py.Sub)
+}
 
 // M__rsub__ subtracts.
-func (r *Real) M__rsub__(o py.Object) (py.Object, error) { return r.binary(o, true, exact.RealSub, py.Sub) }
+func (r *Real) M__rsub__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, exact.RealSub, py.Sub)
+}
 
 // M__mul__ multiplies.
-func (r *Real) M__mul__(o py.Object) (py.Object, error) { return r.binary(o, false, exact.RealMul, py.Mul) }
+func (r *Real) M__mul__(o py.Object) (py.Object, error) {
+	return r.binary(o, false, exact.RealMul, py.Mul)
+}
 
 // M__rmul__ multiplies.
-func (r *Real) M__rmul__(o py.Object) (py.Object, error) { return r.binary(o, true, exact.RealMul, py.Mul) }
+func (r *Real) M__rmul__(o py.Object) (py.Object, error) {
+	return r.binary(o, true, exact.RealMul, py.Mul)
+}
 
 // M__truediv__ divides, once the divisor is certified non-zero.
 func (r *Real) M__truediv__(o py.Object) (res py.Object, err error) {
@@ -361,22 +373,34 @@ func (r *Real) compare(o py.Object, test func(int) bool, op string) (res py.Obje
 }
 
 // M__lt__ compares, refining as needed.
-func (r *Real) M__lt__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c < 0 }, "<") }
+func (r *Real) M__lt__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c < 0 }, "<")
+}
 
 // M__le__ compares, refining as needed.
-func (r *Real) M__le__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c <= 0 }, "<=") }
+func (r *Real) M__le__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c <= 0 }, "<=")
+}
 
 // M__gt__ compares, refining as needed.
-func (r *Real) M__gt__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c > 0 }, ">") }
+func (r *Real) M__gt__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c > 0 }, ">")
+}
 
 // M__ge__ compares, refining as needed.
-func (r *Real) M__ge__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c >= 0 }, ">=") }
+func (r *Real) M__ge__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c >= 0 }, ">=")
+}
 
 // M__eq__ is decided only when the values separate or are known exactly.
-func (r *Real) M__eq__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c == 0 }, "==") }
+func (r *Real) M__eq__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c == 0 }, "==")
+}
 
 // M__ne__ is the negation of M__eq__.
-func (r *Real) M__ne__(o py.Object) (py.Object, error) { return r.compare(o, func(c int) bool { return c != 0 }, "!=") }
+func (r *Real) M__ne__(o py.Object) (py.Object, error) {
+	return r.compare(o, func(c int) bool { return c != 0 }, "!=")
+}
 
 // floatOperator applies an operator to the float64 values of r and o (float64 code).
 func (r *Real) floatOperator(o py.Object, swap bool, op func(a, b py.Object) (py.Object, error)) (py.Object, error) {
