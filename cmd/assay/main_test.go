@@ -252,48 +252,87 @@ func TestVersionAndHelp(t *testing.T) {
 // The committed reports of the demo notebooks must be what a run gives now
 // (apart from lines stating times). -update rewrites them.
 func TestDemoReportsAreCurrent(t *testing.T) {
-	demos, _ := filepath.Glob("../../notebooks/*.md")
-	for _, nb := range demos {
-		if strings.HasSuffix(nb, ".report.md") {
-			continue
+	all, err := filepath.Glob("../../notebooks/*.md")
+	var demos []string
+	for _, nb := range all {
+		if !strings.HasSuffix(nb, ".report.md") {
+			demos = append(demos, nb)
 		}
+	}
+	if err != nil || len(demos) == 0 {
+		t.Fatalf("no demo notebooks found in ../../notebooks (%v)", err)
+	}
+	for _, nb := range demos {
 		t.Run(filepath.Base(nb), func(t *testing.T) {
-			committed, _ := filepath.Abs(strings.TrimSuffix(nb, ".md") + ".report.md")
-			old, _ := os.ReadFile(committed)
-			oldHTML, _ := os.ReadFile(strings.TrimSuffix(committed, ".md") + ".html")
+			committed, err := filepath.Abs(strings.TrimSuffix(nb, ".md") + ".report.md")
+			if err != nil {
+				t.Fatal(err)
+			}
+			committedHTML := strings.TrimSuffix(committed, ".md") + ".html"
+			committedFigs, err := filepath.Glob(strings.TrimSuffix(committed, ".md") + ".fig*.svg")
+			if err != nil {
+				t.Fatal(err)
+			}
 			// Same file name as the committed report, so figure links agree.
 			out := filepath.Join(t.TempDir(), filepath.Base(committed))
-			// The report names the notebook by the path given; run from the
-			// repository root so it reads notebooks/x.md.
-			wd, _ := os.Getwd()
-			os.Chdir("../..")
-			defer os.Chdir(wd)
-			rel, _ := filepath.Rel("../..", nb)
-			rel = filepath.ToSlash(rel)
 			if *update {
 				out = committed
+				for _, f := range committedFigs {
+					if err := os.Remove(f); err != nil { // the run writes the current ones again
+						t.Fatal(err)
+					}
+				}
 			}
-			if code, stdout, stderr := assay(t, "run", "-o", out, rel); code != 0 {
+			// The report names the notebook by the path given; run from the
+			// repository root so it reads notebooks/x.md.
+			wd, err := os.Getwd()
+			if err != nil {
+				t.Fatal(err)
+			}
+			if err := os.Chdir("../.."); err != nil {
+				t.Fatal(err)
+			}
+			defer os.Chdir(wd)
+			rel, err := filepath.Rel("../..", nb)
+			if err != nil {
+				t.Fatal(err)
+			}
+			if code, stdout, stderr := assay(t, "run", "-o", out, filepath.ToSlash(rel)); code != 0 {
 				t.Fatalf("exit %d\n%s\n%s", code, stdout, stderr)
 			}
 			if *update {
 				return
 			}
-			fresh, _ := os.ReadFile(out)
-			freshHTML, _ := os.ReadFile(strings.TrimSuffix(out, ".md") + ".html")
-			if normalizeTimes(fresh) != normalizeTimes(old) {
-				t.Errorf("%s is stale: run `go test ./cmd/assay -update`", committed)
+			for _, pair := range [][2]string{{committed, out}, {committedHTML, strings.TrimSuffix(out, ".md") + ".html"}} {
+				old, err := os.ReadFile(pair[0])
+				if err != nil {
+					t.Fatalf("the committed report cannot be read: %v", err)
+				}
+				fresh, err := os.ReadFile(pair[1])
+				if err != nil {
+					t.Fatalf("the fresh report cannot be read: %v", err)
+				}
+				if normalizeTimes(fresh) != normalizeTimes(old) {
+					t.Errorf("%s is stale: run `go test ./cmd/assay -run TestDemoReportsAreCurrent -update`", pair[0])
+				}
 			}
-			if normalizeTimes(freshHTML) != normalizeTimes(oldHTML) {
-				t.Errorf("the HTML report of %s is stale: run `go test ./cmd/assay -update`", nb)
+			figures, err := filepath.Glob(strings.TrimSuffix(out, ".md") + ".fig*.svg")
+			if err != nil {
+				t.Fatal(err)
 			}
-			figures, _ := filepath.Glob(strings.TrimSuffix(out, ".md") + ".fig*.svg")
+			made := map[string]bool{}
 			for _, f := range figures {
 				committedFig := filepath.Join(filepath.Dir(committed), filepath.Base(f))
+				made[committedFig] = true
 				want, err := os.ReadFile(committedFig)
-				got, _ := os.ReadFile(f)
-				if err != nil || !bytes.Equal(got, want) {
-					t.Errorf("figure %s is stale or missing: run `go test ./cmd/assay -update`", committedFig)
+				got, gerr := os.ReadFile(f)
+				if err != nil || gerr != nil || !bytes.Equal(got, want) {
+					t.Errorf("figure %s is stale or missing: run `go test ./cmd/assay -run TestDemoReportsAreCurrent -update`", committedFig)
+				}
+			}
+			for _, f := range committedFigs {
+				if !made[f] {
+					t.Errorf("figure %s is committed but the report no longer makes it: run `go test ./cmd/assay -run TestDemoReportsAreCurrent -update`", f)
 				}
 			}
 		})

@@ -2,6 +2,7 @@ package session
 
 import (
 	"fmt"
+	"slices"
 	"strings"
 	"testing"
 
@@ -685,5 +686,36 @@ identity("a claim inside f", nested, over=lambda k: k, samples=3)`)
 	}
 	if c := rep.Outcomes[0].Claims; len(c) != 2 || c[1].Verdict != cells.Undecided || !strings.Contains(c[1].Residual, "a claim cannot be made per sample") {
 		t.Errorf("a claim inside f: %+v", c)
+	}
+}
+
+// Sessions in one process share nothing: the float64 audit of one (which
+// turns / between ints into float division) must not leak into another
+// that divides exactly at the same moment. Run with -race.
+func TestConcurrentSessions(t *testing.T) {
+	const audited = `for i in range(40):
+    identity("audit %d" % i, lambda: (frac(1, 3) + i / 7, (7 + 3 * i) / 21))`
+	const exactly = `ok = True
+for i in range(400):
+    ok = ok and (i + 1) / 3 == frac(i + 1, 3)
+print(ok)`
+	done := make(chan string, 2)
+	for _, src := range []string{audited, exactly} {
+		go func() {
+			rep := runHere(t, src)
+			o := rep.Outcomes[0]
+			switch {
+			case o.Error != nil:
+				done <- o.Error.Message
+			case len(o.Claims) > 0 && o.Claims[0].Float == nil:
+				done <- "no float64 audit"
+			default:
+				done <- o.Output
+			}
+		}()
+	}
+	got := []string{<-done, <-done}
+	if !slices.Contains(got, "True\n") || !slices.Contains(got, "") {
+		t.Errorf("concurrent sessions gave %q", got)
 	}
 }
