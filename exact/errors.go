@@ -14,7 +14,8 @@ var (
 	// ErrShape reports ragged, empty or mismatched matrix shapes and
 	// out-of-range indices.
 	ErrShape = errors.New("shape mismatch")
-	// ErrSyntax reports text that is not a number in an accepted form.
+	// ErrSyntax reports text that is not a number, a polynomial or a
+	// variable name in an accepted form.
 	ErrSyntax = errors.New("invalid number syntax")
 	// ErrNotFinite reports a NaN or infinite float64 where a finite value is
 	// needed.

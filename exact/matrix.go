@@ -18,17 +18,9 @@ type Matrix struct {
 // is read as 0. It returns ErrShape if there are no rows, if a row is empty,
 // or if the rows do not all have the same length.
 func NewMatrix(rows [][]*big.Rat) (*Matrix, error) {
-	if len(rows) == 0 {
-		return nil, fmt.Errorf("new matrix: no rows: %w", ErrShape)
-	}
-	c := len(rows[0])
-	for i, r := range rows {
-		if len(r) == 0 {
-			return nil, fmt.Errorf("new matrix: row %d is empty: %w", i+1, ErrShape)
-		}
-		if len(r) != c {
-			return nil, fmt.Errorf("new matrix: row %d has length %d, row 1 has length %d: %w", i+1, len(r), c, ErrShape)
-		}
+	c, err := rowLength("new matrix", rows)
+	if err != nil {
+		return nil, err
 	}
 	m := Zeros(len(rows), c)
 	for i, r := range rows {
@@ -39,6 +31,24 @@ func NewMatrix(rows [][]*big.Rat) (*Matrix, error) {
 		}
 	}
 	return m, nil
+}
+
+// rowLength returns the common length of rows, or ErrShape if there are no
+// rows, if a row is empty, or if the lengths differ.
+func rowLength[T any](op string, rows [][]T) (int, error) {
+	if len(rows) == 0 {
+		return 0, fmt.Errorf("%s: no rows: %w", op, ErrShape)
+	}
+	c := len(rows[0])
+	for i, r := range rows {
+		if len(r) == 0 {
+			return 0, fmt.Errorf("%s: row %d is empty: %w", op, i+1, ErrShape)
+		}
+		if len(r) != c {
+			return 0, fmt.Errorf("%s: row %d has length %d, row 1 has length %d: %w", op, i+1, len(r), c, ErrShape)
+		}
+	}
+	return c, nil
 }
 
 // Zeros returns the r x c zero matrix. Either dimension may be 0; a negative
@@ -96,25 +106,20 @@ func (m *Matrix) Set(i, j int, v *big.Rat) {
 }
 
 // Row returns a copy of row i, 0-based. It panics if i is out of range.
-func (m *Matrix) Row(i int) []*big.Rat {
-	if i < 0 || i >= m.rows {
-		panic(fmt.Sprintf("exact: row %d out of range for %s matrix", i, m.shape()))
-	}
-	out := make([]*big.Rat, m.cols)
-	for j := range out {
-		out[j] = new(big.Rat).Set(m.at(i, j))
-	}
-	return out
-}
+func (m *Matrix) Row(i int) []*big.Rat { return m.line("row", i, m.rows, i*m.cols, 1, m.cols) }
 
 // Col returns a copy of column j, 0-based. It panics if j is out of range.
-func (m *Matrix) Col(j int) []*big.Rat {
-	if j < 0 || j >= m.cols {
-		panic(fmt.Sprintf("exact: column %d out of range for %s matrix", j, m.shape()))
+func (m *Matrix) Col(j int) []*big.Rat { return m.line("column", j, m.cols, j, m.cols, m.rows) }
+
+// line returns copies of the n entries of row or column k (of count) that
+// start at m.e[first] and lie step apart.
+func (m *Matrix) line(what string, k, count, first, step, n int) []*big.Rat {
+	if k < 0 || k >= count {
+		panic(fmt.Sprintf("exact: %s %d out of range for %s matrix", what, k, m.shape()))
 	}
-	out := make([]*big.Rat, m.rows)
-	for i := range out {
-		out[i] = new(big.Rat).Set(m.at(i, j))
+	out := make([]*big.Rat, n)
+	for x := range out {
+		out[x] = new(big.Rat).Set(m.e[first+x*step])
 	}
 	return out
 }
@@ -138,25 +143,21 @@ func (m *Matrix) sameShape(op string, o *Matrix) error {
 }
 
 // Add returns m + o, or ErrShape if the shapes differ.
-func (m *Matrix) Add(o *Matrix) (*Matrix, error) {
-	if err := m.sameShape("add", o); err != nil {
-		return nil, err
-	}
-	out := Zeros(m.rows, m.cols)
-	for k := range out.e {
-		out.e[k].Add(m.e[k], o.e[k])
-	}
-	return out, nil
-}
+func (m *Matrix) Add(o *Matrix) (*Matrix, error) { return m.entrywise("add", o, (*big.Rat).Add) }
 
 // Sub returns m - o, or ErrShape if the shapes differ.
-func (m *Matrix) Sub(o *Matrix) (*Matrix, error) {
-	if err := m.sameShape("sub", o); err != nil {
+func (m *Matrix) Sub(o *Matrix) (*Matrix, error) { return m.entrywise("sub", o, (*big.Rat).Sub) }
+
+// entrywise returns the matrix of f(z, a, b) over the entries a of m and b
+// of o, which must have m's shape; f sets z and returns it, as big.Rat's
+// methods do.
+func (m *Matrix) entrywise(op string, o *Matrix, f func(z, a, b *big.Rat) *big.Rat) (*Matrix, error) {
+	if err := m.sameShape(op, o); err != nil {
 		return nil, err
 	}
 	out := Zeros(m.rows, m.cols)
 	for k := range out.e {
-		out.e[k].Sub(m.e[k], o.e[k])
+		f(out.e[k], m.e[k], o.e[k])
 	}
 	return out, nil
 }
@@ -284,13 +285,20 @@ func checkIndices(what string, idx []int, n int) error {
 // Minor returns the determinant of Submatrix(rows, cols). The index lists
 // must have equal lengths (ErrNotSquare otherwise); bad indices give
 // ErrShape. The minor with no rows and no columns is 1.
-func (m *Matrix) Minor(rows, cols []int) (*big.Rat, error) {
+func (m *Matrix) Minor(rows, cols []int) (*big.Rat, error) { return minor(m, rows, cols) }
+
+// minor is Minor for Matrix and PolyMatrix.
+func minor[M interface {
+	Submatrix(rows, cols []int) (M, error)
+	Det() (D, error)
+}, D any](m M, rows, cols []int) (D, error) {
+	var none D
 	if len(rows) != len(cols) {
-		return nil, fmt.Errorf("minor needs as many rows as columns, got %d and %d: %w", len(rows), len(cols), ErrNotSquare)
+		return none, fmt.Errorf("minor needs as many rows as columns, got %d and %d: %w", len(rows), len(cols), ErrNotSquare)
 	}
 	s, err := m.Submatrix(rows, cols)
 	if err != nil {
-		return nil, err
+		return none, err
 	}
 	return s.Det()
 }

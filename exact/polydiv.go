@@ -1,44 +1,14 @@
 package exact
 
+// Exact division: DivExact by long division on Kronecker keys, dense
+// chunk by chunk or with a heap.
+
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"math/bits"
 )
-
-// Division of polynomials.
-
-// monoDivides reports whether the monomial d divides m (d no wider than m
-// or with zero extra words).
-func monoDivides(m, d []uint64) bool {
-	for k := 1; k < len(d); k++ {
-		x := d[k]
-		if x == 0 {
-			continue
-		}
-		if k >= len(m) {
-			return false
-		}
-		y := m[k]
-		for f := 0; f < perWord; f++ {
-			sh := topShift - expBits*f
-			if x>>sh&expMask > y>>sh&expMask {
-				return false
-			}
-		}
-	}
-	return true
-}
-
-// monoQuo returns m/d (d divides m) with width max(len(m), len(d)).
-func monoQuo(m, d []uint64) []uint64 {
-	out := make([]uint64, max(len(m), len(d)))
-	copy(out, m)
-	for k, x := range d {
-		out[k] -= x
-	}
-	return out
-}
 
 // DivExact returns p/q and true when q divides p in Q[vars], and nil,
 // false when it does not. A zero q gives ErrDivisionByZero, a q of another
@@ -105,8 +75,7 @@ func (p *Poly) DivExact(q *Poly) (*Poly, bool, error) {
 	cq := q.numContent()
 	qp := q
 	if !(cq.IsInt64() && cq.Int64() == 1) || q.den != nil {
-		qp = &Poly{ring: q.ring, w: q.w, mono: q.mono, num: make([]int64, q.n())}
-		qp.divNumsFrom(q, cq)
+		qp = q.numsQuo(cq)
 	}
 	var s *Poly
 	var err error
@@ -136,47 +105,6 @@ func (p *Poly) DivExact(q *Poly) (*Poly, bool, error) {
 		return s, true, nil
 	}
 	return s.scaleFrac(n, d), true, nil
-}
-
-// numContent returns the gcd of the numerators, with the sign of the
-// leading one.
-func (p *Poly) numContent() *big.Int {
-	g := new(big.Int)
-	if p.bnum == nil {
-		var gs uint64
-		for _, x := range p.num {
-			if gs = gcdU64(gs, absU64(x)); gs == 1 {
-				break
-			}
-		}
-		g.SetUint64(gs)
-	} else {
-		t := new(big.Int)
-		for i := 0; i < p.n(); i++ {
-			if g.GCD(nil, nil, g, p.numAt(i, t).Abs(t)); g.Cmp(bigOne) == 0 {
-				break
-			}
-		}
-	}
-	if p.numSign(0) < 0 {
-		g.Neg(g)
-	}
-	return g
-}
-
-// divNumsFrom sets the numerators of the new polynomial p to those of src
-// divided exactly by g (nonzero).
-func (p *Poly) divNumsFrom(src *Poly, g *big.Int) {
-	gs, gSmall := g.Int64(), g.IsInt64()
-	t := new(big.Int)
-	for i := range src.num {
-		if src.small(i) && gSmall && !(gs == -1 && src.num[i] == -1<<63) {
-			p.num[i] = src.num[i] / gs
-			continue
-		}
-		p.setBig(i, new(big.Int).Quo(src.numAt(i, t), g))
-	}
-	p.trimBig()
 }
 
 // divMono divides p by the single term q, which divides it.
@@ -273,7 +201,7 @@ func (d *divLayout) quotient(s *Poly, ks []uint64) *Poly {
 }
 
 // divDense is exact division by long division in key space, chunk by
-// chunk from the top like mulDense128: quotient terms become rows as they
+// chunk from the top like mulDense: quotient terms become rows as they
 // are found, and each row adds its products with q's terms (all but the
 // leading one) to the chunks below. It works with signed 128-bit
 // accumulators and int64 quotient coefficients, and returns done = false
@@ -327,7 +255,7 @@ func divDense(p, q *Poly, k *kron, sp, sq monoStats) (s *Poly, ok, done bool, er
 			if m < 2 || ks[i]+kq[1] < lo {
 				break
 			}
-			start[i] = subRow(acc, lo, ks[i], s.num[i], kq, q.num, start[i])
+			start[i] = addRow128(acc, lo, ks[i], -s.num[i], kq, q.num, start[i])
 		}
 		// Keys of this chunk from the top: each nonzero value starts a row.
 		for x := int(hi - lo); x >= 0; x-- {
@@ -363,14 +291,15 @@ func divDense(p, q *Poly, k *kron, sp, sq monoStats) (s *Poly, ok, done bool, er
 				}
 				c = z.Int64()
 			}
-			if bits.Len64(absU64(c)) > sBudget {
+			// The rows are subtracted as rows of -c, which must fit too.
+			if bits.Len64(absU64(c)) > sBudget || c == math.MinInt64 {
 				return nil, false, false, nil
 			}
 			ks = append(ks, key-kq[0])
 			s.num = append(s.num, c)
 			start = append(start, 1)
 			if m > 1 && ks[len(ks)-1]+kq[1] >= lo {
-				start[len(ks)-1] = subRow(acc, lo, ks[len(ks)-1], c, kq, q.num, 1)
+				start[len(ks)-1] = addRow128(acc, lo, ks[len(ks)-1], -c, kq, q.num, 1)
 			}
 		}
 		if lo == bottom {
@@ -386,45 +315,6 @@ func divDense(p, q *Poly, k *kron, sp, sq monoStats) (s *Poly, ok, done bool, er
 		}
 		hi = lo - 1
 	}
-}
-
-// subRow subtracts c*q_j at key kr+kq[j] - lo from the chunk acc for
-// j = from, from+1, ... while the key is in the chunk, and returns the
-// first j left for lower chunks.
-func subRow(acc []uint64, lo, kr uint64, c int64, kq []uint64, qn []int64, from int) int {
-	uc, sc := uint64(c), uint64(c>>63)
-	base := int64(kr) - int64(lo)
-	j := from
-	for ; j < len(kq); j++ {
-		idx := base + int64(kq[j])
-		if idx < 0 {
-			break
-		}
-		b := qn[j]
-		ph, pl := bits.Mul64(uc, uint64(b))
-		ph -= sc&uint64(b) + uint64(b>>63)&uc
-		s := acc[2*idx : 2*idx+2 : 2*idx+2]
-		var borrow uint64
-		s[0], borrow = bits.Sub64(s[0], pl, 0)
-		s[1] -= ph + borrow
-	}
-	return j
-}
-
-// words128 returns the two's complement words of x, |x| < 2^127.
-func words128(x *big.Int) (hi, lo uint64) {
-	var a, t big.Int
-	a.Abs(x)
-	lo = t.And(&a, new(big.Int).SetUint64(^uint64(0))).Uint64()
-	hi = t.Rsh(&a, 64).Uint64()
-	if x.Sign() < 0 {
-		lo = -lo
-		hi = ^hi
-		if lo == 0 {
-			hi++
-		}
-	}
-	return hi, lo
 }
 
 // divHeap divides the integer numerators of p by the integer polynomial q
@@ -452,14 +342,7 @@ func divHeap(p, q *Poly, k *kron, sp, sq monoStats) (*Poly, bool, error) {
 			key = max(kp[pi], h[0].key)
 		}
 		a.reset()
-		for len(h) > 0 && h[0].key == key {
-			e := h.pop()
-			i, j := int(e.i), int(e.j)
-			a.addMul(s, i, q, j, true)
-			if j+1 < m {
-				h.push(heapEnt{key: ks[i] + kq[j+1], i: e.i, j: e.j + 1})
-			}
-		}
+		h.popKey(key, &a, s, ks, q, kq, false, true)
 		if pi < p.n() && kp[pi] == key {
 			if p.small(pi) {
 				a.add128(uint64(p.num[pi]>>63), uint64(p.num[pi]))
@@ -508,100 +391,4 @@ func divHeap(p, q *Poly, k *kron, sp, sq monoStats) (*Poly, bool, error) {
 		}
 	}
 	return d.quotient(s, ks), true, nil
-}
-
-// Divide divides p by q with remainder: p = quo*q + rem where no term of
-// rem is divisible by the leading monomial of q (in the canonical graded
-// lexicographic order). This is the multivariate division algorithm with
-// the single divisor q; since {q} is a Gröbner basis of the ideal (q), rem
-// is the normal form of p modulo q, and rem == 0 exactly when q divides p.
-// For univariate polynomials it is the usual Euclidean division. A zero q
-// gives ErrDivisionByZero. The algorithm subtracts multiples of q term by
-// term (quadratic in the number of terms); DivExact is faster when only
-// exact quotients matter.
-func (p *Poly) Divide(q *Poly) (quo, rem *Poly, err error) {
-	if err := p.sameRing(q, "divide"); err != nil {
-		return nil, nil, err
-	}
-	if q.IsZero() {
-		return nil, nil, fmt.Errorf("divide polynomial by 0: %w", ErrDivisionByZero)
-	}
-	if c, ok := q.Constant(); ok {
-		quo, err := p.QuoConst(c)
-		return quo, p.ring.zero(), err
-	}
-	limit := p.ring.MaxTerms()
-	lm := q.monoAt(0)
-	lc := q.coefAt(0)
-	w := max(p.w, q.w)
-	var qt, rt ratTerms
-	r := p
-	for !r.IsZero() {
-		m := r.monoAt(0)
-		c := r.coefAt(0)
-		if monoDivides(m, lm) {
-			t := monoQuo(m, lm)
-			c.Quo(c, lc)
-			qt.push(t, c)
-			r = addSub(r, q.mulMono(t, c.Num(), c.Denom()), true)
-		} else {
-			rt.push(m, c)
-			r = r.rest()
-		}
-		if qt.len()+r.n() > 2*limit+q.n() || rt.len() > limit {
-			return nil, nil, tooManyTerms("divide", limit)
-		}
-	}
-	return qt.poly(p.ring, w), rt.poly(p.ring, w), nil
-}
-
-// rest returns p without its first term (for internal use: the result may
-// not be in lowest terms).
-func (p *Poly) rest() *Poly {
-	out := &Poly{ring: p.ring, w: p.w, mono: p.mono[p.w:], num: p.num[1:], den: p.den}
-	if p.bnum != nil {
-		out.bnum = p.bnum[1:]
-	}
-	return out
-}
-
-// ratTerms collects terms with rational coefficients in decreasing order.
-type ratTerms struct {
-	mono [][]uint64
-	coef []*big.Rat
-}
-
-func (t *ratTerms) len() int { return len(t.coef) }
-
-func (t *ratTerms) push(m []uint64, c *big.Rat) {
-	t.mono = append(t.mono, append([]uint64(nil), m...))
-	t.coef = append(t.coef, c)
-}
-
-// poly builds the polynomial of the (nonzero, decreasing) terms with at
-// least w words per monomial.
-func (t *ratTerms) poly(r *Ring, w int) *Poly {
-	for _, m := range t.mono {
-		w = max(w, len(m))
-	}
-	den := big.NewInt(1)
-	g := new(big.Int)
-	for _, c := range t.coef {
-		if !c.IsInt() {
-			g.GCD(nil, nil, den, c.Denom())
-			den.Mul(den, g.Quo(c.Denom(), g))
-		}
-	}
-	b := newBuilder(w)
-	b.grow(len(t.coef))
-	m := make([]uint64, w)
-	z := new(big.Int)
-	for i, c := range t.coef {
-		clear(m)
-		copy(m, t.mono[i])
-		z.Quo(den, c.Denom())
-		z.Mul(z, c.Num())
-		b.pushBig(m, z)
-	}
-	return b.poly(r, den)
 }

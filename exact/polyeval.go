@@ -2,11 +2,13 @@ package exact
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 	"slices"
 )
 
-// Evaluation, substitution, derivatives and contents.
+// Evaluation (exact and in float64), substitution, derivatives and
+// contents.
 
 // Eval substitutes the given values for variables (by index) and returns
 // the resulting polynomial in the other variables; when every variable of
@@ -75,6 +77,39 @@ func (p *Poly) Eval(vals map[int]*big.Rat) *Poly {
 		i = j
 	}
 	return rt.poly(p.ring, p.w)
+}
+
+// Float evaluates p in float64 arithmetic at vals, indexed by variable,
+// term by term: each coefficient is rounded to float64, multiplied by the
+// powers of the values and the products are summed in the canonical order.
+// It is a quick numerical companion of Eval, not an exact value. vals must
+// have an entry for every variable that occurs in p; Float panics
+// otherwise.
+func (p *Poly) Float(vals []float64) float64 {
+	sum := 0.0
+	for i := 0; i < p.n(); i++ {
+		m := p.monoAt(i)
+		t := p.coefFloat(i)
+		for v := 0; v < p.nvars(); v++ {
+			if e := monoExp(m, v); e > 0 {
+				if v >= len(vals) {
+					panic(fmt.Sprintf("exact: Float needs a value for variable %d, got %d values", v, len(vals)))
+				}
+				t *= math.Pow(vals[v], float64(e))
+			}
+		}
+		sum += t
+	}
+	return sum
+}
+
+// coefFloat returns coefficient i rounded to float64.
+func (p *Poly) coefFloat(i int) float64 {
+	if p.small(i) && p.den == nil {
+		return float64(p.num[i])
+	}
+	f, _ := p.coefAt(i).Float64()
+	return f
 }
 
 // Substitute replaces the variables given by index, all at once, by
@@ -175,32 +210,6 @@ func (st *substState) power(v, e int) (*Poly, error) {
 	return pw, nil
 }
 
-// sumPolys adds the polynomials pairwise (a balanced tree), failing when a
-// partial sum exceeds limit terms.
-func sumPolys(ps []*Poly, limit int, op string) (*Poly, error) {
-	switch len(ps) {
-	case 0:
-		panic("exact: sumPolys of nothing")
-	case 1:
-		return ps[0], nil
-	}
-	for len(ps) > 1 {
-		next := ps[:0:0]
-		for i := 0; i+1 < len(ps); i += 2 {
-			s := addSub(ps[i], ps[i+1], false)
-			if s.n() > limit {
-				return nil, tooManyTerms(op, limit)
-			}
-			next = append(next, s)
-		}
-		if len(ps)%2 == 1 {
-			next = append(next, ps[len(ps)-1])
-		}
-		ps = next
-	}
-	return ps[0], nil
-}
-
 // splitBy returns the coefficients of p as a polynomial in variable v:
 // out[e] is the coefficient of v^e (nil when it is zero). Dividing the
 // terms with the same exponent of v by v^e keeps their order.
@@ -261,14 +270,6 @@ func (p *Poly) coeffIn(v, e int) *Poly {
 // lcIn returns the leading coefficient of p as a polynomial in v.
 func (p *Poly) lcIn(v int) *Poly { return p.coeffIn(v, p.DegreeIn(v)) }
 
-// varPow returns the monomial v^e as packed words.
-func varPow(v, e int) []uint64 {
-	m := make([]uint64, wordsFor(v+1))
-	monoSetExp(m, v, e)
-	m[0] = uint64(e)
-	return m
-}
-
 // mulVarPow returns p * v^e (the caller keeps exponents in range).
 func (p *Poly) mulVarPow(v, e int) *Poly {
 	if e == 0 {
@@ -325,9 +326,7 @@ func (p *Poly) PrimitivePart() *Poly {
 	if g.Cmp(bigOne) == 0 && p.den == nil {
 		return p
 	}
-	out := &Poly{ring: p.ring, w: p.w, mono: p.mono, num: make([]int64, p.n())}
-	out.divNumsFrom(p, g)
-	return out
+	return p.numsQuo(g)
 }
 
 // monic returns p divided by its leading coefficient (zero stays zero).
@@ -337,4 +336,30 @@ func (p *Poly) monic() *Poly {
 	}
 	c := p.coefAt(0)
 	return p.Scale(c.Inv(c))
+}
+
+// numContent returns the gcd of the numerators, with the sign of the
+// leading one.
+func (p *Poly) numContent() *big.Int {
+	g := new(big.Int)
+	if p.bnum == nil {
+		var gs uint64
+		for _, x := range p.num {
+			if gs = gcdU64(gs, absU64(x)); gs == 1 {
+				break
+			}
+		}
+		g.SetUint64(gs)
+	} else {
+		t := new(big.Int)
+		for i := 0; i < p.n(); i++ {
+			if g.GCD(nil, nil, g, p.numAt(i, t).Abs(t)); g.Cmp(bigOne) == 0 {
+				break
+			}
+		}
+	}
+	if p.numSign(0) < 0 {
+		g.Neg(g)
+	}
+	return g
 }

@@ -2,7 +2,6 @@ package exact
 
 import (
 	"fmt"
-	"math"
 	"strconv"
 	"strings"
 )
@@ -66,36 +65,4 @@ func writeMono(sb *strings.Builder, m []uint64, names []string) {
 			sb.WriteString(strconv.Itoa(e))
 		}
 	}
-}
-
-// Float evaluates p in float64 arithmetic at vals, indexed by variable,
-// term by term: each coefficient is rounded to float64, multiplied by the
-// powers of the values and the products are summed in the canonical order.
-// It is a quick numerical companion of Eval, not an exact value. vals must
-// have an entry for every variable that occurs in p; Float panics
-// otherwise.
-func (p *Poly) Float(vals []float64) float64 {
-	sum := 0.0
-	for i := 0; i < p.n(); i++ {
-		m := p.monoAt(i)
-		t := p.coefFloat(i)
-		for v := 0; v < p.nvars(); v++ {
-			if e := monoExp(m, v); e > 0 {
-				if v >= len(vals) {
-					panic(fmt.Sprintf("exact: Float needs a value for variable %d, got %d values", v, len(vals)))
-				}
-				t *= math.Pow(vals[v], float64(e))
-			}
-		}
-		sum += t
-	}
-	return sum
-}
-
-func (p *Poly) coefFloat(i int) float64 {
-	if p.small(i) && p.den == nil {
-		return float64(p.num[i])
-	}
-	f, _ := p.coefAt(i).Float64()
-	return f
 }

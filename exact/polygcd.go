@@ -1,12 +1,7 @@
 package exact
 
-import (
-	"fmt"
-	"math"
-	"math/big"
-)
-
-// Greatest common divisors, resultants and discriminants.
+// Greatest common divisors. Resultants and discriminants are in
+// polyresultant.go; both use the pseudo-remainder prem (polyrem.go).
 //
 // GCD works in Z[x_1, ..., x_n] on primitive parts, recursively: after
 // taking out monomial and integer contents, a variable that occurs in only
@@ -15,11 +10,17 @@ import (
 // both are made primitive in a main variable v and the primitive
 // polynomial remainder sequence (Collins; Knuth, TAOCP vol. 2, 4.6.1)
 // gives the primitive part of the gcd. Before the remainder sequence, the
-// heuristic gcd (gcdHeuristic) is tried: it is much faster when it works,
-// and it only returns a candidate that passes trial division under the
-// bound that makes such a candidate provably the gcd. So every result is
-// the gcd; the remainder sequence is slow on large inputs but is only the
-// fallback.
+// heuristic gcd of Char, Geddes and Gonnet (gcdHeuristic) is tried: it is
+// much faster when it works, and it only returns a candidate that passes
+// trial division under the bound that makes such a candidate provably the
+// gcd. So every result is the gcd; the remainder sequence is slow on large
+// inputs but is only the fallback.
+
+import (
+	"fmt"
+	"math"
+	"math/big"
+)
 
 // GCD returns the greatest common divisor of p and q over Q, normalised to
 // leading coefficient 1 in the canonical order. GCD(p, 0) is p
@@ -40,9 +41,6 @@ func GCD(p, q *Poly) (*Poly, error) {
 	}
 	return g.monic(), nil
 }
-
-// isConst reports whether p is a nonzero constant.
-func (p *Poly) isConst() bool { return p.n() == 1 && p.mono[0] == 0 }
 
 // gcdZ returns the gcd in Z[vars] of nonzero integer polynomials, with a
 // positive leading coefficient.
@@ -139,12 +137,12 @@ func gcdNoMono(a, b *Poly) (*Poly, error) {
 		}
 	}
 	// Quick exact checks: one operand dividing the other.
-	if q, ok, err := a.DivExact(b); err != nil {
+	if ok, err := divides(b, a); err != nil {
 		return nil, err
-	} else if ok && q != nil {
+	} else if ok {
 		return b, nil
 	}
-	if _, ok, err := b.DivExact(a); err != nil {
+	if ok, err := divides(a, b); err != nil {
 		return nil, err
 	} else if ok {
 		return a, nil
@@ -154,12 +152,11 @@ func gcdNoMono(a, b *Poly) (*Poly, error) {
 			return g, err
 		}
 	}
-	v := main
-	ca, err := contentIn(a, v)
+	ca, A, err := splitContentIn(a, main)
 	if err != nil {
 		return nil, err
 	}
-	cb, err := contentIn(b, v)
+	cb, B, err := splitContentIn(b, main)
 	if err != nil {
 		return nil, err
 	}
@@ -167,15 +164,7 @@ func gcdNoMono(a, b *Poly) (*Poly, error) {
 	if err != nil {
 		return nil, err
 	}
-	A, err := exactQuo(a, ca)
-	if err != nil {
-		return nil, err
-	}
-	B, err := exactQuo(b, cb)
-	if err != nil {
-		return nil, err
-	}
-	G, err := primitivePRS(A, B, v)
+	G, err := primitivePRS(A, B, main)
 	if err != nil {
 		return nil, err
 	}
@@ -192,16 +181,18 @@ var gcdPRSOnly = false
 // heuristicTries bounds the evaluation points gcdHeuristic tries.
 const heuristicTries = 6
 
-// gcdHeuristic is the heuristic gcd GCDHEU (Char, Geddes and Gonnet, 1989;
-// Geddes, Czapor and Labahn, Algorithms for Computer Algebra, 7.7) for
-// primitive integer polynomials a and b: evaluate v at an integer xi,
-// take the gcd h of the images (recursively, in one variable fewer),
-// rebuild a polynomial in v from the xi-adic digits of h (symmetric
-// residues), and keep its primitive part G if G divides both a and b.
-// With xi > 1 + 2*min(|a|, |b|) (max norms), a G that divides both is the
-// gcd (GCL, Theorem 7.7 and its multivariate form), so a result is always
-// right; ok = false means the heuristic gave up and the caller falls back
-// to the remainder sequence.
+// gcdHeuristic is the heuristic gcd GCDHEU of Char, Geddes and Gonnet
+// (B. W. Char, K. O. Geddes, G. H. Gonnet, "GCDHEU: Heuristic polynomial
+// GCD algorithm based on integer GCD computation", EUROSAM 84, and J.
+// Symbolic Computation 7 (1989) 31-48; also Geddes, Czapor and Labahn,
+// Algorithms for Computer Algebra (GCL), 7.7) for primitive integer
+// polynomials a and b: evaluate v at an integer xi, take the gcd h of the
+// images (recursively, in one variable fewer), rebuild a polynomial in v
+// from the xi-adic digits of h (symmetric residues), and keep its
+// primitive part G if G divides both a and b. With xi > 1 + 2*min(|a|, |b|)
+// (max norms), a G that divides both is the gcd (GCL, Theorem 7.7 and its
+// multivariate form), so a result is always right; ok = false means the
+// heuristic gave up and the caller falls back to the remainder sequence.
 func gcdHeuristic(a, b *Poly, v int) (*Poly, bool, error) {
 	na, nb := a.maxNorm(), b.maxNorm()
 	xi := na
@@ -222,22 +213,20 @@ func gcdHeuristic(a, b *Poly, v int) (*Poly, bool, error) {
 				if g.isConst() {
 					return g, true, nil
 				}
-				_, ok1, err := a.DivExact(g)
+				ok, err := divides(g, a)
+				if err == nil && ok {
+					ok, err = divides(g, b)
+				}
 				if err != nil {
 					return nil, false, err
 				}
-				if ok1 {
-					_, ok2, err := b.DivExact(g)
-					if err != nil {
-						return nil, false, err
-					}
-					if ok2 {
-						return g, true, nil
-					}
+				if ok {
+					return g, true, nil
 				}
 			}
 		}
-		// Next point: xi * 73794 * xi^(1/4) / 27011, as in SymPy's heugcd.
+		// Next point: xi * xi^(1/4) * 73794/27011 (a ratio near 1 + √3), so
+		// that successive points grow fast and are not simply related.
 		r := new(big.Int).Sqrt(new(big.Int).Sqrt(xi))
 		xi.Mul(xi, r)
 		xi.Mul(xi, big.NewInt(73794))
@@ -303,7 +292,7 @@ func (h *Poly) interpolate(v int, xi *big.Int) (*Poly, bool) {
 			h = h.Sub(c)
 		}
 		if !h.IsZero() {
-			h = h.divIntExact(xi)
+			h = h.numsQuo(xi)
 		}
 	}
 	if len(parts) == 0 {
@@ -311,14 +300,6 @@ func (h *Poly) interpolate(v int, xi *big.Int) (*Poly, bool) {
 	}
 	g, err := sumPolys(parts, math.MaxInt, "gcd")
 	return g, err == nil
-}
-
-// divIntExact divides an integer polynomial whose numerators are all
-// multiples of d > 0.
-func (p *Poly) divIntExact(d *big.Int) *Poly {
-	out := &Poly{ring: p.ring, w: p.w, mono: p.mono, num: make([]int64, p.n())}
-	out.divNumsFrom(p, d)
-	return out
 }
 
 // gcdContent returns gcd(cont_v(a), b) for b free of v.
@@ -385,14 +366,23 @@ func exactQuo(a, b *Poly) (*Poly, error) {
 	return q, nil
 }
 
-// ppIn returns the primitive part of a as a polynomial in v, with a
-// positive leading coefficient.
-func ppIn(a *Poly, v int) (*Poly, error) {
-	c, err := contentIn(a, v)
-	if err != nil {
-		return nil, err
+// splitContentIn returns the content of a as a polynomial in v
+// (contentIn) and the primitive part a/content, which has a positive
+// leading coefficient.
+func splitContentIn(a *Poly, v int) (content, pp *Poly, err error) {
+	if content, err = contentIn(a, v); err != nil {
+		return nil, nil, err
 	}
-	return exactQuo(a, c)
+	if pp, err = exactQuo(a, content); err != nil {
+		return nil, nil, err
+	}
+	return content, pp, nil
+}
+
+// divides reports whether d divides p exactly.
+func divides(d, p *Poly) (bool, error) {
+	_, ok, err := p.DivExact(d)
+	return ok, err
 }
 
 // primitivePRS returns the gcd of A and B, primitive as polynomials in v
@@ -413,209 +403,8 @@ func primitivePRS(A, B *Poly, v int) (*Poly, error) {
 			return A.ring.one(), nil
 		}
 		A = B
-		if B, err = ppIn(R, v); err != nil {
+		if _, B, err = splitContentIn(R, v); err != nil {
 			return nil, err
 		}
 	}
-}
-
-// prem returns the pseudo-remainder of A by B in v: with exact, the
-// remainder R of lc_v(B)^(deg A - deg B + 1) * A by B; without, the
-// remainder of lc_v(B)^k * A for the k reduction steps taken, a multiple
-// of R by a power of lc_v(B) (enough for gcds).
-func prem(A, B *Poly, v int, exact bool) (*Poly, error) {
-	dB := B.DegreeIn(v)
-	lB := B.lcIn(v)
-	R := A
-	e := A.DegreeIn(v) - dB + 1
-	for !R.IsZero() {
-		dR := R.DegreeIn(v)
-		if dR < dB {
-			break
-		}
-		lR := R.lcIn(v)
-		T, err := mulPoly(lR, B.mulVarPow(v, dR-dB), "pseudo-remainder")
-		if err != nil {
-			return nil, err
-		}
-		if R, err = mulPoly(lB, R, "pseudo-remainder"); err != nil {
-			return nil, err
-		}
-		R = R.Sub(T)
-		e--
-	}
-	if exact && e > 0 && !R.IsZero() {
-		f, err := lB.Pow(e)
-		if err != nil {
-			return nil, err
-		}
-		return mulPoly(f, R, "pseudo-remainder")
-	}
-	return R, nil
-}
-
-// Resultant returns the resultant of p and q with respect to variable v:
-// the determinant of their Sylvester matrix built from the coefficients
-// of p and q as polynomials in v, of degrees m = deg_v p and n = deg_v q.
-// Conventions for the degenerate cases: if p or q is zero the resultant is
-// 0; if m = n = 0 it is 1 (the empty determinant); if only m = 0 it is
-// p^n, if only n = 0 it is q^m. Res(q, p) = (-1)^(mn) Res(p, q). The
-// computation is the subresultant polynomial remainder sequence (Collins;
-// Brown and Traub; H. Cohen, A Course in Computational Algebraic Number
-// Theory, Algorithm 3.3.7) over Z[other variables], with exact divisions.
-func Resultant(p, q *Poly, v int) (*Poly, error) {
-	if err := p.sameRing(q, "resultant"); err != nil {
-		return nil, err
-	}
-	checkVar(v)
-	if p.IsZero() || q.IsZero() {
-		return p.ring.zero(), nil
-	}
-	m, n := p.DegreeIn(v), q.DegreeIn(v)
-	switch {
-	case m == 0 && n == 0:
-		return p.ring.one(), nil
-	case m == 0:
-		return p.Pow(n)
-	case n == 0:
-		return q.Pow(m)
-	}
-	// Res(P/dp, Q/dq) = Res(P, Q) / (dp^n dq^m).
-	P, Q := p.clearDen(), q.clearDen()
-	r, err := subresultant(P, Q, v)
-	if err != nil {
-		return nil, err
-	}
-	if p.den == nil && q.den == nil {
-		return r, nil
-	}
-	d := new(big.Int).Exp(p.denOr1(), big.NewInt(int64(n)), nil)
-	d.Mul(d, new(big.Int).Exp(q.denOr1(), big.NewInt(int64(m)), nil))
-	return r.scaleFrac(bigOne, d), nil
-}
-
-// clearDen returns the integer polynomial den*p.
-func (p *Poly) clearDen() *Poly {
-	if p.den == nil {
-		return p
-	}
-	return &Poly{ring: p.ring, w: p.w, mono: p.mono, num: p.num, bnum: p.bnum}
-}
-
-// subresultant computes Res_v(A, B) for integer polynomials of positive
-// degree in v (Cohen, Algorithm 3.3.7).
-func subresultant(A, B *Poly, v int) (*Poly, error) {
-	r := A.ring
-	// Integer contents: Res(aA', bB') = a^deg(B) b^deg(A) Res(A', B').
-	a, b := A.numContent(), B.numContent()
-	t := new(big.Int).Exp(a, big.NewInt(int64(B.DegreeIn(v))), nil)
-	t.Mul(t, new(big.Int).Exp(b, big.NewInt(int64(A.DegreeIn(v))), nil))
-	A, B = A.scaleFrac(bigOne, absInt(a)), B.scaleFrac(bigOne, absInt(b))
-	if a.Sign() < 0 {
-		A = A.Neg()
-	}
-	if b.Sign() < 0 {
-		B = B.Neg()
-	}
-	g, h := r.one(), r.one()
-	s := 1
-	if A.DegreeIn(v) < B.DegreeIn(v) {
-		A, B = B, A
-		if A.DegreeIn(v)%2 == 1 && B.DegreeIn(v)%2 == 1 {
-			s = -1
-		}
-	}
-	for {
-		dA, dB := A.DegreeIn(v), B.DegreeIn(v)
-		delta := dA - dB
-		if dA%2 == 1 && dB%2 == 1 {
-			s = -s
-		}
-		R, err := prem(A, B, v, true)
-		if err != nil {
-			return nil, err
-		}
-		A = B
-		hd, err := h.Pow(delta)
-		if err != nil {
-			return nil, err
-		}
-		gh, err := mulPoly(g, hd, "resultant")
-		if err != nil {
-			return nil, err
-		}
-		if B, err = exactQuo(R, gh); err != nil {
-			return nil, err
-		}
-		g = A.lcIn(v)
-		switch {
-		case delta == 1:
-			h = g
-		case delta > 1:
-			gd, err := g.Pow(delta)
-			if err != nil {
-				return nil, err
-			}
-			hd1, err := h.Pow(delta - 1)
-			if err != nil {
-				return nil, err
-			}
-			if h, err = exactQuo(gd, hd1); err != nil {
-				return nil, err
-			}
-		}
-		if B.IsZero() {
-			return r.zero(), nil
-		}
-		if B.DegreeIn(v) == 0 {
-			break
-		}
-	}
-	dA := A.DegreeIn(v)
-	lb, err := B.Pow(dA)
-	if err != nil {
-		return nil, err
-	}
-	hd, err := h.Pow(dA - 1)
-	if err != nil {
-		return nil, err
-	}
-	res, err := exactQuo(lb, hd)
-	if err != nil {
-		return nil, err
-	}
-	if s < 0 {
-		t.Neg(t)
-	}
-	return res.scaleFrac(t, bigOne), nil
-}
-
-func absInt(x *big.Int) *big.Int { return new(big.Int).Abs(x) }
-
-// Discriminant returns the discriminant of p with respect to variable v,
-// (-1)^(n(n-1)/2) / lc_v(p) * Res_v(p, dp/dv) with n = deg_v p, so that
-// the discriminant of a x^2 + b x + c is b^2 - 4ac and that of a
-// polynomial of degree 1 is 1. A p of degree 0 in v (including zero)
-// gives ErrDegree.
-func Discriminant(p *Poly, v int) (*Poly, error) {
-	checkVar(v)
-	n := p.DegreeIn(v)
-	if n < 1 {
-		return nil, fmt.Errorf("discriminant of %v with respect to %s: degree %d, need at least 1: %w", p, p.ring.name(v), n, ErrDegree)
-	}
-	r, err := Resultant(p, p.Derivative(v), v)
-	if err != nil {
-		return nil, err
-	}
-	d, ok, err := r.DivExact(p.lcIn(v))
-	if err != nil {
-		return nil, err
-	}
-	if !ok {
-		return nil, fmt.Errorf("exact: internal error: the leading coefficient does not divide the resultant")
-	}
-	if (n*(n-1)/2)%2 == 1 {
-		d = d.Neg()
-	}
-	return d, nil
 }

@@ -2,6 +2,7 @@ package exact
 
 import (
 	"fmt"
+	"math"
 	"math/big"
 )
 
@@ -23,17 +24,9 @@ func NewPolyMatrix(r *Ring, rows [][]*Poly) (*PolyMatrix, error) {
 	if r == nil {
 		panic("exact: NewPolyMatrix with a nil ring")
 	}
-	if len(rows) == 0 {
-		return nil, fmt.Errorf("new poly matrix: no rows: %w", ErrShape)
-	}
-	c := len(rows[0])
-	for i, row := range rows {
-		if len(row) == 0 {
-			return nil, fmt.Errorf("new poly matrix: row %d is empty: %w", i+1, ErrShape)
-		}
-		if len(row) != c {
-			return nil, fmt.Errorf("new poly matrix: row %d has length %d, row 1 has length %d: %w", i+1, len(row), c, ErrShape)
-		}
+	c, err := rowLength("new poly matrix", rows)
+	if err != nil {
+		return nil, err
 	}
 	m := &PolyMatrix{r: r, rows: len(rows), cols: c, e: make([]*Poly, len(rows)*c)}
 	var zero *Poly
@@ -101,25 +94,24 @@ func (m *PolyMatrix) like(rows, cols int) *PolyMatrix {
 // Add returns m + o, or ErrShape if the shapes differ and ErrRingMismatch
 // if the rings do.
 func (m *PolyMatrix) Add(o *PolyMatrix) (*PolyMatrix, error) {
-	if err := m.sameShape("add", o); err != nil {
-		return nil, err
-	}
-	out := m.like(m.rows, m.cols)
-	for k := range out.e {
-		out.e[k] = m.e[k].Add(o.e[k])
-	}
-	return out, nil
+	return m.entrywise("add", o, (*Poly).Add)
 }
 
 // Sub returns m - o, or ErrShape if the shapes differ and ErrRingMismatch
 // if the rings do.
 func (m *PolyMatrix) Sub(o *PolyMatrix) (*PolyMatrix, error) {
-	if err := m.sameShape("sub", o); err != nil {
+	return m.entrywise("sub", o, (*Poly).Sub)
+}
+
+// entrywise returns the matrix of f(a, b) over the entries a of m and b of
+// o, which must have m's shape and ring.
+func (m *PolyMatrix) entrywise(op string, o *PolyMatrix, f func(a, b *Poly) *Poly) (*PolyMatrix, error) {
+	if err := m.sameShape(op, o); err != nil {
 		return nil, err
 	}
 	out := m.like(m.rows, m.cols)
 	for k := range out.e {
-		out.e[k] = m.e[k].Sub(o.e[k])
+		out.e[k] = f(m.e[k], o.e[k])
 	}
 	return out, nil
 }
@@ -211,16 +203,7 @@ func (m *PolyMatrix) Submatrix(rows, cols []int) (*PolyMatrix, error) {
 // Minor returns the determinant of Submatrix(rows, cols), expanded. The
 // index lists must have equal lengths (ErrNotSquare otherwise); bad indices
 // give ErrShape. The minor with no rows and no columns is 1.
-func (m *PolyMatrix) Minor(rows, cols []int) (*Poly, error) {
-	if len(rows) != len(cols) {
-		return nil, fmt.Errorf("minor needs as many rows as columns, got %d and %d: %w", len(rows), len(cols), ErrNotSquare)
-	}
-	s, err := m.Submatrix(rows, cols)
-	if err != nil {
-		return nil, err
-	}
-	return s.Det()
-}
+func (m *PolyMatrix) Minor(rows, cols []int) (*Poly, error) { return minor(m, rows, cols) }
 
 // Eval returns the matrix with every entry evaluated: the variables with
 // the given indices (positions in the ring) are replaced by their values,
@@ -274,30 +257,20 @@ func (m *PolyMatrix) String() string {
 
 // pmSum returns the sum of ps (0 for none), adding in a balanced tree so
 // that long sums do not copy a growing accumulator over and over. It
-// returns ErrTooManyTerms if the sum exceeds the ring's term cap.
+// returns ErrTooManyTerms if the sum exceeds the ring's term cap; partial
+// sums are not held to it.
 func pmSum(r *Ring, ps []*Poly) (*Poly, error) {
-	switch len(ps) {
-	case 0:
-		return r.Const(new(big.Rat)), nil
-	case 1:
-		return ps[0], nil
+	if len(ps) == 0 {
+		return r.zero(), nil
 	}
-	level := append([]*Poly(nil), ps...)
-	for len(level) > 1 {
-		next := level[:0]
-		for k := 0; k < len(level); k += 2 {
-			if k+1 == len(level) {
-				next = append(next, level[k])
-				continue
-			}
-			next = append(next, level[k].Add(level[k+1]))
-		}
-		level = next
+	s, err := sumPolys(ps, math.MaxInt, "sum")
+	if err != nil {
+		return nil, err
 	}
-	if n, lim := level[0].Len(), r.MaxTerms(); n > lim {
+	if n, lim := s.Len(), r.MaxTerms(); n > lim {
 		return nil, pmTooManyTerms(n, lim)
 	}
-	return level[0], nil
+	return s, nil
 }
 
 // pmTooManyTerms is the error for a result of n terms over the cap.

@@ -34,11 +34,11 @@ const maxParseDepth = 1000
 
 // Parse reads a polynomial written with
 //
-//   - - * /          sums, differences, products; unary minus and plus
-//     ^ or **          powers with a non-negative integer literal exponent
-//     ( )              grouping
-//     numbers          integers and decimals, read exactly ("1.5", "2e-3")
-//     names            [A-Za-z_][A-Za-z0-9_]*, the ring's variables
+//	numbers    integers and decimals, read exactly ("1.5", "2e-3")
+//	names      [A-Za-z_][A-Za-z0-9_]*, the ring's variables
+//	+ - * /    sums, differences, products; unary minus and plus
+//	^ or **    powers with a non-negative integer literal exponent
+//	( )        grouping
 //
 // for example "2*a^2*b - c", "(a + b)^3/4 - 3/2*c". Division is allowed by
 // nonzero constants only. Names not yet in the ring become new variables,
@@ -223,17 +223,25 @@ func (ps *parser) operand(op token) error {
 	return syntaxErr(t.col, fmt.Sprintf("expected a term after %q, found %s", op.text, describe(t)))
 }
 
-func (ps *parser) expr(depth int) (*pnode, error) {
-	n, err := ps.term(depth)
+// expr parses terms joined by + and -.
+func (ps *parser) expr(depth int) (*pnode, error) { return ps.leftAssoc(depth, ps.term, "+", "-") }
+
+// term parses factors joined by * and /.
+func (ps *parser) term(depth int) (*pnode, error) { return ps.leftAssoc(depth, ps.unary, "*", "/") }
+
+// leftAssoc parses operands joined by the binary operators ops, grouping
+// to the left.
+func (ps *parser) leftAssoc(depth int, operand func(int) (*pnode, error), ops ...string) (*pnode, error) {
+	n, err := operand(depth)
 	if err != nil {
 		return nil, err
 	}
-	for ps.isOp("+", "-") {
+	for ps.isOp(ops...) {
 		op := ps.next()
 		if !ps.startsOperand() {
 			return nil, ps.operand(op)
 		}
-		m, err := ps.term(depth)
+		m, err := operand(depth)
 		if err != nil {
 			return nil, err
 		}
@@ -247,25 +255,6 @@ func (ps *parser) expr(depth int) (*pnode, error) {
 func (ps *parser) startsOperand() bool {
 	t := ps.peek()
 	return t.kind == tNum || t.kind == tName || t.kind == tLParen || ps.isOp("+", "-")
-}
-
-func (ps *parser) term(depth int) (*pnode, error) {
-	n, err := ps.unary(depth)
-	if err != nil {
-		return nil, err
-	}
-	for ps.isOp("*", "/") {
-		op := ps.next()
-		if !ps.startsOperand() {
-			return nil, ps.operand(op)
-		}
-		m, err := ps.unary(depth)
-		if err != nil {
-			return nil, err
-		}
-		n = &pnode{op: op.text, col: op.col, from: n.from, a: n, b: m}
-	}
-	return n, nil
 }
 
 func (ps *parser) unary(depth int) (*pnode, error) {

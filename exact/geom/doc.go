@@ -1,9 +1,13 @@
 // Package geom computes with simplices exactly: squared distances, Gram and
 // Cayley–Menger determinants, squared volumes and facet contents,
 // circumradii and circumcentres, dihedral angles, barycentric coordinates,
-// affine images, k-vectors of the exterior algebra, Euclidean
+// faces and affine images, k-vectors of the exterior algebra, Euclidean
 // embeddability of distance data (Schoenberg's criterion), and families of
-// random and nearly degenerate tetrahedra.
+// random and nearly degenerate tetrahedra. The Cayley–Menger determinant
+// and the squared volume are also given as polynomials in symbolic squared
+// distances (CayleyMengerPoly, VolumeSqPoly), and triangles have Heron's
+// formula in squared sides (TriangleAreaSq) and their tangent lengths
+// (TangentLengths).
 //
 // Everything is exact: coordinates and squared distances are rationals
 // (math/big.Rat) and so is every result. Quantities that are square roots

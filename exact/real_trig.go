@@ -1,122 +1,15 @@
 package exact
 
-// Elementary functions on intervals: exp and log (from
-// github.com/ALTree/bigfloat, with a stated accuracy assumption), and sin,
-// cos, atan, acos, atan2 (series in outward-rounded interval arithmetic with
-// explicit remainder bounds, which need no assumption).
+// sin, cos, atan, acos and atan2 on intervals: series in outward-rounded
+// interval arithmetic with explicit remainder bounds, which need no
+// accuracy assumption.
 
 import (
 	"fmt"
 	"math"
 	"math/big"
-	"sync"
-
-	"github.com/ALTree/bigfloat"
+	"math/bits"
 )
-
-// bigfloatMu serialises calls into bigfloat: its Log (and so its Exp)
-// updates a package-level cache of π without synchronisation.
-var bigfloatMu sync.Mutex
-
-// bigfloatGuard is the number of bits by which exp and log are computed
-// beyond the caller's precision q, and bigfloatSlack the number of bits of
-// that guard spent on the assumed error bound: the result of bigfloat at
-// precision q+64 is trusted to 2^-(q+32), i.e. 2^32 of its own ulps.
-const (
-	bigfloatGuard = 64
-	bigfloatSlack = 32
-)
-
-// expPoint encloses exp(z) at precision q.
-//
-// Accuracy assumption: bigfloat.Exp(z), with z held at precision
-// w = q+64 ≥ z.Prec(), returns y with |y − exp(z)| ≤ 2^-(q+32)·|y|, i.e.
-// within 2^32 ulps at its precision. (bigfloat.Exp runs Newton's method on
-// bigfloat.Log with 64 guard bits; measured errors are below 1 ulp.) We
-// widen y by 2^-(q+32)·|y| each way. TestBigfloatExpAccuracy checks the
-// assumption with a margin of 2^31 against the Taylor series of exp
-// summed in exact rational arithmetic with its remainder bound.
-func expPoint(z *big.Float, q uint) (ival, error) {
-	if z.Sign() == 0 {
-		return ivExact(1), nil
-	}
-	if z.MantExp(nil) > 27 {
-		return ival{}, fmt.Errorf("exp of a number of magnitude 2^%d: %w", z.MantExp(nil), ErrOverflow)
-	}
-	w := q + bigfloatGuard
-	if z.Prec() > w {
-		w = z.Prec()
-	}
-	zz := new(big.Float).SetPrec(w).Set(z)
-	bigfloatMu.Lock()
-	y := bigfloat.Exp(zz)
-	bigfloatMu.Unlock()
-	if y.IsInf() || y.Sign() <= 0 {
-		return ival{}, fmt.Errorf("exp of %s: %w", z.Text('g', 10), ErrOverflow)
-	}
-	d := new(big.Float).SetMantExp(y, -int(q+bigfloatSlack))
-	return ival{fDown(q).Sub(y, d), fUp(q).Add(y, d)}, nil
-}
-
-// logPoint encloses log(z) at precision q for z > 0.
-//
-// Accuracy assumption: bigfloat.Log(z), with z held at precision
-// w = q+64 ≥ z.Prec(), returns y with |y − log(z)| ≤ 2^-(q+32)·max(1, |y|),
-// relative for |log z| ≥ 1 and absolute below. (bigfloat.Log squares z up
-// past 2^(w/2) and applies the AGM formula with 64 guard bits; its error is
-// a few ulps of 2^-(w+64)·max(1, |log z|) plus the final rounding, so the
-// absolute form is what holds near z = 1.) We widen y by that bound each
-// way. TestBigfloatLogAccuracy checks the assumption with a margin of 2^30
-// against log z = 2·atanh((z−1)/(z+1)) summed in exact rationals with its
-// remainder bound.
-func logPoint(z *big.Float, q uint) ival {
-	if z.Cmp(fOne) == 0 {
-		return ivExact(0)
-	}
-	w := q + bigfloatGuard
-	if z.Prec() > w {
-		w = z.Prec()
-	}
-	zz := new(big.Float).SetPrec(w).Set(z)
-	bigfloatMu.Lock()
-	y := bigfloat.Log(zz)
-	bigfloatMu.Unlock()
-	var d *big.Float
-	if y.MantExp(nil) > 0 { // |y| ≥ 1
-		d = new(big.Float).Abs(y)
-		d.SetMantExp(d, -int(q+bigfloatSlack))
-	} else {
-		d = new(big.Float).SetMantExp(fOne, -int(q+bigfloatSlack))
-	}
-	return ival{fDown(q).Sub(y, d), fUp(q).Add(y, d)}
-}
-
-// ivExp is exp on an interval: exp is increasing.
-func ivExp(a ival, p uint) (ival, error) {
-	q := p + 8
-	lo, err := expPoint(a.lo, q)
-	if err != nil {
-		return ival{}, err
-	}
-	hi := lo
-	if !a.isPoint() {
-		if hi, err = expPoint(a.hi, q); err != nil {
-			return ival{}, err
-		}
-	}
-	return ivRound(ival{lo.lo, hi.hi}, p), nil
-}
-
-// ivLog is log on an interval with a.lo > 0: log is increasing.
-func ivLog(a ival, p uint) ival {
-	q := p + 8
-	lo := logPoint(a.lo, q)
-	hi := lo
-	if !a.isPoint() {
-		hi = logPoint(a.hi, q)
-	}
-	return ivRound(ival{lo.lo, hi.hi}, p)
-}
 
 // maxTrigExp bounds the binary exponent of a sine or cosine argument: the
 // reduction modulo π/2 needs π to that many extra bits.
@@ -159,27 +52,14 @@ func sinCosPoint(x *big.Float, q uint) (s, c ival, err error) {
 	if m < 0 {
 		m = 0
 	}
-	w := q + 24 + uint(bitLen64(uint64(m)))
+	w := q + 24 + uint(bits.Len64(uint64(m)))
 	a := ivScale(r, -m)
 	a2 := ivSqr(a, w)
 	t := ivScale(a2, -1) // a²/2
-	v := t
-	thresh := new(big.Float).SetMantExp(t.hi, -int(w+4))
-	var rem *big.Float
-	for j := int64(1); ; j++ {
-		t = ivMul(t, a2, w)
-		t = ivQuoInt(t, (2*j+1)*(2*j+2), w)
-		if t.hi.Cmp(thresh) <= 0 {
-			rem = t.hi
-			break
-		}
-		if j&1 == 1 {
-			v = ivSub(v, t, w)
-		} else {
-			v = ivAdd(v, t, w)
-		}
-	}
-	v = ival{fDown(w).Sub(v.lo, rem), fUp(w).Add(v.hi, rem)}
+	v := alternatingSum(t, w, func(j int64) ival {
+		t = ivQuoInt(ivMul(t, a2, w), (2*j+1)*(2*j+2), w)
+		return t
+	})
 	if v.lo.Sign() < 0 {
 		v.lo = new(big.Float)
 	}
@@ -237,6 +117,26 @@ func sinCosPoint(x *big.Float, q uint) (s, c ival, err error) {
 	return ivRound(s, q), ivRound(c, q), nil
 }
 
+// alternatingSum encloses t_0 − t_1 + t_2 − … at precision w for terms
+// t_j ≥ 0 that decrease, with t_0 = first and t_j = next(j). It stops at
+// the first term at most 2^-(w+4) times the first and widens the sum by
+// that term, which bounds the tail of such a series.
+func alternatingSum(first ival, w uint, next func(j int64) ival) ival {
+	s := ivRound(first, w)
+	thresh := new(big.Float).SetMantExp(first.hi, -int(w+4))
+	for j := int64(1); ; j++ {
+		t := next(j)
+		if t.hi.Cmp(thresh) <= 0 {
+			return ival{fDown(w).Sub(s.lo, t.hi), fUp(w).Add(s.hi, t.hi)}
+		}
+		if j&1 == 1 {
+			s = ivSub(s, t, w)
+		} else {
+			s = ivAdd(s, t, w)
+		}
+	}
+}
+
 // roundToInt rounds f to a nearest integer.
 func roundToInt(f *big.Float) *big.Int {
 	g := new(big.Float).SetPrec(f.Prec() + 2)
@@ -292,7 +192,7 @@ func atanSmall(u ival, q uint) ival {
 	if m < 0 {
 		m = 0
 	}
-	w := q + 16 + uint(bitLen64(uint64(m)))
+	w := q + 16 + uint(bits.Len64(uint64(m)))
 	one := ivExact(1)
 	for i := 0; i < m; i++ {
 		d := ivAdd(one, ivSqr(u, w), w)
@@ -300,24 +200,11 @@ func atanSmall(u ival, q uint) ival {
 		u = ivQuo(u, d, w)
 	}
 	u2 := ivSqr(u, w)
-	sum := ivRound(u, w)
 	pw := u
-	thresh := new(big.Float).SetMantExp(u.hi, -int(w+4))
-	var rem *big.Float
-	for j := int64(1); ; j++ {
+	sum := alternatingSum(u, w, func(j int64) ival {
 		pw = ivMul(pw, u2, w)
-		t := ivQuoInt(pw, 2*j+1, w)
-		if t.hi.Cmp(thresh) <= 0 {
-			rem = t.hi
-			break
-		}
-		if j&1 == 1 {
-			sum = ivSub(sum, t, w)
-		} else {
-			sum = ivAdd(sum, t, w)
-		}
-	}
-	sum = ival{fDown(w).Sub(sum.lo, rem), fUp(w).Add(sum.hi, rem)}
+		return ivQuoInt(pw, 2*j+1, w)
+	})
 	if sum.lo.Sign() < 0 {
 		sum.lo = new(big.Float) // atan ≥ 0 on u ≥ 0
 	}
