@@ -108,37 +108,11 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 		return err
 	}
 	ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: n}
-	tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
-		began := time.Now()
-		it := &claim.IdentityTally{}
-		done, failed := s.sweep(ask, sh, f, over, func(k int64, msg string) {
-			// One sample that raises does not end the sweep: it makes the
-			// claim undecided, and the report names the sample.
-			it.Add(k, claim.Residual{Text: fmt.Sprintf("f raised: %s", claim.Clip(msg, 160)), Size: new(big.Rat), Undecided: true})
-			it.Raised++
-		}, func(k int64, sample, lhs, rhs py.Object) error {
-			r, err := s.measure(t, lhs, rhs)
-			if err != nil {
-				return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
-			}
-			it.Add(k, r)
-			if companion && it.Skip == nil {
-				audit, why := s.companion(s.floatCall(f, sample, k), lhs, rhs)
-				if why != "" {
-					it.Skip = &claim.SampleNote{K: k, Text: why}
-				} else {
-					it.AddAudit(k, *audit)
-				}
-			}
-			return nil
-		})
-		return claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Identity: it, Printed: s.printed}
+	tally, err := s.sweepClaim(ask, f, over, func() sampleTally {
+		return &identitySweep{s: s, t: t, f: f, companion: companion, it: &claim.IdentityTally{}}
 	})
 	if err != nil {
 		return err
-	}
-	if tally.Err != nil {
-		return raise(tally.Err)
 	}
 	it := tally.Identity
 	if it == nil || it.Worst == nil {
@@ -177,3 +151,38 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 	}
 	return nil
 }
+
+// identitySweep fills the tally of one share of a sampled identity.
+type identitySweep struct {
+	s         *Session
+	t         claim.Target
+	f         py.Object
+	companion bool
+	it        *claim.IdentityTally
+}
+
+// raised: one sample that raises does not end the sweep; it makes the
+// claim undecided, and the report names the sample.
+func (w *identitySweep) raised(k int64, msg string) {
+	w.it.Add(k, claim.Residual{Text: fmt.Sprintf("f raised: %s", claim.Clip(msg, 160)), Size: new(big.Rat), Undecided: true})
+	w.it.Raised++
+}
+
+func (w *identitySweep) visit(k int64, sample, lhs, rhs py.Object) error {
+	r, err := w.s.measure(w.t, lhs, rhs)
+	if err != nil {
+		return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
+	}
+	w.it.Add(k, r)
+	if w.companion && w.it.Skip == nil {
+		audit, why := w.s.companion(w.s.floatCall(w.f, sample, k), lhs, rhs)
+		if why != "" {
+			w.it.Skip = &claim.SampleNote{K: k, Text: why}
+		} else {
+			w.it.AddAudit(k, *audit)
+		}
+	}
+	return nil
+}
+
+func (w *identitySweep) into(t *claim.Tally) { t.Identity = w.it }

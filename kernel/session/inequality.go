@@ -1,8 +1,6 @@
 package session
 
 import (
-	"time"
-
 	"github.com/go-python/gpython/py"
 
 	"assay/cells"
@@ -49,29 +47,11 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 			return err
 		}
 		ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: samples}
-		tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
-			began := time.Now()
-			part := &claim.InequalityTally{}
-			done, failed := s.sweep(ask, sh, f, g, func(k int64, msg string) {
-				part.Raised++
-				if part.FirstRaise == nil {
-					part.FirstRaise = &claim.SampleNote{K: k, Text: claim.Clip(msg, 160)}
-				}
-			}, func(k int64, _, l, gr py.Object) error {
-				sl, err := slack(t, l, gr)
-				if err != nil {
-					return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
-				}
-				part.Add(k, sl)
-				return nil
-			})
-			return claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Inequality: part, Printed: s.printed}
+		tally, err := s.sweepClaim(ask, f, g, func() sampleTally {
+			return &inequalitySweep{t: t, part: &claim.InequalityTally{}}
 		})
 		if err != nil {
 			return err
-		}
-		if tally.Err != nil {
-			return raise(tally.Err)
 		}
 		if tally.Inequality != nil {
 			it = tally.Inequality
@@ -97,3 +77,27 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 	c.Note += printed
 	return nil
 }
+
+// inequalitySweep fills the tally of one share of a sampled inequality.
+type inequalitySweep struct {
+	t    claim.Target
+	part *claim.InequalityTally
+}
+
+func (w *inequalitySweep) raised(k int64, msg string) {
+	w.part.Raised++
+	if w.part.FirstRaise == nil {
+		w.part.FirstRaise = &claim.SampleNote{K: k, Text: claim.Clip(msg, 160)}
+	}
+}
+
+func (w *inequalitySweep) visit(k int64, _, lesser, greater py.Object) error {
+	sl, err := slack(w.t, lesser, greater)
+	if err != nil {
+		return py.ExceptionNewf(py.TypeError, "sample %d: %v", k, err)
+	}
+	w.part.Add(k, sl)
+	return nil
+}
+
+func (w *inequalitySweep) into(t *claim.Tally) { t.Inequality = w.part }

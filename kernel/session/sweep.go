@@ -3,6 +3,7 @@ package session
 import (
 	"fmt"
 	"math"
+	"time"
 
 	"github.com/go-python/gpython/py"
 
@@ -24,6 +25,34 @@ func sampleCount(fn string, samples py.Object) (int64, error) {
 		return 0, py.ExceptionNewf(py.ValueError, "%s(): samples must be between 1 and %d, got %d", fn, maxSamples, n)
 	}
 	return n, nil
+}
+
+// sampleTally is what one share of a sampled claim fills in as it sweeps.
+type sampleTally interface {
+	raised(k int64, msg string)                      // f raised on sample k
+	visit(k int64, sample, lhs, rhs py.Object) error // f(sample k) = (lhs, rhs)
+	into(t *claim.Tally)                             // put the share's part in its tally
+}
+
+// sweepClaim sweeps a sampled claim's samples, split among kernels by the
+// coordinator, and returns the merged tally, or the error that ended the
+// sweep at its lowest sample. fresh makes the part one share fills.
+func (s *Session) sweepClaim(ask claim.Ask, f, g py.Object, fresh func() sampleTally) (claim.Tally, error) {
+	tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
+		began := time.Now()
+		part := fresh()
+		done, failed := s.sweep(ask, sh, f, g, part.raised, part.visit)
+		t := claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Printed: s.printed}
+		part.into(&t)
+		return t
+	})
+	if err != nil {
+		return claim.Tally{}, err
+	}
+	if tally.Err != nil {
+		return claim.Tally{}, raise(tally.Err)
+	}
+	return tally, nil
 }
 
 // sweep computes a sampled claim's share of samples: sample k = g(k),
