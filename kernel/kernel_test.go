@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"os"
 	"reflect"
+	"regexp"
 	"strings"
 	"testing"
 	"time"
@@ -138,7 +139,12 @@ print(inequality("strengthened Euler R >= 3.1 r (false)", lambda s: (frac(31, 10
 print(inequality("x^2 <= x/2 (false from x = 1/2 on)", lambda x: (x * x, x / 2), over=lambda k: frac(k + 1, 4), samples=300))`,
 }
 
-// comparable strips what may differ between equal runs: times.
+// mergedNote is the clause a merged claim adds to say where its samples
+// were computed.
+var mergedNote = regexp.MustCompile(`; merged: the samples were computed by the \d+ shard runs whose part files were merged, and the merge re-evaluated only the samples this claim shows`)
+
+// comparable strips what may differ between equal runs: times, and the
+// note that says a claim was merged from parts.
 func comparable(rep *cells.Report) []cells.Outcome {
 	out := make([]cells.Outcome, len(rep.Outcomes))
 	for i, o := range rep.Outcomes {
@@ -146,6 +152,7 @@ func comparable(rep *cells.Report) []cells.Outcome {
 		o.Claims = append([]cells.Claim(nil), o.Claims...)
 		for j := range o.Claims {
 			o.Claims[j].Seconds = 0
+			o.Claims[j].Note = mergedNote.ReplaceAllString(o.Claims[j].Note, "")
 		}
 		out[i] = o
 	}

@@ -1,6 +1,8 @@
 package kernel
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"encoding/json"
 	"fmt"
 	"sort"
@@ -75,7 +77,10 @@ func checkParts(parts []*Part, names []string) (*partSet, error) {
 	first := parts[0]
 	byShard := map[int]int{}
 	for i, p := range parts {
+		sum := sha256.Sum256([]byte(p.Source))
 		switch {
+		case p.SHA256 != hex.EncodeToString(sum[:]):
+			return nil, fmt.Errorf("%s: the notebook text it carries does not have the SHA-256 it states; the part was altered and is refused", names[i])
 		case p.SHA256 != first.SHA256:
 			return nil, fmt.Errorf("%s and %s come from different notebooks (SHA-256 %.12s… and %.12s…)", names[0], names[i], first.SHA256, p.SHA256)
 		case p.Version != first.Version:
@@ -114,7 +119,9 @@ func checkParts(parts []*Part, names []string) (*partSet, error) {
 
 // tally joins the parts' tallies of one sweep. A sweep no part has is
 // computed by the merge itself (nil, nil); one that only some parts have
-// means the shards ran different code, and cannot be merged.
+// means the shards ran different code, and cannot be merged. Each part's
+// tally must be what its shard can have made: as many samples as its share
+// holds, and only samples of its share.
 func (s *partSet) tally(a claim.Ask) (*claim.Tally, error) {
 	var t claim.Tally
 	var have, lack []string
@@ -126,6 +133,10 @@ func (s *partSet) tally(a claim.Ask) (*claim.Tally, error) {
 			}
 			if c.Ask != a {
 				return nil, fmt.Errorf("claim %q differs between the notebook and %s (line %d, %d samples there; line %d, %d samples here)", a.Claim, s.names[i], c.Ask.Line, c.Ask.Samples, a.Line, a.Samples)
+			}
+			share := claim.Share{Index: int64(p.Shard - 1), Count: int64(p.Shards)}
+			if why := shareMismatch(c.Tally, share, a.Samples); why != "" {
+				return nil, fmt.Errorf("%s: claim %q: %s; the part was altered or is not from this run, and is refused", s.names[i], a.Claim, why)
 			}
 			t.Merge(c.Tally)
 			found = true
@@ -143,5 +154,27 @@ func (s *partSet) tally(a claim.Ask) (*claim.Tally, error) {
 	case len(lack) > 0:
 		return nil, fmt.Errorf("claim %q is in %s but not in %s: the shards ran different code (did an earlier result differ between shards?); run without --shard", a.Claim, strings.Join(have, ", "), strings.Join(lack, ", "))
 	}
+	t.Parts = s.names
 	return &t, nil
+}
+
+// shareMismatch says why a shard's tally cannot be the sweep of its share,
+// or "" when it can: the count of samples computed, and every sample index
+// it names.
+func shareMismatch(t claim.Tally, sh claim.Share, samples int64) string {
+	size := sh.Items(samples)
+	switch {
+	case t.Err == nil && t.Computed != size:
+		return fmt.Sprintf("it counts %d samples computed, and shard %d/%d holds %d", t.Computed, sh.Index+1, sh.Count, size)
+	case t.Err != nil && (t.Computed < 0 || t.Computed > size):
+		return fmt.Sprintf("it counts %d samples computed, more than the %d of shard %d/%d", t.Computed, size, sh.Index+1, sh.Count)
+	case t.Search != nil:
+		return "it holds a counterexample search, which only a merge runs"
+	}
+	for _, k := range t.Samples() {
+		if k < 0 || k >= samples || k%sh.Count != sh.Index {
+			return fmt.Sprintf("it names sample %d, which is not in shard %d/%d", k, sh.Index+1, sh.Count)
+		}
+	}
+	return ""
 }

@@ -1,8 +1,10 @@
 package claim
 
 import (
+	"fmt"
 	"math/big"
 	"slices"
+	"strings"
 
 	"assay/cells"
 )
@@ -19,6 +21,11 @@ type Tally struct {
 	Seconds  float64     `json:"seconds"`  // longest wall time of a share
 	Err      *SweepError `json:"error,omitempty"`
 	Printed  bool        `json:"printed,omitempty"` // f or g printed; the text was left out
+
+	// Parts is set on a tally joined from the part files of a sharded run:
+	// the files in shard order, so the merge can name the part a sample it
+	// re-evaluates came from. Merge leaves it alone.
+	Parts []string `json:"parts,omitempty"`
 
 	Identity   *IdentityTally   `json:"identity,omitempty"`
 	Inequality *InequalityTally `json:"inequality,omitempty"`
@@ -101,6 +108,45 @@ type SearchTally struct {
 // keepSmallest is how many of the smallest slacks a tally keeps: the
 // starting points of a counterexample search.
 const keepSmallest = 4
+
+// Part names the part file that computed sample k, for a tally joined
+// from parts ("" otherwise).
+func (t *Tally) Part(k int64) string {
+	if len(t.Parts) == 0 || k < 0 {
+		return ""
+	}
+	return t.Parts[k%int64(len(t.Parts))]
+}
+
+// Samples lists every sample index the tally names: the worst residual,
+// the audit, the notes, the smallest slacks and the error that ended the
+// sweep.
+func (t *Tally) Samples() []int64 {
+	var ks []int64
+	if t.Err != nil {
+		ks = append(ks, t.Err.K)
+	}
+	if it := t.Identity; it != nil {
+		if it.Worst != nil {
+			ks = append(ks, it.Worst.K)
+		}
+		if it.Audit != nil {
+			ks = append(ks, it.Audit.K)
+		}
+		if it.Skip != nil {
+			ks = append(ks, it.Skip.K)
+		}
+	}
+	if it := t.Inequality; it != nil {
+		for _, sl := range it.Smallest {
+			ks = append(ks, sl.K)
+		}
+		if it.FirstRaise != nil {
+			ks = append(ks, it.FirstRaise.K)
+		}
+	}
+	return ks
+}
 
 // Merge folds o into t.
 func (t *Tally) Merge(o Tally) {
@@ -237,4 +283,92 @@ func (t *SearchTally) merge(o *SearchTally) {
 	if o.Best != nil && (t.Best == nil || compareSlacks(*o.Best, *t.Best) < 0) {
 		t.Best, t.Start = o.Best, o.Start
 	}
+}
+
+// Shown lists the samples a report of the tally names: the worst residual,
+// the float64 audit and the sample whose audit was skipped.
+func (t *IdentityTally) Shown() []int64 {
+	var ks []int64
+	if t.Worst != nil {
+		ks = append(ks, t.Worst.K)
+	}
+	if t.Audit != nil && !slices.Contains(ks, t.Audit.K) {
+		ks = append(ks, t.Audit.K)
+	}
+	if t.Skip != nil && !slices.Contains(ks, t.Skip.K) {
+		ks = append(ks, t.Skip.K)
+	}
+	return ks
+}
+
+// RecordAt says what t records about sample k, in the entries where like
+// names k: a one-sample tally and a merged one compare this way.
+func (t *IdentityTally) RecordAt(k int64, like *IdentityTally) string {
+	var said []string
+	if like.Worst != nil && like.Worst.K == k {
+		said = append(said, "residual "+orNothing(t != nil && t.Worst != nil, func() string { return record(t.Worst.Residual()) }))
+	}
+	if like.Audit != nil && like.Audit.K == k {
+		said = append(said, "float64 audit "+orNothing(t != nil && t.Audit != nil, func() string { return record(t.Audit.Audit) }))
+	}
+	if like.Skip != nil && like.Skip.K == k {
+		said = append(said, "no float64 audit ("+orNothing(t != nil && t.Skip != nil, func() string { return t.Skip.Text })+")")
+	}
+	return strings.Join(said, ", ")
+}
+
+// Shown lists the samples a report of the tally names: the smallest slack
+// and the first sample f raised on.
+func (t *InequalityTally) Shown() []int64 {
+	var ks []int64
+	if len(t.Smallest) > 0 {
+		ks = append(ks, t.Smallest[0].K)
+	}
+	if t.FirstRaise != nil && !slices.Contains(ks, t.FirstRaise.K) {
+		ks = append(ks, t.FirstRaise.K)
+	}
+	return ks
+}
+
+// RecordAt says what t records about sample k, in the entries where like
+// names k.
+func (t *InequalityTally) RecordAt(k int64, like *InequalityTally) string {
+	var said []string
+	if len(like.Smallest) > 0 && like.Smallest[0].K == k {
+		slack := "nothing"
+		if t != nil {
+			for _, sl := range t.Smallest {
+				if sl.K == k {
+					slack = record(sl)
+				}
+			}
+		}
+		said = append(said, "slack "+slack)
+	}
+	if like.FirstRaise != nil && like.FirstRaise.K == k {
+		said = append(said, "f raised ("+orNothing(t != nil && t.FirstRaise != nil, func() string { return t.FirstRaise.Text })+")")
+	}
+	return strings.Join(said, ", ")
+}
+
+// orNothing is text() when there is something to say.
+func orNothing(ok bool, text func() string) string {
+	if !ok {
+		return "nothing"
+	}
+	return text()
+}
+
+// record prints a tally entry for a message: its text and the fields
+// that decide a verdict.
+func record(v any) string {
+	switch x := v.(type) {
+	case Residual:
+		return fmt.Sprintf("%q (zero %v, certified digits %d, undecided %v)", x.Text, x.Zero, x.Certified, x.Undecided)
+	case cells.FloatAudit:
+		return fmt.Sprintf("%q, %s, %.1f digits lost", x.Residual, x.Error, x.DigitsLost)
+	case SampleSlack:
+		return fmt.Sprintf("%q (%s, exact %v)", x.Text, x.Verdict, x.Exact)
+	}
+	return fmt.Sprint(v)
 }

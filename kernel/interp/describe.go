@@ -39,10 +39,17 @@ func Describe(err error, fallback int) (int, string) {
 		line = lines[len(lines)-1]
 	}
 	if exc != nil {
-		if l := exceptionLine(exc, 0); l > 0 {
-			line = l // syntax errors carry their own line
-		}
 		msg = ExceptionText(exc)
+		if l := exceptionLine(exc, 0); l > 0 {
+			// A syntax error carries its own line: a notebook line when
+			// it is in a cell, a line of a string when exec or compile
+			// met it, which the message then names beside the cell's line.
+			if file, _ := exc.Dict["filename"].(py.String); strings.HasPrefix(string(file), cellPrefix) || len(lines) == 0 {
+				line = l
+			} else {
+				msg += fmt.Sprintf(", at line %d of the code given to exec or compile", l)
+			}
+		}
 	}
 	if len(lines) > 1 {
 		var outer []string

@@ -44,6 +44,11 @@ func Recover(name string, res *py.Object, err *error) {
 		}
 		return
 	}
+	recovered(r, name, res, err)
+}
+
+// recovered is what Recover makes of a recovered panic r.
+func recovered(r any, name string, res *py.Object, err *error) {
 	*res = nil
 	switch e := r.(type) {
 	case *py.Exception:

@@ -96,3 +96,39 @@ func TestBindReadsByName(t *testing.T) {
 		t.Errorf("Int of a string: %v", err)
 	}
 }
+
+// panicky is a value whose operator panics without a guard of its own.
+type panicky struct{}
+
+var panickyType = py.NewType("panicky", "")
+
+func (panicky) Type() *py.Type { return panickyType }
+
+func (panicky) M__add__(py.Object) (py.Object, error) { panic("lost") }
+
+// A panic in an instruction becomes an exception at that instruction: the
+// cell can catch it, and its line is the notebook line.
+func TestInstructionPanicsAreExceptions(t *testing.T) {
+	sb, err := NewSandbox(nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer sb.Close()
+	globals, err := sb.Main()
+	if err != nil {
+		t.Fatal(err)
+	}
+	globals["p"] = panicky{}
+	code, err := Compile(1, 10, "try:\n    p + 1\nexcept RuntimeError as e:\n    caught = str(e)\np + 2\n", nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	_, err = sb.RunCode(code, globals, globals, nil)
+	line, msg := Describe(err, 0)
+	if line != 14 || !strings.Contains(msg, "RuntimeError: internal error in the interpreter: lost") {
+		t.Errorf("line %d, %q", line, msg)
+	}
+	if caught, _ := globals["caught"].(py.String); !strings.Contains(string(caught), "lost") {
+		t.Errorf("the first panic was not caught: %v", globals["caught"])
+	}
+}

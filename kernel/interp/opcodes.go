@@ -73,6 +73,11 @@ func install() error {
 	for op, answer := range wrapped {
 		jumpTable[op] = exactOpcode(jumpTable[op], answer)
 	}
+	for op, h := range jumpTable {
+		if h != nil {
+			jumpTable[op] = guardedOpcode(h)
+		}
+	}
 	return probe()
 }
 
@@ -130,6 +135,23 @@ func exactOpcode(original func(*vm.Vm, int32) error, answer func(Arithmetic, py.
 		v.DROP()
 		v.SET_TOP(res)
 		return nil
+	}
+}
+
+// guardedOpcode turns a Go panic inside an instruction (an operator of a
+// value type, or the interpreter's own code, which has no guard) into an
+// exception raised at that instruction, so the notebook can catch it and
+// the report names the line it happened on.
+func guardedOpcode(h func(*vm.Vm, int32) error) func(*vm.Vm, int32) error {
+	return func(v *vm.Vm, arg int32) (err error) {
+		defer func() {
+			if r := recover(); r != nil {
+				var res py.Object
+				err = nil
+				recovered(r, "the interpreter", &res, &err)
+			}
+		}()
+		return h(v, arg)
 	}
 }
 

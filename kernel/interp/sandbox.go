@@ -92,8 +92,16 @@ func (ctx *Sandbox) ResolveAndCompile(pathname string, opts py.CompileOpts) (py.
 		"module %q is not available: %s (available: math, string, sys)", pathname, SandboxMessage)
 }
 
+// importable are the modules a cell may import; other modules linked
+// into the binary by the interpreter's own packages (marshal, binascii, …)
+// are refused like any other, as the README says.
+var importable = map[string]bool{"math": true, "string": true, "sys": true}
+
 // ModuleInit instantiates a linked-in module in this context.
 func (ctx *Sandbox) ModuleInit(impl *py.ModuleImpl) (*py.Module, error) {
+	if name := impl.Info.Name; !importable[name] && name != "builtins" {
+		return nil, py.ExceptionNewf(py.ImportError, "module %q is not available: %s (available: math, string, sys)", name, SandboxMessage)
+	}
 	if impl.Code == nil && impl.CodeSrc != "" {
 		code, err := py.Compile(impl.CodeSrc, impl.Info.FileDesc, py.ExecMode, 0, true)
 		if err != nil {

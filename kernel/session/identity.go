@@ -108,15 +108,21 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 		return err
 	}
 	ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: n}
-	tally, err := s.sweepClaim(ask, f, over, func() sampleTally {
+	fresh := func() sampleTally {
 		return &identitySweep{s: s, t: t, f: f, companion: companion, it: &claim.IdentityTally{}}
-	})
+	}
+	tally, err := s.sweepClaim(ask, f, over, fresh)
 	if err != nil {
 		return err
 	}
 	it := tally.Identity
 	if it == nil || it.Worst == nil {
 		return py.ExceptionNewf(py.RuntimeError, "claim %q: the merged tally has no samples", c.Name)
+	}
+	if err := s.confirmShown(ask, f, over, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
+		return got.Identity.RecordAt(k, it), it.RecordAt(k, it)
+	}); err != nil {
+		return err
 	}
 	w := it.Worst.Residual()
 	w.Symbolic, w.Real = it.Symbolic, it.Real
@@ -140,7 +146,7 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 	if c.Verdict == cells.Holds && zippel != nil {
 		c.Note += "; " + zippel(n)
 	}
-	c.Note += printedNote(tally)
+	c.Note += printedNote(tally) + mergedNote(tally)
 	switch {
 	case it.Skip != nil:
 		c.Note += "; " + it.Skip.Text

@@ -47,16 +47,20 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 			return err
 		}
 		ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: samples}
-		tally, err := s.sweepClaim(ask, f, g, func() sampleTally {
-			return &inequalitySweep{t: t, part: &claim.InequalityTally{}}
-		})
+		fresh := func() sampleTally { return &inequalitySweep{t: t, part: &claim.InequalityTally{}} }
+		tally, err := s.sweepClaim(ask, f, g, fresh)
 		if err != nil {
 			return err
 		}
 		if tally.Inequality != nil {
 			it = tally.Inequality
 		}
-		printed = printedNote(tally)
+		if err := s.confirmShown(ask, f, g, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
+			return got.Inequality.RecordAt(k, it), it.RecordAt(k, it)
+		}); err != nil {
+			return err
+		}
+		printed = printedNote(tally) + mergedNote(tally)
 		if search && it.Violations == 0 && len(it.Smallest) > 0 {
 			if found, err = s.search(c.Name, c.Line, t, f, g, it.Smallest); err != nil {
 				return err

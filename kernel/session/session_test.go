@@ -719,3 +719,13 @@ print(ok)`
 		t.Errorf("concurrent sessions gave %q", got)
 	}
 }
+
+// Messages a notebook author meets: an exception's repr is Python's
+// (Python language reference, BaseException), not a Go fault.
+func TestExceptionReprs(t *testing.T) {
+	expectPrints(t, []printCase{
+		{"print(repr(ValueError()))", "ValueError()"},
+		{"print(repr(ValueError(\"x\", 2)))", "ValueError('x', 2)"},
+		{"try:\n    1 / 0\nexcept ZeroDivisionError as e:\n    print(repr(e).startswith(\"ZeroDivisionError\"))", "True"},
+	})
+}

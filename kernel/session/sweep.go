@@ -55,6 +55,40 @@ func (s *Session) sweepClaim(ask claim.Ask, f, g py.Object, fresh func() sampleT
 	return tally, nil
 }
 
+// confirmShown recomputes, as the sweep does, each sample that a tally
+// joined from the parts of a sharded run names and the report will show,
+// and refuses the merge when a part's record of it differs: a merged report
+// shows no sample the merge has not confirmed itself. check compares the
+// recomputed one-sample tally with the merged one at sample k.
+func (s *Session) confirmShown(ask claim.Ask, f, g py.Object, merged claim.Tally, shown []int64, fresh func() sampleTally, check func(k int64, got claim.Tally) (want, have string)) error {
+	if len(merged.Parts) == 0 {
+		return nil
+	}
+	for _, k := range shown {
+		part := fresh()
+		single := claim.Ask{Claim: ask.Claim, Phase: ask.Phase, Line: ask.Line, Samples: k + 1}
+		done, failed := s.sweep(single, claim.Share{Index: k, Count: k + 1}, f, g, part.raised, part.visit)
+		got := claim.Tally{Computed: done, Err: failed}
+		part.into(&got)
+		if failed != nil {
+			return py.ExceptionNewf(py.RuntimeError, "merge refused: claim %q: sample %d, which %s records, raises here: %s", ask.Claim, k, merged.Part(k), failed.Message)
+		}
+		if want, have := check(k, got); want != have {
+			return py.ExceptionNewf(py.RuntimeError, "merge refused: claim %q: %s records %s for sample %d, and the merge computes %s there; the part was altered or is not from this notebook", ask.Claim, merged.Part(k), have, k, want)
+		}
+	}
+	return nil
+}
+
+// mergedNote tells the reader where a merged claim's samples were
+// computed, and what the merge itself confirmed.
+func mergedNote(t claim.Tally) string {
+	if len(t.Parts) == 0 {
+		return ""
+	}
+	return fmt.Sprintf("; merged: the samples were computed by the %d shard runs whose part files were merged, and the merge re-evaluated only the samples this claim shows", len(t.Parts))
+}
+
 // sweep computes a sampled claim's share of samples: sample k = g(k),
 // then f(sample), whose pair goes to visit. A sample on which f raises
 // goes to raised and the sweep goes on; any other error ends the share and
