@@ -26,56 +26,126 @@ type htmlMarks struct {
 
 func (m *htmlMarks) token(kind string) string { return "assay" + m.nonce + kind }
 
+// verdict is the token that marks a verdict cell of the given class.
+func (m *htmlMarks) verdict(class string) string {
+	return m.token("verdict" + strings.TrimPrefix(class, "v-"))
+}
+
+// verdictClass is the CSS class of each verdict's table cell.
+var verdictClass = map[Verdict]string{Holds: "v-holds", HoldsToDigits: "v-digits", Fails: "v-fails", Undecided: "v-undecided"}
+
 // RenderHTML returns the report as a self-contained HTML5 page: the Markdown
 // report (with header) converted by gomarkdown, raw HTML in the notebook
 // dropped, figures' SVG inline, inline CSS, and nothing loaded from outside.
+//
+// Each stretch of the report is converted on its own: the notebook's text
+// (its HTML blocks, as CommonMark bounds them, left out), each cell, each
+// output, each generated region. So the notebook's text cannot swallow a
+// cell or show one that Parse does not run, a code block in it is never
+// styled as a cell or as output, and only the verdicts assay computed are
+// styled as verdicts.
 func RenderHTML(r *Report) []byte {
 	var nonce [12]byte
 	_, _ = rand.Read(nonce[:])
 	marks := &htmlMarks{nonce: hex.EncodeToString(nonce[:])}
-	md := renderMarkdown(r, true, marks)
-
-	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
-		mdparser.Autolink | mdparser.Strikethrough)
-	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
-		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,
-		RenderNodeHook: lineBreakHook,
-	})
-	body := string(markdown.ToHTML(md, p, rd))
+	w := renderMarkdown(r, true, marks)
+	md := w.b.String()
 
 	para := func(kind string) string { return "<p>" + marks.token(kind) + "</p>" }
 	repl := []string{
 		para("header"), `<section class="generated summary">`,
 		para("cell"), `<section class="generated">`,
 		para("end"), `</section>`,
-		"<td>✔ holds", `<td class="verdict v-holds">✔ holds`,
-		"<td>≈ holds to ", `<td class="verdict v-digits">≈ holds to `,
-		"<td>✘ fails", `<td class="verdict v-fails">✘ fails`,
-		"<td>? undecided", `<td class="verdict v-undecided">? undecided`,
+	}
+	for _, class := range verdictClass {
+		repl = append(repl, "<td>"+marks.verdict(class)+" ", `<td class="verdict `+class+`">`)
 	}
 	for i, f := range marks.figures {
 		repl = append(repl, para("figure"+strconv.Itoa(i)), figureHTML(f))
 	}
-	body = strings.NewReplacer(repl...).Replace(body)
-	body = tableCode.ReplaceAllStringFunc(body, typeset)
-	if strings.Contains(body, "assay"+marks.nonce) {
-		// A placeholder did not come out as its own paragraph (it cannot in
-		// the Markdown we write); drop them all rather than leave stray tags.
-		body = regexp.MustCompile(`<section class="generated[^"]*">|</section>|(<p>)?assay`+marks.nonce+`\w+(</p>)?`).ReplaceAllString(body, "")
+	tokens := strings.NewReplacer(repl...)
+
+	var body strings.Builder
+	for i, c := range w.cuts {
+		end := len(md)
+		if i+1 < len(w.cuts) {
+			end = w.cuts[i+1].at
+		}
+		var part string
+		switch c.kind {
+		case segProse:
+			part = notebookCode.ReplaceAllString(toHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
+			part = tableCode.ReplaceAllStringFunc(part, typeset)
+		case segRegion:
+			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
+			if strings.Contains(part, "assay"+marks.nonce) {
+				// A placeholder did not come out as its own paragraph (it
+				// cannot in the Markdown we write); drop them all rather
+				// than leave stray tags.
+				part = regexp.MustCompile(`<section class="generated[^"]*">|</section>|<td class="verdict [^"]*">|(<p>)?assay`+marks.nonce+`\w+(</p>)?`).ReplaceAllString(part, "")
+			}
+		default:
+			part = toHTML(md[c.at:end])
+		}
+		if part == "" {
+			continue
+		}
+		if body.Len() > 0 {
+			body.WriteString("\n") // the blank line gomarkdown puts between blocks
+		}
+		body.WriteString(part)
 	}
 
 	var b strings.Builder
 	title := "assay report"
 	if r.Notebook != nil && r.Notebook.Title != "" {
-		title = r.Notebook.Title + " — assay report"
+		title = visible(r.Notebook.Title) + " — assay report"
 	}
 	b.WriteString("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n")
 	b.WriteString("<meta name=\"viewport\" content=\"width=device-width, initial-scale=1\">\n")
 	b.WriteString("<meta http-equiv=\"Content-Security-Policy\" content=\"default-src 'none'; style-src 'unsafe-inline'; img-src data:\">\n")
+	if id := runText(r.Run); id != "" {
+		b.WriteString("<meta name=\"assay-run\" content=\"" + id + "\">\n")
+	}
 	b.WriteString("<title>" + html.EscapeString(title) + "</title>\n<style>\n" + pageCSS + "</style>\n</head>\n<body>\n<main>\n")
-	b.WriteString(body)
+	b.WriteString(body.String())
 	b.WriteString("</main>\n</body>\n</html>\n")
 	return []byte(b.String())
+}
+
+// toHTML converts one stretch of the Markdown report.
+func toHTML(md string) string {
+	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
+		mdparser.Autolink | mdparser.Strikethrough)
+	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
+		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,
+		RenderNodeHook: lineBreakHook,
+	})
+	return string(markdown.ToHTML([]byte(md), p, rd))
+}
+
+// notebookCode is a code block of the notebook's text whose info string
+// would style it as a cell or as a cell's output: it is shown as plain
+// code, since Parse reads it as neither.
+var notebookCode = regexp.MustCompile(`<pre><code class="language-(cell|output)">`)
+
+// withoutHTMLBlocks blanks the lines of the HTML blocks that CommonMark
+// finds at the top level of the notebook's text (the HTML report drops raw
+// HTML anyway): gomarkdown bounds HTML blocks otherwise, and must not show
+// as code what a CommonMark reader sees as HTML, nor the reverse.
+func withoutHTMLBlocks(text string) string {
+	ls := splitLines(text)
+	var sc scanner
+	var b strings.Builder
+	for _, l := range ls {
+		r := sc.next(l.num, l.text)
+		if r.top && (r.kind == lineHTML || r.kind == lineHTMLBody) {
+			b.WriteString("\n")
+			continue
+		}
+		b.WriteString(l.raw)
+	}
+	return b.String()
 }
 
 // lineBreakHook lets through the one raw HTML tag our Markdown writes, the

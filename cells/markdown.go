@@ -32,28 +32,54 @@ func VerdictLabel(c Claim) string {
 // with a caption; else a line names it. The result parses as the same
 // notebook, and rendering it again gives the same bytes.
 func RenderMarkdown(r *Report, header bool) []byte {
-	return renderMarkdown(r, header, nil)
+	return renderMarkdown(r, header, nil).b.Bytes()
 }
 
 // mdWriter writes one Markdown report. With marks set it writes the variant
-// that RenderHTML converts: regions and figures become placeholder tokens.
+// that RenderHTML converts: regions, verdicts and figures carry placeholder
+// tokens, cells are written anew from their text, line ends are "\n", and
+// cuts mark where each block of the report begins, so that RenderHTML can
+// convert each on its own.
 type mdWriter struct {
 	b       bytes.Buffer
 	r       *Report
 	nb      *Notebook
 	eol     string
 	marks   *htmlMarks
+	cuts    []cut
 	outcome map[int]*Outcome
 	first   map[int]int // cell -> number of its first claim
 	figure  map[int]int // cell -> number of its first figure
 }
 
-func renderMarkdown(r *Report, header bool, marks *htmlMarks) []byte {
+// segKind is what a stretch of the report is.
+type segKind int
+
+const (
+	segProse  segKind = iota // the notebook's text
+	segCell                  // a cell
+	segOutput                // a cell's output block
+	segRegion                // a generated region
+)
+
+// cut is where a stretch of the report begins.
+type cut struct {
+	at   int
+	kind segKind
+}
+
+// begin starts a stretch of the given kind at the end of what is written.
+func (w *mdWriter) begin(k segKind) { w.cuts = append(w.cuts, cut{w.b.Len(), k}) }
+
+func renderMarkdown(r *Report, header bool, marks *htmlMarks) *mdWriter {
 	w := &mdWriter{r: r, nb: r.Notebook, marks: marks, outcome: map[int]*Outcome{}, first: map[int]int{}, figure: map[int]int{}}
 	if w.nb == nil {
 		w.nb = &Notebook{}
 	}
 	w.eol = lineEnd(w.nb)
+	if marks != nil {
+		w.eol = "\n"
+	}
 	n, nf := 1, 1
 	for i := range r.Outcomes {
 		o := &r.Outcomes[i]
@@ -69,10 +95,10 @@ func renderMarkdown(r *Report, header bool, marks *htmlMarks) []byte {
 			if k := afterHeading(blocks[0].Text); k > 0 {
 				// The summary goes right after the opening heading line.
 				text := blocks[0].Text
-				w.b.WriteString(text[:k])
+				w.prose(text[:k])
 				w.newline()
 				w.region("header", w.headerContent())
-				w.b.WriteString(text[k:])
+				w.prose(text[k:])
 				blocks, header = blocks[1:], false
 			}
 		}
@@ -82,30 +108,42 @@ func renderMarkdown(r *Report, header bool, marks *htmlMarks) []byte {
 	}
 	for _, b := range blocks {
 		if b.Kind == Prose {
-			w.b.WriteString(b.Text)
+			w.prose(b.Text)
 		} else {
 			w.cell(b)
 		}
 	}
-	return w.b.Bytes()
+	return w
 }
 
-// lineEnd is the notebook's line end, "\r\n" when its first line has one.
+// prose writes the notebook's text verbatim, as the report must read back
+// as the notebook; in the HTML variant, with its line ends made "\n" and
+// its control characters escaped.
+func (w *mdWriter) prose(text string) {
+	w.begin(segProse)
+	if w.marks != nil {
+		text = visible(strings.ReplaceAll(strings.ReplaceAll(text, "\r\n", "\n"), "\r", "\n"))
+	}
+	w.b.WriteString(text)
+}
+
+// lineEnd is the notebook's line end: that of its first line, "\n" when
+// it has none.
 func lineEnd(nb *Notebook) string {
 	texts := []string{string(nb.Source)}
 	for _, b := range nb.Blocks {
 		texts = append(texts, b.Raw, b.Text)
 	}
 	for _, t := range texts {
-		if i := strings.IndexByte(t, '\n'); i >= 0 {
-			if i > 0 && t[i-1] == '\r' {
+		if i := strings.IndexAny(t, "\r\n"); i >= 0 {
+			switch {
+			case t[i] == '\n':
+				return "\n"
+			case i+1 < len(t) && t[i+1] == '\n':
 				return "\r\n"
 			}
-			return "\n"
+			return "\r"
 		}
-	}
-	if strings.HasSuffix(string(nb.Source), "\r") {
-		return "\r\n" // a one-line file ending in a lone CR
 	}
 	return "\n"
 }
@@ -113,19 +151,15 @@ func lineEnd(nb *Notebook) string {
 // afterHeading returns the offset just past text's first line when that
 // line, leading blank lines aside, is a level-1 heading; else 0.
 func afterHeading(text string) int {
-	for pos := 0; pos < len(text); {
-		end := len(text)
-		if i := strings.IndexByte(text[pos:], '\n'); i >= 0 {
-			end = pos + i + 1
-		}
-		l := strings.TrimRight(text[pos:end], "\r\n")
-		if strings.TrimSpace(l) != "" {
-			if headingText(l) != "" {
-				return end
+	pos := 0
+	for _, l := range splitLines(text) {
+		pos += len(l.raw)
+		if strings.TrimSpace(l.text) != "" {
+			if headingText(l.text) != "" {
+				return pos
 			}
 			return 0
 		}
-		pos = end
 	}
 	return 0
 }
@@ -136,6 +170,7 @@ func (w *mdWriter) newline() {
 	case n == 0 || w.b.Bytes()[n-1] == '\n':
 	case w.b.Bytes()[n-1] == '\r' && w.eol == "\r\n":
 		w.b.WriteByte('\n') // complete the CRLF the text began
+	case w.b.Bytes()[n-1] == '\r' && w.eol == "\r":
 	default:
 		w.b.WriteString(w.eol)
 	}
@@ -150,12 +185,14 @@ func (w *mdWriter) gen(s string) {
 }
 
 // region writes a generated region holding content (paragraphs ending in
-// "\n"). kind is "header" or "cell", used by the HTML variant.
+// "\n"), its opening marker carrying the hash of its lines. kind is
+// "header" or "cell", used by the HTML variant.
 func (w *mdWriter) region(kind, content string) {
 	w.newline()
+	w.begin(segRegion)
 	lines := strings.SplitAfter(content, "\n")
 	for i, l := range lines {
-		if isMarker(l, GeneratedStart) || isMarker(l, GeneratedEnd) {
+		if t := strings.TrimRight(l, "\r\n"); isOpen(t) || isClose(t) {
 			lines[i] = `\` + strings.TrimLeft(l, " ") // keep the region closed
 		}
 	}
@@ -164,24 +201,38 @@ func (w *mdWriter) region(kind, content string) {
 		w.gen("\n" + w.marks.token(kind) + "\n\n" + content + "\n" + w.marks.token("end") + "\n\n")
 		return
 	}
-	w.gen(GeneratedStart + "\n\n" + content + "\n" + GeneratedEnd + "\n")
+	body := "\n" + content + "\n"
+	var texts []string
+	for _, l := range splitLines(body) {
+		texts = append(texts, l.text)
+	}
+	w.gen(openMarker(texts) + "\n" + body + GeneratedEnd + "\n")
 }
 
-// cell writes a cell verbatim, then its output and generated region.
+// cell writes a cell verbatim, then its output and generated region. The
+// HTML variant writes the cell anew from its text, so that it converts to
+// one code block whatever the notebook's fence looked like.
 func (w *mdWriter) cell(b Block) {
 	w.newline()
-	if b.Raw != "" {
+	w.begin(segCell)
+	if b.Raw != "" && w.marks == nil {
 		w.b.WriteString(b.Raw)
 	} else {
 		text := b.Text
+		if w.marks != nil {
+			text = visible(text)
+		}
 		if text != "" && !strings.HasSuffix(text, "\n") {
 			text += "\n"
 		}
-		f := b.Fence
-		if f == "" {
+		f, info := b.Fence, b.Info
+		if f == "" || w.marks != nil {
 			f = fenceFor(text)
 		}
-		w.gen(f + b.Info + "\n" + text + f + "\n")
+		if w.marks != nil {
+			info = "cell"
+		}
+		w.gen(f + info + "\n" + text + f + "\n")
 	}
 	o := w.outcome[b.Index]
 	if o == nil {
@@ -189,7 +240,8 @@ func (w *mdWriter) cell(b Block) {
 	}
 	w.newline()
 	if o.Status != NotRun {
-		out := strings.ReplaceAll(o.Output, "\r\n", "\n")
+		w.begin(segOutput)
+		out := visible(strings.ReplaceAll(o.Output, "\r\n", "\n"))
 		if out != "" && !strings.HasSuffix(out, "\n") {
 			out += "\n"
 		}
@@ -199,43 +251,72 @@ func (w *mdWriter) cell(b Block) {
 	w.region("cell", w.cellContent(b, o))
 }
 
+// verdict is a claim's verdict label as a table cell; the HTML variant
+// marks it with a token, so that only assay's verdicts are styled as such.
+func (w *mdWriter) verdict(c Claim) string {
+	label := VerdictLabel(c)
+	if w.marks == nil {
+		return label
+	}
+	if class := verdictClass[c.Verdict]; class != "" {
+		return w.marks.verdict(class) + " " + label
+	}
+	return label
+}
+
 // headerContent is the summary at the top of a report.
 func (w *mdWriter) headerContent() string {
 	r := w.r
 	claims := allClaims(r)
 	errs := allErrors(r)
+	warns := allWarnings(r)
+	facts := []string{
+		"- notebook: " + codeSpan(visible(w.nb.Path)),
+		"- SHA-256: " + codeSpan(r.SHA256),
+		"- assay version: " + mdInline(visible(r.Version)),
+	}
+	if id := runText(r.Run); id != "" {
+		facts = append(facts, runPrefix+codeSpan(id))
+	}
+	facts = append(facts,
+		fmt.Sprintf("- seed: %d", r.Seed),
+		fmt.Sprintf("- precision: %d bits", r.Precision),
+		fmt.Sprintf("- claims: %d — %s", len(claims), countsPhrase(Counts(r))),
+		fmt.Sprintf("- errors: %d", len(errs)))
+	if len(warns) > 0 {
+		facts = append(facts, fmt.Sprintf("- warnings: %d", len(warns)))
+	}
 	paras := []string{
-		"**assay report: " + mdInline(w.nb.Title) + "**",
-		strings.Join([]string{
-			"- notebook: " + codeSpan(w.nb.Path),
-			"- SHA-256: " + codeSpan(r.SHA256),
-			"- assay version: " + mdInline(r.Version),
-			fmt.Sprintf("- seed: %d", r.Seed),
-			fmt.Sprintf("- precision: %d bits", r.Precision),
-			fmt.Sprintf("- claims: %d — %s", len(claims), countsPhrase(Counts(r))),
-			fmt.Sprintf("- errors: %d", len(errs)),
-		}, "\n"),
+		"**assay report: " + mdInline(visible(w.nb.Title)) + "**",
+		strings.Join(facts, "\n"),
 		"Total time: " + seconds(r.Seconds) + ".",
 	}
 	if len(errs) > 0 {
 		var ls []string
 		for _, e := range errs {
-			ls = append(ls, "- "+mdInline(truncate(problemText(e), 160)))
+			ls = append(ls, "- "+mdInline(truncate(visible(problemText(e)), 160)))
 		}
 		paras = append(paras, "**Errors**\n\n"+strings.Join(ls, "\n"))
+	}
+	if len(warns) > 0 {
+		var ls []string
+		for _, e := range warns {
+			ls = append(ls, "- "+mdInline(truncate(visible(problemText(e)), 240)))
+		}
+		paras = append(paras, "**Warnings**\n\n"+strings.Join(ls, "\n"))
 	}
 	if len(claims) > 0 {
 		var rows [][]string
 		for i, c := range claims {
-			rows = append(rows, []string{strconv.Itoa(i + 1), mdInline(c.Name), mdInline(c.Kind), mdInline(c.Method),
-				codeSpan(truncate(c.Residual, 60)), VerdictLabel(c), fmt.Sprintf("cell %d, line %d", c.Cell, c.Line)})
+			rows = append(rows, []string{strconv.Itoa(i + 1), mdText(c.Name), mdInline(visible(c.Kind)), mdInline(visible(c.Method)),
+				codeSpan(truncate(visible(c.Residual), 60)), w.verdict(c), fmt.Sprintf("cell %d, line %d", c.Cell, c.Line)})
 		}
 		paras = append(paras, "**Claims**\n\n"+mdTable([]string{"#", "claim", "kind", "method", "residual", "verdict", "where"}, rows))
 	}
 	var lossy [][]string
 	for i, c := range claims {
 		if f := c.Float; f != nil && f.DigitsLost > float64DigitsHalf {
-			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdInline(c.Name), codeSpan(f.Residual), codeSpan(f.Error),
+			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdText(c.Name), codeSpan(visible(f.Residual)), codeSpan(visible(f.Error)),
 				fmt.Sprintf("%.1f of 16", f.DigitsLost)})
 		}
 	}
@@ -268,7 +349,7 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		esc := func(cells []string) []string {
 			out := make([]string, len(cells))
 			for i, c := range cells {
-				out[i] = mdInline(c)
+				out[i] = mdText(c)
 			}
 			return out
 		}
@@ -285,8 +366,8 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		var notes []string
 		for i, c := range o.Claims {
 			n := w.first[o.Cell] + i
-			rows = append(rows, []string{strconv.Itoa(n), mdInline(c.Name), mdInline(c.Kind), mdInline(c.Method),
-				codeSpan(c.Residual), VerdictLabel(c)})
+			rows = append(rows, []string{strconv.Itoa(n), mdText(c.Name), mdInline(visible(c.Kind)), mdInline(visible(c.Method)),
+				codeSpan(visible(c.Residual)), w.verdict(c)})
 			if s := claimDetails(n, c); s != "" {
 				notes = append(notes, s)
 			}
@@ -306,12 +387,12 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 			name := strings.Join(strings.Fields(f.Name), " ")
 			caption := fmt.Sprintf("Figure %d", n)
 			if name != "" {
-				caption += ": " + mdInline(name)
+				caption += ": " + mdText(name)
 			}
-			paras = append(paras, "!["+mdInline(name)+"]("+linkPath(filepath.Base(figurePath(w.r.FigureBase, n)))+")",
+			paras = append(paras, "!["+mdText(name)+"]("+linkPath(filepath.Base(figurePath(w.r.FigureBase, n)))+")",
 				"*"+caption+"*")
 		default:
-			paras = append(paras, "*Figure: "+mdInline(f.Name)+"* (an SVG drawing, shown in the HTML report)")
+			paras = append(paras, "*Figure: "+mdText(f.Name)+"* (an SVG drawing, shown in the HTML report)")
 		}
 	}
 	if e := o.Error; e != nil {
@@ -319,7 +400,7 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		if e.Line > 0 {
 			at = fmt.Sprintf("**error** at line %d", e.Line)
 		}
-		msg := strings.TrimRight(strings.ReplaceAll(message(*e), "\r\n", "\n"), "\n")
+		msg := strings.TrimRight(visible(strings.ReplaceAll(message(*e), "\r\n", "\n")), "\n")
 		if strings.Contains(msg, "\n") {
 			f := fenceFor(msg)
 			paras = append(paras, at+":\n\n"+f+"\n"+msg+"\n"+f)
@@ -385,20 +466,20 @@ func claimDetails(n int, c Claim) string {
 		if c.Kind == "inequality" {
 			at = "smallest slack at "
 		}
-		facts = append(facts, at+codeSpan(c.Worst))
+		facts = append(facts, at+codeSpan(visible(c.Worst)))
 	}
 	if c.Precision > 0 {
 		facts = append(facts, fmt.Sprintf("%d-bit precision", c.Precision))
 	}
 	if f := c.Float; f != nil {
 		facts = append(facts, fmt.Sprintf("float64 alone: residual %s, error %s, %.1f digits lost",
-			codeSpan(f.Residual), codeSpan(f.Error), f.DigitsLost))
+			codeSpan(visible(f.Residual)), codeSpan(visible(f.Error)), f.DigitsLost))
 	}
-	note := strings.TrimSpace(c.Note)
+	note := strings.TrimSpace(visible(c.Note))
 	if note == "" && len(facts) == 0 {
 		return ""
 	}
-	s := fmt.Sprintf("- claim %d (%s):", n, mdInline(c.Name))
+	s := fmt.Sprintf("- claim %d (%s):", n, mdText(c.Name))
 	if note != "" {
 		s += " " + mdInline(note)
 	}
@@ -451,6 +532,11 @@ var mdEscaper = func() *strings.Replacer {
 // mdInline escapes text for use inline in Markdown, table cells included:
 // Markdown punctuation is backslash-escaped and line breaks become <br>.
 func mdInline(s string) string { return mdEscaper.Replace(s) }
+
+// mdText is notebook text (a claim's name, a table cell, a figure's name)
+// inline in Markdown: control characters escaped, text that could pass for
+// a verdict quoted, Markdown punctuation escaped.
+func mdText(s string) string { return mdInline(shown(s)) }
 
 // codeSpan shows s as inline code, or as escaped text when it holds a "|"
 // (which tables cannot take inside code).

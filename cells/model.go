@@ -6,7 +6,10 @@
 // this package as a plain record.
 package cells
 
-import "time"
+import (
+	"fmt"
+	"time"
+)
 
 // BlockKind tells prose from an executable cell.
 type BlockKind int
@@ -24,7 +27,27 @@ type Notebook struct {
 	Source []byte  // the raw file contents
 	Title  string  // text of the first level-1 heading, or the file name
 	Blocks []Block // prose and cells in file order
+	// Warnings name what looks like a cell, or like a cell's output, but
+	// is not one, and the generated regions assay did not write. They do
+	// not stop a run; the renderers show them with the report's own.
+	Warnings []Problem
+	// Foreign lists the generated regions that are not assay's: no hash
+	// of their content in the opening marker, or one that does not match,
+	// or content assay does not write (a cell). Their text, markers
+	// included, is read as part of the notebook, so a rewrite of the
+	// notebook that replaces generated regions would delete text someone
+	// else wrote there.
+	Foreign []Span
 }
+
+// Span is a stretch of notebook lines, the first and the last included.
+type Span struct {
+	Line    int // the first line, 1-based
+	EndLine int // the last line
+}
+
+// String names the lines, e.g. "lines 12–18".
+func (s Span) String() string { return fmt.Sprintf("lines %d–%d", s.Line, s.EndLine) }
 
 // Cells returns the executable blocks in order.
 func (nb *Notebook) Cells() []*Block {
@@ -153,7 +176,16 @@ type Report struct {
 	Precision int       // run precision in bits
 	Outcomes  []Outcome // one per cell, in cell order
 	Problems  []Problem // notebook-level problems (parse errors); cell errors live in outcomes
-	Seconds   float64   // wall time of the whole run
+	// Warnings are the caller's warnings, shown after the notebook's own
+	// (Notebook.Warnings); they do not change the exit status.
+	Warnings []Problem
+	Seconds  float64 // wall time of the whole run
+	// Run identifies the run that wrote the report, e.g. random hex digits
+	// chosen by the caller; empty for none. RenderMarkdown states it in the
+	// header and RenderHTML in the header and a <meta> tag, and RunID reads
+	// it back, so a Markdown report and an HTML report can be told to come
+	// from one run. Only letters, digits and . _ : + - are kept.
+	Run string
 	// FigureBase is the path of the Markdown report without its ".md", e.g.
 	// "mesh.report". When set, figures go beside the report as files
 	// (FigureFiles) and the Markdown report links to them; when empty, no

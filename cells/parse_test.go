@@ -18,6 +18,14 @@ func withOpts(b Block, o CellOptions) Block { b.Options = o; return b }
 
 func seed(n int64) *int64 { return &n }
 
+// assayRegion is a generated region holding content as assay writes it:
+// its opening marker carries the hash of its lines.
+func assayRegion(content string) string {
+	w := &mdWriter{eol: "\n"}
+	w.region("cell", content)
+	return w.b.String()
+}
+
 func TestParse(t *testing.T) {
 	tests := []struct {
 		name  string
@@ -25,6 +33,7 @@ func TestParse(t *testing.T) {
 		want  []Block
 		err   string // the whole message, "" for none
 		title string // "" means the file's base name, "nb"
+		warn  []int  // lines with a warning
 	}{
 		{name: "empty", src: ""},
 		{name: "only prose", src: "# Hello world #\n\nSome text.\n", title: "Hello world",
@@ -44,12 +53,12 @@ func TestParse(t *testing.T) {
 			want: []Block{cellAt(1, 1, "```", "cell", "``` x\n")}},
 		{name: "indented fence", src: "  ```cell\n  x\n   y\nz\n   ```\n",
 			want: []Block{cellAt(1, 1, "```", "cell", "x\n y\nz\n")}},
-		{name: "four spaces is not a fence", src: "    ```cell\n    x\n", want: []Block{prose(1, "    ```cell\n    x\n")}},
-		{name: "two backticks is not a fence", src: "``cell\nx\n", want: []Block{prose(1, "``cell\nx\n")}},
+		{name: "four spaces is not a fence", src: "    ```cell\n    x\n", want: []Block{prose(1, "    ```cell\n    x\n")}, warn: []int{1}},
+		{name: "two backticks is not a fence", src: "``cell\nx\n", want: []Block{prose(1, "``cell\nx\n")}, warn: []int{1}},
 		{name: "info string spaces", src: "```   cell   seed=3  \nx\n```\n",
 			want: []Block{withOpts(cellAt(1, 1, "```", "cell   seed=3", "x\n"), CellOptions{Seed: seed(3)})}},
 		{name: "other info strings are prose", src: "```python\nx\n```\n```cells\ny\n```\n~~~Cell\nz\n~~~\n```\nw\n```\n",
-			want: []Block{prose(1, "```python\nx\n```\n```cells\ny\n```\n~~~Cell\nz\n~~~\n```\nw\n```\n")}},
+			want: []Block{prose(1, "```python\nx\n```\n```cells\ny\n```\n~~~Cell\nz\n~~~\n```\nw\n```\n")}, warn: []int{4, 7}},
 		{name: "backtick in a backtick info string", src: "```a`b```\ntext\n", want: []Block{prose(1, "```a`b```\ntext\n")}},
 		{name: "cells numbered in order", src: "```cell\na\n```\n\ntext\n\n~~~cell\nb\n~~~\n```cell\nc\n```\n",
 			want: []Block{cellAt(1, 1, "```", "cell", "a\n"), prose(4, "\ntext\n\n"), cellAt(2, 7, "~~~", "cell", "b\n"),
@@ -93,13 +102,13 @@ func TestParse(t *testing.T) {
 		{name: "output right after a cell is skipped", src: "~~~cell\nprint(1)\n~~~\n```output\n1\n```\n",
 			want: []Block{cellAt(1, 1, "~~~", "cell", "print(1)\n")}},
 		{name: "output after prose is kept", src: "```cell\nx\n```\ntext\n```output\n1\n```\n",
-			want: []Block{cellAt(1, 1, "```", "cell", "x\n"), prose(4, "text\n```output\n1\n```\n")}},
+			want: []Block{cellAt(1, 1, "```", "cell", "x\n"), prose(4, "text\n```output\n1\n```\n")}, warn: []int{5}},
 		{name: "unclosed output", src: "```cell\nx\n```\n```output\n1\n",
 			err:  "line 4: the fence ``` opened here is never closed",
 			want: []Block{cellAt(1, 1, "```", "cell", "x\n"), prose(4, "```output\n1\n")}},
-		{name: "generated regions are skipped", src: "a\n<!-- assay:generated -->\n# Not the title\n```cell\n<!-- /assay:generated -->\nb\n" +
-			"```cell\nx\n```\n```output\n```\n  <!-- assay:generated -->  \n| t |\n<!-- /assay:generated -->\nc\n",
-			want: []Block{prose(1, "a\nb\n"), cellAt(1, 7, "```", "cell", "x\n"), prose(15, "c\n")}},
+		{name: "generated regions are skipped", src: "a\n" + assayRegion("# Not the title\n```\n<!-- /assay:generated -->\n```\n") + "b\n" +
+			"```cell\nx\n```\n```output\n```\n  " + strings.Replace(assayRegion("| t |\n"), "-->\n", "-->  \n", 1) + "c\n",
+			want: []Block{prose(1, "a\nb\n"), cellAt(1, 11, "```", "cell", "x\n"), prose(21, "c\n")}},
 		{name: "markers inside a fence are text", src: "```\n<!-- assay:generated -->\n```\n",
 			want: []Block{prose(1, "```\n<!-- assay:generated -->\n```\n")}},
 		{name: "unclosed generated region", src: "a\n<!-- assay:generated -->\nb\n",
@@ -118,7 +127,8 @@ func TestParse(t *testing.T) {
 			err:  "line 3: the file is not valid UTF-8 (byte 0xff at column 6)",
 			want: []Block{prose(1, "ok\né ok\nabcdé\xffg\n```cell\n")}},
 		{name: "CRLF", src: "# Title\r\n\r\n```cell id=a\r\nx = 1\r\n\r\n```\r\ntext\r\n```output\r\n```\r\n", title: "Title",
-			want: []Block{prose(1, "# Title\r\n\r\n"), withOpts(cellAt(1, 3, "```", "cell id=a", "x = 1\n\n"), CellOptions{ID: "a"}), prose(7, "text\r\n```output\r\n```\r\n")}},
+			want: []Block{prose(1, "# Title\r\n\r\n"), withOpts(cellAt(1, 3, "```", "cell id=a", "x = 1\n\n"), CellOptions{ID: "a"}), prose(7, "text\r\n```output\r\n```\r\n")},
+			warn: []int{8}},
 		{name: "no final newline", src: "```cell\nx\n```", want: []Block{cellAt(1, 1, "```", "cell", "x\n")}},
 		{name: "title is the first level-1 heading outside fences", src: "Intro\n## Sub\n#NoSpace\n```\n# In a fence\n```\n  # Real title  \n# Second\n",
 			title: "Real title", want: []Block{prose(1, "Intro\n## Sub\n#NoSpace\n```\n# In a fence\n```\n  # Real title  \n# Second\n")}},
@@ -166,6 +176,13 @@ func TestParse(t *testing.T) {
 			}
 			if string(nb.Source) != tc.src || nb.Path != "notebooks/nb.md" {
 				t.Errorf("Source or Path not kept")
+			}
+			var warned []int
+			for _, w := range nb.Warnings {
+				warned = append(warned, w.Line)
+			}
+			if !reflect.DeepEqual(warned, tc.warn) {
+				t.Errorf("warnings at lines %v, want %v: %v", warned, tc.warn, nb.Warnings)
 			}
 		})
 	}

@@ -5,8 +5,6 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
-	"os"
-	"path/filepath"
 )
 
 // Counts returns the number of claims of each verdict in the report.
@@ -40,6 +38,15 @@ func allErrors(r *Report) []Problem {
 		}
 	}
 	return out
+}
+
+// allWarnings lists the notebook's warnings, then the caller's.
+func allWarnings(r *Report) []Problem {
+	var out []Problem
+	if r.Notebook != nil {
+		out = append(out, r.Notebook.Warnings...)
+	}
+	return append(out, r.Warnings...)
 }
 
 // failedCells counts the cells that stopped with an error.
@@ -91,14 +98,17 @@ type jsonReport struct {
 	SHA256   string      `json:"sha256"`
 	Claims   []jsonClaim `json:"claims"`
 	Errors   []jsonError `json:"errors"`
+	Warnings []jsonError `json:"warnings,omitempty"`
 	Exit     int         `json:"exit"`
 }
 
 // RenderJSON returns the machine-readable summary:
 // {"notebook", "sha256", "claims": [{"name", "kind", "method", "verdict",
 // "residual", "digits", "cell", "line", "seconds"}], "errors": [{"cell",
-// "line", "message"}], "exit"}, indented, ending in a newline. errors holds
-// the notebook problems and then the cell errors.
+// "line", "message"}], "warnings": [{"cell", "line", "message"}], "exit"},
+// indented, ending in a newline. errors holds the notebook problems and
+// then the cell errors; warnings (absent when there are none) the
+// notebook's warnings and then the caller's.
 func RenderJSON(r *Report, exit int) []byte {
 	j := jsonReport{SHA256: r.SHA256, Claims: []jsonClaim{}, Errors: []jsonError{}, Exit: exit}
 	if r.Notebook != nil {
@@ -109,6 +119,9 @@ func RenderJSON(r *Report, exit int) []byte {
 	}
 	for _, e := range allErrors(r) {
 		j.Errors = append(j.Errors, jsonError{e.Cell, e.Line, message(e)})
+	}
+	for _, e := range allWarnings(r) {
+		j.Warnings = append(j.Warnings, jsonError{e.Cell, e.Line, message(e)})
 	}
 	var b bytes.Buffer
 	enc := json.NewEncoder(&b)
@@ -121,41 +134,63 @@ func RenderJSON(r *Report, exit int) []byte {
 }
 
 // RenderCheck writes terminal lines: each notebook problem and cell error
-// as "path:line: message", one line per claim (verdict, name, residual,
-// path:line), then a summary line such as "x.md: 4 claims — 3 holds, 1 holds
-// to digits, 0 fails, 0 undecided; 0 errors".
+// as "path:line: message", each warning as "path:line: warning: message",
+// one line per claim (verdict, name, residual, path:line), then a summary
+// line such as "x.md: 4 claims — 3 holds, 1 holds to digits, 0 fails, 0
+// undecided; 0 errors" (with "; 2 warnings" when there are any). Text from
+// the notebook has its control characters escaped, and a claim name that
+// could pass for a verdict is quoted.
 func RenderCheck(w io.Writer, r *Report) {
 	path := ""
 	if r.Notebook != nil {
-		path = r.Notebook.Path
+		path = visible(r.Notebook.Path)
 	}
 	for _, p := range r.Problems {
-		fmt.Fprintf(w, "%s:%d: %s\n", path, p.Line, message(p))
+		fmt.Fprintf(w, "%s:%d: %s\n", path, p.Line, visible(message(p)))
 	}
 	claims := allClaims(r)
+	name := func(c Claim) string { return truncate(shown(c.Name), 56) }
+	residual := func(c Claim) string { return truncate(visible(c.Residual), 40) }
 	var nameW, resW, verdictW int
 	for _, c := range claims {
-		nameW = max(nameW, len([]rune(truncate(c.Name, 56))))
-		resW = max(resW, len([]rune(truncate(c.Residual, 40))))
+		nameW = max(nameW, len([]rune(name(c))))
+		resW = max(resW, len([]rune(residual(c))))
 		verdictW = max(verdictW, len([]rune(VerdictLabel(c))))
 	}
 	notRun := 0
 	for _, o := range r.Outcomes {
 		for _, c := range o.Claims {
-			fmt.Fprintf(w, "%-*s  %-*s  %-*s  %s:%d\n", verdictW, VerdictLabel(c), nameW, truncate(c.Name, 56), resW, truncate(c.Residual, 40), path, c.Line)
+			fmt.Fprintf(w, "%-*s  %-*s  %-*s  %s:%d\n", verdictW, VerdictLabel(c), nameW, name(c), resW, residual(c), path, c.Line)
 		}
 		if e := o.Error; e != nil {
-			fmt.Fprintf(w, "%s:%d: %s\n", path, e.Line, truncate(message(*e), 200))
+			fmt.Fprintf(w, "%s:%d: %s\n", path, e.Line, truncate(visible(message(*e)), 200))
 		}
 		if o.Status == NotRun {
 			notRun++
 		}
 	}
 	fmt.Fprintf(w, "%s: %s — %s; %s", path, plural(len(claims), "claim"), countsPhrase(Counts(r)), plural(len(allErrors(r)), "error"))
+	if n := len(allWarnings(r)); n > 0 {
+		fmt.Fprintf(w, "; %s", plural(n, "warning"))
+	}
 	if notRun > 0 {
 		fmt.Fprintf(w, "; %s not run", plural(notRun, "cell"))
 	}
 	fmt.Fprintln(w)
+}
+
+// RenderWarnings writes the report's warnings (the notebook's, then the
+// caller's), one line each: "path:line: warning: message". RenderCheck
+// only counts them, so that a command can send them to standard error
+// while the claims go to standard output.
+func RenderWarnings(w io.Writer, r *Report) {
+	path := ""
+	if r.Notebook != nil {
+		path = visible(r.Notebook.Path)
+	}
+	for _, p := range allWarnings(r) {
+		fmt.Fprintf(w, "%s:%d: warning: %s\n", path, p.Line, truncate(visible(message(p)), 240))
+	}
 }
 
 func plural(n int, word string) string {
@@ -167,33 +202,9 @@ func plural(n int, word string) string {
 
 // WriteFileAtomic writes data to path through a temporary file in the same
 // folder and a rename, so readers see the old or the new file, never half of
-// one. An existing file keeps its permission bits; a new one gets 0644.
-func WriteFileAtomic(path string, data []byte) (err error) {
-	mode := os.FileMode(0o644)
-	if fi, err := os.Stat(path); err == nil {
-		mode = fi.Mode().Perm()
-	}
-	f, err := os.CreateTemp(filepath.Dir(path), "."+filepath.Base(path)+".tmp*")
-	if err != nil {
-		return err
-	}
-	defer func() {
-		if err != nil {
-			f.Close()
-			os.Remove(f.Name())
-		}
-	}()
-	if _, err = f.Write(data); err != nil {
-		return err
-	}
-	if err = f.Chmod(mode); err != nil {
-		return err
-	}
-	if err = f.Sync(); err != nil {
-		return err
-	}
-	if err = f.Close(); err != nil {
-		return err
-	}
-	return os.Rename(f.Name(), path)
+// one. A path that is a symbolic link is written through to the file it
+// names, and the link stays. An existing file keeps its permission bits; a
+// new one gets 0644.
+func WriteFileAtomic(path string, data []byte) error {
+	return WriteFilesAtomic([]File{{Path: path, Data: data}})
 }

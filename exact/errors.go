@@ -50,3 +50,10 @@ var (
 	// beyond about ±2^28).
 	ErrOverflow = errors.New("magnitude out of range")
 )
+
+// capError is ErrUndecided with a message of its own: what was asked and
+// the cap it was not settled within, said once.
+type capError struct{ msg string }
+
+func (e capError) Error() string { return e.msg }
+func (e capError) Unwrap() error { return ErrUndecided }

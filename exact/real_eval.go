@@ -8,6 +8,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 )
 
 // DefaultMaxPrecision is a reasonable precision cap, in bits, for Approx,
@@ -218,10 +219,11 @@ func (x *Real) refine(start, maxPrec uint, what string, done func(ival, uint) bo
 			return err
 		}
 		if p >= maxPrec {
+			msg := fmt.Sprintf("%s not settled within the precision cap of %d bits", what, maxPrec)
 			if last != nil {
-				return fmt.Errorf("%s: not settled within the cap of %d bits (%v): %w", what, maxPrec, last, ErrUndecided)
+				msg += " (" + strings.TrimSuffix(last.Error(), ": "+ErrUndecided.Error()) + ")"
 			}
-			return fmt.Errorf("%s: not settled within the cap of %d bits: %w", what, maxPrec, ErrUndecided)
+			return capError{msg}
 		}
 		p *= 2
 		if p > maxPrec {

@@ -49,5 +49,5 @@ func ExampleReal_Sign() {
 	// Output:
 	// -1 <nil>
 	// -1 <nil>
-	// sign: not settled within the cap of 4096 bits: undecided at the precision cap
+	// sign not settled within the precision cap of 4096 bits
 }

@@ -32,9 +32,9 @@ type driver struct {
 	workers []*worker // process mode; workers[0] is the main kernel
 	inbox   chan proto.Message
 	history []ran // cells the main kernel has run, for helpers to replay
-	current session.Cell
-	tried   bool // helpers were started (or could not be)
-	peak    int  // most workers at once, for tests
+	current ran   // the cell being run, with its time limit
+	tried   bool  // helpers were started (or could not be)
+	peak    int   // most workers at once, for tests
 
 	settled   map[string]settledTally
 	open      map[string]*opening
@@ -44,8 +44,9 @@ type driver struct {
 }
 
 type ran struct {
-	cell   session.Cell
-	failed bool
+	cell    session.Cell
+	timeout time.Duration // its time limit, which a replay keeps
+	failed  bool
 }
 
 // worker is one kernel process and what it is doing.
@@ -57,6 +58,13 @@ type worker struct {
 	running  *ran         // the cell it runs, nil when idle
 	asking   string       // the exchange it waits on, "" when not waiting
 	final    *proto.Reply // its reply for the current cell
+	// catching is a helper started during the current cell, until it
+	// reaches the main kernel's place in it: its start and replays are
+	// not the cell's work, so the cell's clock stops meanwhile, and each
+	// step has a limit of its own, due at due.
+	catching bool
+	due      time.Time
+	late     func() error // the error when due passes
 }
 
 type settledTally struct {
@@ -93,13 +101,19 @@ func (d *driver) start() error {
 		return nil
 	}
 	d.inbox = make(chan proto.Message, 16)
-	s := d.opt.Settings
-	s.Driven = true
-	p, err := proto.Start(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
+	p, err := d.spawn()
 	if err != nil {
 		return err
 	}
-	m := <-d.inbox
+	limit := time.NewTimer(d.opt.Timeout)
+	defer limit.Stop()
+	var m proto.Message
+	select {
+	case m = <-d.inbox:
+	case <-limit.C:
+		p.Kill()
+		return proto.SlowStart(d.opt.Timeout)
+	}
 	switch {
 	case m.Dead:
 		return p.Death()
@@ -110,6 +124,13 @@ func (d *driver) start() error {
 	d.workers = []*worker{{p: p}}
 	d.tried = d.opt.Workers <= 1
 	return nil
+}
+
+// spawn starts one kernel process, main or helper.
+func (d *driver) spawn() (*proto.Process, error) {
+	s := d.opt.Settings
+	s.Driven = true
+	return proto.Start(d.opt.Command, s, proto.Limits{MaxMemory: d.opt.MaxMemory, MaxOutput: d.opt.MaxOutput, Procs: d.procs()}, d.inbox)
 }
 
 // procs shares the cores among the workers.
@@ -134,8 +155,9 @@ func (d *driver) close() {
 }
 
 // restart replaces a dead kernel with a fresh one and replays the cells
-// that ran cleanly, so later cells see their names.
-func (d *driver) restart(timeout time.Duration) error {
+// that ran cleanly, so later cells see their names; each replay has the
+// time limit its cell had.
+func (d *driver) restart() error {
 	clean := d.history
 	d.close()
 	if err := d.start(); err != nil {
@@ -145,11 +167,53 @@ func (d *driver) restart(timeout time.Duration) error {
 		if r.failed {
 			continue
 		}
-		if _, _, err := d.run(r.cell, timeout); err != nil {
-			return err
+		if _, _, err := d.run(r.cell, r.timeout); err != nil {
+			return &replayError{cell: r.cell, err: err}
 		}
 	}
 	return nil
+}
+
+// replayError is a cell that failed when replayed after a restart.
+type replayError struct {
+	cell session.Cell
+	err  error
+}
+
+func (e *replayError) Error() string {
+	return fmt.Sprintf("replay of cell %d (line %d), to run the cells after a failed one: %v", e.cell.Index, e.cell.Line, e.err)
+}
+
+// timeLimit is the error of a cell or replay stopped by its time limit.
+func timeLimit(what string, timeout time.Duration) error {
+	return &proto.LimitError{Message: fmt.Sprintf("%sstopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", what, timeout)}
+}
+
+// cellClock measures the current cell's time. It stops while helpers
+// catch up, so the cell's limit and verdict do not depend on how many
+// workers there are.
+type cellClock struct {
+	spent time.Duration
+	since time.Time // when it last started; zero while stopped
+}
+
+// set starts or stops the clock.
+func (c *cellClock) set(on bool, now time.Time) {
+	switch {
+	case on && c.since.IsZero():
+		c.since = now
+	case !on && !c.since.IsZero():
+		c.spent += now.Sub(c.since)
+		c.since = time.Time{}
+	}
+}
+
+// left is the time the cell has left of limit; ok false while stopped.
+func (c *cellClock) left(limit time.Duration, now time.Time) (time.Duration, bool) {
+	if c.since.IsZero() {
+		return 0, false
+	}
+	return limit - c.spent - now.Sub(c.since), true
 }
 
 // run runs one cell in every worker and returns the main kernel's outcome.
@@ -158,30 +222,46 @@ func (d *driver) restart(timeout time.Duration) error {
 func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, session.Settings, error) {
 	if d.sess != nil {
 		o := d.sess.Run(c)
-		d.history = append(d.history, ran{cell: c, failed: o.Status == cells.Failed})
+		d.history = append(d.history, ran{cell: c, timeout: timeout, failed: o.Status == cells.Failed})
 		return o, d.sess.Settings(), nil
 	}
-	d.current = c
+	d.current = ran{cell: c, timeout: timeout}
 	for _, w := range d.workers {
 		w.final = nil
-		w.queue = append(w.queue, ran{cell: c})
+		w.queue = append(w.queue, d.current)
 		if err := d.next(w); err != nil {
 			return d.abort(err)
 		}
 	}
+	var clock cellClock
 	timer := time.NewTimer(timeout)
 	defer timer.Stop()
 	for !d.finished() {
 		if err := d.stuck(); err != nil {
 			return d.abort(err)
 		}
+		// The nearest limit: the cell's, while its clock runs, or that of
+		// a helper's step in catching up.
+		now := time.Now()
+		late := func() error { return timeLimit("", timeout) }
+		clock.set(!d.catchingUp(), now)
+		wait, running := clock.left(timeout, now)
+		for _, w := range d.workers {
+			if w.catching && !w.due.IsZero() && (!running || w.due.Sub(now) < wait) {
+				wait, running, late = w.due.Sub(now), true, w.late
+			}
+		}
+		if !running {
+			wait = timeout // no limit is running: a safeguard, not reached
+		}
+		timer.Reset(max(wait, 0))
 		select {
 		case m := <-d.inbox:
 			if err := d.receive(m); err != nil {
 				return d.abort(err)
 			}
 		case <-timer.C:
-			return d.abort(&proto.LimitError{Message: fmt.Sprintf("stopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", timeout)})
+			return d.abort(late())
 		}
 	}
 	d.progress.clear()
@@ -193,8 +273,18 @@ func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, sess
 			out.Error = &cells.Problem{Cell: c.Index, Line: c.Line, Message: fmt.Sprintf("worker %d disagrees with the main kernel: %s; the notebook is not deterministic (does a result depend on something other than the seed?)", w.index, why)}
 		}
 	}
-	d.history = append(d.history, ran{cell: c, failed: out.Status == cells.Failed})
+	d.history = append(d.history, ran{cell: c, timeout: timeout, failed: out.Status == cells.Failed})
 	return out, main.Settings, nil
+}
+
+// catchingUp says a helper is still catching up with the main kernel.
+func (d *driver) catchingUp() bool {
+	for _, w := range d.workers {
+		if w.catching {
+			return true
+		}
+	}
+	return false
 }
 
 // abort ends every kernel after an error in the middle of a cell.
@@ -227,7 +317,21 @@ func (d *driver) next(w *worker) error {
 	r := w.queue[0]
 	w.queue = w.queue[1:]
 	w.running = &r
+	if w.catching {
+		// Each replayed cell keeps its own limit; so does the helper's
+		// run of the current cell up to where the main kernel waits.
+		w.due = time.Now().Add(r.timeout)
+		w.late = func() error {
+			return d.named(w, timeLimit(fmt.Sprintf("replay of cell %d (line %d): ", r.cell.Index, r.cell.Line), r.timeout))
+		}
+	}
 	return d.named(w, w.p.Send(proto.Request{Op: "run", Cell: &r.cell}))
+}
+
+// caughtUp ends a helper's catching up: from here on it runs in step, and
+// the cell's clock runs.
+func (w *worker) caughtUp() {
+	w.catching, w.due, w.late = false, time.Time{}, nil
 }
 
 // named prefixes a helper's error with its number.
@@ -270,10 +374,11 @@ func (d *driver) receive(m proto.Message) error {
 	done := *w.running
 	w.running = nil
 	failed := r.Outcome.Status == cells.Failed
-	if done.cell.Index == d.current.Index && len(w.queue) == 0 {
+	if done.cell.Index == d.current.cell.Index && len(w.queue) == 0 {
 		w.final = &r
+		w.caughtUp()
 	} else if failed != done.failed {
-		return d.named(w, &proto.LimitError{Message: fmt.Sprintf("replaying cell %d (line %d) gave another result than the main kernel did; the notebook is not deterministic", done.cell.Index, done.cell.Line)})
+		return d.named(w, &proto.LimitError{Message: fmt.Sprintf("replay of cell %d (line %d) gave another result than the main kernel did; the notebook is not deterministic", done.cell.Index, done.cell.Line)})
 	}
 	return d.next(w)
 }
@@ -318,6 +423,7 @@ func (d *driver) onExchange(w *worker, e claim.Exchange) error {
 		}
 		o.askers = append(o.askers, w)
 		w.asking = a.Key()
+		w.caughtUp() // a helper that joins an open exchange is where the main kernel waits
 		if w.index == 0 && !d.tried && a.Phase == claim.PhaseSweep && a.Samples >= helperThreshold {
 			d.startHelpers()
 		}
@@ -370,18 +476,20 @@ func (d *driver) answer(w *worker, t *claim.Tally, err error) error {
 
 // startHelpers starts the helper workers; each replays the cells the main
 // kernel has run, then joins it in the current cell. A helper that cannot
-// start is left out: the run is slower, not different.
+// start is left out: the run is slower, not different. Until a helper
+// has caught up, the current cell's clock stops, and the helper's start
+// and each cell it replays have limits of their own.
 func (d *driver) startHelpers() {
 	d.tried = true
-	s := d.opt.Settings
-	s.Driven = true
 	for i := 1; i < d.opt.Workers; i++ {
-		p, err := proto.Start(d.opt.Command, s, d.opt.MaxMemory, d.procs(), d.inbox)
+		p, err := d.spawn()
 		if err != nil {
 			return
 		}
-		queue := append(append([]ran(nil), d.history...), ran{cell: d.current})
-		d.workers = append(d.workers, &worker{p: p, index: i, starting: true, queue: queue})
+		queue := append(append([]ran(nil), d.history...), d.current)
+		w := &worker{p: p, index: i, starting: true, queue: queue, catching: true, due: time.Now().Add(d.opt.Timeout)}
+		w.late = func() error { return d.named(w, proto.SlowStart(d.opt.Timeout)) }
+		d.workers = append(d.workers, w)
 		d.peak = max(d.peak, len(d.workers))
 	}
 }

@@ -3,6 +3,7 @@ package kernel
 import (
 	"crypto/sha256"
 	"encoding/hex"
+	"errors"
 	"fmt"
 	"io"
 	"time"
@@ -20,6 +21,11 @@ type Options struct {
 	Timeout   time.Duration // per-cell default; a cell's timeout= option wins
 	MaxMemory int64         // bytes; the kernel process is killed above it
 	KeepGoing bool          // run later cells after a cell fails
+	// MaxOutput caps what one cell may send back (bytes of its reply:
+	// printed text, tables, figures, claims); over it the cell fails,
+	// keeping the start of its printed text. It bounds what the driver
+	// buffers per cell. Zero: DefaultMaxOutput.
+	MaxOutput int64
 	// Command starts a kernel process, e.g. ["/usr/bin/assay", "kernel"].
 	// Empty runs cells in this process, without time or memory limits.
 	Command []string
@@ -40,6 +46,7 @@ var DefaultMaxTerms = exact.DefaultMaxTerms
 const (
 	DefaultTimeout   = 60 * time.Second
 	DefaultMaxMemory = 2 << 30
+	DefaultMaxOutput = proto.DefaultMaxOutput
 )
 
 // Run runs every cell of a notebook top to bottom in one namespace and
@@ -98,6 +105,9 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 	if opt.MaxMemory <= 0 {
 		opt.MaxMemory = DefaultMaxMemory
 	}
+	if opt.MaxOutput <= 0 {
+		opt.MaxOutput = DefaultMaxOutput
+	}
 	if opt.Settings.Precision == 0 {
 		opt.Settings.Precision = session.DefaultSettings.Precision
 	}
@@ -141,8 +151,13 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 			}
 			// The namespace died with the process: start afresh and replay
 			// the cells that ran cleanly so later cells see their names.
-			if err := d.restart(opt.Timeout); err != nil {
-				rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
+			if err := d.restart(); err != nil {
+				p := cells.Problem{Message: err.Error()}
+				var re *replayError
+				if errors.As(err, &re) {
+					p.Cell, p.Line = re.cell.Index, re.cell.Line
+				}
+				rep.Problems = append(rep.Problems, p)
 				return rep, d
 			}
 			continue

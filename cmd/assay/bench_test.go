@@ -37,6 +37,29 @@ func BenchmarkCheckOneCell(b *testing.B) {
 	}
 }
 
+// BenchmarkCellRoundTrip times the kernel round trip per cell: `assay
+// check` on a notebook of 200 one-line cells, reported per cell (the one
+// kernel start is shared among them).
+func BenchmarkCellRoundTrip(b *testing.B) {
+	dir, bin := buildAssay(b)
+	nb := filepath.Join(dir, "many.md")
+	src := "# many cells\n"
+	const cells = 200
+	for i := 0; i < cells; i++ {
+		src += fmt.Sprintf("\n```cell\nx%d = %d * frac(1, 3)\n```\n", i, i)
+	}
+	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
+		b.Fatal(err)
+	}
+	b.ResetTimer()
+	for i := 0; i < b.N; i++ {
+		if out, err := exec.Command(bin, "check", nb).CombinedOutput(); err != nil {
+			b.Fatalf("check: %v\n%s", err, out)
+		}
+	}
+	b.ReportMetric(float64(b.Elapsed().Microseconds())/float64(b.N*cells), "µs/cell")
+}
+
 // BenchmarkSampledIdentityWorkers times the whole run of a notebook with a
 // 10,000-sample exact identity over random rational tetrahedra (exact
 // volume against Cayley–Menger), as a user runs it, with 1 and 2 kernel

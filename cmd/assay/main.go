@@ -3,13 +3,17 @@
 package main
 
 import (
+	"crypto/sha256"
+	"encoding/hex"
 	"errors"
 	"flag"
 	"fmt"
 	"io"
 	"os"
 	"path/filepath"
+	"regexp"
 	"runtime"
+	"slices"
 	"strconv"
 	"strings"
 	"time"
@@ -28,7 +32,7 @@ Usage:
   assay check [flags] NOTEBOOK...   run notebooks, print one line per claim
   assay run --shard i/n NOTEBOOK    run shard i of n, write a part file to merge
   assay merge [flags] PART...       join the parts of a sharded run into its report
-  assay kernel                      serve the JSON-lines kernel protocol on stdin/stdout
+  assay kernel                      serve the JSON-lines kernel protocol (fds 3/4, else stdin/stdout)
   assay version                     print the version
 
 Examples:
@@ -85,6 +89,7 @@ type runFlags struct {
 type limits struct {
 	timeout   time.Duration
 	maxMemory byteSize
+	maxOutput byteSize
 	keep      bool
 	workers   int
 }
@@ -93,6 +98,8 @@ func addLimitFlags(fs *flag.FlagSet, l *limits) {
 	l.maxMemory = kernel.DefaultMaxMemory
 	fs.DurationVar(&l.timeout, "timeout", kernel.DefaultTimeout, "time limit per cell (a cell's timeout= option wins)")
 	fs.Var(&l.maxMemory, "max-memory", "memory cap of each kernel process, e.g. 512MiB or 4GiB")
+	l.maxOutput = kernel.DefaultMaxOutput
+	fs.Var(&l.maxOutput, "max-output", "most output one cell may send back (printed text, tables, figures, claims), e.g. 16MiB")
 	fs.IntVar(&l.workers, "workers", runtime.NumCPU(), "kernel processes that share a large sampled claim")
 	fs.BoolVar(&l.keep, "keep-going", false, "run the remaining cells after a cell fails")
 }
@@ -109,7 +116,7 @@ func (l *limits) options(s session.Settings, stderr io.Writer) (kernel.Options, 
 	if err != nil {
 		return kernel.Options{}, fmt.Errorf("cannot find the assay executable to start a kernel: %w", err)
 	}
-	opt := kernel.Options{Settings: s, Timeout: l.timeout, MaxMemory: int64(l.maxMemory), KeepGoing: l.keep,
+	opt := kernel.Options{Settings: s, Timeout: l.timeout, MaxMemory: int64(l.maxMemory), MaxOutput: int64(l.maxOutput), KeepGoing: l.keep,
 		Command: []string{exe, "kernel"}, Workers: l.workers}
 	if isTerminal(stderr) {
 		opt.Progress = stderr
@@ -266,74 +273,194 @@ Flags:
 		}
 		return runShard(path, report.out, opt, stdout, stderr)
 	}
-	rep, err := load(path, opt)
-	if err != nil {
-		fmt.Fprintln(stderr, "assay run:", err)
-		return 2
-	}
 	if *inPlace {
 		if report.out != "" {
 			fmt.Fprintln(stderr, "assay run: --in-place writes the notebook itself; drop -o")
 			return 2
 		}
-		if len(rep.Problems) > 0 {
-			cells.RenderCheck(stdout, rep)
-			fmt.Fprintf(stdout, "%s left unchanged: it could not be parsed\n", path)
-			return 2
-		}
-		rep.FigureBase = strings.TrimSuffix(path, filepath.Ext(path))
-		if err := writeFigures(rep); err != nil {
-			fmt.Fprintln(stderr, "assay run:", err)
-			return 2
-		}
-		if err := cells.WriteFileAtomic(path, cells.RenderMarkdown(rep, false)); err != nil {
-			fmt.Fprintln(stderr, "assay run:", err)
-			return 2
-		}
-		cells.RenderCheck(stdout, rep)
-		fmt.Fprintf(stdout, "outputs written into %s\n", path)
-		return cells.ExitCode(rep, rf.strictOn)
+		return runInPlace(path, opt, rf.strictOn, stdout, stderr)
 	}
-	return writeReport("assay run", rep, report.out, report.writesHTML(), rf.strictOn, stdout, stderr)
-}
-
-// writeReport writes a report (Markdown, figures, and HTML unless told
-// not to) beside its notebook or at mdPath, prints the claims, and returns
-// the exit status.
-func writeReport(cmd string, rep *cells.Report, mdPath string, html, strict bool, stdout, stderr io.Writer) int {
-	path := rep.Notebook.Path
+	rep, err := load(path, opt)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	mdPath := report.out
 	if mdPath == "" {
 		mdPath = strings.TrimSuffix(path, filepath.Ext(path)) + ".report.md"
 	}
-	if samePath(mdPath, path) {
-		fmt.Fprintf(stderr, "%s: the report path %s is the notebook itself; use --in-place to write outputs into the notebook\n", cmd, mdPath)
+	return writeReport("assay run", rep, mdPath, report.writesHTML(), rf.strictOn, []output{{role: "notebook", path: path}}, stdout, stderr)
+}
+
+// runInPlace runs a notebook and writes its outputs into it, with its
+// figures beside it, as one set. It refuses, before running anything, a
+// notebook whose generated regions hold text assay did not write: the
+// rewrite would delete it.
+func runInPlace(path string, opt kernel.Options, strict bool, stdout, stderr io.Writer) int {
+	src, err := readNotebook(path)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
 		return 2
 	}
+	if nb, _ := cells.Parse(path, src); len(nb.Foreign) > 0 {
+		spans := make([]string, len(nb.Foreign))
+		for i, sp := range nb.Foreign {
+			spans[i] = sp.String()
+		}
+		fmt.Fprintf(stderr, "assay run: %s, %s: a generated region holds text assay did not write, which --in-place would delete; the notebook is left unchanged: move that text out of the region (or delete the region if nothing in it is yours) and run again\n",
+			path, strings.Join(spans, ", "))
+		return 2
+	}
+	rep, err := load(path, opt)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	if len(rep.Problems) > 0 {
+		summarize(stdout, stderr, rep)
+		fmt.Fprintf(stdout, "%s left unchanged: it could not be parsed\n", path)
+		return 2
+	}
+	// The figures go beside the file that holds the notebook's text, which
+	// links to them by name, even when path is a symbolic link to it.
+	target, err := cells.Target(path)
+	if err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	rep.FigureBase = strings.TrimSuffix(target, filepath.Ext(target))
+	stampRun(rep)
+	outs := []output{{"notebook", path, cells.RenderMarkdown(rep, false)}}
+	for _, f := range cells.FigureFiles(rep) {
+		outs = append(outs, output{"figure file", f.Path, f.SVG})
+	}
+	if err := checkOutputs(outs, nil, "rename the notebook"); err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	slices.Reverse(outs) // the notebook last, once its figures are in place
+	if err := writeOutputs(outs); err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
+		return 2
+	}
+	summarize(stdout, stderr, rep)
+	fmt.Fprintf(stdout, "outputs written into %s\n", path)
+	return cells.ExitCode(rep, strict)
+}
+
+// stampRun gives the report its run identifier, which the Markdown and the
+// HTML report both state (cells.RunID reads it back), so that a reader can
+// tell a pair written by one run from a stale pair. It is the first 16 hex
+// digits of the SHA-256 of what the run found: the Markdown report with its
+// times masked, and the figures. A rerun that finds the same gets the same
+// identifier, so reports stay reproducible apart from times; a run that
+// finds anything else (another verdict, residual, output or notebook) gets
+// another one.
+func stampRun(rep *cells.Report) {
+	r := *rep
+	r.Run, r.FigureBase = "", "" // the same findings, wherever they are written
+	h := sha256.New()
+	io.WriteString(h, cells.MaskTimes(string(cells.RenderMarkdown(&r, true))))
+	for _, o := range rep.Outcomes {
+		for _, f := range o.Figures {
+			fmt.Fprintf(h, "\x00%q\x00%d\x00", f.Name, len(f.SVG))
+			io.WriteString(h, f.SVG)
+		}
+	}
+	rep.Run = hex.EncodeToString(h.Sum(nil))[:16]
+}
+
+// writeReport writes a report at mdPath: the Markdown, its figures beside
+// it and the HTML unless told not to, as one set that carries one run
+// identifier, and never over an input of the run (the notebook, part
+// files) or one of its own files over another. It prints the claims and
+// returns the exit status.
+func writeReport(cmd string, rep *cells.Report, mdPath string, html, strict bool, inputs []output, stdout, stderr io.Writer) int {
 	rep.FigureBase = strings.TrimSuffix(mdPath, filepath.Ext(mdPath))
-	if err := writeFigures(rep); err != nil {
-		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
-		return 2
-	}
-	if err := cells.WriteFileAtomic(mdPath, cells.RenderMarkdown(rep, true)); err != nil {
-		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
-		return 2
-	}
-	written := []string{mdPath}
+	stampRun(rep)
+	// Checked in this order so that the plainest clash is the one named.
+	outs := []output{{"Markdown report", mdPath, cells.RenderMarkdown(rep, true)}}
 	if html {
 		htmlPath := strings.TrimSuffix(mdPath, filepath.Ext(mdPath)) + ".html"
-		if samePath(htmlPath, path) {
-			fmt.Fprintf(stderr, "%s: the HTML report path %s is the notebook itself\n", cmd, htmlPath)
-			return 2
-		}
-		if err := cells.WriteFileAtomic(htmlPath, cells.RenderHTML(rep)); err != nil {
-			fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
-			return 2
-		}
-		written = append(written, htmlPath)
+		outs = append(outs, output{"HTML report", htmlPath, cells.RenderHTML(rep)})
 	}
-	cells.RenderCheck(stdout, rep)
+	for _, f := range cells.FigureFiles(rep) {
+		outs = append(outs, output{"figure file", f.Path, f.SVG})
+	}
+	hint := "choose another -o"
+	if ext := strings.ToLower(filepath.Ext(mdPath)); ext == ".html" || ext == ".htm" {
+		hint = "-o names the Markdown report: give it a path ending in .md"
+	}
+	if err := checkOutputs(outs, inputs, hint); err != nil {
+		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
+		return 2
+	}
+	// Figures first and the Markdown last: a report that is in place has
+	// its figures and its HTML twin in place too.
+	slices.Reverse(outs)
+	if err := writeOutputs(outs); err != nil {
+		fmt.Fprintf(stderr, "%s: %v\n", cmd, err)
+		return 2
+	}
+	var written []string
+	for i := len(outs) - 1; i >= 0; i-- {
+		if outs[i].role != "figure file" {
+			written = append(written, outs[i].path)
+		}
+	}
+	summarize(stdout, stderr, rep)
 	fmt.Fprintf(stdout, "report: %s\n", strings.Join(written, ", "))
 	return cells.ExitCode(rep, strict)
+}
+
+// output is a file a command writes (with its contents), or an input it
+// must not write over (without), and its role, which messages name.
+type output struct {
+	role, path string
+	data       []byte
+}
+
+// checkOutputs refuses a set of outputs when one would land on an input of
+// the run or on another output: the same path once cleaned and made
+// absolute, or the same file through a symbolic link, a hard link or
+// another spelling. hint says what the user can change.
+func checkOutputs(outs, inputs []output, hint string) error {
+	for i, o := range outs {
+		for _, in := range inputs {
+			if !samePath(o.path, in.path) {
+				continue
+			}
+			if in.role == "notebook" && o.role == "Markdown report" {
+				return fmt.Errorf("the report path %s is the notebook itself; use --in-place to write outputs into the notebook", o.path)
+			}
+			return fmt.Errorf("%s; nothing was written: %s", clash(o, in), hint)
+		}
+		for _, prev := range outs[:i] {
+			if samePath(o.path, prev.path) {
+				return fmt.Errorf("%s; nothing was written: %s", clash(o, prev), hint)
+			}
+		}
+	}
+	return nil
+}
+
+// clash says that o would overwrite other, naming both paths when they
+// are spelt differently.
+func clash(o, other output) string {
+	if filepath.Clean(o.path) == filepath.Clean(other.path) {
+		return fmt.Sprintf("the %s %s would overwrite the %s", o.role, o.path, other.role)
+	}
+	return fmt.Sprintf("the %s %s is the same file as the %s %s", o.role, o.path, other.role, other.path)
+}
+
+// writeOutputs writes the outputs as one set (cells.WriteFilesAtomic): all
+// of them, or, on a failure, none, the old files left as they were.
+func writeOutputs(outs []output) error {
+	files := make([]cells.File, len(outs))
+	for i, o := range outs {
+		files[i] = cells.File{Path: o.path, Data: o.data}
+	}
+	return cells.WriteFilesAtomic(files)
 }
 
 // parseShard reads a shard spec i/n, 1 <= i <= n.
@@ -368,8 +495,8 @@ func runShard(path, partPath string, opt kernel.Options, stdout, stderr io.Write
 	if partPath == "" {
 		partPath = fmt.Sprintf("%s.part-%d-of-%d.json", strings.TrimSuffix(path, filepath.Ext(path)), part.Shard, part.Shards)
 	}
-	if samePath(partPath, path) {
-		fmt.Fprintf(stderr, "assay run: the part path %s is the notebook itself\n", partPath)
+	if err := checkOutputs([]output{{role: "part file", path: partPath}}, []output{{role: "notebook", path: path}}, "choose another -o"); err != nil {
+		fmt.Fprintln(stderr, "assay run:", err)
 		return 2
 	}
 	if err := cells.WriteFileAtomic(partPath, part.Encode()); err != nil {
@@ -393,7 +520,7 @@ func runShard(path, partPath string, opt kernel.Options, stdout, stderr io.Write
 func mergeCommand(args []string, stdout, stderr io.Writer) int {
 	fs := flag.NewFlagSet("merge", flag.ContinueOnError)
 	fs.SetOutput(stderr)
-	report := addReportFlags(fs, "path of the Markdown report (default: NOTEBOOK.report.md beside the notebook the parts name)")
+	report := addReportFlags(fs, "path of the Markdown report (default: beside the part files, X.report.md for parts X.part-i-of-n.json)")
 	var strict bool
 	addStrictFlag(fs, &strict)
 	var lim limits
@@ -404,7 +531,8 @@ func mergeCommand(args []string, stdout, stderr io.Writer) int {
 Joins the part files of a sharded run (assay run --shard i/n, for i = 1..n)
 into the report a single run gives. The notebook, seed and precision come
 from the parts; merge replays the notebook, taking each sampled claim from
-the parts instead of sweeping it again.
+the parts instead of sweeping it again. The report goes beside the part
+files (X.report.md for X.part-i-of-n.json), or to -o.
 
 Example:
   assay merge -o bounds.report.md notebooks/mesh-quality-bounds.part-*-of-8.json
@@ -441,7 +569,43 @@ Flags:
 		fmt.Fprintln(stderr, "assay merge:", err)
 		return 2
 	}
-	return writeReport("assay merge", rep, report.out, report.writesHTML(), strict, stdout, stderr)
+	mdPath := report.out
+	if mdPath == "" {
+		if mdPath, err = mergeReportPath(names); err != nil {
+			fmt.Fprintln(stderr, "assay merge:", err)
+			return 2
+		}
+	}
+	// The notebook a part names is guarded too: a report never replaces it.
+	var inputs []output
+	if rep.Notebook.Path != "" {
+		inputs = append(inputs, output{role: "notebook", path: rep.Notebook.Path})
+	}
+	for _, name := range names {
+		inputs = append(inputs, output{role: "part file", path: name})
+	}
+	return writeReport("assay merge", rep, mdPath, report.writesHTML(), strict, inputs, stdout, stderr)
+}
+
+// partSuffix ends the name of a part file as assay run --shard makes it.
+var partSuffix = regexp.MustCompile(`\.part-[0-9]+-of-[0-9]+\.json$`)
+
+// mergeReportPath is where merge writes without -o: beside the part files,
+// named after them (x.part-1-of-8.json gives x.report.md). A path read from
+// inside a part, which anyone may have edited, never decides it.
+func mergeReportPath(parts []string) (string, error) {
+	dir := filepath.Dir(parts[0])
+	for _, p := range parts[1:] {
+		if d := filepath.Dir(p); !samePath(d, dir) {
+			return "", fmt.Errorf("the part files are in different folders (%s and %s); say where the report goes with -o", dir, d)
+		}
+	}
+	base := filepath.Base(parts[0])
+	stem := partSuffix.ReplaceAllString(base, "")
+	if stem == base {
+		stem = strings.TrimSuffix(base, filepath.Ext(base))
+	}
+	return filepath.Join(dir, stem+".report.md"), nil
 }
 
 // readNotebook reads a notebook file, with a message that names it.
@@ -498,14 +662,22 @@ Flags:
 		} else {
 			code = cells.ExitCode(rep, rf.strictOn)
 			if *asJSON {
+				cells.RenderWarnings(stderr, rep)
 				stdout.Write(cells.RenderJSON(rep, code))
 			} else {
-				cells.RenderCheck(stdout, rep)
+				summarize(stdout, stderr, rep)
 			}
 		}
 		worst = max(worst, code)
 	}
 	return worst
+}
+
+// summarize writes a run's warnings to stderr and its claims, errors and
+// counts to stdout.
+func summarize(stdout, stderr io.Writer, rep *cells.Report) {
+	cells.RenderWarnings(stderr, rep)
+	cells.RenderCheck(stdout, rep)
 }
 
 // load reads and parses a notebook and runs it. A parse error still gives
@@ -538,25 +710,36 @@ func load(path string, opt kernel.Options) (*cells.Report, error) {
 	return kernel.Run(nb, opt), nil
 }
 
-// writeFigures writes each figure of the report as an SVG file beside it.
-func writeFigures(rep *cells.Report) error {
-	for _, f := range cells.FigureFiles(rep) {
-		if err := cells.WriteFileAtomic(f.Path, f.SVG); err != nil {
-			return err
-		}
-	}
-	return nil
-}
-
+// samePath says whether a and b are one file: the same path once cleaned,
+// made absolute and its symbolic links followed (as far as they lead to
+// something that exists), or, for files that exist, the same file by
+// os.SameFile (hard links, case-insensitive file systems).
 func samePath(a, b string) bool {
+	if resolvedPath(a) == resolvedPath(b) {
+		return true
+	}
 	sa, err1 := os.Stat(a)
 	sb, err2 := os.Stat(b)
-	if err1 == nil && err2 == nil {
-		return os.SameFile(sa, sb)
+	return err1 == nil && err2 == nil && os.SameFile(sa, sb)
+}
+
+// resolvedPath is the absolute path a write to p lands on, with the
+// symbolic links of its folders and of the file itself followed.
+func resolvedPath(p string) string {
+	if t, err := cells.Target(p); err == nil {
+		p = t
 	}
-	aa, _ := filepath.Abs(a)
-	ab, _ := filepath.Abs(b)
-	return aa == ab
+	abs, err := filepath.Abs(p)
+	if err != nil {
+		return filepath.Clean(p)
+	}
+	if r, err := filepath.EvalSymlinks(abs); err == nil {
+		return r
+	}
+	if d, err := filepath.EvalSymlinks(filepath.Dir(abs)); err == nil {
+		return filepath.Join(d, filepath.Base(abs))
+	}
+	return abs
 }
 
 func kernelCommand(args []string, stderr io.Writer) int {
@@ -565,9 +748,15 @@ func kernelCommand(args []string, stderr io.Writer) int {
 	fs.Usage = func() {
 		fmt.Fprint(stderr, `Usage: assay kernel
 
-Serves the kernel protocol: one JSON request per line on stdin
-({"op":"start","settings":{...}} then {"op":"run","cell":{...}}), one JSON
-reply per line on stdout. 'assay run' drives it as a child process.
+Serves the kernel protocol: one JSON request per line
+({"op":"start","nonce":"...","settings":{...}} then
+{"op":"run","cell":{...}}), one JSON reply per line, each echoing the
+nonce and the cell's index. 'assay run' drives it as a child process and
+passes the protocol on file descriptors 3 (requests) and 4 (replies),
+with ASSAY_KERNEL_CHANNEL=3,4 in its environment; the kernel then ends
+when fd 3 does. Without that variable it serves on stdin and stdout.
+Either way, what the interpreter itself writes to standard output is
+dropped: it never reaches the replies.
 `)
 	}
 	if err := fs.Parse(args); err != nil {

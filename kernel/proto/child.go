@@ -7,26 +7,72 @@ import (
 	"strconv"
 )
 
-// The child-process contract: what a driver sets in a kernel's
-// environment, and the limits the kernel puts on itself.
+// The child-process contract: how a driver passes a kernel its protocol
+// channel, what it sets in the kernel's environment, and the limits the
+// kernel puts on itself.
 const (
+	// ChannelEnv names the protocol channel, "IN,OUT": the file
+	// descriptors the kernel reads requests from and writes replies to.
+	// Start passes "3,4" on Unix; where a child cannot be given extra
+	// files, it passes "stdio": the channel is the reader and writer
+	// ServeChild is given (standard input and output). Without ChannelEnv
+	// the kernel serves on those too (a driver such as an editor), but
+	// does not take their end for its driver's death.
+	ChannelEnv = "ASSAY_KERNEL_CHANNEL"
 	// MemoryEnv carries the memory cap in bytes; the kernel sets it as its
 	// soft Go memory limit, and the driver kills it above the cap.
 	MemoryEnv = "ASSAY_MAX_MEMORY"
+	// OutputEnv carries the output cap in bytes: the most JSON one cell's
+	// reply may take (see DefaultMaxOutput).
+	OutputEnv = "ASSAY_MAX_OUTPUT"
 	// ThreadsEnv is the Go runtime's own variable: a worker that shares the
 	// cores with others is told how many it may use.
 	ThreadsEnv = "GOMAXPROCS"
 	// MaxStack bounds the kernel's stack, so a runaway recursion ends the
 	// cell in a second rather than after growing a gigabyte of stack.
 	MaxStack = 64 << 20
+	// DefaultMaxOutput is the default output cap. A cell whose reply would
+	// be larger fails, keeping the start of what it printed; the driver
+	// reads no reply line longer than the cap plus ReplySlack, so what it
+	// buffers per cell is bounded.
+	DefaultMaxOutput = 16 << 20
+	// ReplySlack is what a reply may take beyond the output cap: the
+	// envelope and the message of a cell cut at the cap.
+	ReplySlack = 1 << 20
 )
 
 // ServeChild is the kernel process: it applies the limits of the contract
-// and serves the protocol on in and out.
+// and serves the protocol on the channel of ChannelEnv, or else on in and
+// out. Either way, what the interpreter writes to standard output on its
+// own (an expression statement compiled in "single" mode prints its repr
+// there, type(name, bases, dict) a debug line) goes to the null device
+// from here on: none of it may pass for a reply or reach a report, so it
+// is dropped. On the channel, the end of the request stream ends the
+// process at once, even in the middle of a cell: the driver has gone.
 func ServeChild(in io.Reader, out io.Writer) error {
 	if v, err := strconv.ParseInt(os.Getenv(MemoryEnv), 10, 64); err == nil && v > 0 {
 		debug.SetMemoryLimit(v) // soft: the parent enforces the hard cap
 	}
 	debug.SetMaxStack(MaxStack)
-	return Serve(in, out)
+	maxOutput := int64(DefaultMaxOutput)
+	if v, err := strconv.ParseInt(os.Getenv(OutputEnv), 10, 64); err == nil && v > 0 {
+		maxOutput = v
+	}
+	// The interpreter and fmt write through these variables when they
+	// write; sys.stdout is made from them when a session opens. in and out
+	// were taken before this.
+	if null, err := os.OpenFile(os.DevNull, os.O_RDWR, 0); err == nil {
+		os.Stdin, os.Stdout = null, null
+	}
+	requests, replies, ok, err := openChannel()
+	switch {
+	case err != nil:
+		return err
+	case requests != nil:
+		in, out = requests, replies
+	}
+	if ok {
+		in = readAhead(in, func() { os.Exit(0) })
+	}
+	return serve(in, out, maxOutput)
 }

@@ -1,10 +1,12 @@
 package proto
 
 import (
+	"bufio"
 	"bytes"
+	"crypto/rand"
+	"encoding/hex"
 	"encoding/json"
 	"fmt"
-	"io"
 	"os"
 	"os/exec"
 	"strconv"
@@ -23,16 +25,43 @@ type LimitError struct {
 
 func (e *LimitError) Error() string { return e.Message }
 
-// Process is a kernel child process driven over JSON lines. Its replies
-// go to the inbox its driver gave it.
+// Limits are the bounds a driver puts on a kernel process.
+type Limits struct {
+	// MaxMemory caps the child's resident memory (bytes); the child is
+	// killed when it crosses the cap.
+	MaxMemory int64
+	// MaxOutput caps one reply (bytes of JSON; DefaultMaxOutput when not
+	// positive): the child keeps a cell's reply within it, and the driver
+	// reads no line longer than MaxOutput+ReplySlack.
+	MaxOutput int64
+	// Procs, when positive, is the number of threads the child may run Go
+	// code on (GOMAXPROCS): workers that share the cores should not each
+	// think they own all of them.
+	Procs int
+}
+
+// Process is a kernel child process driven over JSON lines on a channel
+// of its own. Its replies go to the inbox its driver gave it.
 type Process struct {
-	cmd     *exec.Cmd
-	stdin   io.WriteCloser
-	exited  chan struct{} // closed when the process has ended
-	gone    chan struct{} // closed when the driver stops listening
-	stderr  *head
-	maxMem  int64
-	overMem atomic.Bool
+	cmd      *exec.Cmd
+	requests *os.File      // the write end of the request channel
+	exited   chan struct{} // closed when the process has ended
+	gone     chan struct{} // closed when the driver stops listening
+	stderr   *head
+	limits   Limits
+	overMem  atomic.Bool
+	nonce    string // the run's secret, echoed in every reply
+
+	mu        sync.Mutex
+	want      outstanding // the request a reply must answer
+	violation string      // why the process was killed for a bad reply
+}
+
+// outstanding is the request whose reply is due: op "start" or "run"
+// (with the cell's index), or "" when none is.
+type outstanding struct {
+	op   string
+	cell int
 }
 
 // Message is one reply from a process, or the news that it died.
@@ -44,28 +73,42 @@ type Message struct {
 
 // Start starts command (e.g. ["/path/assay", "kernel"]) and asks it
 // to open a session with the given settings; that reply, like every later
-// one, arrives in inbox. maxMemory (bytes) caps the child's resident
-// memory; the child is killed when it crosses the cap.
-// procs, when positive, is the number of threads the child may run Go
-// code on (GOMAXPROCS): workers that share the cores should not each
-// think they own all of them.
-func Start(command []string, s session.Settings, maxMemory int64, procs int, inbox chan<- Message) (*Process, error) {
+// one, arrives in inbox. The protocol runs on a channel of its own (see
+// ChannelEnv), never on the child's standard output, which notebook code
+// can reach through the interpreter; the child's standard error is kept
+// (its start) to explain a death. The child is killed when this process
+// dies (Linux), and ends when its request channel does.
+func Start(command []string, s session.Settings, lim Limits, inbox chan<- Message) (*Process, error) {
+	if lim.MaxOutput <= 0 {
+		lim.MaxOutput = DefaultMaxOutput
+	}
 	cmd := exec.Command(command[0], command[1:]...)
-	cmd.Env = append(os.Environ(), MemoryEnv+"="+strconv.FormatInt(maxMemory, 10))
-	if _, set := os.LookupEnv(ThreadsEnv); procs > 0 && !set {
-		cmd.Env = append(cmd.Env, ThreadsEnv+"="+strconv.Itoa(procs))
+	cmd.Env = append(os.Environ(), MemoryEnv+"="+strconv.FormatInt(lim.MaxMemory, 10), OutputEnv+"="+strconv.FormatInt(lim.MaxOutput, 10))
+	if _, set := os.LookupEnv(ThreadsEnv); lim.Procs > 0 && !set {
+		cmd.Env = append(cmd.Env, ThreadsEnv+"="+strconv.Itoa(lim.Procs))
 	}
-	stdin, err := cmd.StdinPipe()
+	reqR, reqW, err := os.Pipe()
 	if err != nil {
 		return nil, err
 	}
-	stdout, err := cmd.StdoutPipe()
+	repR, repW, err := os.Pipe()
 	if err != nil {
+		reqR.Close()
+		reqW.Close()
 		return nil, err
 	}
-	p := &Process{cmd: cmd, stdin: stdin, exited: make(chan struct{}), gone: make(chan struct{}), stderr: &head{max: 16 << 10}, maxMem: maxMemory}
+	attach(cmd, reqR, repW)
+	var secret [16]byte
+	rand.Read(secret[:])
+	p := &Process{cmd: cmd, requests: reqW, exited: make(chan struct{}), gone: make(chan struct{}), stderr: &head{max: 16 << 10},
+		limits: lim, nonce: hex.EncodeToString(secret[:])}
 	cmd.Stderr = p.stderr
-	if err := cmd.Start(); err != nil {
+	err = spawn(cmd)
+	reqR.Close() // the child's ends: this process keeps only its own
+	repW.Close()
+	if err != nil {
+		reqW.Close()
+		repR.Close()
 		return nil, fmt.Errorf("cannot start the kernel process: %w", err)
 	}
 	deliver := func(m Message) {
@@ -75,22 +118,36 @@ func Start(command []string, s session.Settings, maxMemory int64, procs int, inb
 		}
 	}
 	go func() {
-		dec := json.NewDecoder(stdout)
+		r := bufio.NewReaderSize(repR, 64<<10)
 		for {
-			var r Reply
-			if err := dec.Decode(&r); err != nil {
+			line, err := readLine(r, int(lim.MaxOutput+ReplySlack))
+			if err == errLongLine {
+				p.refuse(fmt.Sprintf("a reply longer than the output cap of %s allows; raise it with --max-output", FormatBytes(lim.MaxOutput)))
 				break
 			}
-			deliver(Message{From: p, Reply: r})
+			if err != nil {
+				break
+			}
+			var reply Reply
+			if err := json.Unmarshal(line, &reply); err != nil {
+				p.refuse(fmt.Sprintf("%.60q, which is not a reply", line))
+				break
+			}
+			if why := p.check(reply); why != "" {
+				p.refuse(why)
+				break
+			}
+			deliver(Message{From: p, Reply: reply})
 		}
+		repR.Close()
 		cmd.Wait()
 		close(p.exited)
 		deliver(Message{From: p, Dead: true})
 	}()
-	if maxMemory > 0 {
+	if lim.MaxMemory > 0 {
 		go p.watchMemory()
 	}
-	if err := p.Send(Request{Op: "start", Settings: &s}); err != nil {
+	if err := p.Send(Request{Op: "start", Settings: &s, Nonce: p.nonce}); err != nil {
 		p.Close()
 		return nil, err
 	}
@@ -103,19 +160,72 @@ func (p *Process) Send(req Request) error {
 	if err != nil {
 		return err
 	}
-	if _, err := p.stdin.Write(append(line, '\n')); err != nil {
+	if req.Op == "start" || req.Op == "run" {
+		p.mu.Lock()
+		p.want = outstanding{op: req.Op}
+		if req.Cell != nil {
+			p.want.cell = req.Cell.Index
+		}
+		p.mu.Unlock()
+	}
+	if _, err := p.requests.Write(append(line, '\n')); err != nil {
 		return p.Death()
 	}
 	return nil
 }
 
-// Death waits for the process to end and explains why it did: the memory
-// cap, a stack overflow, or the first line the Go runtime printed.
+// check says why a reply does not answer the request outstanding, or "".
+// Exchanges and progress belong to the cell being run; any other reply
+// ends the request.
+func (p *Process) check(r Reply) string {
+	p.mu.Lock()
+	defer p.mu.Unlock()
+	want := p.want
+	during := r.Exchange != nil || r.Progress != nil
+	switch {
+	case r.Nonce != p.nonce:
+		return "a reply without this run's nonce"
+	case want.op == "":
+		return "a reply when no request was outstanding"
+	case r.Cell != want.cell:
+		return fmt.Sprintf("a reply about cell %d while cell %d was running", r.Cell, want.cell)
+	case r.Exchange != nil && r.Progress != nil, during && r.Outcome != nil:
+		return "a reply of two kinds at once"
+	case during && want.op != "run":
+		return "an exchange while no cell was running"
+	case r.Outcome != nil && (want.op != "run" || r.Outcome.Cell != want.cell):
+		return fmt.Sprintf("the outcome of cell %d in answer to %q", r.Outcome.Cell, want.op)
+	case want.op == "run" && !during && r.Outcome == nil && r.Error == "":
+		return "a reply to a cell without its outcome"
+	}
+	if !during {
+		p.want = outstanding{}
+	}
+	return ""
+}
+
+// refuse kills the process for a reply that does not answer the request.
+func (p *Process) refuse(what string) {
+	p.mu.Lock()
+	p.violation = "the kernel sent a reply that does not answer the request: " + what
+	p.mu.Unlock()
+	p.cmd.Process.Kill()
+}
+
+// Death waits for the process to end and explains why it did: a reply
+// that did not answer the request, the memory cap, a stack overflow, or
+// the first line the Go runtime printed.
 func (p *Process) Death() error {
 	<-p.exited
+	p.mu.Lock()
+	violation := p.violation
+	p.mu.Unlock()
+	if violation != "" {
+		return &LimitError{Message: violation}
+	}
 	text := p.stderr.String()
 	if p.overMem.Load() || strings.Contains(text, "out of memory") || strings.Contains(text, "cannot allocate memory") {
-		return &LimitError{Message: fmt.Sprintf("stopped: the cell needed more than the memory cap of %s; raise it with --max-memory", FormatBytes(p.maxMem))}
+		return &LimitError{Message: fmt.Sprintf("stopped: the cell needed more than the memory cap of %s; raise it with --max-memory", FormatBytes(p.limits.MaxMemory))}
 	}
 	if strings.Contains(text, "stack exceeds") || strings.Contains(text, "goroutine stack exceeds") {
 		return &LimitError{Message: "stopped: recursion too deep (the interpreter's stack overflowed)"}
@@ -127,12 +237,16 @@ func (p *Process) Death() error {
 	return &LimitError{Message: "the kernel process died: " + first}
 }
 
+// SlowStart is the error of a kernel that did not open its session
+// within limit, the per-cell time limit.
+func SlowStart(limit time.Duration) *LimitError {
+	return &LimitError{Message: fmt.Sprintf("the kernel process did not start within %s; the per-cell time limit bounds a kernel's start too: raise it with the flag --timeout", limit)}
+}
+
 // Kill ends the process at once.
 func (p *Process) Kill() {
 	p.Unheard()
-	if p.cmd.Process != nil {
-		p.cmd.Process.Kill()
-	}
+	p.cmd.Process.Kill()
 	<-p.exited
 }
 
@@ -157,7 +271,7 @@ func (p *Process) watchMemory() {
 				return
 			}
 			pages, _ := strconv.ParseInt(fields[1], 10, 64)
-			if pages*page > p.maxMem {
+			if pages*page > p.limits.MaxMemory {
 				p.overMem.Store(true)
 				p.cmd.Process.Kill()
 				return
@@ -179,7 +293,7 @@ func (p *Process) Unheard() {
 // Close ends the process.
 func (p *Process) Close() error {
 	p.Unheard()
-	p.stdin.Close()
+	p.requests.Close()
 	select {
 	case <-p.exited:
 	case <-time.After(2 * time.Second):

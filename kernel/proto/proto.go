@@ -16,13 +16,21 @@ type Request struct {
 	// cell is waiting for it.
 	Op       string            `json:"op"`
 	Settings *session.Settings `json:"settings,omitempty"` // with start
-	Cell     *session.Cell     `json:"cell,omitempty"`     // with run
-	Answer   *claim.Answer     `json:"answer,omitempty"`   // with answer
+	// Nonce, with start, is the run's secret: the kernel echoes it in
+	// every reply, and the driver refuses a reply without it.
+	Nonce  string        `json:"nonce,omitempty"`
+	Cell   *session.Cell `json:"cell,omitempty"`   // with run
+	Answer *claim.Answer `json:"answer,omitempty"` // with answer
 }
 
 // Reply is one line from a kernel process to the driver.
 type Reply struct {
-	Version  string           `json:"version"`
+	Version string `json:"version"`
+	// Nonce echoes the start request's; Cell is the index of the cell the
+	// reply is about (0 for start): the driver checks both against the
+	// request it has outstanding.
+	Nonce    string           `json:"nonce,omitempty"`
+	Cell     int              `json:"cell,omitempty"`
 	Settings session.Settings `json:"settings"`          // settings in force after the request
 	Outcome  *cells.Outcome   `json:"outcome,omitempty"` // with run
 	Error    string           `json:"error,omitempty"`   // a request the kernel could not take
@@ -33,5 +41,5 @@ type Reply struct {
 	Progress *claim.Progress `json:"progress,omitempty"`
 }
 
-// maxLine bounds one protocol line (a cell's source or outcome).
+// maxLine bounds one request line (a cell's source).
 const maxLine = 256 << 20

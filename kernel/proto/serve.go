@@ -5,18 +5,46 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"unicode/utf8"
 
+	"assay/cells"
 	"assay/kernel/claim"
 	"assay/kernel/session"
 )
 
 // Serve runs a kernel over JSON lines: requests from in, replies to out,
-// one reply per request, until in ends.
+// one reply per request, until in ends. A cell's reply is kept within
+// DefaultMaxOutput.
 func Serve(in io.Reader, out io.Writer) error {
+	return serve(in, out, DefaultMaxOutput)
+}
+
+// serve is Serve with the output cap of the process.
+func serve(in io.Reader, out io.Writer, maxOutput int64) error {
 	sc := bufio.NewScanner(in)
 	sc.Buffer(make([]byte, 64<<10), maxLine)
-	enc := json.NewEncoder(out)
-	var sess *session.Session
+	var (
+		sess  *session.Session
+		nonce string
+		cell  int // the cell being run, 0 between cells
+		at    int // its line in the notebook
+	)
+	// Every reply carries the nonce and the cell it is about, so the
+	// driver can tell it answers the request outstanding.
+	send := func(r Reply) error {
+		r.Version, r.Nonce, r.Cell = Version, nonce, cell
+		line, err := json.Marshal(r)
+		if err == nil && r.Outcome != nil && int64(len(line)) > maxOutput {
+			// Over the cap: cut the outcome down, and marshal it again.
+			capOutput(r.Outcome, cell, at, maxOutput)
+			line, err = json.Marshal(r)
+		}
+		if err != nil {
+			return err
+		}
+		_, err = out.Write(append(line, '\n'))
+		return err
+	}
 	defer func() {
 		if sess != nil {
 			sess.Close()
@@ -24,10 +52,13 @@ func Serve(in io.Reader, out io.Writer) error {
 	}()
 	for sc.Scan() {
 		var req Request
-		reply := Reply{Version: Version}
+		var reply Reply
 		if err := json.Unmarshal(sc.Bytes(), &req); err != nil {
 			reply.Error = fmt.Sprintf("bad request: %v", err)
 		} else {
+			if req.Cell != nil {
+				cell, at = req.Cell.Index, req.Cell.Line
+			}
 			switch req.Op {
 			case "start":
 				s := session.DefaultSettings
@@ -37,11 +68,12 @@ func Serve(in io.Reader, out io.Writer) error {
 				if sess != nil {
 					sess.Close()
 				}
+				nonce = req.Nonce
 				var err error
 				if sess, err = session.New(s); err != nil {
 					reply.Error = err.Error()
 				} else if s.Driven {
-					sess.SetCoordinator(wire{sc: sc, send: func(r Reply) error { return enc.Encode(r) }})
+					sess.SetCoordinator(wire{sc: sc, send: send})
 				}
 			case "run":
 				switch {
@@ -60,11 +92,41 @@ func Serve(in io.Reader, out io.Writer) error {
 		if sess != nil {
 			reply.Settings = sess.Settings()
 		}
-		if err := enc.Encode(reply); err != nil {
+		if err := send(reply); err != nil {
 			return err
 		}
+		cell = 0
 	}
 	return sc.Err()
+}
+
+// keptOutput is how much printed text a cell over the output cap keeps.
+const keptOutput = 64 << 10
+
+// capOutput cuts down the outcome of a cell whose reply came to more
+// than max bytes of JSON, so that the driver never reads a reply larger
+// than the cap (plus ReplySlack): the cell fails, keeping the start of
+// its printed text and its claims, or only the error if the claims alone
+// are too large.
+func capOutput(o *cells.Outcome, cell, line int, max int64) {
+	msg := fmt.Sprintf("the cell's output (printed text, tables, figures and claims) came to more than %s, the output cap; the first %s of printed text are kept; raise the cap with --max-output",
+		FormatBytes(max), FormatBytes(keptOutput))
+	if len(o.Output) > keptOutput {
+		cut := keptOutput
+		for cut > 0 && !utf8.RuneStart(o.Output[cut]) {
+			cut--
+		}
+		o.Output = o.Output[:cut] + "\n…\n"
+	}
+	o.Tables, o.Figures, o.Status = nil, nil, cells.Failed
+	if o.Error == nil {
+		o.Error = &cells.Problem{Cell: cell, Line: line, Message: msg}
+	} else {
+		o.Error.Message += "; and " + msg
+	}
+	if line, err := json.Marshal(o); err != nil || int64(len(line)) > max {
+		o.Output, o.Claims = "", nil
+	}
 }
 
 // wire is the coordinator of a kernel process: exchanges travel as reply
@@ -75,7 +137,7 @@ type wire struct {
 }
 
 func (w wire) Exchange(e claim.Exchange) (claim.Answer, error) {
-	if err := w.send(Reply{Version: Version, Exchange: &e}); err != nil {
+	if err := w.send(Reply{Exchange: &e}); err != nil {
 		return claim.Answer{}, err
 	}
 	if !w.sc.Scan() {
@@ -88,4 +150,4 @@ func (w wire) Exchange(e claim.Exchange) (claim.Answer, error) {
 	return *req.Answer, nil
 }
 
-func (w wire) Progress(p claim.Progress) { w.send(Reply{Version: Version, Progress: &p}) }
+func (w wire) Progress(p claim.Progress) { w.send(Reply{Progress: &p}) }

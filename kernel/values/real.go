@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 
 	"github.com/go-python/gpython/py"
 
@@ -175,9 +176,11 @@ func (r *Real) M__str__() (res py.Object, err error) {
 	if err == nil {
 		return py.String(text), nil
 	}
-	iv, err := r.x.Approx(4096, min(r.env.Cap, 8192))
+	// The tightest enclosure the cap allows, whatever its width.
+	iv, err := r.x.Enclose(min(r.env.Cap, 8192))
 	if err != nil {
-		return py.String(r.x.String()), nil
+		why := strings.TrimSuffix(err.Error(), ": "+exact.ErrUndecided.Error())
+		return py.String(fmt.Sprintf("<real with no enclosure for printing: %s>", why)), nil
 	}
 	mid := new(big.Rat).Add(iv.Lo, iv.Hi)
 	mid.Quo(mid, big.NewRat(2, 1))
