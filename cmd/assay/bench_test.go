@@ -23,9 +23,14 @@ func buildAssay(b *testing.B) (dir, bin string) {
 // runs it: the built binary, which starts its kernel child process.
 // Target (DESIGN.md): < 100 ms.
 func BenchmarkCheckOneCell(b *testing.B) {
+	checkEach(b, "# one cell\n\n```cell\nidentity(\"det of a 3x3\", det(matrix([[2, 0, 1], [1, 3, 2], [1, 1, 1]])), 0)\n```\n")
+}
+
+// checkEach builds assay, writes the notebook src and runs `assay check`
+// on it b.N times.
+func checkEach(b *testing.B, src string) {
 	dir, bin := buildAssay(b)
-	nb := filepath.Join(dir, "one.md")
-	src := "# one cell\n\n```cell\nidentity(\"det of a 3x3\", det(matrix([[2, 0, 1], [1, 3, 2], [1, 1, 1]])), 0)\n```\n"
+	nb := filepath.Join(dir, "bench.md")
 	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
 		b.Fatal(err)
 	}
@@ -41,22 +46,12 @@ func BenchmarkCheckOneCell(b *testing.B) {
 // check` on a notebook of 200 one-line cells, reported per cell (the one
 // kernel start is shared among them).
 func BenchmarkCellRoundTrip(b *testing.B) {
-	dir, bin := buildAssay(b)
-	nb := filepath.Join(dir, "many.md")
 	src := "# many cells\n"
 	const cells = 200
 	for i := 0; i < cells; i++ {
 		src += fmt.Sprintf("\n```cell\nx%d = %d * frac(1, 3)\n```\n", i, i)
 	}
-	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
-		b.Fatal(err)
-	}
-	b.ResetTimer()
-	for i := 0; i < b.N; i++ {
-		if out, err := exec.Command(bin, "check", nb).CombinedOutput(); err != nil {
-			b.Fatalf("check: %v\n%s", err, out)
-		}
-	}
+	checkEach(b, src)
 	b.ReportMetric(float64(b.Elapsed().Microseconds())/float64(b.N*cells), "µs/cell")
 }
 
