@@ -91,26 +91,48 @@ type CellOptions struct {
 // Verdict is the outcome of a claim.
 type Verdict string
 
-// The four verdicts; their string values are part of the JSON format.
+// The verdicts; their string values are part of the JSON format.
 const (
 	Holds         Verdict = "holds"           // exact zero residual
 	HoldsToDigits Verdict = "holds-to-digits" // certified |residual| < 10^-Digits
-	Fails         Verdict = "fails"           // residual certified non-zero
-	Undecided     Verdict = "undecided"       // precision cap reached first
+	// Estimated is an extrapolated value whose successive estimates agree
+	// to Digits digits: an estimate, not a certified bound.
+	Estimated Verdict = "estimated"
+	Fails     Verdict = "fails"     // residual certified non-zero
+	Undecided Verdict = "undecided" // not settled; Claim.Why says why
+)
+
+// Reason says why a claim is undecided; its string values are part of the
+// JSON format.
+type Reason string
+
+// The reasons a claim is undecided.
+const (
+	PrecisionCap  Reason = "precision-cap"  // the enclosure still straddled zero at the precision cap
+	NoConvergence Reason = "no-convergence" // a limit's estimates did not settle
+	WalksDisagree Reason = "walks-disagree" // a limit's walks at different ratios gave different estimates
+	SampleRaised  Reason = "sample-raised"  // evaluating the claim on a sample raised
+	NoSampleMet   Reason = "no-sample-met"  // no sample met the hypothesis (given=)
+	OtherReason   Reason = "other"          // anything else: Note says what
 )
 
 // Claim is the record of one checked claim, as the kernel reports it.
 type Claim struct {
-	Name      string  `json:"name"`
-	Kind      string  `json:"kind"`   // identity, factorization, inequality, limit
-	Method    string  `json:"method"` // how it was decided, e.g. "exact rational arithmetic"
-	Verdict   Verdict `json:"verdict"`
-	Digits    int     `json:"digits,omitempty"`    // for holds-to-digits
-	Residual  string  `json:"residual"`            // printed residual (exact where exact)
-	Note      string  `json:"note,omitempty"`      // what the verdict means, in words
-	Samples   int     `json:"samples,omitempty"`   // number of configurations checked
-	Seed      int64   `json:"seed"`                // seed in force
-	Worst     string  `json:"worst,omitempty"`     // the sample with the largest residual
+	Name     string  `json:"name"`
+	Kind     string  `json:"kind"`   // identity, factorization, inequality, limit
+	Method   string  `json:"method"` // how it was decided, e.g. "exact rational arithmetic"
+	Verdict  Verdict `json:"verdict"`
+	Digits   int     `json:"digits,omitempty"`  // for holds-to-digits
+	Residual string  `json:"residual"`          // printed residual (exact where exact)
+	Note     string  `json:"note,omitempty"`    // what the verdict means, in words
+	Samples  int     `json:"samples,omitempty"` // number of configurations checked
+	Seed     int64   `json:"seed"`              // seed in force
+	Worst    string  `json:"worst,omitempty"`   // the sample with the largest residual
+	// Sample is the worst sample or the counterexample as cell code that
+	// rebuilds it when pasted into a cell.
+	Sample string `json:"sample,omitempty"`
+	// Why says why the verdict is Undecided.
+	Why       Reason  `json:"why,omitempty"`
 	Precision int     `json:"precision,omitempty"` // bits, where certified reals were used
 	Cell      int     `json:"cell"`
 	Line      int     `json:"line"` // notebook line of the call
