@@ -28,6 +28,9 @@ var (
 	ErrExponentRange = errors.New("exponent out of range")
 	// ErrRingMismatch reports polynomials from different rings combined.
 	ErrRingMismatch = errors.New("polynomials from different rings")
+	// ErrUnknownVariable reports a name that is not a variable of the
+	// ring where only known variables are accepted (Ring.ParseKnown).
+	ErrUnknownVariable = errors.New("unknown variable")
 	// ErrDegree reports a polynomial whose degree does not suit the
 	// operation (the discriminant of a polynomial of degree 0).
 	ErrDegree = errors.New("unsuitable degree")

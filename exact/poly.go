@@ -335,7 +335,8 @@ func (p *Poly) find(m []uint64) int {
 // Coefficient returns the coefficient of the monomial with the given
 // exponents (one per variable in ring order; missing trailing entries are
 // 0). Monomials that do not occur, including ones with negative exponents,
-// give 0.
+// give 0. CoefficientIn gives the coefficient of a monomial in some of the
+// variables, a polynomial in the others.
 func (p *Poly) Coefficient(exps []int) *big.Rat {
 	m, ok := packExps(exps, p.w)
 	if !ok {

@@ -146,7 +146,7 @@ func TestNewtonIdentities(t *testing.T) {
 			gen = mustMulP(t, gen, r.one().Add(mustMulP(t, x, tv)))
 		}
 		ti, _ := r.Index("T")
-		parts := gen.splitBy(ti)
+		parts := gen.Collect(ti)
 		e := func(k int) *Poly {
 			if k < len(parts) && parts[k] != nil {
 				return parts[k]

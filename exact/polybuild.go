@@ -52,6 +52,15 @@ func (b *polyBuilder) pushBig(m []uint64, c *big.Int) {
 	b.pushBigOwned(m, new(big.Int).Set(c))
 }
 
+// pushTerm appends term i of p with the monomial m in its place.
+func (b *polyBuilder) pushTerm(m []uint64, p *Poly, i int) {
+	if p.small(i) {
+		b.pushSmall(m, p.num[i])
+	} else {
+		b.pushBig(m, p.bnum[i])
+	}
+}
+
 // pushBigOwned appends a term whose coefficient c does not fit an int64
 // and is not used elsewhere.
 func (b *polyBuilder) pushBigOwned(m []uint64, c *big.Int) {

@@ -152,7 +152,7 @@ func (st *substState) subst(p *Poly, vars []int) (*Poly, error) {
 		return p, nil
 	}
 	v := vars[0]
-	parts := p.splitBy(v)
+	parts := p.Collect(v)
 	var sums []*Poly
 	for e, part := range parts {
 		if part == nil {
@@ -210,10 +210,12 @@ func (st *substState) power(v, e int) (*Poly, error) {
 	return pw, nil
 }
 
-// splitBy returns the coefficients of p as a polynomial in variable v:
-// out[e] is the coefficient of v^e (nil when it is zero). Dividing the
-// terms with the same exponent of v by v^e keeps their order.
-func (p *Poly) splitBy(v int) []*Poly {
+// Collect returns the coefficients of p as a polynomial in variable v:
+// out[e] is the coefficient of v^e, a polynomial free of v, or nil when it
+// is zero; len(out) is the degree of p in v plus one (nil for the zero
+// polynomial). One pass over the terms: dividing the terms with the same
+// exponent of v by v^e keeps their order. It panics if v < 0.
+func (p *Poly) Collect(v int) []*Poly {
 	d := p.DegreeIn(v)
 	if d < 0 {
 		return nil
@@ -230,11 +232,7 @@ func (p *Poly) splitBy(v int) []*Poly {
 		if bs[e] == nil {
 			bs[e] = newBuilder(p.w)
 		}
-		if p.small(i) {
-			bs[e].pushSmall(m, p.num[i])
-		} else {
-			bs[e].pushBig(m, p.bnum[i])
-		}
+		bs[e].pushTerm(m, p, i)
 	}
 	out := make([]*Poly, d+1)
 	for e, b := range bs {
@@ -245,24 +243,75 @@ func (p *Poly) splitBy(v int) []*Poly {
 	return out
 }
 
+// CoefficientIn returns the coefficient of the monomial that has the
+// exponent exps[v] in each variable v named in exps, as a polynomial in the
+// variables not named: the terms of p with exactly those exponents, the
+// named variables divided out. Variables not named are collected, not
+// required to be absent: the coefficient of a^2 in 3*a^2*b + a^2 + a is
+// 3*b + 1. Naming every variable of p gives a constant, as Coefficient
+// does. A negative exponent, or one above MaxExponent, gives 0. It panics
+// if a variable index is negative.
+func (p *Poly) CoefficientIn(exps map[int]int) *Poly {
+	sel := newMonoSelect(p.w)
+	for v, e := range exps {
+		if !sel.require(v, e) {
+			return p.ring.zero()
+		}
+	}
+	return p.selectTerms(sel)
+}
+
 // coeffIn returns the coefficient of v^e in p, as a polynomial free of v.
-func (p *Poly) coeffIn(v, e int) *Poly {
+func (p *Poly) coeffIn(v, e int) *Poly { return p.CoefficientIn(map[int]int{v: e}) }
+
+// monoSelect picks the monomials with given exponents in some variables:
+// m matches when m[k]&mask[k] == want[k] for every exponent word k.
+type monoSelect struct{ mask, want []uint64 }
+
+func newMonoSelect(w int) monoSelect {
+	return monoSelect{mask: make([]uint64, w), want: make([]uint64, w)}
+}
+
+// require adds the condition "the exponent of v is e"; it returns false
+// when no monomial of this width can meet it.
+func (s monoSelect) require(v, e int) bool {
+	checkVar(v)
+	switch {
+	case e < 0 || e > MaxExponent:
+		return false
+	case 1+v/perWord >= len(s.mask):
+		return e == 0 // v is past the width: its exponent reads as 0
+	}
+	monoSetExp(s.mask, v, expMask)
+	monoSetExp(s.want, v, e)
+	s.want[0] += uint64(e)
+	return true
+}
+
+func (s monoSelect) matches(m []uint64) bool {
+	for k := 1; k < len(m); k++ {
+		if m[k]&s.mask[k] != s.want[k] {
+			return false
+		}
+	}
+	return true
+}
+
+// selectTerms returns the terms of p that match sel, with the selected
+// exponents subtracted. The matching terms share those exponents, so
+// subtracting them keeps the terms' order.
+func (p *Poly) selectTerms(sel monoSelect) *Poly {
 	b := newBuilder(p.w)
 	m := make([]uint64, p.w)
 	for i := 0; i < p.n(); i++ {
-		if monoExp(p.monoAt(i), v) != e {
+		mi := p.monoAt(i)
+		if !sel.matches(mi) {
 			continue
 		}
-		copy(m, p.monoAt(i))
-		if e > 0 {
-			monoSetExp(m, v, 0)
-			m[0] -= uint64(e)
+		for k := range m {
+			m[k] = mi[k] - sel.want[k]
 		}
-		if p.small(i) {
-			b.pushSmall(m, p.num[i])
-		} else {
-			b.pushBig(m, p.bnum[i])
-		}
+		b.pushTerm(m, p, i)
 	}
 	return b.poly(p.ring, p.den)
 }

@@ -250,7 +250,7 @@ func (p *Poly) maxNorm() *big.Int {
 // evalInt returns the integer polynomial p with the integer x put for
 // variable v (Horner's rule on the coefficients in v).
 func (p *Poly) evalInt(v int, x *big.Int) *Poly {
-	parts := p.splitBy(v)
+	parts := p.Collect(v)
 	acc := p.ring.zero()
 	for e := len(parts) - 1; e >= 0; e-- {
 		if !acc.IsZero() {
@@ -305,7 +305,7 @@ func (h *Poly) interpolate(v int, xi *big.Int) (*Poly, bool) {
 // gcdContent returns gcd(cont_v(a), b) for b free of v.
 func gcdContent(a *Poly, v int, b *Poly) (*Poly, error) {
 	g := b
-	for _, c := range a.splitBy(v) {
+	for _, c := range a.Collect(v) {
 		if c == nil {
 			continue
 		}
@@ -324,7 +324,7 @@ func gcdContent(a *Poly, v int, b *Poly) (*Poly, error) {
 // polynomial in v: the gcd in Z[other variables] of its coefficients,
 // with the sign that makes a/content have a positive leading coefficient.
 func contentIn(a *Poly, v int) (*Poly, error) {
-	parts := a.splitBy(v)
+	parts := a.Collect(v)
 	var g *Poly
 	for e := len(parts) - 1; e >= 0; e-- {
 		c := parts[e]

@@ -171,7 +171,7 @@ func sylvesterDet(t *testing.T, p, q *Poly, v int) *Poly {
 	if N == 0 {
 		return r.one()
 	}
-	pc, qc := p.splitBy(v), q.splitBy(v)
+	pc, qc := p.Collect(v), q.Collect(v)
 	coef := func(cs []*Poly, k int) *Poly {
 		if k < 0 || k >= len(cs) || cs[k] == nil {
 			return r.zero()

@@ -9,13 +9,14 @@ import (
 )
 
 // ParseError reports where Ring.Parse failed. It wraps ErrSyntax for
-// malformed text, or the error of the operation that failed while the
-// text was evaluated (ErrDivisionByZero, ErrExponentRange,
-// ErrTooManyTerms).
+// malformed text, ErrUnknownVariable for a name Ring.ParseKnown does not
+// accept, or the error of the operation that failed while the text was
+// evaluated (ErrDivisionByZero, ErrExponentRange, ErrTooManyTerms).
 type ParseError struct {
-	Col int    // 1-based column, counted in runes
-	Msg string // what went wrong
-	Err error  // the wrapped sentinel; nil means ErrSyntax
+	Col  int    // 1-based column, counted in runes
+	Msg  string // what went wrong
+	Name string // the name ParseKnown refused, for ErrUnknownVariable
+	Err  error  // the wrapped sentinel; nil means ErrSyntax
 }
 
 // Error returns "column N: message".
@@ -47,7 +48,17 @@ const maxParseDepth = 1000
 // parentheses. Errors are *ParseError values with a 1-based column,
 // wrapping ErrSyntax, or ErrDivisionByZero, ErrExponentRange or
 // ErrTooManyTerms when evaluating the text fails.
-func (r *Ring) Parse(s string) (*Poly, error) {
+func (r *Ring) Parse(s string) (*Poly, error) { return r.parse(s, true) }
+
+// ParseKnown reads a polynomial as Parse does, but only in the variables
+// the ring already has: the first other name is a *ParseError at its
+// column wrapping ErrUnknownVariable. It never adds a variable, so a
+// misspelt name cannot quietly become one. Malformed text is reported
+// first, as by Parse.
+func (r *Ring) ParseKnown(s string) (*Poly, error) { return r.parse(s, false) }
+
+// parse reads s; grow says whether names new to the ring become variables.
+func (r *Ring) parse(s string, grow bool) (*Poly, error) {
 	toks, err := tokenize(s)
 	if err != nil {
 		return nil, err
@@ -82,6 +93,9 @@ func (r *Ring) Parse(s string) (*Poly, error) {
 			}
 			if i, ok := r.index[t.text]; ok {
 				idx[t.text] = i
+			} else if !grow {
+				r.mu.RUnlock()
+				return nil, &ParseError{Col: t.col, Msg: fmt.Sprintf("unknown variable %q", t.text), Name: t.text, Err: ErrUnknownVariable}
 			} else {
 				idx[t.text] = len(names)
 				names = append(names, t.text)

@@ -1,6 +1,8 @@
 package values
 
 import (
+	"errors"
+	"fmt"
 	"math/big"
 	"strings"
 
@@ -54,7 +56,7 @@ func (e *Env) variableIndex(fn string, o py.Object) (int, error) {
 		if i, ok := e.Ring.Index(string(x)); ok {
 			return i, nil
 		}
-		return 0, py.ExceptionNewf(py.ValueError, "%s(): there is no variable %q (make it with variables(\"%s\"))", fn, string(x), string(x))
+		return 0, py.ExceptionNewf(py.ValueError, "%s(): there is no variable %q (%s; make it with variables(\"%s\"))", fn, string(x), e.knownVariables(), string(x))
 	case *Polynomial:
 		if vs := x.p.Vars(); len(vs) == 1 && x.p.Len() == 1 && x.p.Degree() == 1 && x.p.LeadingCoefficient().Cmp(big.NewRat(1, 1)) == 0 {
 			return vs[0], nil
@@ -62,6 +64,20 @@ func (e *Env) variableIndex(fn string, o py.Object) (int, error) {
 		return 0, py.ExceptionNewf(py.ValueError, "%s(): %s is not a single variable", fn, x.p)
 	}
 	return 0, py.ExceptionNewf(py.TypeError, "%s(): name a variable by a string or give the variable itself, not %s", fn, interp.TypeName(o))
+}
+
+// knownVariables lists the notebook's variables for a message, the first
+// few when there are many.
+func (e *Env) knownVariables() string {
+	const most = 20
+	names := e.Ring.Names()
+	switch {
+	case len(names) == 0:
+		return "no variables have been made yet"
+	case len(names) > most:
+		return fmt.Sprintf("the variables are %s, … (%d in all)", strings.Join(names[:most], ", "), len(names))
+	}
+	return "the variables are " + strings.Join(names, ", ")
 }
 
 // keywordValues reads a=2, b=frac(1, 3) into variable values.
@@ -105,7 +121,7 @@ func (e *Env) polys(fn string, args ...py.Object) ([]*exact.Poly, error) {
 func (e *Env) polynomialBuiltins(b py.StringDict) {
 	setBuiltins(b, []builtin{
 		{"variables", params("names"), "variables(\"a b c\") -> the indeterminates a, b, c (one name gives one variable)", e.variables},
-		{"polynomial", params("text"), "polynomial(\"2*a^2*b - c\") -> the polynomial the text denotes", e.polynomial},
+		{"polynomial", params("text", "new="), "polynomial(\"2*a^2*b - c\") -> the polynomial the text denotes, in variables made before; new=True makes the text's new names variables", e.polynomial},
 		{"gcd", params("p", "q"), "gcd(p, q) -> greatest common divisor over Q, leading coefficient 1", e.gcd},
 		{"resultant", params("p", "q", "variable"), "resultant(p, q, \"x\") -> the resultant of p and q with respect to x", e.resultant},
 		{"discriminant", params("p", "variable"), "discriminant(p, \"x\") -> the discriminant of p with respect to x", e.discriminant},
@@ -143,9 +159,20 @@ func (e *Env) polynomial(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
-	p, err := e.Ring.Parse(text)
+	grow, err := a.Bool("new", false)
 	if err != nil {
-		return nil, py.ExceptionNewf(py.ValueError, "polynomial(%q): %v", text, err)
+		return nil, err
+	}
+	parse := e.Ring.ParseKnown
+	if grow {
+		parse = e.Ring.Parse
+	}
+	p, err := parse(text)
+	if pe := (*exact.ParseError)(nil); errors.As(err, &pe) && pe.Name != "" {
+		return nil, py.ExceptionNewf(py.ValueError, "polynomial(%q): %v; %s (make it with variables(\"%s\") first, or pass new=True)", clip(text, 200), err, e.knownVariables(), pe.Name)
+	}
+	if err != nil {
+		return nil, py.ExceptionNewf(py.ValueError, "polynomial(%q): %v", clip(text, 200), err)
 	}
 	return e.Polynomial(p), nil
 }
@@ -201,7 +228,8 @@ func init() {
 		{"derivative", params("variable"), "p.derivative(\"a\") -> the partial derivative with respect to a", (*Polynomial).derivative},
 		{"degree", params("variable="), "p.degree() -> total degree; p.degree(\"a\") -> degree in a (-1 for the zero polynomial)", (*Polynomial).degree},
 		{"terms", nil, "p.terms() -> [(coefficient, {\"a\": 2, \"b\": 1}), ...] in canonical order", (*Polynomial).terms},
-		{"coefficient", params("*monomial", "**exponents"), "p.coefficient(a=2, b=1) or p.coefficient(a**2*b) -> the coefficient of that monomial", (*Polynomial).coefficient},
+		{"coefficient", params("*monomial", "**exponents"), "p.coefficient(a=2) or p.coefficient(a**2) -> the coefficient of a^2, a polynomial in the variables not named (a number when none is left)", (*Polynomial).coefficient},
+		{"collect", params("*variable"), "p.collect(\"a\") -> [(power, coefficient), ...]: p as a polynomial in a, increasing powers, zero coefficients left out", (*Polynomial).collect},
 		{"divide", params("q"), "p.divide(q) -> the exact quotient p/q; an error showing the remainder when q does not divide p", (*Polynomial).divide},
 		{"content", nil, "p.content() -> the rational c with p = c * p.primitive_part()", (*Polynomial).content},
 		{"primitive_part", nil, "p.primitive_part() -> p divided by its content: coprime integer coefficients, positive leading one", (*Polynomial).primitivePart},
@@ -278,16 +306,21 @@ func (p *Polynomial) terms(interp.Args) (py.Object, error) {
 	return py.NewListFromItems(out), nil
 }
 
+// coefficient collects: the variables named get their exponents, the
+// others stay in the answer, so coefficient(a=2) of 3*a^2*b + a is 3*b.
 func (p *Polynomial) coefficient(a interp.Args) (py.Object, error) {
-	exps := make([]int, len(p.p.Ring().Names()))
+	exps := map[int]int{}
 	switch {
 	case len(a.Rest()) == 1 && len(a.Keywords()) == 0:
 		m, ok := a.Rest()[0].(*Polynomial)
-		if !ok || m.p.Len() != 1 {
-			return nil, py.ExceptionNewf(py.TypeError, "coefficient() takes a monomial such as a**2*b, or exponents by name: coefficient(a=2, b=1)")
+		if !ok || m.p.Len() != 1 || m.p.LeadingCoefficient().Cmp(big.NewRat(1, 1)) != 0 {
+			return nil, py.ExceptionNewf(py.TypeError, "coefficient() takes a monomial with coefficient 1 such as a**2*b, or exponents by name: coefficient(a=2, b=1)")
 		}
-		copy(exps, m.p.Terms()[0].Exps)
-	case len(a.Rest()) == 0:
+		t := m.p.Terms()[0]
+		for _, v := range m.p.Vars() {
+			exps[v] = t.Exps[v]
+		}
+	case len(a.Rest()) == 0 && len(a.Keywords()) > 0:
 		for name, v := range a.Keywords() {
 			i, err := p.env.variableIndex("coefficient", py.String(name))
 			if err != nil {
@@ -300,9 +333,34 @@ func (p *Polynomial) coefficient(a interp.Args) (py.Object, error) {
 			exps[i] = int(e)
 		}
 	default:
-		return nil, py.ExceptionNewf(py.TypeError, "coefficient() takes a monomial or exponents by name, not both")
+		return nil, py.ExceptionNewf(py.TypeError, "coefficient() takes one monomial (a**2*b) or exponents by name (a=2, b=1), not both and not none")
 	}
-	return p.env.Rational(p.p.Coefficient(exps)), nil
+	return p.env.PolyResult(p.p.CoefficientIn(exps)), nil
+}
+
+func (p *Polynomial) collect(a interp.Args) (py.Object, error) {
+	vars := a.Rest()
+	if len(vars) == 0 {
+		return nil, py.ExceptionNewf(py.TypeError, "collect() needs the variable to collect in: p.collect(\"a\")")
+	}
+	if len(vars) > 1 {
+		names := make([]string, len(vars))
+		for i, v := range vars {
+			names[i] = interp.Str(v)
+		}
+		return nil, py.ExceptionNewf(py.ValueError, "collect() takes one variable, got %d (%s): collect in one at a time, or use coefficient(a=…, b=…) for the coefficient of a monomial in several", len(vars), strings.Join(names, ", "))
+	}
+	v, err := p.env.variableIndex("collect", vars[0])
+	if err != nil {
+		return nil, err
+	}
+	var out []py.Object
+	for e, c := range p.p.Collect(v) {
+		if c != nil {
+			out = append(out, py.Tuple{py.Int(e), p.env.PolyResult(c)})
+		}
+	}
+	return py.NewListFromItems(out), nil
 }
 
 func (p *Polynomial) divide(a interp.Args) (py.Object, error) {

@@ -262,7 +262,7 @@ func init() {
 		{"circumcenter", nil, "circumcenter()", (*Simplex).circumcenter},
 		{"inradius", nil, "inradius()", (*Simplex).inradius},
 		{"incenter", nil, "incenter()", (*Simplex).incenter},
-		{"sq_edge", params("i", "j"), "sq_edge(i, j) -> the squared distance between vertices i and j", (*Simplex).sqEdge},
+		{"sq_edge", params("i", "j"), "sq_edge(i, j) -> the squared distance between vertices i and j (0 when i == j)", (*Simplex).sqEdge},
 		{"face", params("indices"), "face(indices) -> the face on those vertices", (*Simplex).face},
 		{"facet", params("i"), "facet(i) -> the facet opposite vertex i", (*Simplex).facet},
 		{"dihedral_cos", params("i", "j"), "dihedral_cos(i, j) -> cosine of the dihedral angle between the facets opposite i and j (exact when rational)", (*Simplex).dihedralCos},
@@ -355,7 +355,7 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) sqEdge(a interp.Args) (py.Object, error) {
-	i, j, err := s.vertexPair("sq_edge", a)
+	i, j, err := s.vertexPair("sq_edge", a, false)
 	if err != nil {
 		return nil, err
 	}
@@ -387,7 +387,7 @@ func (s *Simplex) facet(a interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
-	i, j, err := s.vertexPair("dihedral_cos", a)
+	i, j, err := s.vertexPair("dihedral_cos", a, true)
 	if err != nil {
 		return nil, err
 	}
@@ -402,12 +402,17 @@ func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
 	return s.env.Real(c), nil
 }
 
-func (s *Simplex) vertexPair(name string, a interp.Args) (int, int, error) {
+// vertexPair reads the vertex indices i and j; distinct refuses i == j,
+// for which the quantity named is not defined.
+func (s *Simplex) vertexPair(name string, a interp.Args, distinct bool) (int, int, error) {
 	i, err1 := a.Int("i", 0)
 	j, err2 := a.Int("j", 0)
 	n := int64(s.s.Vertices())
-	if err1 != nil || err2 != nil || i < 0 || j < 0 || i >= n || j >= n || i == j {
-		return 0, 0, py.ExceptionNewf(py.ValueError, "%s(i, j) needs two different vertex indices below %d", name, n)
+	switch {
+	case err1 != nil || err2 != nil || i < 0 || j < 0 || i >= n || j >= n:
+		return 0, 0, py.ExceptionNewf(py.ValueError, "%s(i, j) needs vertex indices from 0 to %d, got (%s, %s)", name, n-1, interp.Str(a.Get("i")), interp.Str(a.Get("j")))
+	case distinct && i == j:
+		return 0, 0, py.ExceptionNewf(py.ValueError, "%s(i, j) needs two different vertex indices, got %d twice", name, i)
 	}
 	return int(i), int(j), nil
 }
