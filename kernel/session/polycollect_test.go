@@ -81,6 +81,8 @@ polynomial("a + * b")`, "column 5"},
 		{`a, b = variables("a b")
 (a*b).coefficient()`, "not none"},
 		{`a, b = variables("a b")
+(a*b).coefficient(a**0)`, "names no variable"},
+		{`a, b = variables("a b")
 (a*b).coefficient(a=-1)`, "non-negative integer exponent"},
 		{`a, b = variables("a b")
 (a*b).collect("a", "b")`, "collect() takes one variable, got 2 (a, b)"},

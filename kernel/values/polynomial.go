@@ -320,6 +320,9 @@ func (p *Polynomial) coefficient(a interp.Args) (py.Object, error) {
 		for _, v := range m.p.Vars() {
 			exps[v] = t.Exps[v]
 		}
+		if len(exps) == 0 {
+			return nil, py.ExceptionNewf(py.ValueError, "coefficient(1) names no variable; for the constant term give every exponent by name, e.g. coefficient(a=0, b=0)")
+		}
 	case len(a.Rest()) == 0 && len(a.Keywords()) > 0:
 		for name, v := range a.Keywords() {
 			i, err := p.env.variableIndex("coefficient", py.String(name))
