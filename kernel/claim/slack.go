@@ -113,9 +113,9 @@ func (t *InequalityTally) Add(k int64, sl Slack) {
 // claim (a sample or a point the search found); a sample f could not
 // evaluate leaves it undecided; a slack not certified either way leaves
 // it holding to digits. samples is N, counted the samples that reached f
-// (those that met the hypothesis, or all N). code prints sample k as cell
-// code for the report.
-func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples, counted int64, t Target, code func(k int64) string) {
+// (those that met the hypothesis, or all N). shown gives sample k as cell
+// code (Claim.Sample) and as the report's line (Claim.Worst).
+func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples, counted int64, t Target, shown func(k int64) (sample, worst string)) {
 	c.Samples = int(samples)
 	show := func(sl SampleSlack) {
 		if sl.Sample != "" {
@@ -123,8 +123,7 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 			c.Worst = "found by search: " + Clip(sl.Sample, 400)
 			return
 		}
-		c.Sample = code(sl.K)
-		c.Worst = fmt.Sprintf("sample %d: %s", sl.K, Clip(c.Sample, 200))
+		c.Sample, c.Worst = shown(sl.K)
 	}
 	if len(it.Smallest) == 0 {
 		c.Verdict, c.Why, c.Residual = cells.Undecided, cells.SampleRaised, "none: f raised on every sample"

@@ -142,8 +142,7 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, fam family, samples py
 	}
 	if c.Verdict != cells.Holds {
 		// Rebuild the worst sample (g is deterministic) rather than keep them all.
-		c.Sample = sampleCode(fam.g, it.Worst.K)
-		c.Worst = fmt.Sprintf("sample %d: %s", it.Worst.K, claim.Clip(c.Sample, 200))
+		c.Sample, c.Worst = shownSample(fam.g, it.Worst.K)
 	}
 	if it.Failing > 0 {
 		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, counted)

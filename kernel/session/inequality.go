@@ -107,7 +107,7 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 		it.Add(0, sl)
 	}
 	g := a.Get("over")
-	claim.JudgeInequality(c, it, found, samples, counted, t, func(k int64) string { return sampleCode(g, k) })
+	claim.JudgeInequality(c, it, found, samples, counted, t, func(k int64) (string, string) { return shownSample(g, k) })
 	c.Note += notes
 	return nil
 }

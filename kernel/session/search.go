@@ -261,5 +261,6 @@ func (s *Session) exactSlack(t claim.Target, fam family, b *values.Box, q []*big
 	if err != nil {
 		return claim.SampleSlack{}, "", false
 	}
-	return sl.Record(0), code(sample), true
+	text, _ := code(sample) // a box point: rationals, always code
+	return sl.Record(0), text, true
 }

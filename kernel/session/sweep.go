@@ -3,11 +3,13 @@ package session
 import (
 	"fmt"
 	"math"
+	"strings"
 	"time"
 
 	"github.com/go-python/gpython/py"
 
 	"assay/cells"
+	"assay/exact"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -238,16 +240,57 @@ func raise(e *claim.SweepError) error {
 }
 
 // sampleCode rebuilds sample k for the report (g is deterministic) as
-// cell code that makes it again; on an error it gives the message instead.
-func sampleCode(g py.Object, k int64) string { return code(sampleAt(g, k)) }
+// cell code that makes it again; ok is false for a sample that has no such
+// code (a certified real that is not rational), whose printed form is
+// given instead, as is the message if g raises now.
+func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k)) }
 
-// code prints a value as the cell code that rebuilds it (its repr).
-func code(o py.Object) string {
+// code prints a value as the cell code that rebuilds it: its repr, except
+// that a polynomial is wrapped in polynomial("…") and lists and tuples are
+// printed item by item. An irrational certified real has no such code.
+func code(o py.Object) (string, bool) {
+	switch v := o.(type) {
+	case *values.Polynomial:
+		return fmt.Sprintf("polynomial(%q)", interp.Str(v)), true
+	case *values.Real:
+		x, _ := values.RealOf(v)
+		if q, ok := x.Rat(); ok {
+			return exact.FormatRat(q), true
+		}
+		return interp.Str(v), false
+	case *py.List, py.Tuple:
+		items, _ := interp.Items(v)
+		parts := make([]string, len(items))
+		all := true
+		for i, it := range items {
+			var ok bool
+			parts[i], ok = code(it)
+			all = all && ok
+		}
+		if _, isList := v.(*py.List); isList {
+			return "[" + strings.Join(parts, ", ") + "]", all
+		}
+		if len(parts) == 1 {
+			return "(" + parts[0] + ",)", all
+		}
+		return "(" + strings.Join(parts, ", ") + ")", all
+	}
 	r, err := py.Repr(o)
 	if err != nil {
-		return interp.Str(o)
+		return interp.Str(o), false
 	}
-	return interp.Str(r)
+	return interp.Str(r), true
+}
+
+// shownSample is how a claim shows sample k: its cell code in c.Sample and
+// in the Worst line, or, for a sample without code, its printed form in
+// Worst only, saying so.
+func shownSample(g py.Object, k int64) (sample, worst string) {
+	text, ok := sampleCode(g, k)
+	if !ok {
+		return "", fmt.Sprintf("sample %d: %s (printed, not cell code: it holds a certified real)", k, claim.Clip(text, 200))
+	}
+	return text, fmt.Sprintf("sample %d: %s", k, claim.Clip(text, 200))
 }
 
 func sampleAt(g py.Object, k int64) py.Object {
