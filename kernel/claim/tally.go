@@ -54,7 +54,8 @@ type GivenTally struct {
 	FirstRaise *SampleNote `json:"first_raise,omitempty"`
 	// Trivial counts samples that met the hypothesis and on which f
 	// returned 0 on both sides: what a guard left in f usually returns.
-	Trivial int64 `json:"trivial,omitempty"`
+	Trivial      int64       `json:"trivial,omitempty"`
+	FirstTrivial *SampleNote `json:"first_trivial,omitempty"`
 }
 
 // IdentityTally summarises the residuals of a sampled identity.
@@ -149,8 +150,12 @@ func (t *Tally) Samples() []int64 {
 	if t.Err != nil {
 		ks = append(ks, t.Err.K)
 	}
-	if t.Given != nil && t.Given.FirstRaise != nil {
-		ks = append(ks, t.Given.FirstRaise.K)
+	if g := t.Given; g != nil {
+		for _, n := range []*SampleNote{g.FirstRaise, g.FirstTrivial} {
+			if n != nil {
+				ks = append(ks, n.K)
+			}
+		}
 	}
 	if it := t.Identity; it != nil {
 		if it.Worst != nil {
@@ -213,9 +218,16 @@ func (t *GivenTally) merge(o *GivenTally) {
 	t.NotMet += o.NotMet
 	t.Raised += o.Raised
 	t.Trivial += o.Trivial
-	if o.FirstRaise != nil && (t.FirstRaise == nil || o.FirstRaise.K < t.FirstRaise.K) {
-		t.FirstRaise = o.FirstRaise
+	t.FirstRaise = first(t.FirstRaise, o.FirstRaise)
+	t.FirstTrivial = first(t.FirstTrivial, o.FirstTrivial)
+}
+
+// first is the note about the lower sample.
+func first(a, b *SampleNote) *SampleNote {
+	if b != nil && (a == nil || b.K < a.K) {
+		return b
 	}
+	return a
 }
 
 // Note says, for the claim's note, how many samples met the hypothesis,
@@ -226,7 +238,7 @@ func (t *GivenTally) Note(samples int64) string {
 		s += fmt.Sprintf("; the hypothesis raised on %d samples, counted as not met (the first, sample %d: %s)", t.Raised, t.FirstRaise.K, t.FirstRaise.Text)
 	}
 	if t.Trivial > 0 {
-		s += fmt.Sprintf("; %d of the samples that met it returned 0 on both sides, a trivially true pair (a guard left in f?)", t.Trivial)
+		s += fmt.Sprintf("; %d of the samples that met it returned 0 on both sides (the first is sample %d): a trivially true pair, from a guard left in f or a degenerate sample the hypothesis lets in", t.Trivial, t.FirstTrivial.K)
 	}
 	return s
 }
@@ -243,9 +255,7 @@ func (t *IdentityTally) merge(o *IdentityTally) {
 		a.Audit.DigitsLost == t.Audit.Audit.DigitsLost && a.K < t.Audit.K) {
 		t.Audit = a
 	}
-	if o.Skip != nil && (t.Skip == nil || o.Skip.K < t.Skip.K) {
-		t.Skip = o.Skip
-	}
+	t.Skip = first(t.Skip, o.Skip)
 }
 
 // Add records one sample's residual.
@@ -291,9 +301,7 @@ func (t *InequalityTally) merge(o *InequalityTally) {
 	t.Violations += o.Violations
 	t.Loose += o.Loose
 	t.Raised += o.Raised
-	if o.FirstRaise != nil && (t.FirstRaise == nil || o.FirstRaise.K < t.FirstRaise.K) {
-		t.FirstRaise = o.FirstRaise
-	}
+	t.FirstRaise = first(t.FirstRaise, o.FirstRaise)
 }
 
 // mergeSmallest keeps the keepSmallest smallest slacks of a and b in the

@@ -36,7 +36,7 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 		case 0:
 			given = &GivenTally{NotMet: 1, Raised: 1, FirstRaise: &SampleNote{K: int64(k), Text: fmt.Sprint("h raised at ", k)}}
 		case 1:
-			given.Trivial = 1
+			given.Trivial, given.FirstTrivial = 1, &SampleNote{K: int64(k)}
 		}
 		per[k] = Tally{Computed: 1, Given: given, Identity: it, Inequality: &InequalityTally{Smallest: []SampleSlack{sl}}}
 	}

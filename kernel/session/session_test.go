@@ -774,7 +774,9 @@ def sides(p):
 inequality("obtuse", sides, over=grid, samples=300, given=obtuse)
 inequality("nothing acute", sides, over=lambda k: [0, 0, 1, 0, 2, 0], samples=5, given=acute)
 inequality("hypothesis raises", sides, over=grid, samples=40, given=lambda p: 1 / (p[0] - p[0]) > 0 if p[1] > 0 else acute(p))
-identity("identity with a guard", lambda p: (0, 0) if not acute(p) else (p[0], p[0]), over=grid, samples=40, given=lambda p: True)`).Outcomes[0]
+identity("identity with a guard", lambda p: (0, 0) if not acute(p) else (p[0], p[0]), over=grid, samples=40, given=lambda p: True)
+print(len([k for k in range(40) if grid(k)[1] > 0]))
+print(len([k for k in range(40) if not acute(grid(k)) or grid(k)[0] == 0]))`).Outcomes[0]
 	if o.Error != nil {
 		t.Fatalf("line %d: %s", o.Error.Line, o.Error.Message)
 	}
@@ -792,15 +794,19 @@ identity("identity with a guard", lambda p: (0, 0) if not acute(p) else (p[0], p
 	if none.Verdict != cells.Undecided || none.Why != cells.NoSampleMet || !strings.Contains(none.Note, "0 of 5 samples met the hypothesis") {
 		t.Errorf("no sample met: %s %s %q", none.Verdict, none.Why, none.Note)
 	}
-	if !strings.Contains(raises.Note, "the hypothesis raised on") || !strings.Contains(raises.Note, "ZeroDivisionError") || raises.Verdict != cells.Holds {
-		t.Errorf("raising hypothesis: %s %q", raises.Verdict, raises.Note)
+	// The cell itself counts the samples on which the hypothesis raises,
+	// and those on which the guard returns (0, 0).
+	counts := strings.Fields(o.Output)
+	if want := "the hypothesis raised on " + counts[0] + " samples, counted as not met"; !strings.Contains(raises.Note, want) || !strings.Contains(raises.Note, "ZeroDivisionError") || raises.Verdict != cells.Holds {
+		t.Errorf("raising hypothesis: %s %q, want %q", raises.Verdict, raises.Note, want)
 	}
-	if !strings.Contains(guard.Note, "of the samples that met it returned 0 on both sides") {
-		t.Errorf("trivially true pairs: %q", guard.Note)
+	if want := counts[1] + " of the samples that met it returned 0 on both sides"; !strings.Contains(guard.Note, want) {
+		t.Errorf("trivially true pairs: %q, want %q", guard.Note, want)
 	}
 	expectErrors(t, []errorCase{
 		{`identity("x", 1, 1, given=lambda s: True)`, "given= states a hypothesis, which is tested on samples"},
 		{`inequality("x", 1, 2, given=lambda s: True)`, "it needs over=g and samples=N"},
+		{`limit("x", lambda t: t, toward=0, expect=0, given=lambda t: True)`, "limit() takes no given=: a hypothesis is tested on samples"},
 		{`inequality("x", lambda s: (0, 1), over=lambda k: k, samples=2, given=3)`, "given= must be a function"},
 		{`inequality("x", lambda s: (0, 1), over=lambda k: k, samples=2, rank="worst")`, "rank must be \"relative\" or \"absolute\""},
 	})

@@ -169,6 +169,9 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 		if err == nil {
 			if given != nil && zero(x) && zero(y) {
 				given.Trivial++
+				if given.FirstTrivial == nil {
+					given.FirstTrivial = &claim.SampleNote{K: k}
+				}
 			}
 			err = visit(k, sample, x, y)
 		}
