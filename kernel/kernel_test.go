@@ -135,7 +135,9 @@ def facets(s):
     F = [sqrt(a) for a in s.facet_areas_sq()]
     return (F[0], F[1] + F[2] + F[3])
 print(inequality("a facet below the other three", facets, over=small, samples=300))
-print(inequality("strengthened Euler R >= 3.1 r (false)", lambda s: (frac(31, 10) * s.inradius(), sqrt(s.circumradius_sq())), over=small, samples=300, search=True))
+def tet(p):
+    return simplex([p[0:3], p[3:6], p[6:9], p[9:12]])
+print(inequality("strengthened Euler R >= 3.1 r (false)", lambda p: (frac(31, 10) * tet(p).inradius(), sqrt(tet(p).circumradius_sq())), over=box(12, -10, 10, denom=64), samples=300, given=lambda p: not tet(p).is_degenerate(), search=True))
 print(inequality("x^2 <= x/2 (false from x = 1/2 on)", lambda x: (x * x, x / 2), over=lambda k: frac(k + 1, 4), samples=300))`,
 }
 

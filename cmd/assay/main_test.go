@@ -95,7 +95,8 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"sweep-generator-raises.md", 7, "the sample generator raised at sample 3: IndexError", nil},
 		{"sweep-wrong-shape.md", 4, "f(sample 0) must return a pair (lhs, rhs), got a tuple", nil},
 		{"sweep-seedless-draw.md", 5, "random draw without seed=", nil},
-		{"search-not-numbers.md", 5, "this one holds a str", nil},
+		{"given-not-sampled.md", 5, "given= states a hypothesis, which is tested on samples: it needs over=g and samples=N", nil},
+		{"rank-unknown.md", 5, "rank must be \"relative\" or \"absolute\", got worst", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {

@@ -12,6 +12,7 @@ import (
 type Slack struct {
 	Value   *exact.Real
 	Lo      *big.Rat // lower end of its enclosure (the exact value when exact)
+	Rel     *big.Rat // the relative slack, see relative
 	Exact   bool
 	Verdict cells.Verdict
 	Ratio   string // lesser / greater, printed
@@ -41,12 +42,38 @@ func MeasureSlack(lesser, greater *exact.Real, t Target) (Slack, error) {
 			sl.Lo, sl.Verdict = iv.Lo, cells.HoldsToDigits
 		}
 	}
+	sl.Rel = relative(sl.Lo, lesser, greater, t)
 	if r, err := exact.RealQuo(lesser, greater).Approx(40, t.Cap); err == nil {
 		mid := new(big.Rat).Add(r.Lo, r.Hi)
 		f, _ := mid.Quo(mid, big.NewRat(2, 1)).Float64()
 		sl.Ratio = fmt.Sprintf("%.6g", f)
 	}
 	return sl, nil
+}
+
+// relative is the slack lo scaled by |greater| + |lesser|, so that the
+// ranking of samples is blind to scale: exact when the sides are rational;
+// otherwise the sides' sizes come from 64-bit enclosures, which is enough
+// to rank by, while the sign stays that of lo. Sides that are both zero
+// give 0.
+func relative(lo *big.Rat, lesser, greater *exact.Real, t Target) *big.Rat {
+	size := new(big.Rat)
+	for _, side := range []*exact.Real{lesser, greater} {
+		v, ok := side.Rat()
+		if !ok {
+			iv, err := side.Approx(64, t.Cap)
+			if err != nil {
+				return new(big.Rat).SetInt64(int64(lo.Sign()))
+			}
+			v = new(big.Rat).Add(iv.Lo, iv.Hi)
+			v.Quo(v, big.NewRat(2, 1))
+		}
+		size.Add(size, new(big.Rat).Abs(v))
+	}
+	if size.Sign() == 0 {
+		return new(big.Rat).SetInt64(int64(lo.Sign()))
+	}
+	return size.Quo(lo, size)
 }
 
 // Text prints a slack: exactly when exact, else as certified digits.
@@ -62,7 +89,7 @@ func (sl Slack) Text() string {
 
 // Record is the slack as a tally keeps it, at sample k.
 func (sl Slack) Record(k int64) SampleSlack {
-	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Text: sl.Text(), Ratio: sl.Ratio}
+	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Text: sl.Text(), Ratio: sl.Ratio}
 }
 
 // Add records one instance's slack; the printed forms are made only for
@@ -74,35 +101,39 @@ func (t *InequalityTally) Add(k int64, sl Slack) {
 	case cells.HoldsToDigits:
 		t.Loose++
 	}
-	cand := SampleSlack{K: k, Lo: sl.Lo.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Ratio: sl.Ratio}
-	if len(t.Smallest) == keepSmallest && compareSlacks(cand, t.Smallest[len(t.Smallest)-1]) >= 0 {
+	cand := SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Ratio: sl.Ratio}
+	if len(t.Smallest) == keepSmallest && compareSlacks(cand, t.Smallest[len(t.Smallest)-1], t.Absolute) >= 0 {
 		return
 	}
 	cand.Text = sl.Text()
-	t.Smallest = mergeSmallest(t.Smallest, []SampleSlack{cand})
+	t.Smallest = mergeSmallest(t.Smallest, []SampleSlack{cand}, t.Absolute)
 }
 
 // JudgeInequality gives the verdict: any certified violation fails the
 // claim (a sample or a point the search found); a sample f could not
 // evaluate leaves it undecided; a slack not certified either way leaves
-// it holding to digits. sample prints sample k for the report.
-func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples int64, t Target, sample func(k int64) string) {
+// it holding to digits. samples is N, counted the samples that reached f
+// (those that met the hypothesis, or all N). shown gives sample k as cell
+// code (Claim.Sample) and as the report's line (Claim.Worst).
+func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples, counted int64, t Target, shown func(k int64) (sample, worst string)) {
 	c.Samples = int(samples)
-	where := func(sl SampleSlack) string {
+	show := func(sl SampleSlack) {
 		if sl.Sample != "" {
-			return sl.Sample
+			c.Sample = sl.Sample
+			c.Worst = "found by search: " + Clip(sl.Sample, 400)
+			return
 		}
-		return fmt.Sprintf("sample %d: %s", sl.K, Clip(sample(sl.K), 200))
+		c.Sample, c.Worst = shown(sl.K)
 	}
 	if len(it.Smallest) == 0 {
-		c.Verdict, c.Residual = cells.Undecided, "none: f raised on every sample"
-		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
-		c.Note = fmt.Sprintf("f raised on all %d samples (the first is shown): %s", samples, it.FirstRaise.Text)
+		c.Verdict, c.Why, c.Residual = cells.Undecided, cells.SampleRaised, "none: f raised on every sample"
+		show(SampleSlack{K: it.FirstRaise.K})
+		c.Note = fmt.Sprintf("f raised on all %d samples it was given (the first is shown): %s", counted, it.FirstRaise.Text)
 		return
 	}
 	w := it.Smallest[0]
 	searched := found != nil && found.Best != nil
-	if searched && compareSlacks(*found.Best, w) < 0 {
+	if searched && compareSlacks(*found.Best, w, it.Absolute) < 0 {
 		w = *found.Best
 	}
 	fromSearch := searched && w.Sample != ""
@@ -111,7 +142,7 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		c.Method, c.Precision = RealMethod, int(t.Bits)
 	}
 	if samples > 0 && (w.Verdict != cells.Holds || it.Violations > 0 || fromSearch) {
-		c.Worst = where(w)
+		show(w)
 	}
 	ratio := ""
 	if w.Ratio != "" {
@@ -119,12 +150,12 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	}
 	every := "for this instance"
 	if samples > 0 {
-		every = fmt.Sprintf("on all %d samples (evidence, not a proof, of the general statement)", samples)
+		every = fmt.Sprintf("on all %d samples (evidence, not a proof, of the general statement)", counted)
 	}
 	switch {
 	case w.Verdict == cells.Fails && fromSearch:
 		c.Verdict = cells.Fails
-		c.Note = fmt.Sprintf("violated at a point the counterexample search found, though all %d samples held: at the rational configuration shown the slack is ", samples)
+		c.Note = fmt.Sprintf("violated at a point the counterexample search found, though all %d samples held: at the rational configuration shown the slack is ", counted)
 		if w.Exact {
 			c.Note += "exactly negative — an exact counterexample"
 		} else {
@@ -133,28 +164,45 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		c.Note += ratio
 	case it.Violations > 0:
 		c.Verdict = cells.Fails
-		n := max(samples, 1)
-		c.Note = fmt.Sprintf("violated: the smallest slack is certified negative%s; %d of %d instances violate it", ratio, it.Violations, n)
+		c.Note = fmt.Sprintf("violated: the smallest slack is certified negative%s; %d of %d instances violate it", ratio, it.Violations, max(counted, 1))
 		if w.Exact {
 			c.Note += " — an exact counterexample"
 		}
 	case it.Raised > 0:
-		c.Verdict = cells.Undecided
-		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
-		c.Note = fmt.Sprintf("f raised on %d of %d samples (the first is shown: %s); the sweep went on, and a claim with samples it could not evaluate cannot hold", it.Raised, samples, it.FirstRaise.Text)
+		c.Verdict, c.Why = cells.Undecided, cells.SampleRaised
+		show(SampleSlack{K: it.FirstRaise.K})
+		c.Note = fmt.Sprintf("f raised on %d of %d samples (the first is shown: %s); the sweep went on, and a claim with samples it could not evaluate cannot hold", it.Raised, counted, it.FirstRaise.Text)
 	case it.Loose > 0 || w.Verdict == cells.HoldsToDigits:
 		c.Verdict, c.Digits = cells.HoldsToDigits, t.Digits()
 		c.Note = fmt.Sprintf("the smallest slack could not be certified non-negative: any violation is below 10^-%d%s; evidence, not a proof", t.Digits(), ratio)
 	case fromSearch:
 		c.Verdict = cells.Holds
-		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, whose slack, the smallest, is shown%s", every, ratio)
+		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, which is shown%s", every, ratio)
 	default:
 		c.Verdict = cells.Holds
-		c.Note = fmt.Sprintf("slack certified >= 0 %s; the smallest slack is shown%s", every, ratio)
+		c.Note = fmt.Sprintf("slack certified >= 0 %s%s", every, ratio)
+	}
+	if samples > 0 && c.Why != cells.SampleRaised {
+		c.Note += "; " + ranking(w, it.Absolute)
 	}
 	if searched || (found != nil && found.Skipped != "") {
 		c.Note += "; " + found.describe(fromSearch && w.Verdict == cells.Fails, fromSearch)
 	}
+}
+
+// ranking says how the shown slack was chosen, and gives the other
+// measure of it.
+func ranking(w SampleSlack, absolute bool) string {
+	rel := ratOf(w.Rel)
+	text := exact.FormatRat(rel)
+	if !w.Exact || len(text) > 24 {
+		f, _ := rel.Float64()
+		text = fmt.Sprintf("≈ %.4g", f)
+	}
+	if absolute {
+		return "shown: the smallest slack (rank=\"absolute\"), whose relative slack (greater − lesser)/(|greater| + |lesser|) is " + text
+	}
+	return "shown: the smallest relative slack (greater − lesser)/(|greater| + |lesser|), " + text + " here (rank=\"absolute\" ranks by the slack itself)"
 }
 
 // describe says what the search did, for the claim's note: whether it

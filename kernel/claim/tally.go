@@ -27,6 +27,9 @@ type Tally struct {
 	// re-evaluates came from. Merge leaves it alone.
 	Parts []string `json:"parts,omitempty"`
 
+	// Given counts the samples against the claim's hypothesis (given=h);
+	// nil when the claim has none.
+	Given      *GivenTally      `json:"given,omitempty"`
 	Identity   *IdentityTally   `json:"identity,omitempty"`
 	Inequality *InequalityTally `json:"inequality,omitempty"`
 	Search     *SearchTally     `json:"search,omitempty"`
@@ -39,6 +42,20 @@ type SweepError struct {
 	K       int64  `json:"k"`
 	Type    string `json:"type"` // Python exception name, e.g. "ValueError"
 	Message string `json:"message"`
+}
+
+// GivenTally counts a sampled claim's samples against its hypothesis
+// given=h. Only samples that met it reach f; a sample on which h raised
+// counts as not met.
+type GivenTally struct {
+	Met        int64       `json:"met"`
+	NotMet     int64       `json:"not_met"`          // including those on which h raised
+	Raised     int64       `json:"raised,omitempty"` // h raised
+	FirstRaise *SampleNote `json:"first_raise,omitempty"`
+	// Trivial counts samples that met the hypothesis and on which f
+	// returned 0 on both sides: what a guard left in f usually returns.
+	Trivial      int64       `json:"trivial,omitempty"`
+	FirstTrivial *SampleNote `json:"first_trivial,omitempty"`
 }
 
 // IdentityTally summarises the residuals of a sampled identity.
@@ -78,7 +95,11 @@ type SampleNote struct {
 
 // InequalityTally summarises the slacks of a sampled inequality.
 type InequalityTally struct {
-	Smallest   []SampleSlack `json:"smallest"` // the smallest slacks, ascending, at most keepSmallest
+	// Absolute ranks samples by the slack itself (rank="absolute"); by
+	// default they are ranked by the relative slack, which is blind to
+	// scale.
+	Absolute   bool          `json:"absolute,omitempty"`
+	Smallest   []SampleSlack `json:"smallest"` // the smallest slacks in the ranking, at most keepSmallest
 	Violations int64         `json:"violations,omitempty"`
 	Loose      int64         `json:"loose,omitempty"` // slack not certified either way
 	Raised     int64         `json:"raised,omitempty"`
@@ -87,8 +108,11 @@ type InequalityTally struct {
 
 // SampleSlack is one instance's slack, greater − lesser.
 type SampleSlack struct {
-	K       int64         `json:"k"`
-	Lo      string        `json:"lo"` // exact rational: the slack, or the lower end of its enclosure
+	K  int64  `json:"k"`
+	Lo string `json:"lo"` // exact rational: the slack, or the lower end of its enclosure
+	// Rel is the relative slack (greater − lesser)/(|greater| + |lesser|):
+	// exact when the sides are, else the middle of a fine enclosure.
+	Rel     string        `json:"rel"`
 	Exact   bool          `json:"exact,omitempty"`
 	Verdict cells.Verdict `json:"verdict"`
 	Text    string        `json:"text"`
@@ -126,6 +150,13 @@ func (t *Tally) Samples() []int64 {
 	if t.Err != nil {
 		ks = append(ks, t.Err.K)
 	}
+	if g := t.Given; g != nil {
+		for _, n := range []*SampleNote{g.FirstRaise, g.FirstTrivial} {
+			if n != nil {
+				ks = append(ks, n.K)
+			}
+		}
+	}
 	if it := t.Identity; it != nil {
 		if it.Worst != nil {
 			ks = append(ks, it.Worst.K)
@@ -156,6 +187,12 @@ func (t *Tally) Merge(o Tally) {
 	if o.Err != nil && (t.Err == nil || o.Err.K < t.Err.K) {
 		t.Err = o.Err
 	}
+	if o.Given != nil {
+		if t.Given == nil {
+			t.Given = &GivenTally{}
+		}
+		t.Given.merge(o.Given)
+	}
 	if o.Identity != nil {
 		if t.Identity == nil {
 			t.Identity = &IdentityTally{}
@@ -176,6 +213,36 @@ func (t *Tally) Merge(o Tally) {
 	}
 }
 
+func (t *GivenTally) merge(o *GivenTally) {
+	t.Met += o.Met
+	t.NotMet += o.NotMet
+	t.Raised += o.Raised
+	t.Trivial += o.Trivial
+	t.FirstRaise = first(t.FirstRaise, o.FirstRaise)
+	t.FirstTrivial = first(t.FirstTrivial, o.FirstTrivial)
+}
+
+// first is the note about the lower sample.
+func first(a, b *SampleNote) *SampleNote {
+	if b != nil && (a == nil || b.K < a.K) {
+		return b
+	}
+	return a
+}
+
+// Note says, for the claim's note, how many samples met the hypothesis,
+// how often h raised, and how many returned a trivially true pair.
+func (t *GivenTally) Note(samples int64) string {
+	s := fmt.Sprintf("%d of %d samples met the hypothesis (given=); only they are counted", t.Met, samples)
+	if t.Raised > 0 {
+		s += fmt.Sprintf("; the hypothesis raised on %d samples, counted as not met (the first, sample %d: %s)", t.Raised, t.FirstRaise.K, t.FirstRaise.Text)
+	}
+	if t.Trivial > 0 {
+		s += fmt.Sprintf("; %d of the samples that met it returned 0 on both sides (the first is sample %d): a trivially true pair, from a guard left in f or a degenerate sample the hypothesis lets in", t.Trivial, t.FirstTrivial.K)
+	}
+	return s
+}
+
 func (t *IdentityTally) merge(o *IdentityTally) {
 	if o.Worst != nil && (t.Worst == nil || o.Worst.worseThan(t.Worst)) {
 		t.Worst = o.Worst
@@ -188,9 +255,7 @@ func (t *IdentityTally) merge(o *IdentityTally) {
 		a.Audit.DigitsLost == t.Audit.Audit.DigitsLost && a.K < t.Audit.K) {
 		t.Audit = a
 	}
-	if o.Skip != nil && (t.Skip == nil || o.Skip.K < t.Skip.K) {
-		t.Skip = o.Skip
-	}
+	t.Skip = first(t.Skip, o.Skip)
 }
 
 // Add records one sample's residual.
@@ -231,25 +296,31 @@ func (s *SampleResidual) worseThan(o *SampleResidual) bool {
 }
 
 func (t *InequalityTally) merge(o *InequalityTally) {
-	t.Smallest = mergeSmallest(t.Smallest, o.Smallest)
+	t.Absolute = t.Absolute || o.Absolute
+	t.Smallest = mergeSmallest(t.Smallest, o.Smallest, t.Absolute)
 	t.Violations += o.Violations
 	t.Loose += o.Loose
 	t.Raised += o.Raised
-	if o.FirstRaise != nil && (t.FirstRaise == nil || o.FirstRaise.K < t.FirstRaise.K) {
-		t.FirstRaise = o.FirstRaise
-	}
+	t.FirstRaise = first(t.FirstRaise, o.FirstRaise)
 }
 
-// mergeSmallest keeps the keepSmallest smallest slacks of a and b, ascending.
-func mergeSmallest(a, b []SampleSlack) []SampleSlack {
+// mergeSmallest keeps the keepSmallest smallest slacks of a and b in the
+// ranking, ascending.
+func mergeSmallest(a, b []SampleSlack, absolute bool) []SampleSlack {
 	all := append(slices.Clone(a), b...)
-	slices.SortStableFunc(all, compareSlacks)
+	slices.SortStableFunc(all, func(x, y SampleSlack) int { return compareSlacks(x, y, absolute) })
 	return all[:min(len(all), keepSmallest)]
 }
 
-// compareSlacks orders slacks by value, then by sample index.
-func compareSlacks(a, b SampleSlack) int {
-	if c := ratOf(a.Lo).Cmp(ratOf(b.Lo)); c != 0 {
+// compareSlacks orders slacks by the relative slack (or by the slack
+// itself when absolute), then by sample index. Both keys have the slack's
+// sign, so a violation always comes before a sample that holds.
+func compareSlacks(a, b SampleSlack, absolute bool) int {
+	x, y := a.Rel, b.Rel
+	if absolute {
+		x, y = a.Lo, b.Lo
+	}
+	if c := ratOf(x).Cmp(ratOf(y)); c != 0 {
 		return c
 	}
 	switch {
@@ -280,7 +351,7 @@ func (t *SearchTally) merge(o *SearchTally) {
 	}
 	t.Starts += o.Starts
 	t.Evaluations += o.Evaluations
-	if o.Best != nil && (t.Best == nil || compareSlacks(*o.Best, *t.Best) < 0) {
+	if o.Best != nil && (t.Best == nil || compareSlacks(*o.Best, *t.Best, false) < 0) {
 		t.Best, t.Start = o.Best, o.Start
 	}
 }

@@ -30,8 +30,15 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 		it := &IdentityTally{}
 		it.Add(int64(k), res)
 		it.AddAudit(int64(k), cells.FloatAudit{DigitsLost: float64(r.IntN(3))})
-		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Verdict: cells.Holds}
-		per[k] = Tally{Computed: 1, Identity: it, Inequality: &InequalityTally{Smallest: []SampleSlack{sl}}}
+		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Rel: fmt.Sprintf("%d/7", r.IntN(5)-2), Verdict: cells.Holds}
+		given := &GivenTally{Met: 1}
+		switch r.IntN(3) {
+		case 0:
+			given = &GivenTally{NotMet: 1, Raised: 1, FirstRaise: &SampleNote{K: int64(k), Text: fmt.Sprint("h raised at ", k)}}
+		case 1:
+			given.Trivial, given.FirstTrivial = 1, &SampleNote{K: int64(k)}
+		}
+		per[k] = Tally{Computed: 1, Given: given, Identity: it, Inequality: &InequalityTally{Smallest: []SampleSlack{sl}}}
 	}
 	var want Tally
 	for _, p := range per {

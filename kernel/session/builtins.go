@@ -1,6 +1,7 @@
 package session
 
 import (
+	"slices"
 	"time"
 
 	"github.com/go-python/gpython/py"
@@ -48,7 +49,12 @@ func (s *Session) install(b py.StringDict) {
 	}
 	at := func(name string, line func() int) *py.Method {
 		c := claims[name]
-		return bound(name, c.doc, c.params, func(a interp.Args) (py.Object, error) { return s.makeClaim(name, line(), a, c.fn) })
+		params := c.params
+		if !slices.Contains(params, "given=") {
+			// Read given= only to say why this kind of claim cannot take it.
+			params = append(slices.Clone(params), "given=")
+		}
+		return bound(name, c.doc, params, func(a interp.Args) (py.Object, error) { return s.makeClaim(name, line(), a, c.fn) })
 	}
 	for name := range claims {
 		b[name] = at(name, func() int { return s.line })
@@ -75,6 +81,9 @@ func (s *Session) install(b py.StringDict) {
 // the claim holds.
 func (s *Session) makeClaim(kind string, line int, a interp.Args, decide claimBuiltin) (py.Object, error) {
 	start := time.Now()
+	if kind != "identity" && kind != "inequality" && a.Has("given") {
+		return nil, py.ExceptionNewf(py.TypeError, "%s() takes no given=: a hypothesis is tested on samples, and only identity and inequality have a sampled form (over=g, samples=N); a symbolic hypothesis is not supported yet", kind)
+	}
 	c, err := s.newClaim(kind, a.Get("name"), line)
 	if err != nil {
 		return nil, err

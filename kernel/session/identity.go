@@ -15,12 +15,17 @@ import (
 const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs: exactly for numbers, polynomials
 and matrices, to the working precision for certified reals (digits=N sets it).
 identity(name, f) calls f() for (lhs, rhs).
-identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1.`
+identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1;
+given=h counts only the samples where h(sample) is True.`
 
-var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree="}
+var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree=", "given="}
 
 func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error {
 	companion, err := a.Bool("companion", true)
+	if err != nil {
+		return err
+	}
+	h, err := hypothesis("identity", a)
 	if err != nil {
 		return err
 	}
@@ -32,7 +37,7 @@ func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error 
 		if err != nil {
 			return err
 		}
-		return s.sampled(c, t, a.Get("lhs"), a.Get("over"), a.Get("samples"), companion, zippel)
+		return s.sampled(c, t, family{f: a.Get("lhs"), g: a.Get("over"), h: h}, a.Get("samples"), companion, zippel)
 	}
 	if a.Has("samples") || a.Has("degree") {
 		return py.ExceptionNewf(py.TypeError, "identity(): samples= and degree= need over= (the function making sample k)")
@@ -99,8 +104,8 @@ func (s *Session) record(c cells.Claim, start time.Time) py.Object {
 }
 
 // sampled decides identity(name, f, over=g, samples=N).
-func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Object, companion bool, zippel func(n int64) string) error {
-	if !interp.Callable(f) || !interp.Callable(over) {
+func (s *Session) sampled(c *cells.Claim, t claim.Target, fam family, samples py.Object, companion bool, zippel func(n int64) string) error {
+	if !interp.Callable(fam.f) || !interp.Callable(fam.g) {
 		return py.ExceptionNewf(py.TypeError, "identity(name, f, over=g, samples=N) needs functions f and g")
 	}
 	n, err := sampleCount("identity", samples)
@@ -109,44 +114,49 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 	}
 	ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: n}
 	fresh := func() sampleTally {
-		return &identitySweep{s: s, t: t, f: f, companion: companion, it: &claim.IdentityTally{}}
+		return &identitySweep{s: s, t: t, f: fam.f, companion: companion, it: &claim.IdentityTally{}}
 	}
-	tally, err := s.sweepClaim(ask, f, over, fresh)
+	tally, err := s.sweepClaim(ask, fam, fresh)
 	if err != nil {
 		return err
 	}
+	if noneMet(c, tally, n) {
+		return nil
+	}
+	counted := met(tally, n)
 	it := tally.Identity
 	if it == nil || it.Worst == nil {
 		return py.ExceptionNewf(py.RuntimeError, "claim %q: the merged tally has no samples", c.Name)
 	}
-	if err := s.confirmShown(ask, f, over, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
+	if err := s.confirmShown(ask, fam, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
 		return got.Identity.RecordAt(k, it), it.RecordAt(k, it)
 	}); err != nil {
 		return err
 	}
 	w := it.Worst.Residual()
 	w.Symbolic, w.Real = it.Symbolic, it.Real
-	w.Decide(c, int(n))
+	w.Decide(c, int(counted))
 	c.Samples = int(n)
 	if w.Real {
 		c.Precision = int(t.Bits)
 	}
 	if c.Verdict != cells.Holds {
 		// Rebuild the worst sample (g is deterministic) rather than keep them all.
-		c.Worst = fmt.Sprintf("sample %d: %s", it.Worst.K, claim.Clip(sampleText(over, it.Worst.K), 200))
+		c.Sample, c.Worst = shownSample(fam.g, it.Worst.K)
 	}
 	if it.Failing > 0 {
-		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, n)
+		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, counted)
 	}
 	if it.Raised > 0 && c.Verdict == cells.Undecided {
-		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", it.Raised, n)
+		c.Why = cells.SampleRaised
+		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", it.Raised, counted)
 	} else if it.Raised > 0 {
-		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", it.Raised, n)
+		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", it.Raised, counted)
 	}
 	if c.Verdict == cells.Holds && zippel != nil {
-		c.Note += "; " + zippel(n)
+		c.Note += "; " + zippel(counted)
 	}
-	c.Note += printedNote(tally) + mergedNote(tally)
+	c.Note += givenNote(tally, n) + printedNote(tally) + mergedNote(tally)
 	switch {
 	case it.Skip != nil:
 		c.Note += "; " + it.Skip.Text

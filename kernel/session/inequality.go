@@ -11,9 +11,25 @@ import (
 
 const inequalityDoc = `inequality(name, lesser, greater) checks lesser <= greater (exactly, or
 certified for reals); inequality(name, f, over=g, samples=N) checks f(g(k)) =
-(lesser, greater) for k = 0..N-1 and reports the smallest slack.`
+(lesser, greater) for k = 0..N-1 and reports the smallest relative slack
+(rank="absolute": the smallest slack); given=h counts only the samples where
+h(sample) is True; search=True hunts for a counterexample in a box family.`
 
-var inequalityParams = []string{"name", "lesser", "greater=", "over=", "samples=", "digits=", "search="}
+var inequalityParams = []string{"name", "lesser", "greater=", "over=", "samples=", "digits=", "search=", "given=", "rank="}
+
+// absoluteRank reads rank=: "relative" (the default) or "absolute".
+func absoluteRank(a interp.Args) (bool, error) {
+	switch r := a.Get("rank"); {
+	case r == nil || r == py.None:
+		return false, nil
+	case r == py.String("relative"):
+		return false, nil
+	case r == py.String("absolute"):
+		return true, nil
+	default:
+		return false, py.ExceptionNewf(py.ValueError, "inequality(): rank must be \"relative\" or \"absolute\", got %s", interp.Str(r))
+	}
+}
 
 // slack decides lesser <= greater for exact numbers and reals.
 func slack(t claim.Target, lesser, greater py.Object) (claim.Slack, error) {
@@ -34,41 +50,55 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 	if err != nil {
 		return err
 	}
-	it := &claim.InequalityTally{}
-	var samples int64
+	absolute, err := absoluteRank(a)
+	if err != nil {
+		return err
+	}
+	h, err := hypothesis("inequality", a)
+	if err != nil {
+		return err
+	}
+	it := &claim.InequalityTally{Absolute: absolute}
+	var samples, counted int64
 	var found *claim.SearchTally
-	printed := ""
+	notes := ""
 	if a.Has("over") {
-		f, g := a.Get("lesser"), a.Get("over")
-		if a.Has("greater") || !interp.Callable(f) || !interp.Callable(g) {
+		fam := family{f: a.Get("lesser"), g: a.Get("over"), h: h}
+		if a.Has("greater") || !interp.Callable(fam.f) || !interp.Callable(fam.g) {
 			return py.ExceptionNewf(py.TypeError, "inequality(name, f, over=g, samples=N) needs functions f and g and no third argument")
 		}
 		if samples, err = sampleCount("inequality", a.Get("samples")); err != nil {
 			return err
 		}
 		ask := claim.Ask{Claim: c.Name, Phase: claim.PhaseSweep, Line: c.Line, Samples: samples}
-		fresh := func() sampleTally { return &inequalitySweep{t: t, part: &claim.InequalityTally{}} }
-		tally, err := s.sweepClaim(ask, f, g, fresh)
+		fresh := func() sampleTally {
+			return &inequalitySweep{t: t, part: &claim.InequalityTally{Absolute: absolute}}
+		}
+		tally, err := s.sweepClaim(ask, fam, fresh)
 		if err != nil {
 			return err
 		}
+		if noneMet(c, tally, samples) {
+			return nil
+		}
+		counted = met(tally, samples)
 		if tally.Inequality != nil {
 			it = tally.Inequality
 		}
-		if err := s.confirmShown(ask, f, g, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
+		if err := s.confirmShown(ask, fam, tally, it.Shown(), fresh, func(k int64, got claim.Tally) (string, string) {
 			return got.Inequality.RecordAt(k, it), it.RecordAt(k, it)
 		}); err != nil {
 			return err
 		}
-		printed = printedNote(tally) + mergedNote(tally)
+		notes = givenNote(tally, samples) + printedNote(tally) + mergedNote(tally)
 		if search && it.Violations == 0 && len(it.Smallest) > 0 {
-			if found, err = s.search(c.Name, c.Line, t, f, g, it.Smallest); err != nil {
+			if found, err = s.search(c.Name, c.Line, t, fam, it.Smallest); err != nil {
 				return err
 			}
 		}
 	} else {
-		if !a.Has("greater") || a.Has("samples") || search {
-			return py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N, search=False)")
+		if !a.Has("greater") || a.Has("samples") || search || a.Has("rank") {
+			return py.ExceptionNewf(py.TypeError, "inequality(name, lesser, greater), or inequality(name, f, over=g, samples=N, search=False, rank=\"relative\")")
 		}
 		sl, err := slack(t, a.Get("lesser"), a.Get("greater"))
 		if err != nil {
@@ -77,8 +107,8 @@ func (s *Session) inequality(c *cells.Claim, t claim.Target, a interp.Args) erro
 		it.Add(0, sl)
 	}
 	g := a.Get("over")
-	claim.JudgeInequality(c, it, found, samples, t, func(k int64) string { return sampleText(g, k) })
-	c.Note += printed
+	claim.JudgeInequality(c, it, found, samples, counted, t, func(k int64) (string, string) { return shownSample(g, k) })
+	c.Note += notes
 	return nil
 }
 

@@ -4,13 +4,14 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"slices"
+	"strings"
 
 	"github.com/go-python/gpython/py"
 	"gonum.org/v1/gonum/optimize"
 
 	"assay/cells"
 	"assay/exact"
-	"assay/exact/geom"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -19,19 +20,28 @@ import (
 // searchEvaluations bounds the evaluations of f from one starting sample.
 const searchEvaluations = 400
 
-// search hunts for a counterexample to a sampled inequality. From each of
-// the samples with the smallest slack it runs Nelder–Mead (gonum) over the
-// sample's numbers — a box point's coordinates, a simplex's vertices —
-// minimising the relative slack (greater − lesser)/(|greater| + |lesser|),
-// which is blind to scale. The best point is then rounded to the simplest
-// rationals that keep it violating and its slack is decided exactly, so a
-// counterexample is always an exact rational configuration; floats only
-// steer. Starts are split among workers like samples.
-func (s *Session) search(name string, line int, t claim.Target, f, g py.Object, starts []claim.SampleSlack) (*claim.SearchTally, error) {
-	// A sample the search cannot move is the notebook's error, found
-	// before any work is split.
-	if _, err := s.parametrize(sampleAt(g, starts[0].K), g); err != nil {
-		return nil, err
+// finestDenominator is the grid the search steers on; the points it
+// accepts are on the box's own grid.
+const finestDenominator = 1 << 24
+
+// userFamily is why a search does not move the samples of a function g(k).
+const userFamily = "over= is a function g(k), whose only parameter is k, so moving a sample's numbers could leave the family; use over=box(...) and build the configuration in f"
+
+// search hunts for a counterexample to a sampled inequality over a box
+// family, the one kind of family whose own parameters the search knows:
+// the box point's coordinates. From each of the samples with the smallest
+// slack it runs Nelder–Mead (gonum) over them, minimising the relative
+// slack (greater − lesser)/(|greater| + |lesser|), which is blind to
+// scale, and steering away from points that do not meet the hypothesis.
+// The best point is then rounded to the simplest rationals of the box's
+// grid that keep it violating; a point is accepted only when it is in the
+// box, meets the hypothesis and its slack is decided exactly, so floats
+// only steer. Starts are split among workers like samples; a violation is
+// confirmed again here from the printed point before it is reported.
+func (s *Session) search(name string, line int, t claim.Target, fam family, starts []claim.SampleSlack) (*claim.SearchTally, error) {
+	b, ok := fam.g.(*values.Box)
+	if !ok {
+		return &claim.SearchTally{Skipped: userFamily}, nil
 	}
 	ask := claim.Ask{Claim: name, Phase: claim.PhaseSearch, Line: line, Samples: int64(len(starts))}
 	tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
@@ -39,7 +49,7 @@ func (s *Session) search(name string, line int, t claim.Target, f, g py.Object, 
 		defer func() { s.env.Sweeping = false }()
 		st := &claim.SearchTally{}
 		s.forShare(ask, sh, func(j int64) error {
-			best, evals := s.descend(t, f, g, starts[j].K)
+			best, evals := s.descend(t, fam, b, starts[j].K)
 			st.Starts++
 			st.Evaluations += evals
 			if best != nil {
@@ -53,163 +63,129 @@ func (s *Session) search(name string, line int, t claim.Target, f, g py.Object, 
 	if err != nil {
 		return nil, err
 	}
-	if tally.Search == nil {
+	st := tally.Search
+	if st == nil {
 		return nil, py.ExceptionNewf(py.RuntimeError, "claim %q: the search gave no tally", name)
 	}
-	return tally.Search, nil
+	if st.Best != nil && st.Best.Verdict == cells.Fails && st.Skipped == "" {
+		if err := s.confirmPoint(t, fam, b, st.Best.Sample); err != nil {
+			return nil, py.ExceptionNewf(py.RuntimeError, "claim %q: the counterexample the search printed, %s, does not confirm when evaluated again: %v", name, st.Best.Sample, err)
+		}
+	}
+	return st, nil
 }
 
-// params are the numbers of a sample that a search may move, and how to
-// make a sample from moved numbers.
-type params struct {
-	x      []float64
-	lo, hi float64 // bounds on every number (±Inf when the family has none)
-	den    int64   // the finest denominator a point may have
-	build  func(q []*big.Rat) (py.Object, error)
-}
-
-// finestDenominator is the grid a search rounds to when the family sets none.
-const finestDenominator = 1 << 24
-
-// parametrize finds the numbers of a sample: exact numbers, lists and
-// tuples of them, and simplices given by points.
-func (s *Session) parametrize(sample, family py.Object) (params, error) {
-	// Within a box family the search stays in the box and on its grid, so
-	// a counterexample is a member of the family the claim is about.
-	p := params{lo: math.Inf(-1), hi: math.Inf(1), den: finestDenominator}
-	if b, ok := family.(*values.Box); ok {
-		p.lo, p.hi, p.den = float64(b.Lo), float64(b.Hi), b.Denom
+// confirmPoint evaluates the claim again at a point printed as cell code
+// ("[p1, p2, …]"): it must be a point of the box, meet the hypothesis and
+// violate the inequality, all decided exactly.
+func (s *Session) confirmPoint(t claim.Target, fam family, b *values.Box, printed string) error {
+	body, ok := strings.CutPrefix(printed, "[")
+	body, ok2 := strings.CutSuffix(body, "]")
+	if !ok || !ok2 {
+		return fmt.Errorf("not a list of numbers")
 	}
-	build, err := s.collect(sample, &p.x)
-	if err != nil {
-		return params{}, py.ExceptionNewf(py.TypeError, "search=True moves the numbers of a sample, so samples must be exact numbers, lists of them or simplices given by points; %s", err)
+	var q []*big.Rat
+	for _, part := range strings.Split(body, ",") {
+		v, err := exact.ParseRat(part)
+		if err != nil {
+			return err
+		}
+		q = append(q, v)
 	}
-	p.build = func(q []*big.Rat) (py.Object, error) { return build(&q) }
-	return p, nil
-}
-
-// collect appends o's numbers to x and returns how to rebuild o from a
-// list of numbers in the same order, consuming them.
-func (s *Session) collect(o py.Object, x *[]float64) (func(q *[]*big.Rat) (py.Object, error), error) {
-	if _, isBool := o.(py.Bool); !isBool {
-		if v, ok := values.ExactOf(o); ok {
-			f, _ := v.Float64()
-			*x = append(*x, f)
-			return func(q *[]*big.Rat) (py.Object, error) {
-				v := (*q)[0]
-				*q = (*q)[1:]
-				return s.env.Rational(v), nil
-			}, nil
-		}
+	sl, _, ok := s.exactSlack(t, fam, b, q)
+	if !ok || sl.Verdict != cells.Fails {
+		return fmt.Errorf("it is not a violation in the box that meets the hypothesis")
 	}
-	switch v := o.(type) {
-	case *py.List, py.Tuple:
-		items, _ := interp.Items(v)
-		parts := make([]func(*[]*big.Rat) (py.Object, error), len(items))
-		for i, it := range items {
-			var err error
-			if parts[i], err = s.collect(it, x); err != nil {
-				return nil, err
-			}
-		}
-		_, isTuple := v.(py.Tuple)
-		return func(q *[]*big.Rat) (py.Object, error) {
-			out := make([]py.Object, len(parts))
-			for i, part := range parts {
-				var err error
-				if out[i], err = part(q); err != nil {
-					return nil, err
-				}
-			}
-			if isTuple {
-				return py.Tuple(out), nil
-			}
-			return py.NewListFromItems(out), nil
-		}, nil
-	case *values.Simplex:
-		pts, ok := v.Value().Points()
-		if !ok {
-			return nil, fmt.Errorf("a simplex given by squared distances has no coordinates to move")
-		}
-		dim := 0
-		for _, pt := range pts {
-			dim = len(pt)
-			for _, c := range pt {
-				f, _ := c.Float64()
-				*x = append(*x, f)
-			}
-		}
-		return func(q *[]*big.Rat) (py.Object, error) {
-			moved := make([][]*big.Rat, len(pts))
-			for i := range moved {
-				moved[i] = (*q)[:dim]
-				*q = (*q)[dim:]
-			}
-			g, err := geom.FromPoints(moved)
-			if err != nil {
-				return nil, err
-			}
-			return s.env.Simplex(g), nil
-		}, nil
-	}
-	return nil, fmt.Errorf("this one holds %s", interp.TypeName(o))
+	return nil
 }
 
 // descend runs one local search from sample k and returns the most
 // violating point it can confirm exactly (or, failing a violation, its
 // smallest exact slack), with the evaluations it spent.
-func (s *Session) descend(t claim.Target, f, g py.Object, k int64) (*claim.SampleSlack, int64) {
-	p, err := s.parametrize(sampleAt(g, k), g)
-	if err != nil || len(p.x) == 0 {
+func (s *Session) descend(t claim.Target, fam family, b *values.Box, k int64) (*claim.SampleSlack, int64) {
+	start, ok := coordinates(sampleAt(fam.g, k))
+	if !ok || len(start) == 0 {
 		return nil, 0
 	}
 	var evals int64
 	scale := 0.0
-	for _, v := range p.x {
+	for _, v := range start {
 		scale = max(scale, math.Abs(v))
 	}
 	objective := func(x []float64) float64 {
 		evals++
-		v, ok := s.relativeSlack(f, p, p.round(x, finestDenominator))
+		v, ok := s.relativeSlack(fam, b, round(b, x, finestDenominator))
 		if !ok {
 			return 2 // worse than any relative slack, which lies in [-1, 1]
 		}
 		return v
 	}
-	start := append([]float64(nil), p.x...)
 	// An optimizer that stops early still leaves its best point; one that
 	// fails leaves the start.
-	res, _ := optimize.Minimize(optimize.Problem{Func: objective}, start,
+	res, _ := optimize.Minimize(optimize.Problem{Func: objective}, slices.Clone(start),
 		&optimize.Settings{FuncEvaluations: searchEvaluations}, &optimize.NelderMead{SimplexSize: 0.05 * max(scale, 1)})
 	best := start
 	if res != nil && res.F < 2 {
 		best = res.X
 	}
-	// The simplest rationals near the best point that still violate are
+	// The simplest grid points near the best point that still violate are
 	// the counterexample; without a violation, the finest rounding.
 	var kept *claim.SampleSlack
-	for den := int64(1); ; den = min(2*den, p.den) {
-		sl, text, ok := s.exactSlack(t, f, p, p.round(best, den))
+	for den := int64(1); ; den = min(2*den, b.Denom) {
+		sl, text, ok := s.exactSlack(t, fam, b, round(b, best, den))
 		if ok {
-			sl.Sample = "found by search: " + claim.Clip(text, 400)
+			sl.Sample = text
 			kept = &sl
 			if sl.Verdict == cells.Fails {
 				break
 			}
 		}
-		if den == p.den {
+		if den == b.Denom {
 			break
 		}
 	}
 	return kept, evals
 }
 
-// round clamps x to the family's bounds and rounds each number to the
-// nearest multiple of 1/den.
-func (p params) round(x []float64, den int64) []*big.Rat {
+// coordinates are a box point's numbers as floats, to steer by.
+func coordinates(point py.Object) ([]float64, bool) {
+	items, ok := interp.Items(point)
+	if !ok {
+		return nil, false
+	}
+	x := make([]float64, len(items))
+	for i, it := range items {
+		v, ok := values.ExactOf(it)
+		if !ok {
+			return nil, false
+		}
+		x[i], _ = v.Float64()
+	}
+	return x, true
+}
+
+// inBox reports whether the rationals q are in the box's range, dim of
+// them, each in [lo, hi]; with grid, also with a denominator at most
+// denom, so a point of the family. The search steers off the grid.
+func inBox(b *values.Box, q []*big.Rat, grid bool) bool {
+	if len(q) != b.Dim {
+		return false
+	}
+	lo, hi := big.NewRat(b.Lo, 1), big.NewRat(b.Hi, 1)
+	for _, v := range q {
+		if v.Cmp(lo) < 0 || v.Cmp(hi) > 0 || grid && v.Denom().Cmp(big.NewInt(b.Denom)) > 0 {
+			return false
+		}
+	}
+	return true
+}
+
+// round clamps x to the box's range and rounds each number to the
+// nearest multiple of 1/den: a point of the box when den <= its denom.
+func round(b *values.Box, x []float64, den int64) []*big.Rat {
 	q := make([]*big.Rat, len(x))
 	for i, v := range x {
-		v = math.Min(math.Max(v, p.lo), p.hi)
+		v = math.Min(math.Max(v, float64(b.Lo)), float64(b.Hi))
 		n := math.Round(v * float64(den))
 		if math.IsNaN(n) || math.IsInf(n, 0) || math.Abs(n) > 1<<62 {
 			n = 0
@@ -220,8 +196,8 @@ func (p params) round(x []float64, den int64) []*big.Rat {
 }
 
 // relativeSlack evaluates f at the numbers q, to steer the search.
-func (s *Session) relativeSlack(f py.Object, p params, q []*big.Rat) (float64, bool) {
-	_, l, g, ok := s.evaluate(f, p, q)
+func (s *Session) relativeSlack(fam family, box *values.Box, q []*big.Rat) (float64, bool) {
+	_, l, g, ok := s.evaluate(fam, box, q, false)
 	if !ok {
 		return 0, false
 	}
@@ -249,14 +225,24 @@ func center(iv exact.Interval) float64 {
 	return lo/2 + hi/2
 }
 
-// evaluate builds the sample at the numbers q and returns it with f's two
-// sides there; ok is false where the sample or f cannot be evaluated.
-func (s *Session) evaluate(f py.Object, p params, q []*big.Rat) (sample, lesser, greater py.Object, ok bool) {
-	sample, err := p.build(q)
-	if err != nil {
+// evaluate builds the point q and returns it with f's two sides there; ok
+// is false where the point is not in the box (on its grid too, with grid),
+// does not meet the hypothesis, or f cannot be evaluated.
+func (s *Session) evaluate(fam family, b *values.Box, q []*big.Rat, grid bool) (sample, lesser, greater py.Object, ok bool) {
+	if !inBox(b, q, grid) {
 		return nil, nil, nil, false
 	}
-	res, err := py.Call(f, py.Tuple{sample}, nil)
+	point := make([]py.Object, len(q))
+	for i, v := range q {
+		point[i] = s.env.Rational(v)
+	}
+	sample = py.NewListFromItems(point)
+	if fam.h != nil {
+		if met, _ := meets(fam.h, sample); !met {
+			return nil, nil, nil, false
+		}
+	}
+	res, err := py.Call(fam.f, py.Tuple{sample}, nil)
 	if err != nil {
 		return nil, nil, nil, false
 	}
@@ -264,10 +250,10 @@ func (s *Session) evaluate(f py.Object, p params, q []*big.Rat) (sample, lesser,
 	return sample, lesser, greater, err == nil
 }
 
-// exactSlack decides the slack at the numbers q as the sweep does, and
-// prints the sample there.
-func (s *Session) exactSlack(t claim.Target, f py.Object, p params, q []*big.Rat) (claim.SampleSlack, string, bool) {
-	sample, l, g, ok := s.evaluate(f, p, q)
+// exactSlack decides the slack at the box point q as the sweep does, and
+// prints the point as cell code.
+func (s *Session) exactSlack(t claim.Target, fam family, b *values.Box, q []*big.Rat) (claim.SampleSlack, string, bool) {
+	sample, l, g, ok := s.evaluate(fam, b, q, true)
 	if !ok {
 		return claim.SampleSlack{}, "", false
 	}
@@ -275,5 +261,6 @@ func (s *Session) exactSlack(t claim.Target, f py.Object, p params, q []*big.Rat
 	if err != nil {
 		return claim.SampleSlack{}, "", false
 	}
-	return sl.Record(0), interp.Str(sample), true
+	text, _ := code(sample) // a box point: rationals, always code
+	return sl.Record(0), text, true
 }

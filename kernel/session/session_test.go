@@ -603,42 +603,49 @@ print(g(7) == g(7), all([-5 <= c <= 5 for k in range(50) for c in g(k)]), len(g(
 	})
 }
 
-// Counterexample search. The samples of a strengthened Euler inequality
-// R >= 3.1 r (Euler 1765; Klamkin and Tsintsifas 1979 give R >= 3r, with
-// equality only for the regular tetrahedron) all hold, since random
-// tetrahedra are far from regular; the search finds a violation near the
-// regular one, and the configuration it prints, rebuilt in a fresh run,
-// violates the inequality again. The tetrahedral isoperimetric inequality
-// S^3 >= 216·sqrt(3)·V^2 (equality for the regular tetrahedron: from
-// memory, e.g. Mitrinović, Pečarić and Volenec, Recent Advances in
-// Geometric Inequalities, 1989; the constant is checked below) survives the
-// search; strengthened by 1% it does not. Neither does the volume–length
-// bound 72·V² <= l_rms^6 (equality for the regular tetrahedron; the
-// volume–length quality measure, Parthasarathy, Graichen and Hathaway 1994,
-// from memory) strengthened by 2%, and there the slack is exact.
+// Counterexample search over a box family: tetrahedra on the grid of
+// quarter-integers in [-10, 10]^3, non-degenerate ones by hypothesis. The
+// samples of a strengthened Euler inequality R >= 3.1 r (Euler 1765;
+// Klamkin and Tsintsifas 1979 give R >= 3r, with equality only for the
+// regular tetrahedron) all hold, since random tetrahedra are far from
+// regular; the search finds a violation near the regular one, and the
+// point it prints, pasted into a fresh run, is a point of the box, is
+// non-degenerate and violates the inequality again. The tetrahedral
+// isoperimetric inequality S^3 >= 216·sqrt(3)·V^2 (equality for the
+// regular tetrahedron: from memory, e.g. Mitrinović, Pečarić and Volenec,
+// Recent Advances in Geometric Inequalities, 1989; the constant is checked
+// below) survives the search; strengthened by 1% it does not. Neither does
+// the volume–length bound 72·V² <= l_rms^6 (equality for the regular
+// tetrahedron; Parthasarathy, Graichen and Hathaway 1994, from memory)
+// strengthened by 2%, and there the slack is exact.
 func TestSearchFindsCounterexamples(t *testing.T) {
-	const prelude = `small = lambda k: random_simplex(3, seed=k, bound=10)
-strong = lambda s: (frac(31, 10) * s.inradius(), sqrt(s.circumradius_sq()))
+	const prelude = `small = box(12, -10, 10, denom=64)
+def tet(p):
+    return simplex([p[0:3], p[3:6], p[6:9], p[9:12]])
+solid = lambda p: not tet(p).is_degenerate()
+strong = lambda p: (frac(31, 10) * tet(p).inradius(), sqrt(tet(p).circumradius_sq()))
 def iso(c):
-    def sides(s):
+    def sides(p):
+        s = tet(p)
         S = sqrt(s.facet_areas_sq()[0]) + sqrt(s.facet_areas_sq()[1]) + sqrt(s.facet_areas_sq()[2]) + sqrt(s.facet_areas_sq()[3])
         return (c * 216 * sqrt(3) * s.volume_sq(), S ** 3)
     return sides
 def vl(c):
-    def sides(s):
+    def sides(p):
+        s = tet(p)
         mean = 0
         for d in s.sq_edges():
             mean = mean + d / 6
         return (c * 72 * s.volume_sq(), mean ** 3)
     return sides
 `
-	rep := runHere(t, prelude+`inequality("samples alone", strong, over=small, samples=200)
-inequality("with search", strong, over=small, samples=200, search=True)
-inequality("isoperimetric", iso(1), over=small, samples=100, search=True)
-inequality("isoperimetric strengthened by 1%", iso(frac(101, 100)), over=small, samples=100, search=True)
-inequality("volume-length strengthened by 2%", vl(frac(102, 100)), over=small, samples=100, search=True)
+	rep := runHere(t, prelude+`inequality("samples alone", strong, over=small, samples=200, given=solid)
+inequality("with search", strong, over=small, samples=200, given=solid, search=True)
+inequality("isoperimetric", iso(1), over=small, samples=100, given=solid, search=True)
+inequality("isoperimetric strengthened by 1%", iso(frac(101, 100)), over=small, samples=100, given=solid, search=True)
+inequality("volume-length strengthened by 2%", vl(frac(102, 100)), over=small, samples=100, given=solid, search=True)
 regular = simplex([[0, 0, 0], [1, 1, 0], [1, 0, 1], [0, 1, 1]])
-identity("isoperimetric equality for the regular tetrahedron", iso(1)(regular)[0], iso(1)(regular)[1])`)
+identity("isoperimetric equality for the regular tetrahedron", iso(1)([0, 0, 0, 1, 1, 0, 1, 0, 1, 0, 1, 1])[0], iso(1)([0, 0, 0, 1, 1, 0, 1, 0, 1, 0, 1, 1])[1])`)
 	o := rep.Outcomes[0]
 	if o.Error != nil {
 		t.Fatalf("line %d: %s", o.Error.Line, o.Error.Message)
@@ -655,15 +662,24 @@ identity("isoperimetric equality for the regular tetrahedron", iso(1)(regular)[0
 	}
 	for i, f := range map[int]string{1: "strong", 3: "iso(frac(101, 100))", 4: "vl(frac(102, 100))"} {
 		c := o.Claims[i]
-		if !strings.Contains(c.Note, "counterexample search") || !strings.HasPrefix(c.Worst, "found by search: simplex(") {
-			t.Fatalf("%s: note %q worst %q", c.Name, c.Note, c.Worst)
+		if !strings.Contains(c.Note, "counterexample search") || !strings.HasPrefix(c.Worst, "found by search: [") || c.Sample == "" {
+			t.Fatalf("%s: note %q worst %q sample %q", c.Name, c.Note, c.Worst, c.Sample)
 		}
-		// Rebuild the printed configuration in a fresh run.
-		code := strings.ReplaceAll(strings.TrimPrefix(c.Worst, "found by search: "), "] [", "], [")
-		again := runHere(t, prelude+fmt.Sprintf("s = %s\nprint(%s(s)[0] > %s(s)[1])", code, f, f))
-		if got := output(t, again, 1); got != "True\n" {
-			t.Errorf("%s: the printed counterexample %s does not violate the inequality in a fresh run (%q)", c.Name, code, got)
+		// Paste the printed point into a fresh run: a point of the box
+		// (quarter-integers in [-10, 10]), meeting the hypothesis, violating.
+		again := runHere(t, prelude+fmt.Sprintf("p = %s\nprint(len(p) == 12 and all([-10 <= x <= 10 and x * 64 == int(x * 64) for x in p]), solid(p), %s(p)[0] > %s(p)[1])", c.Sample, f, f))
+		if got := output(t, again, 1); got != "True True True\n" {
+			t.Errorf("%s: the printed counterexample %s is not a violating point of the family in a fresh run (%q)", c.Name, c.Sample, got)
 		}
+	}
+}
+
+// A search over a function g(k) does not move its samples (they could
+// leave the family), and says so.
+func TestSearchStaysInUserFamily(t *testing.T) {
+	c := runHere(t, `inequality("x", lambda s: (0, 1), over=lambda k: "text", samples=3, search=True)`).Outcomes[0].Claims[0]
+	if c.Verdict != cells.Holds || !strings.Contains(c.Note, "counterexample search skipped: over= is a function g(k)") {
+		t.Errorf("user family search: %s %q", c.Verdict, c.Note)
 	}
 }
 
@@ -672,9 +688,8 @@ func TestSampledBadInput(t *testing.T) {
 	expectErrors(t, []errorCase{
 		{"identity(\"x\", lambda t: (1, 2, 3), over=lambda k: k, samples=3)", "f(sample 0) must return a pair (lhs, rhs)"},
 		{"identity(\"x\", lambda t: (t.volume_sq(), 0), over=lambda k: random_simplex(3), samples=3)", "random draw without seed="},
-		{"inequality(\"x\", lambda s: (0, 1), over=lambda k: \"text\", samples=3, search=True)", "search=True moves the numbers of a sample"},
 		{"inequality(\"x\", lambda s: (0, 1), over=lambda k: k, samples=3, search=1)", "search must be True or False"},
-		{"inequality(\"x\", 0, 1, search=True)", "inequality(name, f, over=g, samples=N, search=False)"},
+		{"inequality(\"x\", 0, 1, search=True)", "inequality(name, f, over=g, samples=N, search=False"},
 	})
 	// f raising on one sample: the sweep goes on, the claim is undecided
 	// and names that sample.
@@ -731,4 +746,120 @@ func TestExceptionReprs(t *testing.T) {
 		{"print(repr(ValueError(\"x\", 2)))", "ValueError('x', 2)"},
 		{"try:\n    1 / 0\nexcept ZeroDivisionError as e:\n    print(repr(e).startswith(\"ZeroDivisionError\"))", "True"},
 	})
+}
+
+// Hypotheses, from the classical triangle identity
+// a² + b² + c² = 8R²(1 + cos A cos B cos C) (from memory): the sum of the
+// squared sides exceeds 8R² exactly when the triangle is acute, and falls
+// short of it when it is obtuse. Over triangles with vertices on a grid,
+// given= acute the inequality holds and a search that stays in the family
+// and the hypothesis finds no counterexample; given= obtuse it fails, and
+// the printed sample, pasted into a fresh run, is an obtuse triangle that
+// violates it. Acute and obtuse are decided exactly from the squared sides.
+func TestHypothesisAcuteTriangles(t *testing.T) {
+	const prelude = `grid = box(6, -10, 10, denom=8)
+def tri(p):
+    return simplex([p[0:2], p[2:4], p[4:6]])
+def acute(p):
+    e = tri(p).sq_edges()
+    return e[0] < e[1] + e[2] and e[1] < e[0] + e[2] and e[2] < e[0] + e[1]
+def obtuse(p):
+    e = sorted(tri(p).sq_edges())
+    return e[2] > e[0] + e[1] and not tri(p).is_degenerate()
+def sides(p):
+    e = tri(p).sq_edges()
+    return (8 * tri(p).circumradius_sq(), e[0] + e[1] + e[2])
+`
+	o := runHere(t, prelude+`inequality("acute", sides, over=grid, samples=300, given=acute, search=True)
+inequality("obtuse", sides, over=grid, samples=300, given=obtuse)
+inequality("nothing acute", sides, over=lambda k: [0, 0, 1, 0, 2, 0], samples=5, given=acute)
+inequality("hypothesis raises", sides, over=grid, samples=40, given=lambda p: 1 / (p[0] - p[0]) > 0 if p[1] > 0 else acute(p))
+identity("identity with a guard", lambda p: (0, 0) if not acute(p) else (p[0], p[0]), over=grid, samples=40, given=lambda p: True)
+print(len([k for k in range(40) if grid(k)[1] > 0]))
+print(len([k for k in range(40) if not acute(grid(k)) or grid(k)[0] == 0]))`).Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("line %d: %s", o.Error.Line, o.Error.Message)
+	}
+	acute, obtuse, none, raises, guard := o.Claims[0], o.Claims[1], o.Claims[2], o.Claims[3], o.Claims[4]
+	if acute.Verdict != cells.Holds || !strings.Contains(acute.Note, "found no violation") || !strings.Contains(acute.Note, "samples met the hypothesis") {
+		t.Errorf("acute: %s %q", acute.Verdict, acute.Note)
+	}
+	if obtuse.Verdict != cells.Fails || obtuse.Sample == "" || !strings.HasPrefix(obtuse.Worst, "sample ") {
+		t.Fatalf("obtuse: %s %q %q", obtuse.Verdict, obtuse.Note, obtuse.Worst)
+	}
+	again := runHere(t, prelude+"p = "+obtuse.Sample+"\nprint(obtuse(p), sides(p)[0] > sides(p)[1])")
+	if got := output(t, again, 1); got != "True True\n" {
+		t.Errorf("the printed obtuse sample %s: %q", obtuse.Sample, got)
+	}
+	if none.Verdict != cells.Undecided || none.Why != cells.NoSampleMet || !strings.Contains(none.Note, "0 of 5 samples met the hypothesis") {
+		t.Errorf("no sample met: %s %s %q", none.Verdict, none.Why, none.Note)
+	}
+	// The cell itself counts the samples on which the hypothesis raises,
+	// and those on which the guard returns (0, 0).
+	counts := strings.Fields(o.Output)
+	if want := "the hypothesis raised on " + counts[0] + " samples, counted as not met"; !strings.Contains(raises.Note, want) || !strings.Contains(raises.Note, "ZeroDivisionError") || raises.Verdict != cells.Holds {
+		t.Errorf("raising hypothesis: %s %q, want %q", raises.Verdict, raises.Note, want)
+	}
+	if want := counts[1] + " of the samples that met it returned 0 on both sides"; !strings.Contains(guard.Note, want) {
+		t.Errorf("trivially true pairs: %q, want %q", guard.Note, want)
+	}
+	expectErrors(t, []errorCase{
+		{`identity("x", 1, 1, given=lambda s: True)`, "given= states a hypothesis, which is tested on samples"},
+		{`inequality("x", 1, 2, given=lambda s: True)`, "it needs over=g and samples=N"},
+		{`limit("x", lambda t: t, toward=0, expect=0, given=lambda t: True)`, "limit() takes no given=: a hypothesis is tested on samples"},
+		{`inequality("x", lambda s: (0, 1), over=lambda k: k, samples=2, given=3)`, "given= must be a function"},
+		{`inequality("x", lambda s: (0, 1), over=lambda k: k, samples=2, rank="worst")`, "rank must be \"relative\" or \"absolute\""},
+	})
+}
+
+// The worst sample of an inequality is the one with the smallest relative
+// slack (greater − lesser)/(|greater| + |lesser|) unless rank="absolute":
+// (100, 102) has slack 2 and relative slack 2/202, (1, 2) slack 1 and
+// relative slack 1/3 (common practice: relative error is blind to scale).
+func TestRankRelativeOrAbsolute(t *testing.T) {
+	o := runHere(t, `pairs = lambda k: [(100, 102), (1, 2), (1, 2)][k]
+inequality("relative", lambda s: s, over=pairs, samples=3)
+inequality("absolute", lambda s: s, over=pairs, samples=3, rank="absolute")`).Outcomes[0]
+	if o.Error != nil {
+		t.Fatal(o.Error.Message)
+	}
+	if c := o.Claims[0]; c.Residual != "slack 2" || !strings.Contains(c.Note, "smallest relative slack (greater − lesser)/(|greater| + |lesser|), 1/101 here") {
+		t.Errorf("relative: %q %q", c.Residual, c.Note)
+	}
+	if c := o.Claims[1]; c.Residual != "slack 1" || !strings.Contains(c.Note, "is 1/3") {
+		t.Errorf("absolute: %q %q", c.Residual, c.Note)
+	}
+}
+
+// A sample the report prints is cell code: pasted into a cell it rebuilds
+// the sample (compared through its own printed form and, for a matrix,
+// with ==). A sample holding an irrational certified real has no such
+// code, and the report says so instead of printing digits as code.
+func TestPrintedSampleIsCellCode(t *testing.T) {
+	const families = `tri = lambda k: random_simplex(2, seed=k, bound=5)
+mat = lambda k: matrix([[k, frac(1, 3)], [2, k + 1]])
+X = variables("x y")
+pol = lambda k: (X[0] ** 2 + frac(k, 2) * X[1], [k, frac(1, 7)])
+`
+	o := runHere(t, families+`identity("a triangle has no area", lambda s: (s.volume_sq(), 0), over=tri, samples=3)
+identity("a matrix is its transpose", lambda m: (m, m.transpose()), over=mat, samples=2)
+identity("a polynomial is constant", lambda p: (p[0], 1), over=pol, samples=2)
+identity("sqrt(2) k is rational", lambda r: (r, 0), over=lambda k: sqrt(2) * (k + 1), samples=2)`).Outcomes[0]
+	if o.Error != nil {
+		t.Fatal(o.Error.Message)
+	}
+	for i, check := range []string{"repr(s) == repr(tri(%d))", "s == mat(%d)", "str(s) == str(pol(%d))"} {
+		c := o.Claims[i]
+		var k int
+		if _, err := fmt.Sscanf(c.Worst, "sample %d:", &k); err != nil || c.Sample == "" {
+			t.Fatalf("%s: worst %q sample %q", c.Name, c.Worst, c.Sample)
+		}
+		again := runHere(t, families+"s = "+c.Sample+"\nprint("+fmt.Sprintf(check, k)+")")
+		if got := output(t, again, 1); got != "True\n" {
+			t.Errorf("%s: %s does not rebuild sample %d (%q)", c.Name, c.Sample, k, got)
+		}
+	}
+	if c := o.Claims[3]; c.Sample != "" || !strings.Contains(c.Worst, "not cell code") {
+		t.Errorf("a real sample: sample %q worst %q", c.Sample, c.Worst)
+	}
 }

@@ -3,10 +3,13 @@ package session
 import (
 	"fmt"
 	"math"
+	"strings"
 	"time"
 
 	"github.com/go-python/gpython/py"
 
+	"assay/cells"
+	"assay/exact"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -34,15 +37,49 @@ type sampleTally interface {
 	into(t *claim.Tally)                             // put the share's part in its tally
 }
 
+// family is what a sampled claim sweeps: sample k = g(k), counted only
+// when it meets the hypothesis h (nil: every sample), then f(sample).
+type family struct{ f, g, h py.Object }
+
+// hypothesis reads given=h of a claim: nil without one. A hypothesis
+// needs samples to be tested on.
+func hypothesis(fn string, a interp.Args) (py.Object, error) {
+	h := a.Get("given")
+	if h == nil || h == py.None {
+		return nil, nil
+	}
+	if !a.Has("over") {
+		return nil, py.ExceptionNewf(py.TypeError, "%s(): given= states a hypothesis, which is tested on samples: it needs over=g and samples=N (a symbolic hypothesis is not supported yet)", fn)
+	}
+	if !interp.Callable(h) {
+		return nil, py.ExceptionNewf(py.TypeError, "%s(): given= must be a function of the sample returning True or False, got %s", fn, interp.TypeName(h))
+	}
+	return h, nil
+}
+
+// meets decides whether sample meets the hypothesis h; why is set when h
+// raised or did not return a bool, which counts as not met.
+func meets(h, sample py.Object) (ok bool, why string) {
+	res, err := py.Call(h, py.Tuple{sample}, nil)
+	if err != nil {
+		return false, interp.Message(err)
+	}
+	b, isBool := res.(py.Bool)
+	if !isBool {
+		return false, fmt.Sprintf("the hypothesis returned %s, not True or False", interp.TypeName(res))
+	}
+	return bool(b), ""
+}
+
 // sweepClaim sweeps a sampled claim's samples, split among kernels by the
 // coordinator, and returns the merged tally, or the error that ended the
 // sweep at its lowest sample. fresh makes the part one share fills.
-func (s *Session) sweepClaim(ask claim.Ask, f, g py.Object, fresh func() sampleTally) (claim.Tally, error) {
+func (s *Session) sweepClaim(ask claim.Ask, fam family, fresh func() sampleTally) (claim.Tally, error) {
 	tally, err := s.distribute(ask, func(sh claim.Share) claim.Tally {
 		began := time.Now()
 		part := fresh()
-		done, failed := s.sweep(ask, sh, f, g, part.raised, part.visit)
-		t := claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Printed: s.printed}
+		done, given, failed := s.sweep(ask, sh, fam, part.raised, part.visit)
+		t := claim.Tally{Computed: done, Seconds: time.Since(began).Seconds(), Err: failed, Printed: s.printed, Given: given}
 		part.into(&t)
 		return t
 	})
@@ -60,14 +97,14 @@ func (s *Session) sweepClaim(ask claim.Ask, f, g py.Object, fresh func() sampleT
 // and refuses the merge when a part's record of it differs: a merged report
 // shows no sample the merge has not confirmed itself. check compares the
 // recomputed one-sample tally with the merged one at sample k.
-func (s *Session) confirmShown(ask claim.Ask, f, g py.Object, merged claim.Tally, shown []int64, fresh func() sampleTally, check func(k int64, got claim.Tally) (want, have string)) error {
+func (s *Session) confirmShown(ask claim.Ask, fam family, merged claim.Tally, shown []int64, fresh func() sampleTally, check func(k int64, got claim.Tally) (want, have string)) error {
 	if len(merged.Parts) == 0 {
 		return nil
 	}
 	for _, k := range shown {
 		part := fresh()
 		single := claim.Ask{Claim: ask.Claim, Phase: ask.Phase, Line: ask.Line, Samples: k + 1}
-		done, failed := s.sweep(single, claim.Share{Index: k, Count: k + 1}, f, g, part.raised, part.visit)
+		done, _, failed := s.sweep(single, claim.Share{Index: k, Count: k + 1}, fam, part.raised, part.visit)
 		got := claim.Tally{Computed: done, Err: failed}
 		part.into(&got)
 		if failed != nil {
@@ -89,27 +126,53 @@ func mergedNote(t claim.Tally) string {
 	return fmt.Sprintf("; merged: the samples were computed by the %d shard runs whose part files were merged, and the merge re-evaluated only the samples this claim shows", len(t.Parts))
 }
 
-// sweep computes a sampled claim's share of samples: sample k = g(k),
-// then f(sample), whose pair goes to visit. A sample on which f raises
-// goes to raised and the sweep goes on; any other error ends the share and
-// is returned with its sample index.
-func (s *Session) sweep(a claim.Ask, sh claim.Share, f, g py.Object, raised func(k int64, msg string), visit func(k int64, sample, x, y py.Object) error) (int64, *claim.SweepError) {
+// sweep computes a sampled claim's share of samples: sample k = g(k);
+// with a hypothesis, a sample that does not meet it is counted in the
+// share's GivenTally and goes no further; then f(sample), whose pair goes
+// to visit. A sample on which f raises goes to raised and the sweep goes
+// on; any other error ends the share and is returned with its sample
+// index.
+func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k int64, msg string), visit func(k int64, sample, x, y py.Object) error) (int64, *claim.GivenTally, *claim.SweepError) {
 	s.env.Sweeping, s.printed = true, false
 	defer func() { s.env.Sweeping = false }()
+	var given *claim.GivenTally
+	if fam.h != nil {
+		given = &claim.GivenTally{}
+	}
 	var failed *claim.SweepError
 	done, _ := s.forShare(a, sh, func(k int64) error {
-		sample, err := py.Call(g, py.Tuple{py.Int(k)}, nil)
+		sample, err := py.Call(fam.g, py.Tuple{py.Int(k)}, nil)
 		if err != nil {
 			failed = &claim.SweepError{K: k, Type: "ValueError", Message: fmt.Sprintf("the sample generator raised at sample %d: %s", k, interp.Message(err))}
 			return err
 		}
-		res, err := py.Call(f, py.Tuple{sample}, nil)
+		if given != nil {
+			ok, why := meets(fam.h, sample)
+			if why != "" {
+				given.Raised++
+				if given.FirstRaise == nil {
+					given.FirstRaise = &claim.SampleNote{K: k, Text: claim.Clip(why, 160)}
+				}
+			}
+			if !ok {
+				given.NotMet++
+				return nil
+			}
+			given.Met++
+		}
+		res, err := py.Call(fam.f, py.Tuple{sample}, nil)
 		if err != nil {
 			raised(k, interp.Message(err))
 			return nil
 		}
 		x, y, err := pair(res, fmt.Sprintf("f(sample %d)", k))
 		if err == nil {
+			if given != nil && zero(x) && zero(y) {
+				given.Trivial++
+				if given.FirstTrivial == nil {
+					given.FirstTrivial = &claim.SampleNote{K: k}
+				}
+			}
 			err = visit(k, sample, x, y)
 		}
 		if err != nil {
@@ -117,7 +180,46 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, f, g py.Object, raised func
 		}
 		return err
 	})
-	return done, failed
+	return done, given, failed
+}
+
+// zero reports whether o is the exact number 0.
+func zero(o py.Object) bool {
+	if _, isBool := o.(py.Bool); isBool {
+		return false
+	}
+	v, ok := values.ExactOf(o)
+	return ok && v.Sign() == 0
+}
+
+// met is how many samples reached f: those that met the hypothesis, or
+// all n without one.
+func met(t claim.Tally, n int64) int64 {
+	if t.Given == nil {
+		return n
+	}
+	return t.Given.Met
+}
+
+// givenNote says how the samples fared against the hypothesis ("" without
+// one).
+func givenNote(t claim.Tally, n int64) string {
+	if t.Given == nil {
+		return ""
+	}
+	return "; " + t.Given.Note(n)
+}
+
+// noneMet makes a claim on which no sample met the hypothesis undecided,
+// and reports whether it did.
+func noneMet(c *cells.Claim, t claim.Tally, n int64) bool {
+	if t.Given == nil || t.Given.Met > 0 {
+		return false
+	}
+	c.Verdict, c.Why, c.Samples = cells.Undecided, cells.NoSampleMet, int(n)
+	c.Residual = "none: no sample met the hypothesis"
+	c.Note = "no sample met the hypothesis, so nothing was checked; " + t.Given.Note(n)
+	return true
 }
 
 // sweepError records an error that ended the sweep at sample k.
@@ -140,9 +242,59 @@ func raise(e *claim.SweepError) error {
 	return py.ExceptionNewf(kind, "%s", e.Message)
 }
 
-// sampleText rebuilds sample k for the report (g is deterministic); on an
-// error it gives the message instead.
-func sampleText(g py.Object, k int64) string { return interp.Str(sampleAt(g, k)) }
+// sampleCode rebuilds sample k for the report (g is deterministic) as
+// cell code that makes it again; ok is false for a sample that has no such
+// code (a certified real that is not rational), whose printed form is
+// given instead, as is the message if g raises now.
+func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k)) }
+
+// code prints a value as the cell code that rebuilds it: its repr, except
+// that a polynomial is wrapped in polynomial("…") and lists and tuples are
+// printed item by item. An irrational certified real has no such code.
+func code(o py.Object) (string, bool) {
+	switch v := o.(type) {
+	case *values.Polynomial:
+		return fmt.Sprintf("polynomial(%q)", interp.Str(v)), true
+	case *values.Real:
+		x, _ := values.RealOf(v)
+		if q, ok := x.Rat(); ok {
+			return exact.FormatRat(q), true
+		}
+		return interp.Str(v), false
+	case *py.List, py.Tuple:
+		items, _ := interp.Items(v)
+		parts := make([]string, len(items))
+		all := true
+		for i, it := range items {
+			var ok bool
+			parts[i], ok = code(it)
+			all = all && ok
+		}
+		if _, isList := v.(*py.List); isList {
+			return "[" + strings.Join(parts, ", ") + "]", all
+		}
+		if len(parts) == 1 {
+			return "(" + parts[0] + ",)", all
+		}
+		return "(" + strings.Join(parts, ", ") + ")", all
+	}
+	r, err := py.Repr(o)
+	if err != nil {
+		return interp.Str(o), false
+	}
+	return interp.Str(r), true
+}
+
+// shownSample is how a claim shows sample k: its cell code in c.Sample and
+// in the Worst line, or, for a sample without code, its printed form in
+// Worst only, saying so.
+func shownSample(g py.Object, k int64) (sample, worst string) {
+	text, ok := sampleCode(g, k)
+	if !ok {
+		return "", fmt.Sprintf("sample %d: %s (printed, not cell code: it holds a certified real)", k, claim.Clip(text, 200))
+	}
+	return text, fmt.Sprintf("sample %d: %s", k, claim.Clip(text, 200))
+}
 
 func sampleAt(g py.Object, k int64) py.Object {
 	v, err := py.Call(g, py.Tuple{py.Int(k)}, nil)

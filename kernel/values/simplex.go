@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
+	"strings"
 
 	"github.com/go-python/gpython/py"
 
@@ -417,7 +418,7 @@ func (s *Simplex) vertexPair(name string, a interp.Args, distinct bool) (int, in
 	return int(i), int(j), nil
 }
 
-// M__str__ describes the simplex briefly.
+// M__str__ is the cell code that rebuilds the simplex.
 func (s *Simplex) M__str__() (res py.Object, err error) {
 	defer interp.Recover("simplex.__str__", &res, &err)
 	if pts, ok := s.s.Points(); ok {
@@ -425,7 +426,7 @@ func (s *Simplex) M__str__() (res py.Object, err error) {
 		for i, p := range pts {
 			rows[i] = interp.Str(s.env.list(p))
 		}
-		return py.String(fmt.Sprintf("simplex(%v)", rows)), nil
+		return py.String("simplex([" + strings.Join(rows, ", ") + "])"), nil
 	}
 	return py.String(fmt.Sprintf("distance_simplex(%s)", s.s.SqDistances())), nil
 }
