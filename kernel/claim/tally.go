@@ -366,7 +366,13 @@ func record(v any) string {
 	case Residual:
 		return fmt.Sprintf("%q (zero %v, certified digits %d, undecided %v)", x.Text, x.Zero, x.Certified, x.Undecided)
 	case cells.FloatAudit:
-		return fmt.Sprintf("%q, %s, %.1f digits lost", x.Residual, x.Error, x.DigitsLost)
+		sides := ""
+		for _, side := range []*cells.SideAudit{x.LHS, x.RHS} {
+			if side != nil {
+				sides += fmt.Sprintf(", %s", side.Error)
+			}
+		}
+		return fmt.Sprintf("%q%q%s, %.1f digits lost", x.Residual, x.Raised, sides, x.DigitsLost)
 	case SampleSlack:
 		return fmt.Sprintf("%q (%s, exact %v)", x.Text, x.Verdict, x.Exact)
 	}
