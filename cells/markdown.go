@@ -316,15 +316,15 @@ func (w *mdWriter) headerContent() string {
 	var lossy [][]string
 	for i, c := range claims {
 		if f := c.Float; f != nil && f.DigitsLost > float64DigitsHalf {
-			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdText(c.Name), floatResidual(f), sideLoss(f.LHS), sideLoss(f.RHS)})
+			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdText(c.Name), floatResidual(f), sideLoss(f.LHS, true), sideLoss(f.RHS, true)})
 		}
 	}
 	if len(lossy) > 0 {
 		paras = append(paras, "**Where float64 loses more than half its digits**\n\n"+
 			"The same claim run as float64 code (every exact input rounded to float64, gonum for linear algebra), "+
-			"against the exact or certified values. Per side, the digits lost in all, then split: "+
-			"\"inputs\" is what rounding the inputs alone costs (the exact formula at the rounded inputs: the problem's condition), "+
-			"\"formula\" what the float64 evaluation adds:\n\n"+
+			"against the exact or certified values. Per side, the digits lost of 16, and how many of them "+
+			"the float64 evaluation alone loses (formula) and rounding the inputs alone (inputs: the exact formula at the rounded inputs, "+
+			"the problem's condition):\n\n"+
 			mdTable([]string{"#", "claim", "float64 residual", "lhs digits lost", "rhs digits lost"}, lossy))
 	}
 	c := Counts(r)
@@ -625,7 +625,7 @@ func floatFacts(f *FloatAudit) string {
 		if s.Error == exactLoss {
 			return name + " exact"
 		}
-		return fmt.Sprintf("%s error %s relative, %s", name, codeSpan(visible(s.Error)), sideLoss(s))
+		return fmt.Sprintf("%s error %s relative, %s", name, codeSpan(visible(s.Error)), sideLoss(s, false))
 	}
 	return head + ": residual " + floatResidual(f) + "; " + side("lhs", f.LHS) + "; " + side("rhs", f.RHS)
 }
@@ -641,18 +641,30 @@ func floatResidual(f *FloatAudit) string {
 	return codeSpan(visible(f.Residual))
 }
 
-// sideLoss is a side's digits lost and their split: "7.6 digits lost
-// (0.3 in the formula, 7.3 to input rounding)".
-func sideLoss(s *SideAudit) string {
+// sideLoss is a side's digits lost and their split, in a sentence ("7.6
+// digits lost (0.3 in the formula, 7.3 to input rounding)") or in a table
+// cell ("7.6 (0.3 formula, 7.3 inputs)").
+func sideLoss(s *SideAudit, cell bool) string {
 	switch {
 	case s == nil:
 		return "no value"
 	case s.Error == exactLoss:
 		return "exact"
-	case s.Input != nil && s.Formula != nil:
-		return fmt.Sprintf("%.1f digits lost (%.1f in the formula, %.1f to input rounding)", s.DigitsLost, s.Formula.DigitsLost, s.Input.DigitsLost)
-	case s.Unsplit != "":
-		return fmt.Sprintf("%.1f digits lost (not split: %s)", s.DigitsLost, mdInline(visible(s.Unsplit)))
+	case s.DigitsLost == 0 && cell:
+		return "none"
+	case s.DigitsLost == 0:
+		return "no digits lost"
 	}
-	return fmt.Sprintf("%.1f digits lost", s.DigitsLost)
+	total, formula, inputs := "%.1f digits lost", " (%.1f in the formula, %.1f to input rounding)", " (not split: %s)"
+	if cell {
+		total, formula, inputs = "%.1f", " (%.1f formula, %.1f inputs)", " (not split: %s)"
+	}
+	out := fmt.Sprintf(total, s.DigitsLost)
+	switch {
+	case s.Input != nil && s.Formula != nil:
+		out += fmt.Sprintf(formula, s.Formula.DigitsLost, s.Input.DigitsLost)
+	case s.Unsplit != "":
+		out += fmt.Sprintf(inputs, mdInline(visible(s.Unsplit)))
+	}
+	return out
 }

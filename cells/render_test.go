@@ -425,7 +425,7 @@ func TestHeaderListsLossyFloatCompanions(t *testing.T) {
 		t.Errorf("lossy section wrong:\n%s", md)
 	}
 	// Each side with its split, or why it has none; a float64 run that raised says so.
-	for _, want := range []string{"| 2 | sliver | `4e-11` | 15.9 digits lost (0.2 in the formula, 15.9 to input rounding) | 0.2 digits lost (not split: the exact function raised",
+	for _, want := range []string{"| 2 | sliver | `4e-11` | 15.9 (0.2 formula, 15.9 inputs) | 0.2 (not split: the exact function raised",
 		"| 3 | raised | `ZeroDivisionError: float division by zero` | no value | no value |",
 		"float64 alone: residual `1e-16`; lhs error `2.00e-16` relative, 0.4 digits lost; rhs exact",
 		"float64 alone: raised `ZeroDivisionError: float division by zero`"} {

@@ -366,13 +366,10 @@ func record(v any) string {
 	case Residual:
 		return fmt.Sprintf("%q (zero %v, certified digits %d, undecided %v)", x.Text, x.Zero, x.Certified, x.Undecided)
 	case cells.FloatAudit:
-		sides := ""
-		for _, side := range []*cells.SideAudit{x.LHS, x.RHS} {
-			if side != nil {
-				sides += fmt.Sprintf(", %s", side.Error)
-			}
+		if x.Raised != "" || x.LHS == nil || x.RHS == nil {
+			return fmt.Sprintf("raised %q", x.Raised)
 		}
-		return fmt.Sprintf("%q%q%s, %.1f digits lost", x.Residual, x.Raised, sides, x.DigitsLost)
+		return fmt.Sprintf("residual %q, lhs error %s, rhs error %s, %.1f digits lost", x.Residual, x.LHS.Error, x.RHS.Error, x.DigitsLost)
 	case SampleSlack:
 		return fmt.Sprintf("%q (%s, exact %v)", x.Text, x.Verdict, x.Exact)
 	}

@@ -141,13 +141,18 @@ func (e *Env) rounding(op func(xs []py.Object) (py.Object, error), operands ...p
 	if err != nil {
 		return nil, err
 	}
-	e.Rounding = false
-	res, err := op(xs)
-	e.Rounding = true
+	res, err := e.exactly(func() (py.Object, error) { return op(xs) })
 	if err != nil || res == py.NotImplemented {
 		return res, err
 	}
 	return marked(res), nil
+}
+
+// exactly runs f with Rounding off, and on again after, even if f panics.
+func (e *Env) exactly(f func() (py.Object, error)) (py.Object, error) {
+	e.Rounding = false
+	defer func() { e.Rounding = true }()
+	return f()
 }
 
 // roundingQuotient is a / b in the input-rounding run: between ints, the
