@@ -118,7 +118,7 @@ func (s *Session) splitAudit(run rerun, audit *cells.FloatAudit, exact [2][]*big
 	for i, side := range sides {
 		rounded, ok := values.ExactEntries(got[i])
 		if !ok || len(rounded) != len(exact[i]) {
-			side.Unsplit = "the exact function at the rounded inputs returned values of another shape"
+			side.Unsplit = "the exact function at the rounded inputs did not return exact values of the same shape"
 			continue
 		}
 		input := claim.LossOf(claim.RelativeError(exact[i], exact[i], rounded))
