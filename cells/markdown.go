@@ -322,9 +322,8 @@ func (w *mdWriter) headerContent() string {
 	if len(lossy) > 0 {
 		paras = append(paras, "**Where float64 loses more than half its digits**\n\n"+
 			"The same claim run as float64 code (every exact input rounded to float64, gonum for linear algebra), "+
-			"against the exact or certified values. Per side, the digits lost of 16, and how many of them "+
-			"the float64 evaluation alone loses (formula) and rounding the inputs alone (inputs: the exact formula at the rounded inputs, "+
-			"the problem's condition):\n\n"+
+			"against the exact or certified values: digits lost of 16 per side, and in brackets what the float64 evaluation loses by itself "+
+			"(formula) and what rounding the inputs loses by itself (inputs: the exact formula at the rounded inputs, the problem's condition):\n\n"+
 			mdTable([]string{"#", "claim", "float64 residual", "lhs digits lost", "rhs digits lost"}, lossy))
 	}
 	c := Counts(r)
