@@ -316,15 +316,15 @@ func (w *mdWriter) headerContent() string {
 	var lossy [][]string
 	for i, c := range claims {
 		if f := c.Float; f != nil && f.DigitsLost > float64DigitsHalf {
-			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdText(c.Name), codeSpan(visible(f.Residual)), codeSpan(visible(f.Error)),
-				fmt.Sprintf("%.1f of 16", f.DigitsLost)})
+			lossy = append(lossy, []string{strconv.Itoa(i + 1), mdText(c.Name), floatResidual(f), sideLoss(f.LHS, true), sideLoss(f.RHS, true)})
 		}
 	}
 	if len(lossy) > 0 {
 		paras = append(paras, "**Where float64 loses more than half its digits**\n\n"+
 			"The same claim run as float64 code (every exact input rounded to float64, gonum for linear algebra), "+
-			"against the exact or certified values:\n\n"+
-			mdTable([]string{"#", "claim", "float64 residual", "float64 error", "digits lost"}, lossy))
+			"against the exact or certified values: digits lost of 16 per side, and in brackets what the float64 evaluation loses by itself "+
+			"(formula) and what rounding the inputs loses by itself (inputs: the exact formula at the rounded inputs, the problem's condition):\n\n"+
+			mdTable([]string{"#", "claim", "float64 residual", "lhs digits lost", "rhs digits lost"}, lossy))
 	}
 	c := Counts(r)
 	if c[HoldsToDigits] > 0 {
@@ -472,8 +472,7 @@ func claimDetails(n int, c Claim) string {
 		facts = append(facts, fmt.Sprintf("%d-bit precision", c.Precision))
 	}
 	if f := c.Float; f != nil {
-		facts = append(facts, fmt.Sprintf("float64 alone: residual %s, error %s, %.1f digits lost",
-			codeSpan(visible(f.Residual)), codeSpan(visible(f.Error)), f.DigitsLost))
+		facts = append(facts, floatFacts(f))
 	}
 	note := strings.TrimSpace(visible(c.Note))
 	if note == "" && len(facts) == 0 {
@@ -609,4 +608,62 @@ func problemText(p Problem) string {
 		return p.Message
 	}
 	return strings.Join(where, ", ") + ": " + p.Message
+}
+
+// floatFacts says what the float64 audit found, side by side: each side's
+// error and digits lost, split into the formula's share and the inputs'.
+func floatFacts(f *FloatAudit) string {
+	head := "float64 alone"
+	if f.Sample != nil {
+		head += fmt.Sprintf(" (at sample %d, where it lost most)", *f.Sample)
+	}
+	if f.Raised != "" || f.LHS == nil || f.RHS == nil {
+		return head + ": raised " + floatResidual(f)
+	}
+	side := func(name string, s *SideAudit) string {
+		if s.Error == exactLoss {
+			return name + " exact"
+		}
+		return fmt.Sprintf("%s error %s relative, %s", name, codeSpan(visible(s.Error)), sideLoss(s, false))
+	}
+	return head + ": residual " + floatResidual(f) + "; " + side("lhs", f.LHS) + "; " + side("rhs", f.RHS)
+}
+
+// exactLoss is the printed error of a float64 side equal to the exact one.
+const exactLoss = "0.00e+00"
+
+// floatResidual is the float64 residual, or what the float64 code raised.
+func floatResidual(f *FloatAudit) string {
+	if f.Raised != "" {
+		return codeSpan(visible(f.Raised))
+	}
+	return codeSpan(visible(f.Residual))
+}
+
+// sideLoss is a side's digits lost and their split, in a sentence ("7.6
+// digits lost (0.3 in the formula, 7.3 to input rounding)") or in a table
+// cell ("7.6 (0.3 formula, 7.3 inputs)").
+func sideLoss(s *SideAudit, cell bool) string {
+	switch {
+	case s == nil:
+		return "no value"
+	case s.Error == exactLoss:
+		return "exact"
+	case s.DigitsLost == 0 && cell:
+		return "none"
+	case s.DigitsLost == 0:
+		return "no digits lost"
+	}
+	total, formula, inputs := "%.1f digits lost", " (%.1f in the formula, %.1f to input rounding)", " (not split: %s)"
+	if cell {
+		total, formula, inputs = "%.1f", " (%.1f formula, %.1f inputs)", " (not split: %s)"
+	}
+	out := fmt.Sprintf(total, s.DigitsLost)
+	switch {
+	case s.Input != nil && s.Formula != nil:
+		out += fmt.Sprintf(formula, s.Formula.DigitsLost, s.Input.DigitsLost)
+	case s.Unsplit != "":
+		out += fmt.Sprintf(inputs, mdInline(visible(s.Unsplit)))
+	}
+	return out
 }

@@ -141,11 +141,37 @@ type Claim struct {
 	Float *FloatAudit `json:"float,omitempty"`
 }
 
-// FloatAudit is what float64 arithmetic said about a claim.
+// FloatAudit is what float64 arithmetic said about a claim: the claim's
+// function run again as float64 code, each side's float64 value F set
+// against the exact value V at the exact inputs and against V̂, the exact
+// value at the float64-rounded inputs. Input error |V̂ − V| is the
+// problem's condition, formula error |F − V̂| the evaluation's own.
 type FloatAudit struct {
-	Residual   string  `json:"residual"`    // float64 residual as printed
-	Error      string  `json:"error"`       // its distance from the exact residual
-	DigitsLost float64 `json:"digits_lost"` // decimal digits lost against 15.95
+	Residual   string  `json:"residual"`         // float64 residual max |lhs − rhs| as printed
+	Raised     string  `json:"raised,omitempty"` // what the float64 code raised, instead of sides
+	DigitsLost float64 `json:"digits_lost"`      // the worse side's total loss, decimal digits against 15.95
+	// Sample is, for a sampled claim, the sample where float64 lost most.
+	Sample *int64     `json:"sample,omitempty"`
+	LHS    *SideAudit `json:"lhs,omitempty"`
+	RHS    *SideAudit `json:"rhs,omitempty"`
+}
+
+// SideAudit is the float64 audit of one side of a claim. Loss is the total,
+// F against V; Input and Formula split it, and are absent (with Unsplit
+// saying why) when the exact function could not be run at the rounded
+// inputs.
+type SideAudit struct {
+	Loss
+	Input   *Loss  `json:"input,omitempty"`   // V̂ against V: rounding the inputs alone
+	Formula *Loss  `json:"formula,omitempty"` // F against V̂: the float64 evaluation
+	Unsplit string `json:"unsplit,omitempty"` // why Input and Formula are absent
+}
+
+// Loss is a relative error (worst entry; absolute where the exact entry is
+// 0), printed, and the decimal digits of float64's 15.95 it costs.
+type Loss struct {
+	Error      string  `json:"error"`
+	DigitsLost float64 `json:"digits_lost"`
 }
 
 // Table is a table put in the report by a cell.

@@ -64,8 +64,10 @@ func sampleReport(t *testing.T, src []byte) *Report {
 				Claims: []Claim{
 					{Name: "sin-sum", Kind: "identity", Method: "certified intervals", Verdict: HoldsToDigits, Digits: 40,
 						Residual: "[-1e-77, 1e-77]", Samples: 20, Seed: 7, Precision: 512, Cell: 2, Line: 17, Seconds: 0.1,
-						Note:  "At 20 random points |residual| < 10^-40; evidence, not a proof.",
-						Float: &FloatAudit{Residual: "1.1102230246251565e-16", Error: "1.1e-16", DigitsLost: 0.9}},
+						Note: "At 20 random points |residual| < 10^-40; evidence, not a proof.",
+						Float: &FloatAudit{Residual: "1.110e-16", DigitsLost: 0.9, Sample: &sample7,
+							LHS: &SideAudit{Loss: Loss{"1.10e-16", 0.9}, Input: &Loss{"5.00e-17", 0.6}, Formula: &Loss{"6.00e-17", 0.7}},
+							RHS: &SideAudit{Loss: Loss{"0.00e+00", 0}, Input: &Loss{"0.00e+00", 0}, Formula: &Loss{"0.00e+00", 0}}}},
 					{Name: "bad", Kind: "identity", Method: "exact rational arithmetic", Verdict: Fails,
 						Residual: "2*b", Worst: "a=1, b=3", Samples: 20, Seed: 7, Cell: 2, Line: 18, Seconds: 0.01},
 					{Name: "slow", Kind: "inequality", Method: "certified intervals", Verdict: Undecided,
@@ -403,18 +405,33 @@ func TestHTMLTypesetsFormulasInTables(t *testing.T) {
 	}
 }
 
+var sample7 = int64(7)
+
 func TestHeaderListsLossyFloatCompanions(t *testing.T) {
 	nb, _ := Parse("p.md", []byte("# p\n\n```cell\nx\n```\n"))
 	r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
 		{Name: "stable", Kind: "identity", Verdict: Holds, Residual: "0", Cell: 1, Line: 4,
-			Float: &FloatAudit{Residual: "1e-16", Error: "2e-16 relative", DigitsLost: 0.4}},
+			Float: &FloatAudit{Residual: "1e-16", DigitsLost: 0.4, LHS: &SideAudit{Loss: Loss{"2.00e-16", 0.4}}, RHS: &SideAudit{Loss: Loss{"0.00e+00", 0}}}},
 		{Name: "sliver", Kind: "identity", Verdict: Holds, Residual: "0", Cell: 1, Line: 4,
-			Float: &FloatAudit{Residual: "4e-11", Error: "3.2e+02 relative", DigitsLost: 15.9}},
+			Float: &FloatAudit{Residual: "4e-11", DigitsLost: 15.9,
+				LHS: &SideAudit{Loss: Loss{"3.20e+02", 15.9}, Input: &Loss{"3.10e+02", 15.9}, Formula: &Loss{"1.00e-16", 0.2}},
+				RHS: &SideAudit{Loss: Loss{"1.00e-16", 0.2}, Unsplit: "the exact function raised at the rounded inputs: ZeroDivisionError"}}},
+		{Name: "raised", Kind: "identity", Verdict: Holds, Residual: "0", Cell: 1, Line: 5,
+			Float: &FloatAudit{Raised: "ZeroDivisionError: float division by zero", DigitsLost: 15.95}},
 	}}}}
 	md := string(RenderMarkdown(r, true))
 	i := strings.Index(md, "Where float64 loses more than half its digits")
 	if i < 0 || !strings.Contains(md[i:], "| 2 | sliver |") || strings.Contains(md[i:strings.Index(md[i:], "/assay:generated")+i], "stable") {
 		t.Errorf("lossy section wrong:\n%s", md)
+	}
+	// Each side with its split, or why it has none; a float64 run that raised says so.
+	for _, want := range []string{"| 2 | sliver | `4e-11` | 15.9 (0.2 formula, 15.9 inputs) | 0.2 (not split: the exact function raised",
+		"| 3 | raised | `ZeroDivisionError: float division by zero` | no value | no value |",
+		"float64 alone: residual `1e-16`; lhs error `2.00e-16` relative, 0.4 digits lost; rhs exact",
+		"float64 alone: raised `ZeroDivisionError: float division by zero`"} {
+		if !strings.Contains(md, want) {
+			t.Errorf("report lacks %q:\n%s", want, md)
+		}
 	}
 }
 

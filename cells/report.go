@@ -76,15 +76,16 @@ func ExitCode(r *Report, strict bool) int {
 
 // jsonClaim and jsonError fix the JSON field names and order.
 type jsonClaim struct {
-	Name     string  `json:"name"`
-	Kind     string  `json:"kind"`
-	Method   string  `json:"method"`
-	Verdict  Verdict `json:"verdict"`
-	Residual string  `json:"residual"`
-	Digits   int     `json:"digits"`
-	Cell     int     `json:"cell"`
-	Line     int     `json:"line"`
-	Seconds  float64 `json:"seconds"`
+	Name     string      `json:"name"`
+	Kind     string      `json:"kind"`
+	Method   string      `json:"method"`
+	Verdict  Verdict     `json:"verdict"`
+	Residual string      `json:"residual"`
+	Digits   int         `json:"digits"`
+	Cell     int         `json:"cell"`
+	Line     int         `json:"line"`
+	Seconds  float64     `json:"seconds"`
+	Float    *FloatAudit `json:"float,omitempty"` // the float64 audit, where one was made
 }
 
 type jsonError struct {
@@ -104,7 +105,7 @@ type jsonReport struct {
 
 // RenderJSON returns the machine-readable summary:
 // {"notebook", "sha256", "claims": [{"name", "kind", "method", "verdict",
-// "residual", "digits", "cell", "line", "seconds"}], "errors": [{"cell",
+// "residual", "digits", "cell", "line", "seconds", "float"}], "errors": [{"cell",
 // "line", "message"}], "warnings": [{"cell", "line", "message"}], "exit"},
 // indented, ending in a newline. errors holds the notebook problems and
 // then the cell errors; warnings (absent when there are none) the
@@ -115,7 +116,7 @@ func RenderJSON(r *Report, exit int) []byte {
 		j.Notebook = r.Notebook.Path
 	}
 	for _, c := range allClaims(r) {
-		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Cell, c.Line, c.Seconds})
+		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Cell, c.Line, c.Seconds, c.Float})
 	}
 	for _, e := range allErrors(r) {
 		j.Errors = append(j.Errors, jsonError{e.Cell, e.Line, message(e)})

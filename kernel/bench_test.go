@@ -31,6 +31,21 @@ func BenchmarkExactSampledIdentity(b *testing.B) {
 	benchNotebook(b, src, cells.Holds)
 }
 
+// BenchmarkAuditedSampledIdentity: Kahan's triangle area against the exact
+// one on 2,000 decimal triangles, with the float64 audit (rerun as float64
+// code per sample; split into input and formula error at the worst
+// sample only), the whole notebook run in-process.
+func BenchmarkAuditedSampledIdentity(b *testing.B) {
+	src := []byte("# bench\n\n```cell\n" +
+		"def kahan(a, b, c):\n" +
+		"    return sqrt((a + (b + c)) * (c - (a - b)) * (c + (a - b)) * (a + (b - c))) / 4\n" +
+		"def area(a, b, c):\n" +
+		"    return sqrt((a + b + c) * (-a + b + c) * (a - b + c) * (a + b - c)) / 4\n" +
+		"identity(\"Kahan's area\", lambda x: (kahan(x[0], x[1], x[2]), area(x[0], x[1], x[2])),\n" +
+		"         over=lambda k: [frac(\"100000\") + k, frac(\"99999.99979\") + k, frac(\"0.00029\")], samples=2000)\n```\n")
+	benchNotebook(b, src, cells.HoldsToDigits)
+}
+
 // benchNotebook runs a one-claim notebook in-process b.N times and checks
 // the claim's verdict every time.
 func benchNotebook(b *testing.B, src []byte, want cells.Verdict) {

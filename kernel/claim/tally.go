@@ -437,7 +437,10 @@ func record(v any) string {
 	case Residual:
 		return fmt.Sprintf("%q (zero %v, certified digits %d, undecided %v)", x.Text, x.Zero, x.Certified, x.Undecided)
 	case cells.FloatAudit:
-		return fmt.Sprintf("%q, %s, %.1f digits lost", x.Residual, x.Error, x.DigitsLost)
+		if x.Raised != "" || x.LHS == nil || x.RHS == nil {
+			return fmt.Sprintf("raised %q", x.Raised)
+		}
+		return fmt.Sprintf("residual %q, lhs error %s, rhs error %s, %.1f digits lost", x.Residual, x.LHS.Error, x.RHS.Error, x.DigitsLost)
 	case SampleSlack:
 		return fmt.Sprintf("%q (%s, exact %v)", x.Text, x.Verdict, x.Exact)
 	}

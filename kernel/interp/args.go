@@ -75,6 +75,44 @@ func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, e
 // Call is the call's arguments as they were given, to pass them on.
 func (a Args) Call() (py.Tuple, py.StringDict) { return a.args, a.kw }
 
+// Map is the call with f applied to every argument given (None and
+// absent ones stay): the same reading, other values.
+func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
+	m := a
+	var err error
+	one := func(o py.Object) py.Object {
+		if o == nil || o == py.None || err != nil {
+			return o
+		}
+		var v py.Object
+		v, err = f(o)
+		return v
+	}
+	tuple := func(t py.Tuple) py.Tuple {
+		out := make(py.Tuple, len(t))
+		for i, o := range t {
+			out[i] = one(o)
+		}
+		return out
+	}
+	dict := func(d py.StringDict) py.StringDict {
+		if d == nil {
+			return nil
+		}
+		out := py.StringDict{}
+		for k, o := range d {
+			out[k] = one(o)
+		}
+		return out
+	}
+	m.args, m.kw, m.rest, m.keywords = tuple(a.args), dict(a.kw), tuple(a.rest), dict(a.keywords)
+	m.values = make([]py.Object, len(a.values))
+	for i, o := range a.values {
+		m.values[i] = one(o)
+	}
+	return m, err
+}
+
 // Rest is the positional arguments a "*name" parameter took.
 func (a Args) Rest() py.Tuple { return a.rest }
 

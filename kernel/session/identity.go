@@ -66,7 +66,7 @@ func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error 
 	}
 	r.Decide(c, 0)
 	if call != nil && companion {
-		audit, skipped := s.companion(call, lhs, rhs)
+		audit, skipped := s.companion(plainRun(call), lhs, rhs, true)
 		c.Float = audit
 		if skipped != "" {
 			c.Note += "; " + skipped
@@ -161,9 +161,7 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, fam family, samples py
 	case it.Skip != nil:
 		c.Note += "; " + it.Skip.Text
 	case it.Audit != nil:
-		audit := it.Audit.Audit
-		audit.Residual += fmt.Sprintf(" (at sample %d, where float64 lost most)", it.Audit.K)
-		c.Float = &audit
+		c.Float = s.worstAudit(ask, fam, it.Audit)
 	}
 	return nil
 }
@@ -191,7 +189,7 @@ func (w *identitySweep) visit(k int64, sample, lhs, rhs py.Object) error {
 	}
 	w.it.Add(k, r)
 	if w.companion && w.it.Skip == nil {
-		audit, why := w.s.companion(w.s.floatCall(w.f, sample, k), lhs, rhs)
+		audit, why := w.s.companion(sampleRun(w.f, sample, k), lhs, rhs, false)
 		if why != "" {
 			w.it.Skip = &claim.SampleNote{K: k, Text: why}
 		} else {

@@ -25,6 +25,9 @@ func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
 	if !ok1 || !ok2 {
 		return nil, false, nil
 	}
+	if e.Rounding {
+		return e.roundingQuotient(a, b)
+	}
 	q, err := quotient(x, y)
 	if err != nil {
 		return nil, true, err
@@ -45,6 +48,10 @@ func (e *Env) Power(a, b py.Object) (py.Object, bool, error) {
 		return nil, false, nil // Rational.__pow__ answers already
 	}
 	res, err := e.power(a, b)
+	if r, ok := res.(*Rational); ok && e.Rounding {
+		// float64 code makes a float of int ** negative int: an input.
+		return &Rational{v: roundRat(r.v), env: e, rounded: true}, true, nil
+	}
 	return res, true, err
 }
 

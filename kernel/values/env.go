@@ -18,6 +18,9 @@ type Env struct {
 	// numbers then compute as float64 and matrices through gonum, as
 	// ordinary code would.
 	Float bool
+	// Rounding is on during the audit's input-rounding run (rounding.go):
+	// exact arithmetic on the float64-rounded inputs.
+	Rounding bool
 	// Sweeping is on inside a sampled claim's f or g, where sample k may
 	// be computed by any kernel in any order.
 	Sweeping bool

@@ -14,9 +14,10 @@ import (
 // Matrix is an exact matrix in a cell: over Q, or over Q[variables] when an
 // entry is a polynomial. Exactly one of q and p is set.
 type Matrix struct {
-	q   *exact.Matrix
-	p   *exact.PolyMatrix
-	env *Env
+	q       *exact.Matrix
+	p       *exact.PolyMatrix
+	env     *Env
+	rounded bool // made by the input-rounding run (rounding.go)
 }
 
 // MatrixType is the Python type of Matrix.
@@ -183,6 +184,9 @@ func (e *Env) matrix(a interp.Args) (py.Object, error) {
 	if e.Float {
 		return floatMatrixFromRows(a.Get("rows"))
 	}
+	if e.Rounding {
+		return e.roundingBuiltin(e.matrix, a)
+	}
 	return e.MatrixOf(a.Get("rows"))
 }
 
@@ -198,6 +202,9 @@ func (e *Env) det(a interp.Args) (py.Object, error) {
 		}
 		d, err := exact.FloatDet(f.m)
 		return py.Float(d), err
+	}
+	if e.Rounding {
+		return e.roundingBuiltin(e.det, a)
 	}
 	m, err := e.MatrixOf(a.Get("M"))
 	if err != nil {
@@ -276,6 +283,15 @@ func inFloatToo(name string, f func(*Matrix, interp.Args) (py.Object, error)) fu
 	return func(m *Matrix, a interp.Args) (py.Object, error) {
 		if m.env.Float {
 			return m.floatMethod(name, a)
+		}
+		if m.env.Rounding {
+			return m.env.roundingBuiltin(func(a interp.Args) (py.Object, error) {
+				rounded, err := m.env.RoundIn(m)
+				if err != nil {
+					return nil, err
+				}
+				return f(rounded.(*Matrix), a)
+			}, a)
 		}
 		return f(m, a)
 	}
@@ -460,6 +476,9 @@ func (m *Matrix) M__getitem__(key py.Object) (res py.Object, err error) {
 	if m.env.Float && m.q != nil {
 		return (&FloatMatrix{m: m.q.Float()}).M__getitem__(key)
 	}
+	if m.env.Rounding && m.q != nil {
+		return m.env.rounding(func(xs []py.Object) (py.Object, error) { return xs[0].(*Matrix).M__getitem__(key) }, m)
+	}
 	rows, cols := m.rows(), m.cols()
 	index := func(o py.Object, n int, what string) (int, error) {
 		k, err := py.Index(o)
@@ -546,7 +565,7 @@ func (m *Matrix) scale(o py.Object) (py.Object, error) {
 // M__add__ adds entrywise.
 func (m *Matrix) M__add__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("matrix.__add__", &res, &err)
-	if m.env.Float {
+	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, false, py.Add)
 	}
 	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add)
@@ -555,7 +574,7 @@ func (m *Matrix) M__add__(o py.Object) (res py.Object, err error) {
 // M__sub__ subtracts entrywise.
 func (m *Matrix) M__sub__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("matrix.__sub__", &res, &err)
-	if m.env.Float {
+	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, false, py.Sub)
 	}
 	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub)
@@ -564,7 +583,7 @@ func (m *Matrix) M__sub__(o py.Object) (res py.Object, err error) {
 // M__mul__ is the matrix product, or scaling by a number or polynomial.
 func (m *Matrix) M__mul__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("matrix.__mul__", &res, &err)
-	if m.env.Float {
+	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, false, py.Mul)
 	}
 	if _, ok := o.(*Matrix); ok {
@@ -576,7 +595,7 @@ func (m *Matrix) M__mul__(o py.Object) (res py.Object, err error) {
 // M__rmul__ scales by a number or polynomial on the left.
 func (m *Matrix) M__rmul__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("matrix.__rmul__", &res, &err)
-	if m.env.Float {
+	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, true, py.Mul)
 	}
 	return m.scale(o)
@@ -630,7 +649,11 @@ func (m *Matrix) M__pow__(o, mod py.Object) (res py.Object, err error) {
 // M__neg__ negates every entry.
 func (m *Matrix) M__neg__() (res py.Object, err error) {
 	defer interp.Recover("matrix.__neg__", &res, &err)
-	return m.scale(py.Int(-1))
+	res, err = m.scale(py.Int(-1))
+	if m.rounded && err == nil {
+		res = marked(res)
+	}
+	return res, err
 }
 
 // M__eq__ is exact equality of shape and entries.
@@ -723,7 +746,12 @@ func (m *Matrix) floatMethod(name string, a interp.Args) (py.Object, error) {
 }
 
 // floatOperator applies an operator to the float64 companion of m.
+// In the input-rounding run it applies the exact operator to the rounded
+// values instead.
 func (m *Matrix) floatOperator(o py.Object, swap bool, op func(a, b py.Object) (py.Object, error)) (py.Object, error) {
+	if m.env.Rounding {
+		return m.env.rounding(func(xs []py.Object) (py.Object, error) { return op(xs[0], xs[1]) }, swapped(m, o, swap)...)
+	}
 	fm, err := FloatValue(m)
 	if err != nil {
 		return nil, err

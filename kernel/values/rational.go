@@ -12,8 +12,9 @@ import (
 
 // Rational is an exact rational number in a cell. It is immutable.
 type Rational struct {
-	v   *big.Rat
-	env *Env
+	v       *big.Rat
+	env     *Env
+	rounded bool // made by the input-rounding run (rounding.go)
 }
 
 // RationalType is the Python type of Rational.
@@ -49,10 +50,15 @@ func (e *Env) rationalBuiltins(b py.StringDict) {
 // frac makes an exact rational; in float64 code, its float.
 func (e *Env) frac(a interp.Args) (py.Object, error) {
 	res, err := e.exactFrac(a)
-	if err != nil || !e.Float {
-		return res, err
+	switch {
+	case err != nil:
+		return nil, err
+	case e.Float:
+		return FloatValue(res)
+	case e.Rounding:
+		return e.RoundIn(res)
 	}
-	return FloatValue(res)
+	return res, nil
 }
 
 func (e *Env) exactFrac(a interp.Args) (py.Object, error) {
@@ -154,6 +160,16 @@ func (r *Rational) binary(other py.Object, swap bool, op func(x, y *big.Rat) (*b
 	switch {
 	case ok1 && ok2 && r.env.Float:
 		return fop(toFloatObject(a), toFloatObject(b))
+	case ok1 && ok2 && r.env.Rounding:
+		return r.env.rounding(func(xs []py.Object) (py.Object, error) {
+			x, _ := ExactOf(xs[0])
+			y, _ := ExactOf(xs[1])
+			z, err := op(x, y)
+			if err != nil {
+				return nil, err
+			}
+			return r.env.Rational(z), nil
+		}, a, b)
 	case ok1 && ok2:
 		z, err := op(x, y)
 		if err != nil {
@@ -218,6 +234,9 @@ func (r *Rational) M__pow__(o, mod py.Object) (res py.Object, err error) {
 	if r.env.Float {
 		return py.Pow(toFloatObject(r), toFloatObject(o), py.None)
 	}
+	if r.env.Rounding {
+		return r.env.rounding(func(xs []py.Object) (py.Object, error) { return r.env.power(xs[0], xs[1]) }, r, o)
+	}
 	return r.env.power(r, o)
 }
 
@@ -272,7 +291,7 @@ func (e *Env) power(base, exponent py.Object) (py.Object, error) {
 // M__neg__ negates.
 func (r *Rational) M__neg__() (res py.Object, err error) {
 	defer interp.Recover("rational.__neg__", &res, &err)
-	return r.env.Rational(new(big.Rat).Neg(r.v)), nil
+	return &Rational{v: new(big.Rat).Neg(r.v), env: r.env, rounded: r.rounded}, nil
 }
 
 // M__pos__ returns r.
@@ -284,7 +303,7 @@ func (r *Rational) M__pos__() (res py.Object, err error) {
 // M__abs__ returns |r|.
 func (r *Rational) M__abs__() (res py.Object, err error) {
 	defer interp.Recover("rational.__abs__", &res, &err)
-	return r.env.Rational(new(big.Rat).Abs(r.v)), nil
+	return &Rational{v: new(big.Rat).Abs(r.v), env: r.env, rounded: r.rounded}, nil
 }
 
 // M__bool__ is false only for zero.

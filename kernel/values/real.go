@@ -16,8 +16,9 @@ import (
 // Real is a certified real number in a cell: exact, evaluated lazily to
 // whatever precision a printout, comparison or claim asks for.
 type Real struct {
-	x   *exact.Real
-	env *Env
+	x       *exact.Real
+	env     *Env
+	rounded bool // made by the input-rounding run (rounding.go)
 }
 
 // RealType is the Python type of Real.
@@ -89,6 +90,9 @@ func (e *Env) unary(name string, f func(*exact.Real) *exact.Real, o py.Object) (
 		}
 		return py.Float(floatFunctions[name](x)), nil
 	}
+	if e.Rounding {
+		return e.rounding(func(xs []py.Object) (py.Object, error) { return e.unary(name, f, xs[0]) }, o)
+	}
 	x, ok := RealOf(o)
 	if !ok {
 		return nil, py.ExceptionNewf(py.TypeError, "%s() needs an exact number or a real, got %s%s", name, interp.TypeName(o), FloatHint(o))
@@ -104,6 +108,9 @@ func (e *Env) root(a interp.Args) (py.Object, error) {
 			return nil, py.ExceptionNewf(py.TypeError, "root(x, k) needs numbers")
 		}
 		return py.Float(math.Copysign(math.Pow(math.Abs(f), 1/k), f)), nil
+	}
+	if e.Rounding {
+		return e.roundingBuiltin(e.root, a)
 	}
 	x, ok := RealOf(a.Get("x"))
 	if !ok {
@@ -124,6 +131,9 @@ func (e *Env) atan2(a interp.Args) (py.Object, error) {
 			return nil, py.ExceptionNewf(py.TypeError, "atan2(y, x) needs numbers")
 		}
 		return py.Float(math.Atan2(y, x)), nil
+	}
+	if e.Rounding {
+		return e.roundingBuiltin(e.atan2, a)
 	}
 	y, ok1 := RealOf(a.Get("y"))
 	x, ok2 := RealOf(a.Get("x"))
@@ -215,7 +225,7 @@ func (r *Real) float64() (float64, error) {
 
 func (r *Real) binary(o py.Object, swap bool, op func(a, b *exact.Real) *exact.Real, fop func(a, b py.Object) (py.Object, error)) (res py.Object, err error) {
 	defer interp.Recover("real arithmetic", &res, &err)
-	if r.env.Float {
+	if r.env.Float || r.env.Rounding {
 		return r.floatOperator(o, swap, fop)
 	}
 	y, ok := RealOf(o)
@@ -328,7 +338,7 @@ func (r *Real) M__rpow__(o py.Object) (res py.Object, err error) {
 // M__neg__ negates.
 func (r *Real) M__neg__() (res py.Object, err error) {
 	defer interp.Recover("real.__neg__", &res, &err)
-	return &Real{x: exact.RealNeg(r.x), env: r.env}, nil
+	return &Real{x: exact.RealNeg(r.x), env: r.env, rounded: r.rounded}, nil
 }
 
 // M__pos__ returns r.
@@ -406,7 +416,12 @@ func (r *Real) M__ne__(o py.Object) (py.Object, error) {
 }
 
 // floatOperator applies an operator to the float64 values of r and o (float64 code).
+// In the input-rounding run it applies the exact operator to the rounded
+// values instead.
 func (r *Real) floatOperator(o py.Object, swap bool, op func(a, b py.Object) (py.Object, error)) (py.Object, error) {
+	if r.env.Rounding {
+		return r.env.rounding(func(xs []py.Object) (py.Object, error) { return op(xs[0], xs[1]) }, swapped(r, o, swap)...)
+	}
 	a, err := r.float64()
 	if err != nil {
 		return nil, err
