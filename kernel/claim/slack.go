@@ -95,7 +95,7 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		return fmt.Sprintf("sample %d: %s", sl.K, Clip(sample(sl.K), 200))
 	}
 	if len(it.Smallest) == 0 {
-		c.Verdict, c.Residual = cells.Undecided, "none: f raised on every sample"
+		c.Verdict, c.Residual, c.Why = cells.Undecided, "none: f raised on every sample", cells.SampleRaised
 		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
 		c.Note = fmt.Sprintf("f raised on all %d samples (the first is shown): %s", samples, it.FirstRaise.Text)
 		return
@@ -139,7 +139,7 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 			c.Note += " — an exact counterexample"
 		}
 	case it.Raised > 0:
-		c.Verdict = cells.Undecided
+		c.Verdict, c.Why = cells.Undecided, cells.SampleRaised
 		c.Worst = where(SampleSlack{K: it.FirstRaise.K})
 		c.Note = fmt.Sprintf("f raised on %d of %d samples (the first is shown: %s); the sweep went on, and a claim with samples it could not evaluate cannot hold", it.Raised, samples, it.FirstRaise.Text)
 	case it.Loose > 0 || w.Verdict == cells.HoldsToDigits:

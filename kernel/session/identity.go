@@ -139,6 +139,7 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, f, over, samples py.Ob
 		c.Note = fmt.Sprintf("%d of %d samples have a non-zero residual; the largest is shown", it.Failing, n)
 	}
 	if it.Raised > 0 && c.Verdict == cells.Undecided {
+		c.Why = cells.SampleRaised
 		c.Note = fmt.Sprintf("f raised on %d of %d samples; the sweep went on, and a claim with samples it could not evaluate cannot hold (the first such sample is shown)", it.Raised, n)
 	} else if it.Raised > 0 {
 		c.Note += fmt.Sprintf("; f also raised on %d of %d samples", it.Raised, n)
