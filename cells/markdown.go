@@ -641,8 +641,8 @@ var reasonText = map[Reason]string{
 	SampleRaised: "a sample raised): evaluating the claim raised an exception on a sample, and a claim with " +
 		"samples it could not evaluate cannot hold.",
 	NoSampleMet: "no sample met the hypothesis): none of the samples satisfied given=, so nothing was checked.",
-	OtherReason:  "other): the claim could not be settled either way; its note says why.",
-	"":           "no reason given): the claim could not be settled either way; its note says why.",
+	OtherReason: "other): the claim could not be settled either way; its note says why.",
+	"":          "no reason given): the claim could not be settled either way; its note says why.",
 }
 
 // message is a problem's message without a leading "line N: " that repeats

@@ -372,6 +372,19 @@ func TestReferenceNotebooks(t *testing.T) {
 	}
 }
 
+// Estimated limits are not proofs: --strict exits 1 on a notebook of them,
+// and the summary line counts them apart.
+func TestStrictCountsEstimatesAsNotProved(t *testing.T) {
+	nb := "../../testdata/reference/limits.md"
+	code, out, _ := assay(t, "check", nb)
+	if code != 0 || !strings.Contains(out, "0 holds to digits, 6 estimated, 0 fails, 0 undecided") || !strings.Contains(out, "~ estimated to ") {
+		t.Errorf("exit %d:\n%s", code, out)
+	}
+	if code, _, _ := assay(t, "check", "--strict", nb); code != 1 {
+		t.Errorf("--strict: exit %d, want 1", code)
+	}
+}
+
 func TestInPlaceLeavesUnparsableNotebookAlone(t *testing.T) {
 	nb := copyNotebook(t, "../../testdata/bad/unclosed-fence.md")
 	before, _ := os.ReadFile(nb)

@@ -663,8 +663,8 @@ print(g(7) == g(7), all([-5 <= c <= 5 for k in range(50) for c in g(k)]), len(g(
 	if c := o.Claims[0]; c.Verdict != cells.Holds || !strings.Contains(c.Note, "(2/2001)^20 = 10^-60.0") {
 		t.Errorf("Schwartz–Zippel note: %s %q", c.Verdict, c.Note)
 	}
-	if c := o.Claims[1]; c.Verdict != cells.Undecided || c.Worst != "sample 3: 3" || !strings.Contains(c.Residual, "ZeroDivisionError") {
-		t.Errorf("raising sample: %s worst %q residual %q", c.Verdict, c.Worst, c.Residual)
+	if c := o.Claims[1]; c.Verdict != cells.Undecided || c.Why != cells.SampleRaised || c.Worst != "sample 3: 3" || !strings.Contains(c.Residual, "ZeroDivisionError") {
+		t.Errorf("raising sample: %s (why %q) worst %q residual %q", c.Verdict, c.Why, c.Worst, c.Residual)
 	}
 	if o.Output != "True True 3\n" {
 		t.Errorf("box output %q", o.Output)
@@ -757,8 +757,8 @@ def nested(k):
     return (k, k)
 identity("a claim inside f", nested, over=lambda k: k, samples=3)`)
 	c := rep.Outcomes[0].Claims[0]
-	if c.Verdict != cells.Undecided || c.Worst != "sample 4: 4" || !strings.Contains(c.Note, "f raised on 1 of 10 samples") {
-		t.Errorf("raising sample: %s worst %q note %q", c.Verdict, c.Worst, c.Note)
+	if c.Verdict != cells.Undecided || c.Why != cells.SampleRaised || c.Worst != "sample 4: 4" || !strings.Contains(c.Note, "f raised on 1 of 10 samples") {
+		t.Errorf("raising sample: %s (why %q) worst %q note %q", c.Verdict, c.Why, c.Worst, c.Note)
 	}
 	if c := rep.Outcomes[0].Claims; len(c) != 2 || c[1].Verdict != cells.Undecided || !strings.Contains(c[1].Residual, "a claim cannot be made per sample") {
 		t.Errorf("a claim inside f: %+v", c)
@@ -804,4 +804,20 @@ func TestExceptionReprs(t *testing.T) {
 		{"print(repr(ValueError(\"x\", 2)))", "ValueError('x', 2)"},
 		{"try:\n    1 / 0\nexcept ZeroDivisionError as e:\n    print(repr(e).startswith(\"ZeroDivisionError\"))", "True"},
 	})
+}
+
+// An identity whose residual is exactly zero but not known to be rational
+// (√2·√3 = √6, from memory), scaled by e^148, cannot be enclosed within
+// 2^-64 under a cap of 128 bits: undecided, and it says it was the cap.
+func TestUndecidedAtTheCapSaysWhy(t *testing.T) {
+	st := DefaultSettings
+	st.Precision, st.MaxPrecision = 64, 128
+	rep := runWith(t, st, `identity("sqrt 6", exp(148) * sqrt(2) * sqrt(3), exp(148) * sqrt(6))`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	if c := o.Claims[0]; c.Verdict != cells.Undecided || c.Why != cells.PrecisionCap {
+		t.Errorf("%s (why %q): %s", c.Verdict, c.Why, c.Note)
+	}
 }
