@@ -182,6 +182,10 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		return err
 	}
 	est, agree, why := limits.Agree(w1.est, w2.est)
+	sign := w1.floats[len(w1.floats)-1].Sign()
+	if agree && est.Diverges && w2.floats[len(w2.floats)-1].Sign() != sign {
+		agree, why = false, "they blow up with opposite signs"
+	}
 	if !agree {
 		c.Verdict, c.Residual, c.Why = cells.Undecided, "walks disagree", cells.WalksDisagree
 		c.Note = fmt.Sprintf("the walks at ratios %s and %s disagree: %s; both tables are shown", exact.FormatRat(sp.ratio), exact.FormatRat(sp2.ratio), why) +
@@ -192,7 +196,7 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 	}
 	second := fmt.Sprintf("; a second walk at ratio %s over %d steps agrees", exact.FormatRat(sp2.ratio), len(w2.floats))
 	switch {
-	case est.Diverges && expectInf && w1.floats[len(w1.floats)-1].Sign() > 0:
+	case est.Diverges && expectInf && sign > 0:
 		c.Verdict, c.Residual = cells.Estimated, est.Reason
 		c.Note = "the quantity blows up, as stated: " + est.Reason + " (h is the distance to the target)" + second +
 			"; the growth rate is estimated from finitely many values — an estimate, not a proof"
