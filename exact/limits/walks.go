@@ -116,8 +116,12 @@ func outcome(e Estimate) string {
 	return "shows no convergence (" + e.Reason + ")"
 }
 
+// OrderConsistent is OrderCheck's answer for an estimated order close to
+// the stated one.
+const OrderConsistent = "consistent"
+
 // OrderCheck compares an estimated order (the convergence order, or the
-// growth rate of a blow-up) with a stated one: "holds" within
+// growth rate of a blow-up) with a stated one: OrderConsistent within
 // orderAgreement of max(1, |stated|), "fails" beyond OrderFailure of it,
 // "undecided" in between or when no order was estimated (got = 0 for a
 // converging walk). Like every order here, got is an estimate.
@@ -127,7 +131,7 @@ func OrderCheck(got, stated float64, estimated bool) string {
 	case !estimated:
 		return VerdictUndecided
 	case d <= orderAgreement:
-		return "holds"
+		return OrderConsistent
 	case d > OrderFailure:
 		return VerdictFails
 	}

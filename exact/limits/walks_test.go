@@ -61,7 +61,7 @@ func TestAgree(t *testing.T) {
 	}
 	inv2 := func(x *exact.Real) *exact.Real { return exact.RealQuo(exact.RealFromInt(1), exact.RealMul(x, x)) }
 	e, ok, why = Agree(walkAt(t, r1, 30, inv2), walkAt(t, r2, n2, inv2))
-	if !ok || !e.Diverges || OrderCheck(e.Growth, 2, true) != "holds" {
+	if !ok || !e.Diverges || OrderCheck(e.Growth, 2, true) != OrderConsistent {
 		t.Errorf("1/t²: agree %v (%s), diverges %v, growth %g", ok, why, e.Diverges, e.Growth)
 	}
 	alias := func(x *exact.Real) *exact.Real { return exact.RealSin(exact.RealQuo(exact.Pi(), x)) }
@@ -82,8 +82,8 @@ func TestOrderCheck(t *testing.T) {
 		estimated   bool
 		want        string
 	}{
-		{2.01, 2, true, "holds"}, {1.0, 2, true, VerdictFails}, {2.3, 2, true, VerdictUndecided},
-		{0, 2, false, VerdictUndecided}, {0.52, 0.5, true, "holds"}, {0.7, 0.5, true, VerdictUndecided}, {0.9, 0.5, true, VerdictFails},
+		{2.01, 2, true, OrderConsistent}, {1.0, 2, true, VerdictFails}, {2.3, 2, true, VerdictUndecided},
+		{0, 2, false, VerdictUndecided}, {0.52, 0.5, true, OrderConsistent}, {0.7, 0.5, true, VerdictUndecided}, {0.9, 0.5, true, VerdictFails},
 	} {
 		if got := OrderCheck(tc.got, tc.stated, tc.estimated); got != tc.want {
 			t.Errorf("OrderCheck(%g, %g, %v) = %s, want %s", tc.got, tc.stated, tc.estimated, got, tc.want)

@@ -218,7 +218,7 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		verdict, digits, gap := limits.Compare(est, e)
 		c.Residual = "gap " + gap.Text('e', 3)
 		switch verdict {
-		case limits.VerdictHolds:
+		case limits.VerdictEstimated:
 			c.Verdict, c.Digits = cells.Estimated, min(digits, t.Digits())
 		case limits.VerdictFails:
 			c.Verdict = cells.Fails
@@ -277,7 +277,7 @@ func checkOrder(c *cells.Claim, stated float64, ests ...limits.Estimate) {
 	}
 	what := fmt.Sprintf("; the stated order %s against the walks' estimates %s", limits.FormatOrder(stated), strings.Join(got, " and "))
 	switch {
-	case verdict == "holds":
+	case verdict == limits.OrderConsistent:
 		c.Note += what + ": consistent (an order estimate is itself an estimate)"
 	case c.Verdict != cells.Estimated:
 		c.Note += what
