@@ -635,8 +635,8 @@ var reasonText = map[Reason]string{
 		"non-zero; raise --max-precision or ask for fewer digits.",
 	NoConvergence: "no convergence seen): the values along the walk did not settle, so no limit was estimated; " +
 		"the claim's note says what the walk showed.",
-	WalksDisagree: "the walks disagree): walks toward the target at two ratios whose logarithms are not rationally " +
-		"related gave different answers, as when a quantity oscillates on a lattice of scales that one walk " +
+	WalksDisagree: "the walks disagree): walks toward the target at two ratios whose logarithms are not in a ratio of " +
+		"small integers gave different answers, as when a quantity oscillates on a lattice of scales that one walk " +
 		"alone cannot see; both walks' tables are shown.",
 	SampleRaised: "a sample raised): evaluating the claim raised an exception on a sample, and a claim with " +
 		"samples it could not evaluate cannot hold.",

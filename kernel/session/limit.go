@@ -166,7 +166,9 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		s.limitTable(c.Name, w1, "")
 		return nil
 	}
-	c.Method = w1.est.Method
+	if w1.est.Method != "" {
+		c.Method = w1.est.Method
+	}
 	if w1.est.Limit == nil && !w1.est.Diverges {
 		c.Verdict, c.Residual, c.Why = cells.Undecided, "no convergence seen", cells.NoConvergence
 		c.Note = "no limit found: " + w1.est.Reason + w1.stopped()
