@@ -32,7 +32,7 @@ func (m *htmlMarks) verdict(class string) string {
 }
 
 // verdictClass is the CSS class of each verdict's table cell.
-var verdictClass = map[Verdict]string{Holds: "v-holds", HoldsToDigits: "v-digits", Fails: "v-fails", Undecided: "v-undecided"}
+var verdictClass = map[Verdict]string{Holds: "v-holds", HoldsToDigits: "v-digits", Estimated: "v-estimated", Fails: "v-fails", Undecided: "v-undecided"}
 
 // RenderHTML returns the report as a self-contained HTML5 page: the Markdown
 // report (with header) converted by gomarkdown, raw HTML in the notebook
@@ -214,6 +214,7 @@ td code { overflow-wrap: anywhere; }
 td.verdict { font-weight: 600; white-space: nowrap; }
 td.v-holds { background: #e6f4e8; color: #145a20; }
 td.v-digits { background: #eaf1fb; color: #1d4e89; }
+td.v-estimated { background: #f1ecf8; color: #4f2f7a; font-style: italic; }
 td.v-fails { background: #fbe9e9; color: #8f1d1d; }
 td.v-undecided { background: #fbf4e2; color: #6d5210; }
 figure { margin: 1rem 0; }

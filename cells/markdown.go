@@ -10,13 +10,20 @@ import (
 )
 
 // VerdictLabel is a claim's verdict in words, readable without colour:
-// "✔ holds", "≈ holds to 40 digits", "✘ fails" or "? undecided".
+// "✔ holds", "≈ holds to 40 digits", "~ estimated to 12 digits", "✘ fails"
+// or "? undecided". An estimate's "~" differs from the certified "≈" on
+// purpose; an estimate without digits (a blow-up) is "~ estimated".
 func VerdictLabel(c Claim) string {
 	switch c.Verdict {
 	case Holds:
 		return "✔ holds"
 	case HoldsToDigits:
 		return fmt.Sprintf("≈ holds to %d digits", c.Digits)
+	case Estimated:
+		if c.Digits > 0 {
+			return fmt.Sprintf("~ estimated to %d digits", c.Digits)
+		}
+		return "~ estimated"
 	case Fails:
 		return "✘ fails"
 	case Undecided:
@@ -326,14 +333,8 @@ func (w *mdWriter) headerContent() string {
 			"(formula) and what rounding the inputs loses by itself (inputs: the exact formula at the rounded inputs, the problem's condition):\n\n"+
 			mdTable([]string{"#", "claim", "float64 residual", "lhs digits lost", "rhs digits lost"}, lossy))
 	}
-	c := Counts(r)
-	if c[HoldsToDigits] > 0 {
-		paras = append(paras, "A verdict “≈ holds to N digits” is evidence, not a proof: the residual was certified "+
-			"smaller than 10^-N in absolute value where it was checked, which does not show that it is exactly zero.")
-	}
-	if c[Undecided] > 0 {
-		paras = append(paras, "A verdict “? undecided” means the precision cap was reached before the residual "+
-			"could be certified zero or non-zero.")
+	if l := legend(claims); l != "" {
+		paras = append(paras, l)
 	}
 	return strings.Join(paras, "\n\n") + "\n"
 }
@@ -375,6 +376,9 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		paras = append(paras, mdTable([]string{"#", "claim", "kind", "method", "residual", "verdict"}, rows))
 		if len(notes) > 0 {
 			paras = append(paras, strings.Join(notes, "\n"))
+		}
+		if l := legend(o.Claims); l != "" {
+			paras = append(paras, l)
 		}
 	}
 	for i, f := range o.Figures {
@@ -464,7 +468,7 @@ func claimDetails(n int, c Claim) string {
 	if c.Worst != "" {
 		at := "largest residual at "
 		if c.Kind == "inequality" {
-			at = "smallest slack at "
+			at = "shown sample: " // which one, the note says (ranked by relative or absolute slack)
 		}
 		facts = append(facts, at+codeSpan(visible(c.Worst)))
 	}
@@ -582,10 +586,62 @@ func truncate(s string, n int) string {
 // seconds formats a duration in seconds.
 func seconds(s float64) string { return fmt.Sprintf("%.3f s", s) }
 
-// countsPhrase is e.g. "3 holds, 1 holds to digits, 0 fails, 0 undecided".
+// countsPhrase is e.g. "3 holds, 1 holds to digits, 1 estimated, 0 fails,
+// 0 undecided".
 func countsPhrase(c map[Verdict]int) string {
-	return fmt.Sprintf("%d holds, %d holds to digits, %d fails, %d undecided",
-		c[Holds], c[HoldsToDigits], c[Fails], c[Undecided])
+	return fmt.Sprintf("%d holds, %d holds to digits, %d estimated, %d fails, %d undecided",
+		c[Holds], c[HoldsToDigits], c[Estimated], c[Fails], c[Undecided])
+}
+
+// legend explains the verdicts among claims that say less than a proof or
+// a refutation, one paragraph each, in a fixed order; "? undecided" once
+// for each reason present. It is empty when there is nothing to explain.
+func legend(claims []Claim) string {
+	has := map[Verdict]bool{}
+	why := map[Reason]bool{}
+	for _, c := range claims {
+		has[c.Verdict] = true
+		if c.Verdict == Undecided {
+			why[c.Why] = true
+		}
+	}
+	var paras []string
+	if has[HoldsToDigits] {
+		paras = append(paras, "“≈ holds to N digits” is evidence, not a proof: the residual was certified "+
+			"smaller than 10^-N in absolute value where it was checked, which does not show that it is exactly zero.")
+	}
+	if has[Estimated] {
+		paras = append(paras, "“~ estimated to N digits” is an extrapolation, not a certified bound: the limit was "+
+			"extrapolated from finitely many values along two walks toward the target, and N is how far their "+
+			"successive estimates agree; a quantity that changes its behaviour beyond the last step can fool it. "+
+			"“~ estimated” without digits is a blow-up estimated in the same way.")
+	}
+	for _, r := range reasonOrder {
+		if why[r] {
+			paras = append(paras, "“? undecided” ("+reasonText[r])
+		}
+	}
+	return strings.Join(paras, "\n\n")
+}
+
+// reasonOrder is the order of the undecided reasons in a legend; "" is a
+// claim that gives none.
+var reasonOrder = []Reason{PrecisionCap, NoConvergence, WalksDisagree, SampleRaised, NoSampleMet, OtherReason, ""}
+
+// reasonText completes the legend's "“? undecided” (" for each reason.
+var reasonText = map[Reason]string{
+	PrecisionCap: "precision cap): the precision cap was reached before the residual could be certified zero or " +
+		"non-zero; raise --max-precision or ask for fewer digits.",
+	NoConvergence: "no convergence seen): the values along the walk did not settle, so no limit was estimated; " +
+		"the claim's note says what the walk showed.",
+	WalksDisagree: "the walks disagree): walks toward the target at two ratios whose logarithms are not in a ratio of " +
+		"small integers gave different answers, as when a quantity oscillates on a lattice of scales that one walk " +
+		"alone cannot see; both walks' tables are shown.",
+	SampleRaised: "a sample raised): evaluating the claim raised an exception on a sample, and a claim with " +
+		"samples it could not evaluate cannot hold.",
+	NoSampleMet: "no sample met the hypothesis): none of the samples satisfied given=, so nothing was checked.",
+	OtherReason: "other): the claim could not be settled either way; its note says why.",
+	"":          "no reason given): the claim could not be settled either way; its note says why.",
 }
 
 // message is a problem's message without a leading "line N: " that repeats

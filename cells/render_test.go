@@ -7,6 +7,7 @@ import (
 	"os"
 	"path/filepath"
 	"reflect"
+	"slices"
 	"sort"
 	"strings"
 	"testing"
@@ -52,7 +53,7 @@ func sampleReport(t *testing.T, src []byte) *Report {
 		Precision:  256,
 		Seconds:    1.5,
 		FigureBase: "notebooks/sample.report",
-		Problems:   []Problem{{Line: 30, Message: `the figure "triangle" has no caption`}},
+		Problems:   []Problem{{Line: 31, Message: `the figure "triangle" has no caption`}},
 		Outcomes: []Outcome{
 			{Cell: 1, Status: Ran, Output: "s = 6\n", Seconds: 0.012, Claims: []Claim{{
 				Name: "heron", Kind: "identity", Method: "exact rational arithmetic", Verdict: Holds,
@@ -71,11 +72,14 @@ func sampleReport(t *testing.T, src []byte) *Report {
 					{Name: "bad", Kind: "identity", Method: "exact rational arithmetic", Verdict: Fails,
 						Residual: "2*b", Worst: "a=1, b=3", Samples: 20, Seed: 7, Cell: 2, Line: 18, Seconds: 0.01},
 					{Name: "slow", Kind: "inequality", Method: "certified intervals", Verdict: Undecided,
-						Residual: strings.Repeat("0.0000000000", 8) + " ± 1e-80", Precision: 4096, Cell: 2, Line: 19, Seconds: 0.12},
+						Residual: strings.Repeat("0.0000000000", 8) + " ± 1e-80", Precision: 4096, Cell: 2, Line: 19, Seconds: 0.12, Why: PrecisionCap},
+					{Name: "sinc", Kind: "limit", Method: "Richardson", Verdict: Estimated, Digits: 25,
+						Residual: "gap 3.1e-31", Precision: 256, Cell: 2, Line: 20, Seconds: 0.05,
+						Note: "estimated limit 1 against the expected 1; an estimate, not a certified bound"},
 				},
 				Figures: []Figure{{Name: "triangle", SVG: `<svg xmlns="http://www.w3.org/2000/svg" width="40" height="30"><path d="M0 30 L40 30 L0 0 Z" fill="none" stroke="black"/></svg>`}},
 			},
-			{Cell: 3, Status: Failed, Seconds: 0.001, Error: &Problem{Cell: 3, Line: 29, Message: "ZeroDivisionError: division by zero"}},
+			{Cell: 3, Status: Failed, Seconds: 0.001, Error: &Problem{Cell: 3, Line: 30, Message: "ZeroDivisionError: division by zero"}},
 			{Cell: 4, Status: NotRun},
 		},
 	}
@@ -178,11 +182,18 @@ func TestRenderJSON(t *testing.T) {
 	if err := json.Unmarshal(out, &doc); err != nil {
 		t.Fatal(err)
 	}
-	if len(doc.Claims) != 4 || len(doc.Errors) != 2 || doc.Exit != 2 {
+	if len(doc.Claims) != 5 || len(doc.Errors) != 2 || doc.Exit != 2 {
 		t.Fatalf("got %d claims, %d errors, exit %d", len(doc.Claims), len(doc.Errors), doc.Exit)
 	}
 	if got := keys(doc.Claims[0]); got != "cell,digits,kind,line,method,name,residual,seconds,verdict" {
 		t.Errorf("claim keys %s", got)
+	}
+	// An undecided claim says why; an estimate says so in its verdict.
+	if got := string(doc.Claims[3]["why"]); got != `"precision-cap"` {
+		t.Errorf("undecided claim's why = %s", got)
+	}
+	if got := string(doc.Claims[4]["verdict"]); got != `"estimated"` {
+		t.Errorf("estimated claim's verdict = %s", got)
 	}
 	if got := keys(doc.Errors[0]); got != "cell,line,message" {
 		t.Errorf("error keys %s", got)
@@ -202,10 +213,12 @@ func TestRenderCheck(t *testing.T) {
 	b.Reset()
 	RenderCheck(&b, &Report{Notebook: &Notebook{Path: "notebooks/x.md"}, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
 		{Name: "a", Verdict: Holds, Residual: "0", Line: 3}, {Name: "b", Verdict: HoldsToDigits, Digits: 30, Residual: "1e-31", Line: 4},
+		{Name: "c", Verdict: Estimated, Digits: 12, Residual: "gap 0", Line: 5},
 	}}}})
-	want := "✔ holds               a  0      notebooks/x.md:3\n" +
-		"≈ holds to 30 digits  b  1e-31  notebooks/x.md:4\n" +
-		"notebooks/x.md: 2 claims — 1 holds, 1 holds to digits, 0 fails, 0 undecided; 0 errors\n"
+	want := "✔ holds                   a  0      notebooks/x.md:3\n" +
+		"≈ holds to 30 digits      b  1e-31  notebooks/x.md:4\n" +
+		"~ estimated to 12 digits  c  gap 0  notebooks/x.md:5\n" +
+		"notebooks/x.md: 3 claims — 1 holds, 1 holds to digits, 1 estimated, 0 fails, 0 undecided; 0 errors\n"
 	if b.String() != want {
 		t.Errorf("got\n%s\nwant\n%s", b.String(), want)
 	}
@@ -218,6 +231,8 @@ func TestVerdictLabel(t *testing.T) {
 	}{
 		{Claim{Verdict: Holds}, "✔ holds"},
 		{Claim{Verdict: HoldsToDigits, Digits: 40}, "≈ holds to 40 digits"},
+		{Claim{Verdict: Estimated, Digits: 12}, "~ estimated to 12 digits"},
+		{Claim{Verdict: Estimated}, "~ estimated"},
 		{Claim{Verdict: Fails}, "✘ fails"},
 		{Claim{Verdict: Undecided}, "? undecided"},
 	} {
@@ -243,6 +258,7 @@ func TestExitCode(t *testing.T) {
 		{"nothing", Report{}, 0, 0},
 		{"all hold", Report{Outcomes: claims(Holds, Holds)}, 0, 0},
 		{"holds to digits", Report{Outcomes: claims(Holds, HoldsToDigits)}, 0, 1},
+		{"estimated", Report{Outcomes: claims(Holds, Estimated)}, 0, 1},
 		{"fails", Report{Outcomes: claims(Holds, Fails)}, 1, 1},
 		{"undecided", Report{Outcomes: claims(Undecided)}, 1, 1},
 		{"notebook problem", Report{Outcomes: claims(Holds), Problems: []Problem{{Line: 1, Message: "x"}}}, 2, 2},
@@ -261,7 +277,7 @@ func TestExitCode(t *testing.T) {
 
 func TestCounts(t *testing.T) {
 	got := Counts(sampleReport(t, readSample(t)))
-	want := map[Verdict]int{Holds: 1, HoldsToDigits: 1, Fails: 1, Undecided: 1}
+	want := map[Verdict]int{Holds: 1, HoldsToDigits: 1, Estimated: 1, Fails: 1, Undecided: 1}
 	if !reflect.DeepEqual(got, want) {
 		t.Errorf("Counts = %v, want %v", got, want)
 	}
@@ -507,5 +523,51 @@ func TestMarkdownFigureLinks(t *testing.T) {
 	r.FigureBase = ""
 	if md := string(RenderMarkdown(r, true)); strings.Contains(md, "![") || !strings.Contains(md, "*Figure: first* (an SVG drawing, shown in the HTML report)") {
 		t.Errorf("without FigureBase:\n%s", md)
+	}
+}
+
+// TestLegendExplainsOnlyWhatIsPresent: each claims table is followed by a
+// legend for the verdicts in it and for the reason of each undecided one,
+// and by nothing else.
+func TestLegendExplainsOnlyWhatIsPresent(t *testing.T) {
+	digits := "“≈ holds to N digits”"
+	estimate := "“~ estimated to N digits”"
+	undecided := func(why string) string { return "“? undecided” (" + why + ")" }
+	all := []string{digits, estimate, undecided("precision cap"), undecided("no convergence seen"),
+		undecided("the walks disagree"), undecided("a sample raised"), undecided("no sample met the hypothesis"), undecided("other")}
+	for _, tc := range []struct {
+		name   string
+		claims []Claim
+		want   []string
+	}{
+		{"proofs need none", []Claim{{Verdict: Holds}, {Verdict: Fails}}, nil},
+		{"digits", []Claim{{Verdict: HoldsToDigits, Digits: 30}}, []string{digits}},
+		{"estimate", []Claim{{Verdict: Estimated, Digits: 9}, {Verdict: Holds}}, []string{estimate}},
+		{"cap", []Claim{{Verdict: Undecided, Why: PrecisionCap}}, []string{undecided("precision cap")}},
+		{"walks", []Claim{{Verdict: Undecided, Why: WalksDisagree}, {Verdict: Estimated}}, []string{estimate, undecided("the walks disagree")}},
+		{"no convergence", []Claim{{Verdict: Undecided, Why: NoConvergence}}, []string{undecided("no convergence seen")}},
+		{"hypothesis", []Claim{{Verdict: Undecided, Why: NoSampleMet}, {Verdict: Undecided, Why: SampleRaised}},
+			[]string{undecided("a sample raised"), undecided("no sample met the hypothesis")}},
+		{"other", []Claim{{Verdict: Undecided, Why: OtherReason}}, []string{undecided("other")}},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			r := &Report{Notebook: &Notebook{Path: "x.md"}, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: tc.claims}}}
+			nb, err := Parse("x.md", []byte("# T\n\n```cell\nx = 1\n```\n"))
+			if err != nil {
+				t.Fatal(err)
+			}
+			r.Notebook = nb
+			md := string(RenderMarkdown(r, true))
+			for _, phrase := range all {
+				// The header's table and the cell's each have their legend.
+				want := 0
+				if slices.Contains(tc.want, phrase) {
+					want = 2
+				}
+				if got := strings.Count(md, phrase); got != want {
+					t.Errorf("%q appears %d times, want %d:\n%s", phrase, got, want, md)
+				}
+			}
+		})
 	}
 }

@@ -62,13 +62,13 @@ func failedCells(r *Report) int {
 
 // ExitCode is the process exit status for a report: 2 if the notebook has a
 // problem or a cell failed; else 1 if a claim fails or is undecided (or, when
-// strict, holds only to digits); else 0.
+// strict, holds only to digits or is an estimate); else 0.
 func ExitCode(r *Report, strict bool) int {
 	if len(r.Problems) > 0 || failedCells(r) > 0 {
 		return 2
 	}
 	c := Counts(r)
-	if c[Fails] > 0 || c[Undecided] > 0 || (strict && c[HoldsToDigits] > 0) {
+	if c[Fails] > 0 || c[Undecided] > 0 || (strict && c[HoldsToDigits]+c[Estimated] > 0) {
 		return 1
 	}
 	return 0
@@ -82,6 +82,8 @@ type jsonClaim struct {
 	Verdict  Verdict     `json:"verdict"`
 	Residual string      `json:"residual"`
 	Digits   int         `json:"digits"`
+	Why      Reason      `json:"why,omitempty"`    // why a claim is undecided
+	Sample   string      `json:"sample,omitempty"` // the shown sample or counterexample as cell code
 	Cell     int         `json:"cell"`
 	Line     int         `json:"line"`
 	Seconds  float64     `json:"seconds"`
@@ -105,7 +107,8 @@ type jsonReport struct {
 
 // RenderJSON returns the machine-readable summary:
 // {"notebook", "sha256", "claims": [{"name", "kind", "method", "verdict",
-// "residual", "digits", "cell", "line", "seconds", "float"}], "errors": [{"cell",
+// "residual", "digits", "why" (undecided only), "sample" (where one is
+// shown), "cell", "line", "seconds", "float"}], "errors": [{"cell",
 // "line", "message"}], "warnings": [{"cell", "line", "message"}], "exit"},
 // indented, ending in a newline. errors holds the notebook problems and
 // then the cell errors; warnings (absent when there are none) the
@@ -116,7 +119,7 @@ func RenderJSON(r *Report, exit int) []byte {
 		j.Notebook = r.Notebook.Path
 	}
 	for _, c := range allClaims(r) {
-		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Cell, c.Line, c.Seconds, c.Float})
+		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Why, c.Sample, c.Cell, c.Line, c.Seconds, c.Float})
 	}
 	for _, e := range allErrors(r) {
 		j.Errors = append(j.Errors, jsonError{e.Cell, e.Line, message(e)})
@@ -137,8 +140,8 @@ func RenderJSON(r *Report, exit int) []byte {
 // RenderCheck writes terminal lines: each notebook problem and cell error
 // as "path:line: message", each warning as "path:line: warning: message",
 // one line per claim (verdict, name, residual, path:line), then a summary
-// line such as "x.md: 4 claims — 3 holds, 1 holds to digits, 0 fails, 0
-// undecided; 0 errors" (with "; 2 warnings" when there are any). Text from
+// line such as "x.md: 5 claims — 3 holds, 1 holds to digits, 1 estimated,
+// 0 fails, 0 undecided; 0 errors" (with "; 2 warnings" when there are any). Text from
 // the notebook has its control characters escaped, and a claim name that
 // could pass for a verdict is quoted.
 func RenderCheck(w io.Writer, r *Report) {

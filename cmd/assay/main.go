@@ -146,7 +146,7 @@ func addRunFlags(fs *flag.FlagSet) *runFlags {
 }
 
 func addStrictFlag(fs *flag.FlagSet, strict *bool) {
-	fs.BoolVar(strict, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits counts as not proved)")
+	fs.BoolVar(strict, "strict", false, "exit 1 unless every claim holds exactly (holds-to-digits and estimated count as not proved)")
 }
 
 // reportFlags say where the reports of run and merge go.

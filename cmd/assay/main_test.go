@@ -348,7 +348,7 @@ func TestDemoReportsAreCurrent(t *testing.T) {
 
 // The reference notebooks check what a notebook can reach against published
 // values (sources named in each notebook); every claim must hold (exactly,
-// or to digits where certified reals decide it).
+// or to digits where certified reals decide it), or be estimated (limits).
 func TestReferenceNotebooks(t *testing.T) {
 	refs, _ := filepath.Glob("../../testdata/reference/*.md")
 	if len(refs) == 0 {
@@ -367,11 +367,25 @@ func TestReferenceNotebooks(t *testing.T) {
 			t.Errorf("%s: exit %d, %d claims, errors %v", nb, code, len(doc.Claims), doc.Errors)
 		}
 		for _, c := range doc.Claims {
-			// Certified reals can only ever hold to digits; anything else fails the check.
-			if c.Verdict != "holds" && c.Verdict != "holds-to-digits" {
+			// Certified reals can only ever hold to digits, and limits are
+			// estimates; anything else fails the check.
+			if c.Verdict != "holds" && c.Verdict != "holds-to-digits" && c.Verdict != "estimated" {
 				t.Errorf("%s: %q %s", nb, c.Name, c.Verdict)
 			}
 		}
+	}
+}
+
+// Estimated limits are not proofs: --strict exits 1 on a notebook of them,
+// and the summary line counts them apart.
+func TestStrictCountsEstimatesAsNotProved(t *testing.T) {
+	nb := "../../testdata/reference/limits.md"
+	code, out, _ := assay(t, "check", nb)
+	if code != 0 || !strings.Contains(out, "0 holds to digits, 6 estimated, 0 fails, 0 undecided") || !strings.Contains(out, "~ estimated to ") {
+		t.Errorf("exit %d:\n%s", code, out)
+	}
+	if code, _, _ := assay(t, "check", "--strict", nb); code != 1 {
+		t.Errorf("--strict: exit %d, want 1", code)
 	}
 }
 

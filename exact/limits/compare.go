@@ -7,7 +7,7 @@ import (
 
 // The verdicts Compare returns.
 const (
-	VerdictHolds     = "holds-to-digits"
+	VerdictEstimated = "estimated"
 	VerdictFails     = "fails"
 	VerdictUndecided = "undecided"
 )
@@ -20,7 +20,7 @@ const FailFactor = 10
 // Compare decides a limit claim against an expected value (which should
 // be known to more digits than the estimate; a float64 constant is not):
 //
-//   - "holds-to-digits" when the gap |Limit − expect| is within ErrorEst,
+//   - "estimated" when the gap |Limit − expect| is within ErrorEst,
 //     with digits = e.Digits (at least 1 digit must be trusted, else the
 //     verdict is "undecided");
 //   - "fails" when the gap exceeds FailFactor × ErrorEst, with digits the
@@ -49,7 +49,7 @@ func Compare(e Estimate, expect *big.Float) (verdict string, digits int, gap *bi
 		if e.Digits < 1 {
 			return VerdictUndecided, 0, gap
 		}
-		return VerdictHolds, e.Digits, gap
+		return VerdictEstimated, e.Digits, gap
 	case gap.Cmp(new(big.Float).Mul(e.ErrorEst, big.NewFloat(FailFactor))) > 0:
 		return VerdictFails, agree, gap
 	}

@@ -88,6 +88,16 @@
 // says which. Irregular but geometric convergence (t·sin(1/t)) leaves only
 // the last term.
 //
+// # Two walks
+//
+// A geometric walk sees f only at the scales ratio^k, so a quantity that
+// oscillates in log t with a period dividing log(1/ratio), or vanishes on
+// that lattice, looks constant along it. SecondRatio picks a second ratio
+// whose logarithm is no small rational multiple of the first's, and Agree
+// accepts a limit (or a blow-up) only when both walks find it within
+// their error estimates. OrderCheck compares an estimated order with a
+// stated one. All of it is still an estimate.
+//
 // Compare turns an estimate and an expected value into a verdict: the
 // digits that agree when the gap is within the error estimate, a failure
 // when the gap is clearly (ten times) larger, undecided in between.

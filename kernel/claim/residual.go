@@ -222,7 +222,7 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		c.Verdict, c.Method, c.Digits = cells.HoldsToDigits, RealMethod, r.Certified
 		c.Note = fmt.Sprintf("certified |residual| < 10^-%d %s: evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision", r.Certified, every)
 	case r.Undecided:
-		c.Verdict, c.Method = cells.Undecided, RealMethod
+		c.Verdict, c.Method, c.Why = cells.Undecided, RealMethod, cells.PrecisionCap
 		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits="
 	case r.Symbolic:
 		c.Verdict, c.Method = cells.Fails, PolyMethod

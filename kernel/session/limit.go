@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 	"math/big"
+	"strings"
 
 	"github.com/go-python/gpython/py"
 
@@ -16,11 +17,14 @@ import (
 	"assay/kernel/values"
 )
 
-const limitDoc = `limit(name, f, toward=0, expect=None, steps=30, ratio=1/2, digits=None)
-evaluates f(t) along t = toward + ratio^k (or ratio^-k toward infinity),
-extrapolates the limit and its convergence order, and compares it with expect.`
+const limitDoc = `limit(name, f, toward=0, expect=None, steps=30, ratio=1/2, digits=None, order=None)
+evaluates f(t) along t = toward + ratio^k (or ratio^-k toward infinity) and
+along a second walk at an incommensurable ratio, extrapolates the limit and
+its convergence order, and compares them with expect (a value, or infinity
+for a blow-up) and order (the h^p of the error, or of the growth). The
+result is an estimate, never a certified bound.`
 
-var limitParams = []string{"name", "f", "toward=", "expect=", "steps=", "ratio=", "digits="}
+var limitParams = []string{"name", "f", "toward=", "expect=", "steps=", "ratio=", "digits=", "order="}
 
 // walkSpec is the parameter walk shared by limit() and sequence().
 type walkSpec struct {
@@ -34,13 +38,9 @@ func walkArgs(fn string, a interp.Args) (walkSpec, error) {
 	sp := walkSpec{toward: limits.ToZero, value: new(big.Rat), ratio: big.NewRat(1, 2), steps: 30}
 	switch toward := a.Get("toward"); {
 	case toward == nil:
-	case toward == py.Object(values.Infinity{}):
+	case isInfinity(toward):
 		sp.toward = limits.ToInfinity
 	default:
-		if f, ok := toward.(py.Float); ok && math.IsInf(float64(f), 1) {
-			sp.toward = limits.ToInfinity
-			break
-		}
 		v, ok := values.ExactOf(toward)
 		if !ok {
 			return sp, py.ExceptionNewf(py.TypeError, "%s(): toward must be an exact number or infinity, got %s", fn, interp.TypeName(toward))
@@ -138,38 +138,79 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		return err
 	}
 	var expect *exact.Real
-	if a.Given("expect") {
+	expectInf := isInfinity(a.Get("expect"))
+	if a.Given("expect") && !expectInf {
 		var ok bool
 		if expect, ok = values.RealOf(a.Get("expect")); !ok {
-			return py.ExceptionNewf(py.TypeError, "limit(): expect must be an exact number or a real, got %s%s", interp.TypeName(a.Get("expect")), values.FloatHint(a.Get("expect")))
+			return py.ExceptionNewf(py.TypeError, "limit(): expect must be an exact number, a real or infinity, got %s%s", interp.TypeName(a.Get("expect")), values.FloatHint(a.Get("expect")))
 		}
+	}
+	order, hasOrder := 0.0, a.Given("order")
+	if hasOrder {
+		q, ok := values.ExactOf(a.Get("order"))
+		if !ok || q.Sign() <= 0 {
+			return py.ExceptionNewf(py.ValueError, "limit(): order must be a positive exact number (the h^p of the error, or of the growth with expect=infinity), e.g. 2 or frac(1, 2)")
+		}
+		order, _ = q.Float64()
 	}
 	// Extrapolation cancels digits: evaluate f three times more precisely than the target.
 	prec := min(3*t.Bits+64, t.Cap)
 	c.Method, c.Precision = "extrapolation", int(prec)
-	ts, hs, vals, werr := s.walk(sp, f)
-	floats, aerr := approximations(vals, prec, t.Cap)
-	if floats == nil && aerr != nil {
-		return aerr // f returned something that is not a number
+	w1, err := s.limitWalk(sp, f, prec, t.Cap)
+	if err != nil {
+		return err
 	}
-	if aerr != nil {
-		werr, ts, hs = aerr, ts[:len(floats)], hs[:len(floats)]
+	if len(w1.floats) < 3 {
+		c.Verdict, c.Residual, c.Why = cells.Undecided, "too few values", cells.OtherReason
+		c.Note = fmt.Sprintf("%v; fewer than 3 values, nothing to extrapolate", w1.stop)
+		s.limitTable(c.Name, w1, "")
+		return nil
 	}
-	var est limits.Estimate
-	if len(floats) >= 3 {
-		est = limits.Analyse(hs, floats)
-		c.Method = est.Method
+	if w1.est.Method != "" {
+		c.Method = w1.est.Method
 	}
+	if w1.est.Limit == nil && !w1.est.Diverges {
+		c.Verdict, c.Residual, c.Why = cells.Undecided, "no convergence seen", cells.NoConvergence
+		c.Note = "no limit found: " + w1.est.Reason + w1.stopped()
+		s.limitTable(c.Name, w1, "")
+		return nil
+	}
+	// A walk sees only the scales ratio^k: a second walk at a ratio whose
+	// logarithm is not a small rational multiple of the first's must agree.
+	sp2 := sp
+	sp2.ratio, sp2.steps = limits.SecondRatio(sp.ratio, sp.steps)
+	w2, err := s.limitWalk(sp2, f, prec, t.Cap)
+	if err != nil {
+		return err
+	}
+	est, agree, why := limits.Agree(w1.est, w2.est)
+	sign := w1.floats[len(w1.floats)-1].Sign()
+	if agree && est.Diverges && w2.floats[len(w2.floats)-1].Sign() != sign {
+		agree, why = false, "they blow up with opposite signs"
+	}
+	if !agree {
+		c.Verdict, c.Residual, c.Why = cells.Undecided, "walks disagree", cells.WalksDisagree
+		c.Note = fmt.Sprintf("the walks at ratios %s and %s disagree: %s; both tables are shown", exact.FormatRat(sp.ratio), exact.FormatRat(sp2.ratio), why) +
+			w1.stopped() + w2.stopped()
+		s.limitTable(c.Name, w1, "first walk")
+		s.limitTable(c.Name, w2, "second walk")
+		return nil
+	}
+	second := fmt.Sprintf("; a second walk at ratio %s over %d steps agrees", exact.FormatRat(sp2.ratio), len(w2.floats))
 	switch {
-	case len(floats) < 3:
-		c.Verdict, c.Residual = cells.Undecided, "too few values"
-		c.Note = fmt.Sprintf("%v; fewer than 3 values, nothing to extrapolate", werr)
+	case est.Diverges && expectInf && sign > 0:
+		c.Verdict, c.Residual = cells.Estimated, est.Reason
+		c.Note = "the quantity blows up, as stated: " + est.Reason + " (h is the distance to the target)" + second +
+			"; the growth rate is estimated from finitely many values — an estimate, not a proof"
+	case est.Diverges && expectInf:
+		c.Verdict, c.Residual = cells.Fails, est.Reason
+		c.Note = "the quantity tends to −infinity, not infinity: " + est.Reason + second + "; an estimate, not a proof (state the limit of −f)"
 	case est.Diverges:
 		c.Verdict, c.Residual = cells.Fails, est.Reason
-		c.Note = "the quantity blows up: " + est.Reason + " (h is the distance to the target); not a limit"
-	case est.Limit == nil:
-		c.Verdict, c.Residual = cells.Undecided, "no convergence seen"
-		c.Note = "no limit found: " + est.Reason
+		c.Note = "the quantity blows up: " + est.Reason + " (h is the distance to the target); not a limit" + second
+	case expectInf:
+		c.Verdict, c.Residual = cells.Fails, "limit "+est.Limit.Text('g', 12)
+		c.Note = fmt.Sprintf("converges, not a blow-up: estimated limit %s; ", est.Limit.Text('g', min(est.Digits+2, 40))) + limitCaveat(est) + second
 	case expect != nil:
 		iv, err := expect.Approx(prec, t.Cap)
 		if err != nil {
@@ -179,24 +220,115 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		verdict, digits, gap := limits.Compare(est, e)
 		c.Residual = "gap " + gap.Text('e', 3)
 		switch verdict {
-		case "holds-to-digits":
-			c.Verdict, c.Digits = cells.HoldsToDigits, min(digits, t.Digits())
-		case "fails":
+		case limits.VerdictEstimated:
+			c.Verdict, c.Digits = cells.Estimated, min(digits, t.Digits())
+		case limits.VerdictFails:
 			c.Verdict = cells.Fails
 		default:
-			c.Verdict = cells.Undecided
+			c.Verdict, c.Why = cells.Undecided, cells.OtherReason
 		}
-		c.Note = fmt.Sprintf("estimated limit %s (error estimate %s) against the expected %s; ", est.Limit.Text('g', min(est.Digits+2, 40)), est.ErrorEst.Text('e', 2), e.Text('g', 20)) + limitCaveat(est)
+		c.Note = fmt.Sprintf("estimated limit %s (error estimate %s) against the expected %s; ", est.Limit.Text('g', min(est.Digits+2, 40)), est.ErrorEst.Text('e', 2), e.Text('g', 20)) + limitCaveat(est) + second
+		if c.Verdict == cells.Undecided {
+			c.Note += "; the gap is larger than the error estimate but not ten times larger: neither shown nor refuted"
+		}
 	default:
-		c.Verdict, c.Digits = cells.HoldsToDigits, min(est.Digits, t.Digits())
+		c.Verdict, c.Digits = cells.Estimated, min(est.Digits, t.Digits())
 		c.Residual = "error estimate " + est.ErrorEst.Text('e', 3)
-		c.Note = fmt.Sprintf("converges; estimated limit %s; ", est.Limit.Text('g', min(est.Digits+2, 40))) + limitCaveat(est)
+		c.Note = fmt.Sprintf("converges; estimated limit %s; ", est.Limit.Text('g', min(est.Digits+2, 40))) + limitCaveat(est) + second
 	}
-	if werr != nil && len(floats) >= 3 {
-		c.Note += fmt.Sprintf("; the walk stopped early: %v", werr)
+	if hasOrder {
+		checkOrder(c, order, w1.est, w2.est)
 	}
-	s.limitTable(c.Name, ts, floats, est)
+	c.Note += w1.stopped() + w2.stopped()
+	s.limitTable(c.Name, w1, "")
 	return nil
+}
+
+// isInfinity says whether o is the builtin infinity or float("inf").
+func isInfinity(o py.Object) bool {
+	if f, ok := o.(py.Float); ok {
+		return math.IsInf(float64(f), 1)
+	}
+	return o == py.Object(values.Infinity{})
+}
+
+// checkOrder holds a limit claim to its stated order: the convergence
+// order, or the growth rate of a blow-up, estimated by each walk. Both
+// within 5% of the stated order keep the verdict; both beyond 25% fail the
+// claim; anything else leaves it undecided. An order estimate is itself an
+// estimate, and the note says so.
+func checkOrder(c *cells.Claim, stated float64, ests ...limits.Estimate) {
+	verdict := ""
+	var got []string
+	for _, e := range ests {
+		o := e.Order
+		if e.Diverges {
+			o = e.Growth
+		}
+		v := limits.OrderCheck(o, stated, e.Diverges || e.Order > 0)
+		if verdict == "" {
+			verdict = v
+		} else if v != verdict {
+			verdict = limits.VerdictUndecided
+		}
+		if e.Diverges || e.Order > 0 {
+			got = append(got, fmt.Sprintf("%.3g", o))
+		} else {
+			got = append(got, "not estimated")
+		}
+	}
+	what := fmt.Sprintf("; the stated order %s against the walks' estimates %s", limits.FormatOrder(stated), strings.Join(got, " and "))
+	switch {
+	case verdict == limits.OrderConsistent:
+		c.Note += what + ": consistent (an order estimate is itself an estimate)"
+	case c.Verdict != cells.Estimated:
+		c.Note += what
+	case verdict == limits.VerdictFails:
+		c.Verdict, c.Digits = cells.Fails, 0
+		c.Note += what + fmt.Sprintf(": both differ by more than %.0f%%, so the stated order is false by the estimates — evidence, not a proof, since an order estimate is itself an estimate", 100*limits.OrderFailure)
+	default:
+		c.Verdict, c.Digits, c.Why = cells.Undecided, 0, cells.OtherReason
+		c.Note += what + ": not close enough to confirm, nor far enough to refute (an order estimate is itself an estimate)"
+	}
+}
+
+// limitRun is one walk of a limit claim: its steps, the values at them,
+// the analysis, and why it stopped early (nil when it did not).
+type limitRun struct {
+	ratio  *big.Rat
+	ts     []*big.Rat
+	floats []*big.Float
+	est    limits.Estimate
+	stop   error
+}
+
+// limitWalk walks f along sp and analyses the values. Its error is for f
+// returning something that is not a number; a step that raises or cannot
+// be certified ends the walk, recorded in stop.
+func (s *Session) limitWalk(sp walkSpec, f py.Object, prec, cap uint) (limitRun, error) {
+	ts, hs, vals, werr := s.walk(sp, f)
+	floats, aerr := approximations(vals, prec, cap)
+	if floats == nil && aerr != nil {
+		return limitRun{}, aerr // f returned something that is not a number
+	}
+	if aerr != nil {
+		werr, ts, hs = aerr, ts[:len(floats)], hs[:len(floats)]
+	}
+	w := limitRun{ratio: sp.ratio, ts: ts, floats: floats, stop: werr}
+	if len(floats) >= 3 {
+		w.est = limits.Analyse(hs, floats)
+	} else {
+		w.est.Reason = "fewer than 3 values"
+	}
+	return w, nil
+}
+
+// stopped is the note's clause on a walk that stopped early.
+func (w limitRun) stopped() string {
+	if w.stop == nil {
+		return ""
+	}
+	return fmt.Sprintf("; the walk at ratio %s stopped early: %v", exact.FormatRat(w.ratio), w.stop)
 }
 
 // limitCaveat says how the estimate was made and what it is worth.
@@ -208,8 +340,10 @@ func limitCaveat(est limits.Estimate) string {
 	return fmt.Sprintf("%s over %d steps%s; the digits come from the agreement of successive extrapolants — an estimate, not a certified bound", est.Method, len(est.Differences)+1, order)
 }
 
-// limitTable puts the walk's table and figure in the report.
-func (s *Session) limitTable(name string, ts []*big.Rat, vals []*big.Float, est limits.Estimate) {
+// limitTable puts a walk's table and figures in the report; label, when
+// not empty, tells the walk apart from the other one.
+func (s *Session) limitTable(name string, w limitRun, label string) {
+	ts, vals, est := w.ts, w.floats, w.est
 	var rows [][]string
 	var xs, ys, errs []float64
 	for k := range vals {
@@ -233,18 +367,24 @@ func (s *Session) limitTable(name string, ts []*big.Rat, vals []*big.Float, est 
 	if est.Method != "" {
 		extrapolant = est.Method + " extrapolant"
 	}
+	walk := "t (ratio " + exact.FormatRat(w.ratio) + ")"
+	suffix := ""
+	if label != "" {
+		walk = "t (" + label + ", ratio " + exact.FormatRat(w.ratio) + ")"
+		suffix = " (" + label + ")"
+	}
 	s.outcome.Tables = append(s.outcome.Tables, cells.Table{
-		Header: []string{"k", "t", "f(t)", "difference", extrapolant},
+		Header: []string{"k", walk, "f(t)", "difference", extrapolant},
 		Rows:   rows,
 	})
-	alongWalk := figure.Spec{Title: "f(t) along the walk", XLabel: "t", YLabel: "f(t)", LogX: true,
+	alongWalk := figure.Spec{Title: "f(t) along the walk" + suffix, XLabel: "t", YLabel: "f(t)", LogX: true,
 		Series: []figure.Series{{Label: "f(t)", X: xs, Y: ys, Lines: true, Points: true}}}
 	if len(errs) > 0 {
-		s.addFigure("limit “"+name+"”: distance to the estimated limit", figure.Spec{
-			Title: "distance to the estimated limit", XLabel: "t", YLabel: "|f(t) − L|", LogX: true, LogY: true,
+		s.addFigure("limit “"+name+"”: distance to the estimated limit"+suffix, figure.Spec{
+			Title: "distance to the estimated limit" + suffix, XLabel: "t", YLabel: "|f(t) − L|", LogX: true, LogY: true,
 			Series: []figure.Series{{Label: "|f(t) − L|", X: xs, Y: errs, Lines: true, Points: true}}})
 	}
-	s.addFigure("limit “"+name+"”: f(t) along the walk", alongWalk)
+	s.addFigure("limit “"+name+"”: f(t) along the walk"+suffix, alongWalk)
 }
 
 // addFigure draws spec into the cell's figures. A figure that cannot be

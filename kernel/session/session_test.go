@@ -468,7 +468,8 @@ limit("near 2", lambda t: (t**2 - 4) / (t - 2), toward=2, expect=4)`)
 	if o.Error != nil {
 		t.Fatalf("cell failed: %s", o.Error.Message)
 	}
-	want := []cells.Verdict{cells.HoldsToDigits, cells.Fails, cells.Fails, cells.Undecided, cells.HoldsToDigits, cells.HoldsToDigits}
+	// Every limit found is an estimate, never a certified "holds to digits".
+	want := []cells.Verdict{cells.Estimated, cells.Fails, cells.Fails, cells.Undecided, cells.Estimated, cells.Estimated}
 	for i, c := range o.Claims {
 		if c.Verdict != want[i] {
 			t.Errorf("%s: verdict %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])
@@ -486,6 +487,78 @@ limit("near 2", lambda t: (t**2 - 4) / (t - 2), toward=2, expect=4)`)
 	if len(o.Tables) != 6 || len(o.Figures) < 6 {
 		t.Errorf("%d tables and %d figures, want a table and figures per limit", len(o.Tables), len(o.Figures))
 	}
+	if o.Claims[3].Why != cells.NoConvergence {
+		t.Errorf("oscillates: why %q", o.Claims[3].Why)
+	}
+}
+
+// Aliasing: a walk t = r^k sees only the scales r^k. sin(π/t) is 0 at
+// every t = 3^-k, and cos(2π·log t/log 2) is 1 at every t = 2^-k, though
+// neither has a limit at 0 (sin(π/t) takes every value in [-1, 1] on
+// each interval (1/(n+1), 1/n); the cosine is periodic in log t with
+// period log 2 — both from memory). The second walk sees other scales and
+// the claims are undecided, with both walks' tables.
+func TestLimitAliasingIsUndecided(t *testing.T) {
+	rep := runHere(t, `limit("sin(pi/t)", lambda t: sin(pi / t), toward=0, ratio=frac(1, 3))
+limit("log-periodic", lambda t: cos(2*pi*log(t)/log(2)), toward=0, expect=1)`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	for _, c := range o.Claims {
+		if c.Verdict != cells.Undecided || c.Why != cells.WalksDisagree || !strings.Contains(c.Note, "disagree") {
+			t.Errorf("%s: %s (why %q): %s", c.Name, c.Verdict, c.Why, c.Note)
+		}
+	}
+	if len(o.Tables) != 2*len(o.Claims) || !strings.Contains(o.Tables[1].Header[1], "second walk") {
+		t.Errorf("%d tables for %d claims, want both walks' tables", len(o.Tables), len(o.Claims))
+	}
+}
+
+// Known limits still estimate correctly with two walks: sin t/t → 1 with
+// error t²/6 (Taylor series, any calculus text); (1+t)^(1/t) → e =
+// 2.718281828459045… (OEIS A001113; from memory) with error −e·t/2, order
+// 1 (from memory); 1/t² → infinity with growth order 2 (common practice).
+// A stated order far from the estimate fails, one in between is undecided.
+func TestLimitEstimatesAndOrders(t *testing.T) {
+	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, toward=0, expect=1, order=2)
+limit("e", lambda t: exp(log(1 + t) / t), toward=0, order=1)
+limit("blow-up", lambda t: 1 / t**2, toward=0, expect=infinity, order=2)
+limit("wrong order", lambda t: 1 / t**2, toward=0, expect=infinity, order=3)
+limit("order a little off", lambda t: sin(t) / t, toward=0, expect=1, order=frac(9, 4))
+limit("converges, not infinity", lambda t: sin(t) / t, toward=0, expect=infinity)
+limit("minus infinity", lambda t: -1 / t, toward=0, expect=infinity)`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	want := []cells.Verdict{cells.Estimated, cells.Estimated, cells.Estimated, cells.Fails, cells.Undecided, cells.Fails, cells.Fails}
+	for i, c := range o.Claims {
+		if c.Verdict != want[i] {
+			t.Errorf("%s: %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])
+		}
+	}
+	if c := o.Claims[0]; c.Digits < 30 || !strings.Contains(c.Note, "consistent") {
+		t.Errorf("sinc: %d digits, %s", c.Digits, c.Note)
+	}
+	// e to 15 digits from memory, against the estimate's printed value.
+	if c := o.Claims[1]; c.Digits < 15 || !strings.Contains(c.Note, "estimated limit 2.718281828459045") {
+		t.Errorf("e: %d digits, %s", c.Digits, c.Note)
+	}
+	if c := o.Claims[2]; !strings.Contains(c.Residual, "h^−2") || c.Digits != 0 {
+		t.Errorf("blow-up: %s, %d digits", c.Residual, c.Digits)
+	}
+	if c := o.Claims[3]; !strings.Contains(c.Note, "an order estimate is itself an estimate") {
+		t.Errorf("wrong order: %s", c.Note)
+	}
+	if c := o.Claims[4]; c.Why != cells.OtherReason || !strings.Contains(c.Note, "not close enough") {
+		t.Errorf("order a little off: why %q, %s", c.Why, c.Note)
+	}
+	expectErrors(t, []errorCase{
+		{`limit("x", lambda t: t, order=-1)`, "order must be a positive exact number"},
+		{`limit("x", lambda t: t, order="two")`, "order must be a positive exact number"},
+		{`limit("x", lambda t: t, expect="big")`, "expect must be an exact number, a real or infinity"},
+	})
 }
 
 func TestPlot(t *testing.T) {
@@ -563,8 +636,8 @@ print(g(7) == g(7), all([-5 <= c <= 5 for k in range(50) for c in g(k)]), len(g(
 	if c := o.Claims[0]; c.Verdict != cells.Holds || !strings.Contains(c.Note, "(2/2001)^20 = 10^-60.0") {
 		t.Errorf("Schwartz–Zippel note: %s %q", c.Verdict, c.Note)
 	}
-	if c := o.Claims[1]; c.Verdict != cells.Undecided || c.Worst != "sample 3: 3" || !strings.Contains(c.Residual, "ZeroDivisionError") {
-		t.Errorf("raising sample: %s worst %q residual %q", c.Verdict, c.Worst, c.Residual)
+	if c := o.Claims[1]; c.Verdict != cells.Undecided || c.Why != cells.SampleRaised || c.Worst != "sample 3: 3" || !strings.Contains(c.Residual, "ZeroDivisionError") {
+		t.Errorf("raising sample: %s (why %q) worst %q residual %q", c.Verdict, c.Why, c.Worst, c.Residual)
 	}
 	if o.Output != "True True 3\n" {
 		t.Errorf("box output %q", o.Output)
@@ -672,8 +745,8 @@ def nested(k):
     return (k, k)
 identity("a claim inside f", nested, over=lambda k: k, samples=3)`)
 	c := rep.Outcomes[0].Claims[0]
-	if c.Verdict != cells.Undecided || c.Worst != "sample 4: 4" || !strings.Contains(c.Note, "f raised on 1 of 10 samples") {
-		t.Errorf("raising sample: %s worst %q note %q", c.Verdict, c.Worst, c.Note)
+	if c.Verdict != cells.Undecided || c.Why != cells.SampleRaised || c.Worst != "sample 4: 4" || !strings.Contains(c.Note, "f raised on 1 of 10 samples") {
+		t.Errorf("raising sample: %s (why %q) worst %q note %q", c.Verdict, c.Why, c.Worst, c.Note)
 	}
 	if c := rep.Outcomes[0].Claims; len(c) != 2 || c[1].Verdict != cells.Undecided || !strings.Contains(c[1].Residual, "a claim cannot be made per sample") {
 		t.Errorf("a claim inside f: %+v", c)
@@ -834,5 +907,21 @@ identity("sqrt(2) k is rational", lambda r: (r, 0), over=lambda k: sqrt(2) * (k 
 	}
 	if c := o.Claims[3]; c.Sample != "" || !strings.Contains(c.Worst, "not cell code") {
 		t.Errorf("a real sample: sample %q worst %q", c.Sample, c.Worst)
+	}
+}
+
+// An identity whose residual is exactly zero but not known to be rational
+// (√2·√3 = √6, from memory), scaled by e^148, cannot be enclosed within
+// 2^-64 under a cap of 128 bits: undecided, and it says it was the cap.
+func TestUndecidedAtTheCapSaysWhy(t *testing.T) {
+	st := DefaultSettings
+	st.Precision, st.MaxPrecision = 64, 128
+	rep := runWith(t, st, `identity("sqrt 6", exp(148) * sqrt(2) * sqrt(3), exp(148) * sqrt(6))`)
+	o := rep.Outcomes[0]
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	if c := o.Claims[0]; c.Verdict != cells.Undecided || c.Why != cells.PrecisionCap {
+		t.Errorf("%s (why %q): %s", c.Verdict, c.Why, c.Note)
 	}
 }
