@@ -487,3 +487,32 @@ func TestShardAndMergeBadInput(t *testing.T) {
 		t.Errorf("incomplete merge: exit %d, %q", code, errs)
 	}
 }
+
+// The JSON document carries a failing claim's sample as cell code, and
+// that code, pasted into a notebook, rebuilds a sample that meets the
+// hypothesis and violates the claim. The claim is false by the classical
+// identity a² + b² + c² = 8R²(1 + cos A cos B cos C) (from memory): for
+// an obtuse triangle the sum of the squared sides is below 8R².
+func TestJSONCarriesTheSampleAsCode(t *testing.T) {
+	const prelude = "```cell\ngrid = box(6, -10, 10, denom=8)\n" +
+		"tri = lambda p: simplex([p[0:2], p[2:4], p[4:6]])\n" +
+		"def obtuse(p):\n    e = sorted(tri(p).sq_edges())\n    return e[2] > e[0] + e[1] and not tri(p).is_degenerate()\n" +
+		"sides = lambda p: (8 * tri(p).circumradius_sq(), sum(tri(p).sq_edges()))\n"
+	dir := t.TempDir()
+	nb := filepath.Join(dir, "claim.md")
+	os.WriteFile(nb, []byte("# t\n\n"+prelude+"inequality(\"a^2 + b^2 + c^2 >= 8R^2\", sides, over=grid, samples=200, given=obtuse)\n```\n"), 0o644)
+	code, out, errs := assay(t, "check", "--json", nb)
+	var doc struct {
+		Claims []struct {
+			Verdict, Sample string
+		}
+	}
+	if err := json.Unmarshal([]byte(out), &doc); err != nil || code != 1 || len(doc.Claims) != 1 || doc.Claims[0].Verdict != "fails" || doc.Claims[0].Sample == "" {
+		t.Fatalf("exit %d, %v\n%s%s", code, err, out, errs)
+	}
+	again := filepath.Join(dir, "again.md")
+	os.WriteFile(again, []byte("# t\n\n"+prelude+"p = "+doc.Claims[0].Sample+"\nidentity(\"obtuse and below\", obtuse(p) and sides(p)[1] < sides(p)[0], True)\n```\n"), 0o644)
+	if code, out, errs := assay(t, "check", again); code != 0 || !strings.Contains(out, "✔ holds") {
+		t.Errorf("the sample %s does not rebuild a violating obtuse triangle: exit %d\n%s%s", doc.Claims[0].Sample, code, out, errs)
+	}
+}
