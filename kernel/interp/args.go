@@ -229,7 +229,11 @@ func TypeName(o py.Object) string {
 	if o == nil {
 		return "nothing"
 	}
-	return "a " + o.Type().Name
+	name := o.Type().Name
+	if name != "" && strings.ContainsRune("aeiou", rune(name[0])) {
+		return "an " + name
+	}
+	return "a " + name
 }
 
 // Callable reports whether o can be called.
