@@ -607,8 +607,9 @@ func legend(claims []Claim) string {
 	}
 	var paras []string
 	if has[HoldsToDigits] {
-		paras = append(paras, "“≈ holds to N digits” is evidence, not a proof: the residual was certified "+
-			"smaller than 10^-N in absolute value where it was checked, which does not show that it is exactly zero.")
+		paras = append(paras, "“≈ holds to N digits” is evidence, not a proof: where it was checked, the two sides "+
+			"were certified to agree to N significant digits (|lhs − rhs| < 10^-N·max(|lhs|, |rhs|)), or, where "+
+			"neither side could be told from 0, to lie both within 10^-N of 0; that does not show that they are equal.")
 	}
 	if has[Estimated] {
 		paras = append(paras, "“~ estimated to N digits” is an extrapolation, not a certified bound: the limit was "+
@@ -626,12 +627,15 @@ func legend(claims []Claim) string {
 
 // reasonOrder is the order of the undecided reasons in a legend; "" is a
 // claim that gives none.
-var reasonOrder = []Reason{PrecisionCap, NoConvergence, WalksDisagree, SampleRaised, NoSampleMet, OtherReason, ""}
+var reasonOrder = []Reason{PrecisionCap, EqualWithin, NoConvergence, WalksDisagree, SampleRaised, NoSampleMet, OtherReason, ""}
 
 // reasonText completes the legend's "“? undecided” (" for each reason.
 var reasonText = map[Reason]string{
 	PrecisionCap: "precision cap): the precision cap was reached before the residual could be certified zero or " +
 		"non-zero; raise --max-precision or ask for fewer digits.",
+	EqualWithin: "equal to within 10^-N): an inequality whose two sides agree to N significant digits (or are " +
+		"both within 10^-N of 0), so its slack could not be separated from 0 and its sign is unknown; an " +
+		"inequality at equality needs the equality proved (exactly, or raise digits= if the sides may differ).",
 	NoConvergence: "no convergence seen): the values along the walk did not settle, so no limit was estimated; " +
 		"the claim's note says what the walk showed.",
 	WalksDisagree: "the walks disagree): walks toward the target at two ratios whose logarithms are not in a ratio of " +

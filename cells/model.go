@@ -113,6 +113,7 @@ const (
 	WalksDisagree Reason = "walks-disagree" // a limit's walks at different ratios gave different estimates
 	SampleRaised  Reason = "sample-raised"  // evaluating the claim on a sample raised
 	NoSampleMet   Reason = "no-sample-met"  // no sample met the hypothesis (given=)
+	EqualWithin   Reason = "equal-within"   // an inequality's sides agree to the digits asked: its slack is not told from 0
 	OtherReason   Reason = "other"          // anything else: Note says what
 )
 

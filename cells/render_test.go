@@ -533,7 +533,7 @@ func TestLegendExplainsOnlyWhatIsPresent(t *testing.T) {
 	digits := "“≈ holds to N digits”"
 	estimate := "“~ estimated to N digits”"
 	undecided := func(why string) string { return "“? undecided” (" + why + ")" }
-	all := []string{digits, estimate, undecided("precision cap"), undecided("no convergence seen"),
+	all := []string{digits, estimate, undecided("precision cap"), undecided("equal to within 10^-N"), undecided("no convergence seen"),
 		undecided("the walks disagree"), undecided("a sample raised"), undecided("no sample met the hypothesis"), undecided("other")}
 	for _, tc := range []struct {
 		name   string
@@ -546,6 +546,8 @@ func TestLegendExplainsOnlyWhatIsPresent(t *testing.T) {
 		{"cap", []Claim{{Verdict: Undecided, Why: PrecisionCap}}, []string{undecided("precision cap")}},
 		{"walks", []Claim{{Verdict: Undecided, Why: WalksDisagree}, {Verdict: Estimated}}, []string{estimate, undecided("the walks disagree")}},
 		{"no convergence", []Claim{{Verdict: Undecided, Why: NoConvergence}}, []string{undecided("no convergence seen")}},
+		{"equal within", []Claim{{Verdict: Undecided, Why: EqualWithin}, {Verdict: HoldsToDigits, Digits: 9}},
+			[]string{digits, undecided("equal to within 10^-N")}},
 		{"hypothesis", []Claim{{Verdict: Undecided, Why: NoSampleMet}, {Verdict: Undecided, Why: SampleRaised}},
 			[]string{undecided("a sample raised"), undecided("no sample met the hypothesis")}},
 		{"other", []Claim{{Verdict: Undecided, Why: OtherReason}}, []string{undecided("other")}},

@@ -34,13 +34,18 @@ func BitsForDigits(n int64) uint { return uint(float64(n)/log10of2) + 1 }
 
 // Residual is lhs − rhs, measured exactly or certified.
 type Residual struct {
-	Text      string   // printed residual
-	Size      *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
-	Zero      bool     // exactly zero
-	Symbolic  bool     // a polynomial difference: zero proves the identity for all values
-	Real      bool     // decided by interval arithmetic
-	Certified int      // for a real residual enclosing 0: |residual| < 10^-Certified
-	Undecided bool     // the precision cap came first
+	Text     string   // printed residual
+	Size     *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
+	Zero     bool     // exactly zero
+	Symbolic bool     // a polynomial difference: zero proves the identity for all values
+	Real     bool     // decided by interval arithmetic
+	// Certified is, for a real residual enclosing 0, the N of the bound
+	// |residual| < 10^-N·max(|lhs|, |rhs|): N significant digits agree.
+	Certified int
+	// NearZero qualifies Certified: neither side could be separated from
+	// 0, and the bound is absolute, |lhs|, |rhs| < 10^-Certified.
+	NearZero  bool
+	Undecided bool // the precision cap came first
 }
 
 // Exact is the residual of an exact rational difference.
@@ -56,33 +61,128 @@ func OfPoly(d *exact.Poly) Residual {
 	return Residual{Text: Preview(d), Size: big.NewRat(int64(d.Len()), 1), Zero: d.IsZero(), Symbolic: true}
 }
 
-// OfReal decides a certified real difference: exactly when it is known to
-// be rational, else by refining its enclosure to the target.
-func OfReal(d *exact.Real, t Target) (Residual, error) {
+// closeness is what refining lhs − rhs against the sides showed.
+type closeness int
+
+const (
+	// settled: the enclosure of the difference settled the question asked
+	// of it (for an identity, it excludes 0).
+	settled closeness = iota
+	// agree: |lhs − rhs| ≤ 2^-Bits·max(|lhs|, |rhs|), certified, and the
+	// difference was not settled: Bits significant bits agree.
+	agree
+	// nearZero: neither side could be separated from 0, and both are
+	// certified at most 2^-Bits in absolute value: there are no
+	// significant digits to compare, only an absolute bound.
+	nearZero
+)
+
+// compareSides refines the enclosure of lhs − rhs, from Bits+32 bits of
+// working precision, doubling up to the cap, until done accepts it or it
+// is narrower than 2^-Bits·max(|lhs|, |rhs|) (a lower bound of that size,
+// from the sides' own enclosures at the same precision). The target is
+// relative, so sides scaled by a common factor are refined alike and get
+// the same answer: a difference is never called non-zero at one scale and
+// negligible at another. When neither side is separated from 0 there is
+// no size to be relative to; both sides certified below 2^-Bits in
+// absolute value (nearZero) then ends the refinement. The cap gives an
+// error wrapping exact.ErrUndecided.
+func compareSides(lhs, rhs *exact.Real, t Target, done func(exact.Interval) bool) (exact.Interval, closeness, error) {
+	d := exact.RealSub(lhs, rhs)
+	unit := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Lsh(big.NewInt(1), t.Bits)) // 2^-Bits
+	p := min(t.Bits+32, t.Cap)
+	var last error
+	for {
+		iv, err := d.Enclose(p)
+		switch {
+		case err != nil && !errors.Is(err, exact.ErrUndecided):
+			return exact.Interval{}, 0, err
+		case err != nil:
+			last = err
+		case done(iv):
+			return iv, settled, nil
+		default:
+			l, err1 := lhs.Enclose(p)
+			r, err2 := rhs.Enclose(p)
+			if err := errors.Join(err1, err2); err != nil {
+				return exact.Interval{}, 0, err
+			}
+			size := maxRat(magLower(l), magLower(r))
+			if size.Sign() > 0 && iv.Width().Cmp(new(big.Rat).Mul(size, unit)) <= 0 {
+				return iv, agree, nil
+			}
+			if size.Sign() == 0 && maxRat(magUpper(l), magUpper(r)).Cmp(unit) <= 0 {
+				return iv, nearZero, nil
+			}
+			last = nil
+		}
+		if p >= t.Cap {
+			msg := fmt.Sprintf("the difference of the sides not settled within the precision cap of %d bits", t.Cap)
+			if last != nil {
+				msg += " (" + last.Error() + ")"
+			}
+			return exact.Interval{}, 0, fmt.Errorf("%s: %w", msg, exact.ErrUndecided)
+		}
+		p = min(2*p, t.Cap)
+	}
+}
+
+// magLower is a lower bound of |x| over the interval: 0 when it contains 0.
+func magLower(iv exact.Interval) *big.Rat {
+	switch {
+	case iv.Lo.Sign() > 0:
+		return new(big.Rat).Set(iv.Lo)
+	case iv.Hi.Sign() < 0:
+		return new(big.Rat).Neg(iv.Hi)
+	}
+	return new(big.Rat)
+}
+
+// magUpper is an upper bound of |x| over the interval.
+func magUpper(iv exact.Interval) *big.Rat {
+	return maxRat(new(big.Rat).Abs(iv.Lo), new(big.Rat).Abs(iv.Hi))
+}
+
+// maxRat is the larger of a and b (a itself when they are equal).
+func maxRat(a, b *big.Rat) *big.Rat {
+	if b.Cmp(a) > 0 {
+		return b
+	}
+	return a
+}
+
+// excludesZero is the question an identity asks of its residual.
+func excludesZero(iv exact.Interval) bool { return iv.Lo.Sign() > 0 || iv.Hi.Sign() < 0 }
+
+// OfReal decides lhs = rhs for certified reals: exactly when the
+// difference is known to be rational, else by refining its enclosure
+// until it excludes 0 (fails) or is within 10^-N of 0 relative to the
+// sides (N significant digits agree: holds to N digits), or, for sides
+// that cannot be told from 0, until both are within 10^-N of 0.
+func OfReal(lhs, rhs *exact.Real, t Target) (Residual, error) {
+	d := exact.RealSub(lhs, rhs)
 	if q, ok := d.Rat(); ok {
 		return Exact(q), nil
 	}
-	iv, err := d.Approx(t.Bits, t.Cap)
+	iv, how, err := compareSides(lhs, rhs, t, excludesZero)
 	switch {
 	case err != nil && errors.Is(err, exact.ErrUndecided):
 		return Residual{Text: fmt.Sprintf("not separated from 0 at the cap of %d bits", t.Cap), Size: new(big.Rat), Real: true, Undecided: true}, nil
 	case err != nil:
 		return Residual{}, err
 	}
-	if iv.Lo.Sign() > 0 || iv.Hi.Sign() < 0 {
-		text, derr := d.Digits(12, t.Cap)
-		if derr != nil {
-			text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
-		}
-		bound := new(big.Rat).Abs(iv.Lo)
-		if h := new(big.Rat).Abs(iv.Hi); h.Cmp(bound) > 0 {
-			bound = h
-		}
-		return Residual{Text: text + " (certified non-zero)", Size: bound, Real: true}, nil
-	}
 	n := t.Digits()
-	width := new(big.Rat).Sub(iv.Hi, iv.Lo)
-	return Residual{Text: fmt.Sprintf("|r| < 1e-%d", n), Size: width, Real: true, Certified: n}, nil
+	switch how {
+	case agree:
+		return Residual{Text: fmt.Sprintf("|r| < 1e-%d relative", n), Size: iv.Width(), Real: true, Certified: n}, nil
+	case nearZero:
+		return Residual{Text: fmt.Sprintf("|lhs|, |rhs| < 1e-%d", n), Size: iv.Width(), Real: true, Certified: n, NearZero: true}, nil
+	}
+	text, derr := d.Digits(12, t.Cap)
+	if derr != nil {
+		text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
+	}
+	return Residual{Text: text + " (certified non-zero)", Size: magUpper(iv), Real: true}, nil
 }
 
 // OfKVector is the residual of a difference of k-vectors: its largest coefficient.
@@ -138,7 +238,8 @@ func OfPolyMatrices(a, b *exact.PolyMatrix) (Residual, error) {
 }
 
 // Worst combines the residuals of entries: any failure wins, then
-// undecided, then the fewest certified digits; the largest failing
+// undecided, then the fewest certified digits (an absolute bound before
+// significant digits, at equal digits); the largest failing
 // residual is the one shown, the first on ties.
 func Worst(rs []Residual) Residual {
 	out := rs[0]
@@ -192,8 +293,14 @@ func Compare(a, b Residual) int {
 		return ra - rb
 	case ra == 3:
 		return a.Size.Cmp(b.Size)
-	case ra == 1:
+	case ra == 1 && a.Certified != b.Certified:
 		return b.Certified - a.Certified
+	case ra == 1 && a.NearZero != b.NearZero:
+		// An absolute bound says less than significant digits.
+		if a.NearZero {
+			return 1
+		}
+		return -1
 	}
 	return 0
 }
@@ -220,7 +327,14 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		c.Note = "exact zero residual: a proof for this instance"
 	case r.Certified > 0:
 		c.Verdict, c.Method, c.Digits = cells.HoldsToDigits, RealMethod, r.Certified
-		c.Note = fmt.Sprintf("certified |residual| < 10^-%d %s: evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision", r.Certified, every)
+		c.Note = fmt.Sprintf("certified |lhs − rhs| < 10^-%d·max(|lhs|, |rhs|) %s: the sides agree to %d significant digits", r.Certified, every, r.Certified)
+		switch {
+		case r.NearZero && samples > 0:
+			c.Note += fmt.Sprintf(", or, where neither side could be separated from 0 (as at the sample shown), both are certified below 10^-%d in absolute value, an absolute bound with no significant digits to compare", r.Certified)
+		case r.NearZero:
+			c.Note = fmt.Sprintf("neither side could be separated from 0, and both are certified below 10^-%d in absolute value: an absolute bound, with no significant digits to compare", r.Certified)
+		}
+		c.Note += "; evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision"
 	case r.Undecided:
 		c.Verdict, c.Method, c.Why = cells.Undecided, RealMethod, cells.PrecisionCap
 		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits="

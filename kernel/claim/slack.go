@@ -14,12 +14,21 @@ type Slack struct {
 	Lo      *big.Rat // lower end of its enclosure (the exact value when exact)
 	Rel     *big.Rat // the relative slack, see relative
 	Exact   bool
-	Verdict cells.Verdict
-	Ratio   string // lesser / greater, printed
+	Verdict cells.Verdict // Undecided: the slack could not be told from 0
+	Ratio   string        // lesser / greater, printed
+	// NearZero: for an undecided slack, neither side could be told from
+	// 0 either, and both are below 10^-bound in absolute value; else the
+	// sides agree to bound significant digits.
+	NearZero bool
+	bound    int
 }
 
 // MeasureSlack decides lesser <= greater: exactly when the slack is known
-// to be rational, else by its enclosure at the target precision.
+// to be rational, else by its enclosure, refined as an identity's
+// residual is (compareSides): "holds" when it is certified >= 0, "fails"
+// when < 0, and undecided when the two sides agree to the target's digits
+// (or are both that close to 0), since a slack that cannot be told from 0
+// shows nothing about its sign.
 func MeasureSlack(lesser, greater *exact.Real, t Target) (Slack, error) {
 	d := exact.RealSub(greater, lesser)
 	sl := Slack{Value: d}
@@ -30,17 +39,20 @@ func MeasureSlack(lesser, greater *exact.Real, t Target) (Slack, error) {
 			sl.Verdict = cells.Fails
 		}
 	} else {
-		iv, err := d.Approx(t.Bits, t.Cap)
+		signed := func(iv exact.Interval) bool { return iv.Lo.Sign() >= 0 || iv.Hi.Sign() < 0 }
+		iv, how, err := compareSides(greater, lesser, t, signed)
 		switch {
 		case err != nil:
 			return Slack{}, err
+		case how != settled:
+			sl.Verdict, sl.NearZero = cells.Undecided, how == nearZero
+			sl.bound = t.Digits()
 		case iv.Lo.Sign() >= 0:
-			sl.Lo, sl.Verdict = iv.Lo, cells.Holds
-		case iv.Hi.Sign() < 0:
-			sl.Lo, sl.Verdict = iv.Lo, cells.Fails
+			sl.Verdict = cells.Holds
 		default:
-			sl.Lo, sl.Verdict = iv.Lo, cells.HoldsToDigits
+			sl.Verdict = cells.Fails
 		}
+		sl.Lo = iv.Lo
 	}
 	sl.Rel = relative(sl.Lo, lesser, greater, t)
 	if r, err := exact.RealQuo(lesser, greater).Approx(40, t.Cap); err == nil {
@@ -76,10 +88,16 @@ func relative(lo *big.Rat, lesser, greater *exact.Real, t Target) *big.Rat {
 	return size.Quo(lo, size)
 }
 
-// Text prints a slack: exactly when exact, else as certified digits.
+// Text prints a slack: exactly when exact, as the bound it was shown
+// below when undecided, else as certified digits.
 func (sl Slack) Text() string {
-	if sl.Exact {
+	switch {
+	case sl.Exact:
 		return exact.FormatRat(sl.Lo)
+	case sl.Verdict == cells.Undecided && sl.NearZero:
+		return fmt.Sprintf("|lesser|, |greater| < 1e-%d", sl.bound)
+	case sl.Verdict == cells.Undecided:
+		return fmt.Sprintf("|slack| < 1e-%d relative", sl.bound)
 	}
 	if d, err := sl.Value.Digits(12, 1<<12); err == nil {
 		return d
@@ -98,7 +116,7 @@ func (t *InequalityTally) Add(k int64, sl Slack) {
 	switch sl.Verdict {
 	case cells.Fails:
 		t.Violations++
-	case cells.HoldsToDigits:
+	case cells.Undecided:
 		t.Loose++
 	}
 	cand := SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Ratio: sl.Ratio}
@@ -111,9 +129,10 @@ func (t *InequalityTally) Add(k int64, sl Slack) {
 
 // JudgeInequality gives the verdict: any certified violation fails the
 // claim (a sample or a point the search found); a sample f could not
-// evaluate leaves it undecided; a slack not certified either way leaves
-// it holding to digits. samples is N, counted the samples that reached f
-// (those that met the hypothesis, or all N). shown gives sample k as cell
+// evaluate leaves it undecided, and so does a slack that could not be
+// separated from 0 (the sides equal to the target's digits): that the
+// sides agree shows nothing about which is larger. samples is N, counted
+// the samples that reached f (those that met the hypothesis, or all N). shown gives sample k as cell
 // code (Claim.Sample) and as the report's line (Claim.Worst).
 func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, samples, counted int64, t Target, shown func(k int64) (sample, worst string)) {
 	c.Samples = int(samples)
@@ -138,6 +157,9 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	}
 	fromSearch := searched && w.Sample != ""
 	c.Residual = "slack " + w.Text
+	if w.Verdict == cells.Undecided {
+		c.Residual = w.Text // a bound, which names the slack itself
+	}
 	if !w.Exact {
 		c.Method, c.Precision = RealMethod, int(t.Bits)
 	}
@@ -172,9 +194,16 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		c.Verdict, c.Why = cells.Undecided, cells.SampleRaised
 		show(SampleSlack{K: it.FirstRaise.K})
 		c.Note = fmt.Sprintf("f raised on %d of %d samples (the first is shown: %s); the sweep went on, and a claim with samples it could not evaluate cannot hold", it.Raised, counted, it.FirstRaise.Text)
-	case it.Loose > 0 || w.Verdict == cells.HoldsToDigits:
-		c.Verdict, c.Digits = cells.HoldsToDigits, t.Digits()
-		c.Note = fmt.Sprintf("the smallest slack could not be certified non-negative: any violation is below 10^-%d%s; evidence, not a proof", t.Digits(), ratio)
+	case it.Loose > 0 || w.Verdict == cells.Undecided:
+		c.Verdict, c.Why = cells.Undecided, cells.EqualWithin
+		where := "the slack could not be separated from 0"
+		switch {
+		case fromSearch:
+			where += " at the point the search reached, which is shown"
+		case samples > 0:
+			where += fmt.Sprintf(" on %d of %d samples (one of them is shown)", it.Loose, counted)
+		}
+		c.Note = fmt.Sprintf("undecided: %s — the two sides are equal to within 10^-%d (%s)%s; an inequality at equality needs the equality proved (exactly, or raise digits= if the sides may differ)", where, t.Digits(), w.Text, ratio)
 	case fromSearch:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, which is shown%s", every, ratio)
@@ -182,7 +211,9 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s%s", every, ratio)
 	}
-	if samples > 0 && c.Why != cells.SampleRaised {
+	// The relative slack of a slack not told from 0 is the lower end of
+	// an enclosure around 0, which means nothing to a reader.
+	if samples > 0 && c.Why != cells.SampleRaised && c.Why != cells.EqualWithin {
 		c.Note += "; " + ranking(w, it.Absolute)
 	}
 	if searched || (found != nil && found.Skipped != "") {

@@ -78,6 +78,7 @@ type SampleResidual struct {
 	Symbolic  bool   `json:"symbolic,omitempty"`
 	Real      bool   `json:"real,omitempty"`
 	Certified int    `json:"certified,omitempty"`
+	NearZero  bool   `json:"near_zero,omitempty"`
 	Undecided bool   `json:"undecided,omitempty"`
 }
 
@@ -101,7 +102,7 @@ type InequalityTally struct {
 	Absolute   bool          `json:"absolute,omitempty"`
 	Smallest   []SampleSlack `json:"smallest"` // the smallest slacks in the ranking, at most keepSmallest
 	Violations int64         `json:"violations,omitempty"`
-	Loose      int64         `json:"loose,omitempty"` // slack not certified either way
+	Loose      int64         `json:"loose,omitempty"` // slack not separated from 0: the sides equal to the target's digits
 	Raised     int64         `json:"raised,omitempty"`
 	FirstRaise *SampleNote   `json:"first_raise,omitempty"`
 }
@@ -273,7 +274,7 @@ func (t *IdentityTally) AddAudit(k int64, audit cells.FloatAudit) {
 
 func sampleResidual(k int64, r Residual) *SampleResidual {
 	return &SampleResidual{K: k, Text: r.Text, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic,
-		Real: r.Real, Certified: r.Certified, Undecided: r.Undecided}
+		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided}
 }
 
 // Residual turns the record back into the residual it was made from.
@@ -283,7 +284,7 @@ func (s *SampleResidual) Residual() Residual {
 		size = new(big.Rat)
 	}
 	return Residual{Text: s.Text, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Real: s.Real,
-		Certified: s.Certified, Undecided: s.Undecided}
+		Certified: s.Certified, NearZero: s.NearZero, Undecided: s.Undecided}
 }
 
 // worseThan orders residuals as Worst does, the lower index first on ties.
@@ -312,10 +313,15 @@ func mergeSmallest(a, b []SampleSlack, absolute bool) []SampleSlack {
 	return all[:min(len(all), keepSmallest)]
 }
 
-// compareSlacks orders slacks by the relative slack (or by the slack
-// itself when absolute), then by sample index. Both keys have the slack's
-// sign, so a violation always comes before a sample that holds.
+// compareSlacks orders slacks by verdict — violations, then slacks not
+// told from 0, then the rest — then by the relative slack (or by the
+// slack itself when absolute), then by sample index. The verdict comes
+// first because an undecided slack's key is the lower end of an
+// enclosure around 0, which can lie below a certified violation's.
 func compareSlacks(a, b SampleSlack, absolute bool) int {
+	if c := slackClass(a.Verdict) - slackClass(b.Verdict); c != 0 {
+		return c
+	}
 	x, y := a.Rel, b.Rel
 	if absolute {
 		x, y = a.Lo, b.Lo
@@ -330,6 +336,17 @@ func compareSlacks(a, b SampleSlack, absolute bool) int {
 		return 1
 	}
 	return 0
+}
+
+// slackClass ranks a slack's verdict for compareSlacks.
+func slackClass(v cells.Verdict) int {
+	switch v {
+	case cells.Fails:
+		return 0
+	case cells.Undecided:
+		return 1
+	}
+	return 2
 }
 
 func ratOf(s string) *big.Rat {
@@ -435,7 +452,7 @@ func orNothing(ok bool, text func() string) string {
 func record(v any) string {
 	switch x := v.(type) {
 	case Residual:
-		return fmt.Sprintf("%q (zero %v, certified digits %d, undecided %v)", x.Text, x.Zero, x.Certified, x.Undecided)
+		return fmt.Sprintf("%q (zero %v, certified digits %d, near zero %v, undecided %v)", x.Text, x.Zero, x.Certified, x.NearZero, x.Undecided)
 	case cells.FloatAudit:
 		if x.Raised != "" || x.LHS == nil || x.RHS == nil {
 			return fmt.Sprintf("raised %q", x.Raised)

@@ -26,11 +26,13 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 			res.Undecided, res.Zero = true, false
 		case 1:
 			res.Certified, res.Zero, res.Real = 10+r.IntN(3), false, true
+			res.NearZero = r.IntN(2) == 0
 		}
 		it := &IdentityTally{}
 		it.Add(int64(k), res)
 		it.AddAudit(int64(k), cells.FloatAudit{DigitsLost: float64(r.IntN(3))})
-		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Rel: fmt.Sprintf("%d/7", r.IntN(5)-2), Verdict: cells.Holds}
+		verdicts := []cells.Verdict{cells.Holds, cells.Fails, cells.Undecided}
+		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Rel: fmt.Sprintf("%d/7", r.IntN(5)-2), Verdict: verdicts[r.IntN(3)]}
 		given := &GivenTally{Met: 1}
 		switch r.IntN(3) {
 		case 0:

@@ -5,7 +5,6 @@ import (
 
 	"github.com/go-python/gpython/py"
 
-	"assay/exact"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
 	"assay/kernel/values"
@@ -45,7 +44,7 @@ func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, e
 		if !ok2 {
 			return claim.Residual{}, sideError(rhs)
 		}
-		r, err := claim.OfReal(exact.RealSub(a, b), t)
+		r, err := claim.OfReal(a, b, t)
 		return r, interp.Exception(err)
 	case lp || rp:
 		a, ok1 := s.env.Poly(lhs)
