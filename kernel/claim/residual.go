@@ -22,7 +22,7 @@ const log10of2 = 0.30102999566398120
 
 // Target is the precision a claim with real sides is decided to.
 type Target struct {
-	Bits uint // |residual| must be certified below 2^-Bits for "holds to digits"
+	Bits uint // "holds to digits": |residual| certified within 2^-Bits·max(|lhs|, |rhs|)
 	Cap  uint // refinement stops here: undecided
 }
 

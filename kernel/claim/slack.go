@@ -107,7 +107,14 @@ func (sl Slack) Text() string {
 
 // Record is the slack as a tally keeps it, at sample k.
 func (sl Slack) Record(k int64) SampleSlack {
-	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Text: sl.Text(), Ratio: sl.Ratio}
+	rec := sl.record(k)
+	rec.Text = sl.Text()
+	return rec
+}
+
+// record is the slack as a tally keeps it, without the printed form.
+func (sl Slack) record(k int64) SampleSlack {
+	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, NearZero: sl.NearZero, Ratio: sl.Ratio}
 }
 
 // Add records one instance's slack; the printed forms are made only for
@@ -119,7 +126,7 @@ func (t *InequalityTally) Add(k int64, sl Slack) {
 	case cells.Undecided:
 		t.Loose++
 	}
-	cand := SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, Ratio: sl.Ratio}
+	cand := sl.record(k)
 	if len(t.Smallest) == keepSmallest && compareSlacks(cand, t.Smallest[len(t.Smallest)-1], t.Absolute) >= 0 {
 		return
 	}
@@ -200,10 +207,16 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 		switch {
 		case fromSearch:
 			where += " at the point the search reached, which is shown"
+		case samples > 0 && it.Loose == 1:
+			where += fmt.Sprintf(" on 1 of %d samples, the one shown", counted)
 		case samples > 0:
 			where += fmt.Sprintf(" on %d of %d samples (one of them is shown)", it.Loose, counted)
 		}
-		c.Note = fmt.Sprintf("undecided: %s — the two sides are equal to within 10^-%d (%s)%s; an inequality at equality needs the equality proved (exactly, or raise digits= if the sides may differ)", where, t.Digits(), w.Text, ratio)
+		equal := fmt.Sprintf("the two sides are equal to within 10^-%d of their size (%s)%s", t.Digits(), w.Text, ratio)
+		if w.NearZero {
+			equal = fmt.Sprintf("both sides are within 10^-%d of 0 (%s)", t.Digits(), w.Text)
+		}
+		c.Note = fmt.Sprintf("undecided: %s — %s; an inequality at equality needs the equality proved (exactly, or raise digits= if the sides may differ)", where, equal)
 	case fromSearch:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, which is shown%s", every, ratio)

@@ -116,9 +116,11 @@ type SampleSlack struct {
 	Rel     string        `json:"rel"`
 	Exact   bool          `json:"exact,omitempty"`
 	Verdict cells.Verdict `json:"verdict"`
-	Text    string        `json:"text"`
-	Ratio   string        `json:"ratio,omitempty"`
-	Sample  string        `json:"sample,omitempty"` // printed instance, for one found by search
+	// NearZero: an undecided slack whose sides could not be told from 0.
+	NearZero bool   `json:"near_zero,omitempty"`
+	Text     string `json:"text"`
+	Ratio    string `json:"ratio,omitempty"`
+	Sample   string `json:"sample,omitempty"` // printed instance, for one found by search
 }
 
 // SearchTally is the best point a counterexample search found.

@@ -70,6 +70,9 @@ func TestVerdictsAreBlindToScale(t *testing.T) {
 			if id.Verdict != tc.identity || !strings.Contains(id.Residual, tc.residual) || le.Verdict != tc.lessEq {
 				t.Errorf("%s = %s at scale %s: identity %s (%s), inequality %s (%s)", tc.lhs, tc.rhs, scale, id.Verdict, id.Residual, le.Verdict, le.Residual)
 			}
+			if near := strings.HasPrefix(tc.residual, "|lhs|"); near != strings.Contains(le.Note, "both sides are within 10^-77 of 0") {
+				t.Errorf("%s <= %s at scale %s: note %q", tc.lhs, tc.rhs, scale, le.Note)
+			}
 		}
 	}
 }
