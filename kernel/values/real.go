@@ -189,13 +189,13 @@ func (r *Real) M__str__() (res py.Object, err error) {
 	switch {
 	case err == nil:
 		return py.String(text), nil
-	case errors.Is(err, exact.ErrUndecided):
+	case errors.Is(err, exact.ErrDomain):
+		// Certified outside a domain only at this precision (the square
+		// root of a value shown negative): there is no such real number.
+		return py.String(fmt.Sprintf("<not a real number: %s>", err)), nil
+	default:
 		why := strings.TrimSuffix(err.Error(), ": "+exact.ErrUndecided.Error())
 		return py.String(fmt.Sprintf("<real with no enclosure for printing: %s>", why)), nil
-	default:
-		// A certain error (a square root certified negative only at this
-		// precision): there is no such real number.
-		return py.String(fmt.Sprintf("<not a real number: %s>", err)), nil
 	}
 }
 
