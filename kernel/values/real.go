@@ -177,29 +177,26 @@ func (r *Real) enclosure(a interp.Args) (py.Object, error) {
 	return py.Tuple{r.env.Rational(iv.Lo), r.env.Rational(iv.Hi)}, nil
 }
 
-// M__str__ prints certified digits. A value that sits on a digit boundary
-// (an exact 4 computed as sqrt(2)*sqrt(8), say) has no certified digits
-// beyond the boundary; it prints as a rounded value with a certified bound.
+// M__str__ prints 20 significant digits, every one certified (exact.Text):
+// a value that sits on a digit boundary (an exact 4 computed as
+// sqrt(2)*sqrt(8), say) has no certified digits beyond the boundary, so it
+// prints rounded, with a bound proved to cover the rounding and the
+// enclosure. A value with no enclosure at the cap prints why, in angle
+// brackets, rather than raising from inside a print.
 func (r *Real) M__str__() (res py.Object, err error) {
 	defer interp.Recover("real.__str__", &res, &err)
-	text, err := r.x.Digits(printedDigits, min(r.env.Cap, 4096))
-	if err == nil {
+	text, err := r.x.Text(printedDigits, min(r.env.Cap, 8192))
+	switch {
+	case err == nil:
 		return py.String(text), nil
-	}
-	// The tightest enclosure the cap allows, whatever its width.
-	iv, err := r.x.Enclose(min(r.env.Cap, 8192))
-	if err != nil {
+	case errors.Is(err, exact.ErrDomain):
+		// Certified outside a domain only at this precision (the square
+		// root of a value shown negative): there is no such real number.
+		return py.String(fmt.Sprintf("<not a real number: %s>", err)), nil
+	default:
 		why := strings.TrimSuffix(err.Error(), ": "+exact.ErrUndecided.Error())
 		return py.String(fmt.Sprintf("<real with no enclosure for printing: %s>", why)), nil
 	}
-	mid := new(big.Rat).Add(iv.Lo, iv.Hi)
-	mid.Quo(mid, big.NewRat(2, 1))
-	rad := new(big.Rat).Sub(iv.Hi, iv.Lo)
-	exp := 0 // the bound 10^exp >= rad/2
-	for ten := big.NewRat(1, 1); ten.Cmp(rad) >= 0 && exp > -100000; exp-- {
-		ten.Quo(ten, big.NewRat(10, 1))
-	}
-	return py.String(fmt.Sprintf("%s (within 1e%d)", mid.FloatString(printedDigits-1), exp+1)), nil
 }
 
 // M__repr__ prints the same as str.
