@@ -100,8 +100,11 @@ func (m *Matrix) detModular(clear int) *big.Rat {
 	neg := make([]bool, n*n)
 	lcms, prods := big.NewInt(1), big.NewInt(1) // prod L_i, prod P_i
 	// log2 of Hadamard's bounds for det(B) and det(C):
-	// prod_i ||row i|| <= prod_i sqrt(n) max_j |entry ij|.
-	boundB := float64(n) * math.Log2(float64(n)) / 2
+	// prod_i ||row i|| <= prod_i sqrt(n) max_j |entry ij|. The factor
+	// n^(n/2) is bounded by 2^(bitlen(n^n)/2), exactly, rather than by
+	// math.Log2, whose accuracy nothing here could vouch for; the other
+	// terms are integers, exact in float64.
+	boundB := float64(new(big.Int).Exp(big.NewInt(int64(n)), big.NewInt(int64(n)), nil).BitLen()) / 2
 	boundC := boundB
 	l, g := new(big.Int), new(big.Int)
 	for i := 0; i < n; i++ {

@@ -13,11 +13,16 @@ package exact
 // exact integer roots (real_root.go); π and exp of a rational from
 // binary-split series with exact tail bounds (real_const.go); sin, cos,
 // atan, acos and atan2 from Taylor series in interval arithmetic with
-// alternating-series tail bounds (real_trig.go). Only log, and exp of
-// anything but a rational of modest size, rest on a library's accuracy
-// (github.com/ALTree/bigfloat, real_explog.go): its results at 64 guard
-// bits are trusted to 32 of them, and tests check that against
-// exact-rational series.
+// alternating-series tail bounds (real_trig.go); exp and log in general
+// from series in exact fixed-point integer arithmetic with proved bounds:
+// ln 2 by binary splitting, exp by reduction modulo ln 2, halving and
+// squaring, log by a Newton guess that an atanh series then verifies
+// (real_explog.go). No bound rests on an outside library's accuracy:
+// math/big's integer arithmetic is exact and its Float rounding is
+// documented. The float64 functions used (math.Log2, math.Log10, math.Sqrt,
+// math.Lgamma, math.Log1p, math.Exp2) only pick term counts, precisions
+// and starting guesses that exact code then checks or corrects, or estimate
+// magnitudes for the range checks; none of them bounds an error.
 //
 // Each node caches the narrowest enclosure it has found (intersecting the
 // new one with the old) together with the precision it was computed at, so

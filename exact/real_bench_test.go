@@ -75,3 +75,25 @@ func BenchmarkRealAtan2Acos256(b *testing.B) {
 		}
 	}
 }
+
+// benchExpLog encloses exp and log of an irrational argument (so neither
+// takes a rational shortcut) from fresh nodes at the given precision.
+func benchExpLog(b *testing.B, prec uint, log bool) {
+	for i := 0; i < b.N; i++ {
+		s := RealSqrt(RealFromInt(3))
+		x := RealExp(RealMul(s, RealFromInt(100)))
+		if log {
+			x = RealLog(RealMul(s, RealFromInt(100)))
+		}
+		if _, err := x.Enclose(prec); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkRealExp256(b *testing.B)  { benchExpLog(b, 256, false) }
+func BenchmarkRealExp1024(b *testing.B) { benchExpLog(b, 1024, false) }
+func BenchmarkRealExp4096(b *testing.B) { benchExpLog(b, 4096, false) }
+func BenchmarkRealLog256(b *testing.B)  { benchExpLog(b, 256, true) }
+func BenchmarkRealLog1024(b *testing.B) { benchExpLog(b, 1024, true) }
+func BenchmarkRealLog4096(b *testing.B) { benchExpLog(b, 4096, true) }

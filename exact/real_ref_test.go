@@ -3,16 +3,14 @@ package exact
 // Checks of Real against outside sources: published digit tables (first
 // 100 digits typed from memory) and, for thousands of digits, independent
 // routes in exact integer/rational arithmetic with explicit error bounds.
-// Also checks of the one library accuracy that Real relies on, bigfloat's
-// Exp and Log, against exact-rational series.
+// The exact-rational exp and log series here (rtExpRef, rtLogRef) are also
+// the references of real_explog_test.go.
 
 import (
 	"math"
 	"math/big"
 	"strings"
 	"testing"
-
-	"github.com/ALTree/bigfloat"
 )
 
 // First 100 significant digits, typed from memory of the published tables:
@@ -290,108 +288,4 @@ func rtLogRef(z *big.Rat, bits int) (lo, hi *big.Rat) {
 	lo = new(big.Rat).Add(a, new(big.Rat).Mul(two, mlo))
 	hi = new(big.Rat).Add(b, new(big.Rat).Mul(two, mhi))
 	return lo, hi
-}
-
-// rtErrs returns |y − [lo, hi]| (0 inside) divided by ulp(y), and by
-// 2^-w·max(1, |y|).
-func rtErrs(y *big.Float, lo, hi *big.Rat, w uint) (ulps, scaled float64) {
-	yr, _ := y.Rat(nil)
-	var d *big.Rat
-	switch {
-	case yr.Cmp(lo) < 0:
-		d = new(big.Rat).Sub(lo, yr)
-	case yr.Cmp(hi) > 0:
-		d = new(big.Rat).Sub(yr, hi)
-	default:
-		return 0, 0
-	}
-	ulp := new(big.Float).SetMantExp(big.NewFloat(1), y.MantExp(nil)-int(y.Prec()))
-	ur, _ := ulp.Rat(nil)
-	ulps, _ = new(big.Rat).Quo(d, ur).Float64()
-	sc := new(big.Float).SetMantExp(big.NewFloat(1), -int(w))
-	if y.MantExp(nil) > 0 {
-		sc.Mul(sc, new(big.Float).Abs(y))
-	}
-	sr, _ := sc.Rat(nil)
-	scaled, _ = new(big.Rat).Quo(d, sr).Float64()
-	return ulps, scaled
-}
-
-var rtBigfloatArgs = []string{
-	"1", "-1", "1/2", "3/1024", "-7/4", "10", "-37/2", "100", "-700", "1/1099511627776",
-	"5000", "-1000", "123456789/1048576",
-}
-
-// TestBigfloatExpAccuracy checks expPoint's assumption — bigfloat.Exp at
-// precision w errs by at most 2^-(w−32) relatively — with a margin of
-// 2^31: the observed error must be at most 2 ulps, against the Taylor
-// series of exp in exact rational arithmetic with its remainder bound.
-func TestBigfloatExpAccuracy(t *testing.T) {
-	worst := 0.0
-	for _, w := range []uint{53 + 64, 256 + 64, 1024 + 64, 2048 + 64} {
-		for _, s := range rtBigfloatArgs {
-			z := q(s)
-			zf := new(big.Float).SetPrec(w).SetRat(z)
-			if zf.Acc() != big.Exact {
-				t.Fatalf("%s not exact at %d bits", s, w)
-			}
-			y := bigfloat.Exp(zf)
-			lo, hi := rtExpRef(z, int(w)+40)
-			ulps, _ := rtErrs(y, lo, hi, w)
-			if ulps > worst {
-				worst = ulps
-			}
-			if ulps > 2 {
-				t.Errorf("bigfloat.Exp(%s) at %d bits: error %.3g ulps", s, w, ulps)
-			}
-			// And the enclosure Real builds from it contains the reference.
-			v, err := expPoint(zf, w-64)
-			if err != nil {
-				t.Fatal(err)
-			}
-			vlo, _ := v.lo.Rat(nil)
-			vhi, _ := v.hi.Rat(nil)
-			if vlo.Cmp(lo) > 0 || vhi.Cmp(hi) < 0 {
-				t.Errorf("expPoint(%s) at %d bits misses the reference", s, w-64)
-			}
-		}
-	}
-	t.Logf("worst bigfloat.Exp error: %.3g ulps", worst)
-}
-
-// TestBigfloatLogAccuracy checks logPoint's assumption — bigfloat.Log at
-// precision w errs by at most 2^-(w−32)·max(1, |log z|) — with a margin of
-// 2^30, against log z = j·log 2 + 2·atanh((m−1)/(m+1)) summed in exact
-// rationals with its remainder bound.
-func TestBigfloatLogAccuracy(t *testing.T) {
-	// Dyadic arguments, exact at every precision used, of small height.
-	args := []string{"2", "3", "1/2", "3/4", "10", "1000001/1048576", "1048575/1048576",
-		"1267650600228229401496703205376", "3/1267650600228229401496703205376",
-		"1099511627777/1099511627776", "314159/131072", "7/8"}
-	worst := 0.0
-	for _, w := range []uint{53 + 64, 256 + 64, 1024 + 64} {
-		for _, s := range args {
-			z := q(s)
-			zf := new(big.Float).SetPrec(w).SetRat(z)
-			if zf.Acc() != big.Exact {
-				t.Fatalf("%s not exact at %d bits", s, w)
-			}
-			y := bigfloat.Log(zf)
-			lo, hi := rtLogRef(z, int(w)+40)
-			_, scaled := rtErrs(y, lo, hi, w)
-			if scaled > worst {
-				worst = scaled
-			}
-			if scaled > 4 {
-				t.Errorf("bigfloat.Log(%s) at %d bits: error %.3g × 2^-w·max(1,|y|)", s, w, scaled)
-			}
-			v := logPoint(zf, w-64)
-			vlo, _ := v.lo.Rat(nil)
-			vhi, _ := v.hi.Rat(nil)
-			if vlo.Cmp(lo) > 0 || vhi.Cmp(hi) < 0 {
-				t.Errorf("logPoint(%s) at %d bits misses the reference", s, w-64)
-			}
-		}
-	}
-	t.Logf("worst bigfloat.Log error: %.3g × 2^-w·max(1,|log z|)", worst)
 }
