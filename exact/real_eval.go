@@ -194,6 +194,21 @@ func (x *Real) Enclose(prec uint) (Interval, error) {
 	return ivToInterval(v), nil
 }
 
+// EncloseCoarse is Enclose with the endpoints rounded outward to 64 bits:
+// a looser enclosure at the same cost of evaluation, whose rational
+// endpoints are cheap to make and to compute with — enough where only a
+// magnitude is wanted.
+func (x *Real) EncloseCoarse(prec uint) (Interval, error) {
+	if x.exact != nil {
+		return x.Enclose(0)
+	}
+	v, err := x.eval(clampPrec(prec))
+	if err != nil {
+		return Interval{}, err
+	}
+	return ivToInterval(ival{fDown(64).Set(v.lo), fUp(64).Set(v.hi)}), nil
+}
+
 // refine evaluates x at precisions start, 2·start, … up to maxPrec (at
 // least once, at min(start, maxPrec)) until done accepts an enclosure.
 // Precision shortfalls (ErrUndecided) move on to the next precision; other

@@ -102,16 +102,18 @@ func compareSides(lhs, rhs *exact.Real, t Target, done func(exact.Interval) bool
 		case done(iv):
 			return iv, settled, nil
 		default:
-			l, err1 := lhs.Enclose(p)
-			r, err2 := rhs.Enclose(p)
+			// Only the sides' sizes are wanted: coarse enclosures spare
+			// converting two full-precision ones to rationals per step.
+			l, err1 := lhs.EncloseCoarse(p)
+			r, err2 := rhs.EncloseCoarse(p)
 			if err := errors.Join(err1, err2); err != nil {
 				return exact.Interval{}, 0, err
 			}
-			size := maxRat(magLower(l), magLower(r))
+			size, upper := maxRat(magLower(l), magLower(r)), maxRat(magUpper(l), magUpper(r))
 			if size.Sign() > 0 && iv.Width().Cmp(new(big.Rat).Mul(size, unit)) <= 0 {
 				return iv, agree, nil
 			}
-			if size.Sign() == 0 && maxRat(magUpper(l), magUpper(r)).Cmp(unit) <= 0 {
+			if size.Sign() == 0 && upper.Cmp(unit) <= 0 {
 				return iv, nearZero, nil
 			}
 			last = nil
