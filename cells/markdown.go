@@ -599,11 +599,13 @@ func countsPhrase(c map[Verdict]int) string {
 func legend(claims []Claim) string {
 	has := map[Verdict]bool{}
 	why := map[Reason]bool{}
+	limitFails := false
 	for _, c := range claims {
 		has[c.Verdict] = true
 		if c.Verdict == Undecided {
 			why[c.Why] = true
 		}
+		limitFails = limitFails || c.Verdict == Fails && c.Kind == "limit"
 	}
 	var paras []string
 	if has[HoldsToDigits] {
@@ -616,6 +618,11 @@ func legend(claims []Claim) string {
 			"extrapolated from finitely many values along two walks toward the target, and N is how far their "+
 			"successive estimates agree; a quantity that changes its behaviour beyond the last step can fool it. "+
 			"“~ estimated” without digits is a blow-up estimated in the same way.")
+	}
+	if limitFails {
+		paras = append(paras, "“✘ fails” on a limit rests on extrapolation too: the estimated limit lies far "+
+			"outside its error estimate from the value expect= states (or the estimated order far from order=, or "+
+			"the values run off where a value was expected); strong evidence, not a certified refutation.")
 	}
 	for _, r := range reasonOrder {
 		if why[r] {

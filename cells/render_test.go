@@ -532,8 +532,9 @@ func TestMarkdownFigureLinks(t *testing.T) {
 func TestLegendExplainsOnlyWhatIsPresent(t *testing.T) {
 	digits := "“≈ holds to N digits”"
 	estimate := "“~ estimated to N digits”"
+	limitFails := "“✘ fails” on a limit"
 	undecided := func(why string) string { return "“? undecided” (" + why + ")" }
-	all := []string{digits, estimate, undecided("precision cap"), undecided("equal to within 10^-N"), undecided("no convergence seen"),
+	all := []string{digits, estimate, limitFails, undecided("precision cap"), undecided("equal to within 10^-N"), undecided("no convergence seen"),
 		undecided("the walks disagree"), undecided("a sample raised"), undecided("no sample met the hypothesis"), undecided("other")}
 	for _, tc := range []struct {
 		name   string
@@ -543,6 +544,7 @@ func TestLegendExplainsOnlyWhatIsPresent(t *testing.T) {
 		{"proofs need none", []Claim{{Verdict: Holds}, {Verdict: Fails}}, nil},
 		{"digits", []Claim{{Verdict: HoldsToDigits, Digits: 30}}, []string{digits}},
 		{"estimate", []Claim{{Verdict: Estimated, Digits: 9}, {Verdict: Holds}}, []string{estimate}},
+		{"a limit fails by extrapolation", []Claim{{Verdict: Fails, Kind: "limit"}, {Verdict: Fails, Kind: "identity"}}, []string{limitFails}},
 		{"cap", []Claim{{Verdict: Undecided, Why: PrecisionCap}}, []string{undecided("precision cap")}},
 		{"walks", []Claim{{Verdict: Undecided, Why: WalksDisagree}, {Verdict: Estimated}}, []string{estimate, undecided("the walks disagree")}},
 		{"no convergence", []Claim{{Verdict: Undecided, Why: NoConvergence}}, []string{undecided("no convergence seen")}},
