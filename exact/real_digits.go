@@ -32,7 +32,7 @@ func (x *Real) Digits(n int, maxPrec uint) (string, error) {
 		}
 		num := new(big.Int).Abs(x.exact.Num())
 		t, e := decimalTrunc(num, 0, x.exact.Denom(), n)
-		return formatDigits(x.exact.Sign() < 0, t, e, n), nil
+		return formatSignificant(x.exact.Sign() < 0, t, e, n), nil
 	}
 	start := uint(math.Ceil(float64(n)*math.Log2(10))) + 32
 	var out string
@@ -62,7 +62,7 @@ func (x *Real) Digits(n int, maxPrec uint) (string, error) {
 		if e1 != e2 || t1.Cmp(t2) != 0 {
 			return false
 		}
-		out = formatDigits(neg, t1, e1, n)
+		out = formatSignificant(neg, t1, e1, n)
 		return true
 	})
 	if err != nil {
@@ -132,15 +132,30 @@ func decimalTrunc(num *big.Int, s int, den *big.Int, n int) (*big.Int, int) {
 }
 
 // formatDigits writes the n digits of t with the leading digit at decimal
-// exponent e.
+// exponent e, padding an integer part longer than n with zeros: right for
+// a value whose digits beyond the n-th are known to be zeros.
 func formatDigits(neg bool, t *big.Int, e, n int) string {
+	return writeDigits(neg, t, e, n, e < -4 || e >= 21)
+}
+
+// formatSignificant writes n significant digits as formatDigits does, but
+// in scientific form where the integer part has more than n digits: the
+// digits beyond the n-th are not known, and zeros there would read as an
+// exact integer (199999999999999999990 for 199999999999999999999.998).
+func formatSignificant(neg bool, t *big.Int, e, n int) string {
+	return writeDigits(neg, t, e, n, e < -4 || e >= 21 || e >= n)
+}
+
+// writeDigits writes the n digits of t, leading digit at decimal exponent
+// e, in scientific form or positionally.
+func writeDigits(neg bool, t *big.Int, e, n int, scientific bool) string {
 	d := t.String()
 	var sb strings.Builder
 	if neg {
 		sb.WriteByte('-')
 	}
 	switch {
-	case e < -4 || e >= 21:
+	case scientific:
 		sb.WriteString(d[:1])
 		if n > 1 {
 			sb.WriteByte('.')

@@ -110,7 +110,7 @@ func boundedText(iv Interval, n int) string {
 	if lower := new(big.Rat).Sub(d, a); lower.Cmp(dev) > 0 {
 		dev = lower
 	}
-	return formatDigits(neg, t, e, n) + within(dev)
+	return formatSignificant(neg, t, e, n) + within(dev)
 }
 
 // decimalValue is the number whose n significant digits are t, the first

@@ -255,7 +255,12 @@ func TestRealDigitsFormat(t *testing.T) {
 		{rtR("1/3"), 5, "0.33333"},
 		{rtR("-2/3"), 5, "-0.66666"},
 		{rtR("2"), 4, "2.000"},
-		{rtR("12345678"), 3, "12300000"},
+		// An integer part longer than the digits asked for is written in
+		// scientific form, the rule of C's %g (C11 7.21.6.1: style e when
+		// the exponent is < -4 or >= the precision): padded zeros would
+		// read as known digits.
+		{rtR("12345678"), 3, "1.23e+7"},
+		{rtR("123"), 3, "123"},
 		{rtR("1/40000"), 5, "2.5000e-5"},
 		{rtR("1/10000"), 4, "0.0001000"},
 		{rtR("-1e21"), 3, "-1.00e+21"},
@@ -265,7 +270,8 @@ func TestRealDigitsFormat(t *testing.T) {
 		{rtR("7"), 0, "7"},
 		{RealMul(RealNeg(e), rtR("1e-5")), 8, "-2.7182818e-5"},
 		{RealMul(e, rtR("1e-4")), 6, "0.000271828"},
-		{RealMul(e, rtR("1e20")), 6, "271828000000000000000"},
+		{RealMul(e, rtR("1e20")), 6, "2.71828e+20"},
+		{RealMul(e, rtR("1e5")), 6, "271828"},
 		{RealMul(e, rtR("1e21")), 6, "2.71828e+21"},
 		{RealMul(Pi(), rtR("1e-300")), 12, "3.14159265358e-300"},
 		{RealNeg(rtSqrt("2")), 21, "-1.41421356237309504880"},
