@@ -76,6 +76,8 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"poly-unknown-variable.md", 5, `column 15: unknown variable "bb"; the variables are a, b`, nil},
 		{"poly-coefficient-unknown.md", 5, `coefficient(): there is no variable "zz"`, nil},
 		{"poly-collect-two.md", 5, "collect() takes one variable, got 2 (a, b)", nil},
+		{"factor-multivariate.md", 5, "is in 2 variables (x, y); factoring over Q is implemented for one variable only", nil},
+		{"factor-not-polynomial.md", 5, "factor() needs a polynomial or an exact number, got a float", nil},
 		{"simplex-point-lengths.md", 4, "point 1 has length 3", nil},
 		{"simplex-too-many-points.md", 4, "needs at least 3 coordinates", nil},
 		{"distance-not-symmetric.md", 5, "symmetric", nil},
