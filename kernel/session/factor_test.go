@@ -60,3 +60,21 @@ func TestFactorErrors(t *testing.T) {
 		{"factorization(\"f\", 0)", "p is 0"},
 	})
 }
+
+// A factorization with a list that holds but whose factor x² − 1 splits
+// further, (x − 1)(x + 1) (difference of squares), says so in the note.
+func TestFactorizationNamesReducibleFactor(t *testing.T) {
+	rep := runHere(t, "x, y = variables(\"x y\")\n"+
+		"factorization(\"f\", (x**2 - 1)*(x**2 + 1), [x**2 - 1, x**2 + 1])\n"+
+		"factorization(\"g\", (x**2 + 1)*(x - y), [x**2 + 1, x - y])")
+	claims := rep.Outcomes[0].Claims
+	if len(claims) != 2 || claims[0].Verdict != cells.Holds || claims[1].Verdict != cells.Holds {
+		t.Fatalf("claims: %+v", claims)
+	}
+	if !strings.Contains(claims[0].Note, "not every factor is irreducible over Q: x^2 - 1 = 1·(x - 1)·(x + 1)") || strings.Contains(claims[0].Note, "x^2 + 1 =") {
+		t.Errorf("note %q", claims[0].Note)
+	}
+	if strings.Contains(claims[1].Note, "irreducible") {
+		t.Errorf("note %q", claims[1].Note)
+	}
+}

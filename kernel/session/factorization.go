@@ -54,6 +54,7 @@ func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) e
 	if diff.IsZero() {
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("p = u · (product of the factors) with u = %s exactly (%s): a proof of the factorization", exact.FormatRat(unit), factors)
+		c.Note += factorsFurther(given)
 	} else {
 		c.Verdict = cells.Fails
 		c.Note = fmt.Sprintf("p − u · (product of the factors) is not zero for u = %s, the ratio of leading coefficients (%s)", exact.FormatRat(unit), factors)
@@ -87,7 +88,11 @@ func (s *Session) checkFactors(p *exact.Poly, given []exact.FactorPower) (*big.R
 	if !p.IsZero() && !product.IsZero() {
 		unit = new(big.Rat).Quo(p.LeadingCoefficient(), product.LeadingCoefficient())
 	}
-	return unit, p.Sub(product.Scale(unit)), fmt.Sprintf("%d factors of degree %s", len(given), strings.Join(degrees, ", ")), nil
+	plural := "s"
+	if len(given) == 1 {
+		plural = ""
+	}
+	return unit, p.Sub(product.Scale(unit)), fmt.Sprintf("%d factor%s of degree %s", len(given), plural, strings.Join(degrees, ", ")), nil
 }
 
 // foundFactorization factors p over Q and states the result as a claim:
@@ -131,4 +136,26 @@ func productText(unit *big.Rat, fs []exact.FactorPower) string {
 		parts = append(parts, t)
 	}
 	return strings.Join(parts, "·")
+}
+
+// factorsFurther names the given factors in one variable that are not
+// irreducible over Q, with their factorization; factors in several
+// variables are not examined (multivariate factorization is not
+// implemented), and one whose search hits the cap is passed over.
+func factorsFurther(given []exact.FactorPower) string {
+	var out []string
+	for _, g := range given {
+		if len(g.Factor.Vars()) != 1 || g.Factor.Degree() < 2 {
+			continue
+		}
+		f, err := g.Factor.Factor()
+		if err != nil || len(f.Factors) == 1 && f.Factors[0].Mult == 1 {
+			continue
+		}
+		out = append(out, fmt.Sprintf("%s = %s", claim.Clip(g.Factor.String(), 200), claim.Clip(productText(f.Unit, f.Factors), 200)))
+	}
+	if len(out) == 0 {
+		return ""
+	}
+	return "; not every factor is irreducible over Q: " + strings.Join(out, ", ")
 }
