@@ -77,6 +77,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"poly-coefficient-unknown.md", 5, `coefficient(): there is no variable "zz"`, nil},
 		{"poly-collect-two.md", 5, "collect() takes one variable, got 2 (a, b)", nil},
 		{"factor-multivariate.md", 5, "is in 2 variables (x, y); factoring over Q is implemented for one variable only", nil},
+		{"factor-recombination-cap.md", 13, "undecided (van Hoeij's lattice method, which avoids this, is not implemented)", nil},
 		{"factor-not-polynomial.md", 5, "factor() needs a polynomial or an exact number, got a float", nil},
 		{"simplex-point-lengths.md", 4, "point 1 has length 3", nil},
 		{"simplex-too-many-points.md", 4, "needs at least 3 coordinates", nil},
