@@ -33,7 +33,7 @@ var (
 )
 
 // maxSubsets caps the candidates of the recombination search.
-var maxSubsets = 1 << 20
+const maxSubsets = 1 << 20
 
 // primeTrials is how many suitable primes are tried before the one with
 // the fewest modular factors is kept (common practice: the count varies
@@ -53,7 +53,7 @@ type Factorization struct {
 // Factor returns the factorization of a univariate p into irreducible
 // factors over Q. A polynomial in two or more variables gives
 // ErrMultivariate; a modular factorization whose recombination would need
-// more than maxSubsets trial divisions gives ErrFactorLimit.
+// more than maxSubsets candidate products gives ErrFactorLimit.
 func (p *Poly) Factor() (*Factorization, error) {
 	vs := p.Vars()
 	if len(vs) > 1 {
@@ -155,7 +155,7 @@ func factorSquareFreeZ(f []*big.Int) ([][]*big.Int, error) {
 	for i := 0; i < steps; i++ {
 		M.Mul(M, M)
 	}
-	return recombine(f, lifted, M, p)
+	return recombine(f, lifted, M, p, maxSubsets)
 }
 
 // choosePrime returns an odd prime p not dividing lc(f) with f square-free
@@ -227,15 +227,15 @@ func mignotte(f []*big.Int) *big.Int {
 // l·∏_S f_i reduced symmetrically mod M, and its primitive part is a true
 // factor when it divides f. Found factors leave the search; when 2s passes
 // the number left, the rest of f is irreducible.
-func recombine(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64) ([][]*big.Int, error) {
+func recombine(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64, limit int) ([][]*big.Int, error) {
 	var out [][]*big.Int
 	T := lifted
 	tried := 0
 	for s := 1; 2*s <= len(T); {
 		found := false
 		for S := range combinations(len(T), s) {
-			if tried++; tried > maxSubsets {
-				return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, maxSubsets, ErrFactorLimit)
+			if tried++; tried > limit {
+				return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
 			}
 			if !constantTermPasses(f, T, S, M) {
 				continue

@@ -388,11 +388,20 @@ func TestFactorRefusals(t *testing.T) {
 	if _, err := mustParse(t, r, "x*y - 1").Factor(); !errors.Is(err, ErrMultivariate) {
 		t.Errorf("multivariate: %v", err)
 	}
-	old := maxSubsets
-	maxSubsets = 3
-	defer func() { maxSubsets = old }()
-	s8 := swinnertonDyer(t, r, []int{2, 3, 5})
-	if _, err := s8.Factor(); !errors.Is(err, ErrFactorLimit) {
+	// The recombination stage alone, capped at 3 products: the degree-8
+	// Swinnerton-Dyer polynomial has at least 4 modular factors, so the
+	// search cannot finish.
+	f := toDense(swinnertonDyer(t, r, []int{2, 3, 5}), 0)
+	p, facs, err := choosePrime(f)
+	if err != nil || len(facs) < 4 {
+		t.Fatalf("prime %d: %d factors, %v", p, len(facs), err)
+	}
+	steps := 6
+	M := new(big.Int).SetUint64(p)
+	for i := 0; i < steps; i++ {
+		M.Mul(M, M)
+	}
+	if _, err := recombine(f, henselLift(f, facs, p, steps), M, p, 3); !errors.Is(err, ErrFactorLimit) {
 		t.Errorf("capped recombination: %v", err)
 	}
 }
