@@ -74,7 +74,9 @@ package exact
 // polykron.go (Kronecker keys, the key heap), polymul.go, polypow.go,
 // polydiv.go (exact division), polyrem.go (division with remainder),
 // polygcd.go, polyresultant.go, polyeval.go (evaluation, substitution,
-// derivatives, contents), polyparse.go and polyformat.go.
+// derivatives, contents), polyparse.go and polyformat.go; factoring is in
+// factor_sqfree.go (square-free parts), factor_modp.go, factor_hensel.go
+// and factor.go (univariate factorization over Q).
 
 import (
 	"fmt"

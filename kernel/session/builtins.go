@@ -43,7 +43,7 @@ func (s *Session) install(b py.StringDict) {
 		fn     claimBuiltin
 	}{
 		"identity":      {identityParams, identityDoc, s.identity},
-		"factorization": {[]string{"name", "p", "factors"}, factorizationDoc, s.factorization},
+		"factorization": {[]string{"name", "p", "factors="}, factorizationDoc, s.factorization},
 		"limit":         {limitParams, limitDoc, s.limit},
 		"inequality":    {inequalityParams, inequalityDoc, s.inequality},
 	}

@@ -15,19 +15,22 @@ import (
 )
 
 const factorizationDoc = `factorization(name, p, [f1, f2, ...]) checks p == u * f1 * f2 * ... for
-a rational unit u that the check finds; a factor may be given as (f, k) for f**k.`
+a rational unit u that the check finds; a factor may be given as (f, k) for f**k.
+factorization(name, p) with no list factors p (one variable) over Q and states the result.`
 
 func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) error {
 	p, ok := s.env.Poly(a.Get("p"))
 	if !ok {
 		return py.ExceptionNewf(py.TypeError, "factorization(): p must be a polynomial or an exact number, got %s%s", interp.TypeName(a.Get("p")), values.FloatHint(a.Get("p")))
 	}
+	if !a.Has("factors") {
+		return s.foundFactorization(c, p)
+	}
 	items, err := values.Sequence(a.Get("factors"), "the factors")
 	if err != nil {
 		return err
 	}
-	product := s.env.Ring.Const(big.NewRat(1, 1))
-	var degrees []string
+	var given []exact.FactorPower
 	for i, it := range items {
 		f, k := it, int64(1)
 		if pair, ok := it.(py.Tuple); ok && len(pair) == 2 {
@@ -40,32 +43,119 @@ func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) e
 		if !ok {
 			return py.ExceptionNewf(py.TypeError, "factor %d is %s, not a polynomial%s", i, interp.TypeName(f), values.FloatHint(f))
 		}
-		if k > 1 {
-			if fp, err = fp.Pow(int(k)); err != nil {
-				return err
-			}
-			degrees = append(degrees, fmt.Sprintf("%d (to the power %d)", fp.Degree()/int(k), k))
-		} else {
-			degrees = append(degrees, fmt.Sprint(fp.Degree()))
-		}
-		if product, err = product.Mul(fp); err != nil {
-			return err
-		}
+		given = append(given, exact.FactorPower{Factor: fp, Mult: int(k)})
+	}
+	unit, diff, factors, err := s.checkFactors(p, given)
+	if err != nil {
+		return err
 	}
 	c.Method = claim.PolyMethod
-	unit := big.NewRat(1, 1)
-	if !p.IsZero() && !product.IsZero() {
-		unit = new(big.Rat).Quo(p.LeadingCoefficient(), product.LeadingCoefficient())
-	}
-	diff := p.Sub(product.Scale(unit))
 	c.Residual = claim.Preview(diff)
-	factors := fmt.Sprintf("%d factors of degree %s", len(items), strings.Join(degrees, ", "))
 	if diff.IsZero() {
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("p = u · (product of the factors) with u = %s exactly (%s): a proof of the factorization", exact.FormatRat(unit), factors)
+		c.Note += factorsFurther(given)
 	} else {
 		c.Verdict = cells.Fails
 		c.Note = fmt.Sprintf("p − u · (product of the factors) is not zero for u = %s, the ratio of leading coefficients (%s)", exact.FormatRat(unit), factors)
 	}
 	return nil
+}
+
+// checkFactors multiplies the factors out and returns the unit u (the
+// ratio of leading coefficients), p − u·product, and a description of the
+// factors' degrees.
+func (s *Session) checkFactors(p *exact.Poly, given []exact.FactorPower) (*big.Rat, *exact.Poly, string, error) {
+	product := s.env.Ring.Const(big.NewRat(1, 1))
+	var degrees []string
+	for _, g := range given {
+		fp, k := g.Factor, g.Mult
+		if k > 1 {
+			var err error
+			if fp, err = fp.Pow(k); err != nil {
+				return nil, nil, "", err
+			}
+			degrees = append(degrees, fmt.Sprintf("%d (to the power %d)", fp.Degree()/k, k))
+		} else {
+			degrees = append(degrees, fmt.Sprint(fp.Degree()))
+		}
+		var err error
+		if product, err = product.Mul(fp); err != nil {
+			return nil, nil, "", err
+		}
+	}
+	unit := big.NewRat(1, 1)
+	if !p.IsZero() && !product.IsZero() {
+		unit = new(big.Rat).Quo(p.LeadingCoefficient(), product.LeadingCoefficient())
+	}
+	plural := "s"
+	if len(given) == 1 {
+		plural = ""
+	}
+	return unit, p.Sub(product.Scale(unit)), fmt.Sprintf("%d factor%s of degree %s", len(given), plural, strings.Join(degrees, ", ")), nil
+}
+
+// foundFactorization factors p over Q and states the result as a claim:
+// the product is multiplied out and compared with p exactly, and the
+// factors' irreducibility is what the exhaustive recombination of
+// exact.Factor established.
+func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
+	if p.IsZero() {
+		return py.ExceptionNewf(py.ValueError, "factorization(): p is 0, which has no factorization into irreducibles; give a nonzero polynomial")
+	}
+	f, err := s.env.Factor("factorization()", p)
+	if err != nil {
+		return err
+	}
+	unit, diff, factors, err := s.checkFactors(p, f.Factors)
+	if err != nil {
+		return err
+	}
+	c.Method = claim.PolyMethod
+	c.Residual = claim.Preview(diff)
+	if !diff.IsZero() { // cannot happen: exact.Factor checks its product
+		return fmt.Errorf("factorization(): internal error: the factors found do not multiply back to p")
+	}
+	c.Verdict = cells.Holds
+	if len(f.Factors) == 0 {
+		c.Note = fmt.Sprintf("p = %s is a constant: a unit with no irreducible factors", exact.FormatRat(unit))
+		return nil
+	}
+	c.Note = fmt.Sprintf("p = u·f₁^k₁·… = %s, factors irreducible over Q (%s), with u = %s exactly; found by factoring, irreducibility established by the algorithm (factors modulo a prime, Hensel lifting, and an exhaustive search over products of the modular factors, Zassenhaus)", claim.Clip(productText(unit, f.Factors), 400), factors, exact.FormatRat(unit))
+	return nil
+}
+
+// productText writes u·(f₁)^k₁·(f₂)·… readably.
+func productText(unit *big.Rat, fs []exact.FactorPower) string {
+	parts := []string{exact.FormatRat(unit)}
+	for _, f := range fs {
+		t := "(" + f.Factor.String() + ")"
+		if f.Mult > 1 {
+			t += fmt.Sprintf("^%d", f.Mult)
+		}
+		parts = append(parts, t)
+	}
+	return strings.Join(parts, "·")
+}
+
+// factorsFurther names the given factors in one variable that are not
+// irreducible over Q, with their factorization; factors in several
+// variables are not examined (multivariate factorization is not
+// implemented), and one whose search hits the cap is passed over.
+func factorsFurther(given []exact.FactorPower) string {
+	var out []string
+	for _, g := range given {
+		if len(g.Factor.Vars()) != 1 || g.Factor.Degree() < 2 {
+			continue
+		}
+		f, err := g.Factor.Factor()
+		if err != nil || len(f.Factors) == 1 && f.Factors[0].Mult == 1 {
+			continue
+		}
+		out = append(out, fmt.Sprintf("%s = %s", claim.Clip(g.Factor.String(), 200), claim.Clip(productText(f.Unit, f.Factors), 200)))
+	}
+	if len(out) == 0 {
+		return ""
+	}
+	return "; not every factor is irreducible over Q: " + strings.Join(out, ", ")
 }

@@ -1,0 +1,365 @@
+package exact
+
+// Factorization of univariate polynomials over Q (Zassenhaus's method):
+// the square-free parts (factor_sqfree.go) of the primitive polynomial
+// are each factored modulo a prime p that keeps them square-free and of
+// full degree (factor_modp.go), the factors are lifted to a power of p
+// beyond twice Mignotte's bound on the coefficients of any factor
+// (factor_hensel.go), and subsets of the lifted factors are tried, smallest
+// first, as true factors by trial division (H. Zassenhaus, "On Hensel
+// factorization I", J. Number Theory 1, 1969; Modern Computer Algebra,
+// Algorithm 15.19). Every factor returned has been checked by exact
+// division, and a factor is irreducible because no product of fewer of
+// its modular factors divides it: the subset search is exhaustive. When
+// that search would pass maxSubsets candidates, Factor gives up with
+// ErrFactorLimit instead of running on (van Hoeij's lattice method, which
+// avoids the search, is not implemented).
+
+import (
+	"errors"
+	"fmt"
+	"math/big"
+	"slices"
+)
+
+// Sentinel errors of factorization.
+var (
+	// ErrMultivariate reports a polynomial in more than one variable
+	// where only univariate ones are handled (Factor, IsIrreducible).
+	ErrMultivariate = errors.New("polynomial in more than one variable")
+	// ErrFactorLimit reports a factorization given up at the subset
+	// search cap: the answer is undecided, not "irreducible".
+	ErrFactorLimit = errors.New("factor search limit reached")
+)
+
+// maxSubsets caps the candidates of the recombination search.
+const maxSubsets = 1 << 20
+
+// primeTrials is how many suitable primes are tried before the one with
+// the fewest modular factors is kept (common practice: the count varies
+// with p, and the recombination cost grows exponentially with it).
+const primeTrials = 5
+
+// Factorization is p = Unit·∏ Factors[i].Factor^Factors[i].Mult, with the
+// factors irreducible over Q, primitive with positive leading
+// coefficients, distinct, and sorted by degree, then by their integer
+// coefficients compared from the highest power down. A constant p has no
+// factors; Unit is then p itself (0 for the zero polynomial).
+type Factorization struct {
+	Unit    *big.Rat
+	Factors []FactorPower
+}
+
+// Factor returns the factorization of a univariate p into irreducible
+// factors over Q. A polynomial in two or more variables gives
+// ErrMultivariate; a modular factorization whose recombination would need
+// more than maxSubsets candidate products gives ErrFactorLimit.
+func (p *Poly) Factor() (*Factorization, error) {
+	vs := p.Vars()
+	if len(vs) > 1 {
+		return nil, fmt.Errorf("factor %v: %w (only univariate factorization is implemented)", p, ErrMultivariate)
+	}
+	u, parts, err := p.SquareFree()
+	if err != nil {
+		return nil, err
+	}
+	out := &Factorization{Unit: u}
+	for _, sf := range parts {
+		fs, err := factorSquareFreeZ(toDense(sf.Factor, vs[0]))
+		if err != nil {
+			return nil, err
+		}
+		for _, f := range fs {
+			out.Factors = append(out.Factors, FactorPower{fromDense(p.ring, vs[0], f), sf.Mult})
+		}
+	}
+	slices.SortFunc(out.Factors, func(a, b FactorPower) int { return cmpFactor(a.Factor, b.Factor) })
+	return out, nil
+}
+
+// IsIrreducible reports whether a univariate p is irreducible over Q:
+// not constant, and not a product of two non-constant polynomials.
+func (p *Poly) IsIrreducible() (bool, error) {
+	if p.isConst() || p.IsZero() {
+		return false, nil
+	}
+	f, err := p.Factor()
+	if err != nil {
+		return false, err
+	}
+	return len(f.Factors) == 1 && f.Factors[0].Mult == 1, nil
+}
+
+// cmpFactor orders univariate factors by degree, then by coefficients
+// from the highest power down.
+func cmpFactor(a, b *Poly) int {
+	if c := a.Degree() - b.Degree(); c != 0 {
+		return c
+	}
+	v := a.Vars()[0]
+	da, db := toDense(a, v), toDense(b, v)
+	for i := len(da) - 1; i >= 0; i-- {
+		if c := da[i].Cmp(db[i]); c != 0 {
+			return c
+		}
+	}
+	return 0
+}
+
+// toDense returns the coefficients of an integer polynomial in v, lowest
+// degree first.
+func toDense(p *Poly, v int) []*big.Int {
+	out := make([]*big.Int, p.DegreeIn(v)+1)
+	for i := range out {
+		out[i] = new(big.Int)
+	}
+	for i := 0; i < p.n(); i++ {
+		p.numAt(i, out[monoExp(p.monoAt(i), v)])
+	}
+	return out
+}
+
+// fromDense makes the polynomial in v with integer coefficients a.
+func fromDense(r *Ring, v int, a []*big.Int) *Poly {
+	b := newBuilder(wordsFor(v + 1))
+	for e := len(a) - 1; e >= 0; e-- {
+		if a[e].Sign() != 0 {
+			b.pushBig(varPow(v, e), a[e])
+		}
+	}
+	return b.poly(r, nil)
+}
+
+// factorSquareFreeZ returns the irreducible factors over Z of a primitive
+// square-free integer polynomial with a positive leading coefficient.
+func factorSquareFreeZ(f []*big.Int) ([][]*big.Int, error) {
+	n := len(f) - 1
+	if n <= 1 {
+		return [][]*big.Int{f}, nil
+	}
+	p, facs, err := choosePrime(f)
+	if err != nil {
+		return nil, err
+	}
+	if len(facs) == 1 {
+		return [][]*big.Int{f}, nil
+	}
+	B := mignotte(f)
+	bound := new(big.Int).Lsh(B, 1)
+	steps := 0
+	for M := new(big.Int).SetUint64(p); M.Cmp(bound) <= 0; M.Mul(M, M) {
+		steps++
+	}
+	lifted := henselLift(f, facs, p, steps)
+	M := new(big.Int).SetUint64(p)
+	for i := 0; i < steps; i++ {
+		M.Mul(M, M)
+	}
+	return recombine(f, lifted, M, p, maxSubsets)
+}
+
+// choosePrime returns an odd prime p not dividing lc(f) with f square-free
+// mod p, and the monic irreducible factors of f mod p: of the first
+// primeTrials such primes, the one with the fewest factors.
+func choosePrime(f []*big.Int) (uint64, [][]uint64, error) {
+	n := len(f) - 1
+	var best []ddfPart
+	var bestP uint64
+	tried := 0
+	for _, p := range smallPrimes() {
+		F := fp{p}
+		a := F.fromZ(f)
+		if !F.squareFree(a, n) {
+			continue
+		}
+		parts := F.ddf(F.monic(a))
+		if best == nil || countFactors(parts) < countFactors(best) {
+			best, bestP = parts, p
+		}
+		if tried++; tried == primeTrials || countFactors(best) == 1 {
+			break
+		}
+	}
+	if best == nil {
+		return 0, nil, fmt.Errorf("factor: no prime below %d keeps the polynomial square-free: %w", primeSieveLimit, ErrFactorLimit)
+	}
+	return bestP, fp{bestP}.factorSquareFree(best), nil
+}
+
+const primeSieveLimit = 1 << 16
+
+// smallPrimes returns the odd primes below primeSieveLimit.
+func smallPrimes() []uint64 {
+	composite := make([]bool, primeSieveLimit)
+	var out []uint64
+	for i := 3; i < primeSieveLimit; i += 2 {
+		if composite[i] {
+			continue
+		}
+		out = append(out, uint64(i))
+		for j := i * i; j < primeSieveLimit; j += 2 * i {
+			composite[j] = true
+		}
+	}
+	return out
+}
+
+// mignotte returns a bound on the coefficients of l·g/lc(g) for every
+// factor g of f over Z, l = lc(f): by Mignotte's inequality (M. Mignotte,
+// "An inequality about factors of polynomials", Math. Comp. 28, 1974;
+// Modern Computer Algebra, Corollary 6.33) ‖g‖∞ ≤ 2^deg(g)·|lc(g)/l|·‖f‖₂,
+// so |l|·2^n·⌈‖f‖₂⌉ is a generous bound.
+func mignotte(f []*big.Int) *big.Int {
+	n := len(f) - 1
+	ss := new(big.Int)
+	t := new(big.Int)
+	for _, c := range f {
+		ss.Add(ss, t.Mul(c, c))
+	}
+	norm := new(big.Int).Sqrt(ss)
+	norm.Add(norm, bigOne)
+	norm.Lsh(norm, uint(n))
+	return norm.Mul(norm, new(big.Int).Abs(f[n]))
+}
+
+// recombine finds the factors over Z of f from its monic factors modulo M
+// (Zassenhaus): for subsets S of size s = 1, 2, …, the candidate is
+// l·∏_S f_i reduced symmetrically mod M, and its primitive part is a true
+// factor when it divides f. Found factors leave the search; when 2s passes
+// the number left, the rest of f is irreducible.
+func recombine(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64, limit int) ([][]*big.Int, error) {
+	var out [][]*big.Int
+	T := lifted
+	tried := 0
+	for s := 1; 2*s <= len(T); {
+		found := false
+		for S := range combinations(len(T), s) {
+			if tried++; tried > limit {
+				return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
+			}
+			if !constantTermPasses(f, T, S, M) {
+				continue
+			}
+			l := f[len(f)-1]
+			g := []*big.Int{new(big.Int).Set(l)}
+			for _, i := range S {
+				g = zMod(zMul(g, T[i]), M)
+			}
+			g = zPrimitive(zSym(g, M))
+			q, ok := zDivExact(f, g)
+			if !ok {
+				continue
+			}
+			out = append(out, g)
+			f = q
+			T = removeIndices(T, S)
+			found = true
+			break
+		}
+		if !found {
+			s++
+		}
+	}
+	return append(out, f), nil
+}
+
+// constantTermPasses is a cheap necessary test for a subset: a true
+// factor's candidate has a constant term dividing l·f(0).
+func constantTermPasses(f []*big.Int, T [][]*big.Int, S []int, M *big.Int) bool {
+	if f[0].Sign() == 0 {
+		return true
+	}
+	c := new(big.Int).Set(f[len(f)-1])
+	for _, i := range S {
+		c.Mod(c.Mul(c, T[i][0]), M)
+	}
+	if c.Cmp(new(big.Int).Rsh(M, 1)) > 0 {
+		c.Sub(c, M)
+	}
+	if c.Sign() == 0 {
+		return false
+	}
+	lf0 := new(big.Int).Mul(f[len(f)-1], f[0])
+	return new(big.Int).Rem(lf0, c).Sign() == 0
+}
+
+// combinations yields the subsets of {0, …, n−1} of size k in
+// lexicographic order (the slice is reused between yields).
+func combinations(n, k int) func(yield func([]int) bool) {
+	return func(yield func([]int) bool) {
+		S := make([]int, k)
+		for i := range S {
+			S[i] = i
+		}
+		for {
+			if !yield(S) {
+				return
+			}
+			i := k - 1
+			for i >= 0 && S[i] == n-k+i {
+				i--
+			}
+			if i < 0 {
+				return
+			}
+			S[i]++
+			for j := i + 1; j < k; j++ {
+				S[j] = S[j-1] + 1
+			}
+		}
+	}
+}
+
+func removeIndices(T [][]*big.Int, S []int) [][]*big.Int {
+	var out [][]*big.Int
+	for i, t := range T {
+		if !slices.Contains(S, i) {
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// zPrimitive divides a nonzero integer polynomial by its content, with
+// the sign that makes the leading coefficient positive.
+func zPrimitive(a []*big.Int) []*big.Int {
+	g := new(big.Int)
+	for _, c := range a {
+		g.GCD(nil, nil, g, new(big.Int).Abs(c))
+	}
+	if a[len(a)-1].Sign() < 0 {
+		g.Neg(g)
+	}
+	out := make([]*big.Int, len(a))
+	for i, c := range a {
+		out[i] = new(big.Int).Quo(c, g)
+	}
+	return out
+}
+
+// zDivExact returns a/b and true when b divides a over Z.
+func zDivExact(a, b []*big.Int) ([]*big.Int, bool) {
+	if len(b) > len(a) {
+		return nil, false
+	}
+	r := zAdd(a, nil, 1)
+	q := make([]*big.Int, len(a)-len(b)+1)
+	lb := b[len(b)-1]
+	t, m := new(big.Int), new(big.Int)
+	for k := len(q) - 1; k >= 0; k-- {
+		c, rem := new(big.Int).QuoRem(r[k+len(b)-1], lb, m)
+		if rem.Sign() != 0 {
+			return nil, false
+		}
+		q[k] = c
+		for j, y := range b {
+			r[k+j].Sub(r[k+j], t.Mul(c, y))
+		}
+	}
+	for _, c := range r[:len(b)-1] {
+		if c.Sign() != 0 {
+			return nil, false
+		}
+	}
+	return q, true
+}

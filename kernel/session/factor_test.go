@@ -1,0 +1,80 @@
+package session
+
+import (
+	"strings"
+	"testing"
+
+	"assay/cells"
+	"assay/kernel/claim"
+)
+
+// factor, squarefree and is_irreducible from a notebook, against
+// classical factorizations: Sophie Germain's identity x⁴ + 4 =
+// (x² − 2x + 2)(x² + 2x + 2); x⁶ − 1 = Φ₁Φ₂Φ₃Φ₆ (the cyclotomic
+// polynomials, OEIS A013595); Heron's 16·Area² with sides a, 5, 7,
+// = −(a + 12)(a + 2)(a − 2)(a − 12); x² − 2 irreducible (√2 irrational).
+func TestFactorFromNotebook(t *testing.T) {
+	expectPrints(t, []printCase{
+		{"x = variables(\"x\")\nprint(factor(x**4 + 4))", "(1, [(x^2 - 2*x + 2, 1), (x^2 + 2*x + 2, 1)])"},
+		{"x = variables(\"x\")\nprint(factor(x**6 - 1))", "(1, [(x - 1, 1), (x + 1, 1), (x^2 - x + 1, 1), (x^2 + x + 1, 1)])"},
+		{"a = variables(\"a\")\nb, c = 5, 7\nprint(factor(2*a**2*b**2 + 2*b**2*c**2 + 2*c**2*a**2 - a**4 - b**4 - c**4))", "(-1, [(a - 12, 1), (a - 2, 1), (a + 2, 1), (a + 12, 1)])"},
+		{"x = variables(\"x\")\nprint(factor(frac(3, 2)*(x - 1)**2*(2*x + 4)))", "(3, [(x - 1, 2), (x + 2, 1)])"},
+		{"print(factor(0), factor(frac(-5, 3)))", "(0, []) (-5/3, [])"},
+		{"x = variables(\"x\")\nprint((x**2 - 2).is_irreducible(), (x**2 - 4).is_irreducible(), (x**2 + 2*x + 1).is_irreducible())", "True False False"},
+		{"x, y = variables(\"x y\")\nprint((-3*(x - y)**2*(x + y)*x**3).squarefree())", "[(x + y, 1), (x - y, 2), (x, 3)]"},
+		{"x, y = variables(\"x y\")\nprint(((x*y - 1)**2*(x + 1)**2*y).squarefree())", "[(y, 1), (x^2*y + x*y - x - 1, 2)]"},
+	})
+}
+
+// factorization(name, p) with no list finds and states the
+// factorization; x⁴ − 1 = (x − 1)(x + 1)(x² + 1) (Φ₁Φ₂Φ₄, A013595).
+func TestFactorizationWithoutList(t *testing.T) {
+	rep := runHere(t, "x = variables(\"x\")\n"+
+		"factorization(\"x^4 - 1\", 2*x**4 - 2)\n"+
+		"factorization(\"a constant\", 7)")
+	claims := rep.Outcomes[0].Claims
+	if len(claims) != 2 {
+		t.Fatalf("got %d claims: %+v", len(claims), rep.Outcomes[0])
+	}
+	c := claims[0]
+	if c.Verdict != cells.Holds || c.Residual != "0" || c.Method != claim.PolyMethod {
+		t.Errorf("%s %q %q", c.Verdict, c.Residual, c.Method)
+	}
+	for _, w := range []string{"2·(x - 1)·(x + 1)·(x^2 + 1)", "irreducible over Q", "u = 2", "established by the algorithm"} {
+		if !strings.Contains(c.Note, w) {
+			t.Errorf("note %q lacks %q", c.Note, w)
+		}
+	}
+	if claims[1].Verdict != cells.Holds || !strings.Contains(claims[1].Note, "constant") {
+		t.Errorf("constant: %s %q", claims[1].Verdict, claims[1].Note)
+	}
+}
+
+func TestFactorErrors(t *testing.T) {
+	expectErrors(t, []errorCase{
+		{"factor(\"x^2\")", "factor() needs a polynomial"},
+		{"factor(0.5)", "float64"},
+		{"x, y = variables(\"x y\")\nfactor(x*y - 1)", "multivariate factorization is a later feature"},
+		{"x, y = variables(\"x y\")\n(x**2 - y**2).is_irreducible()", "p.squarefree() works in any number of variables"},
+		{"x, y = variables(\"x y\")\nfactorization(\"f\", x**2 - y**2)", "factorization(name, p, [f1, f2, ...])"},
+		{"factorization(\"f\", 0)", "p is 0"},
+	})
+}
+
+// A factorization with a list that holds but whose factor x² − 1 splits
+// further, (x − 1)(x + 1) (difference of squares), says so in the note.
+func TestFactorizationNamesReducibleFactor(t *testing.T) {
+	rep := runHere(t, "x, y = variables(\"x y\")\n"+
+		"factorization(\"f\", (x**2 - 1)*(x**2 + 1), [x**2 - 1, x**2 + 1])\n"+
+		"factorization(\"g\", (x**2 + 1)*(x - y), [x**2 + 1, x - y])")
+	claims := rep.Outcomes[0].Claims
+	if len(claims) != 2 || claims[0].Verdict != cells.Holds || claims[1].Verdict != cells.Holds {
+		t.Fatalf("claims: %+v", claims)
+	}
+	if !strings.Contains(claims[0].Note, "not every factor is irreducible over Q: x^2 - 1 = 1·(x - 1)·(x + 1)") || strings.Contains(claims[0].Note, "x^2 + 1 =") {
+		t.Errorf("note %q", claims[0].Note)
+	}
+	if strings.Contains(claims[1].Note, "irreducible") {
+		t.Errorf("note %q", claims[1].Note)
+	}
+}
