@@ -87,6 +87,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"real-log-zero.md", 4, "log of 0", nil},
 		{"real-acos-domain.md", 4, "acos of 3/2", nil},
 		{"real-divide-unseparated.md", 5, "cannot be separated from zero", nil},
+		{"real-divide-algebraic-zero.md", 5, "division by a real that is exactly zero", nil},
 		{"precision-zero.md", 3, "at least 2", nil},
 		{"precision-above-cap.md", 4, "above the precision cap", nil},
 		{"precision-digits-undecided.md", 9, "ArithmeticError: 30 certified digits not settled within the precision cap of 1000 bits (raise the cap with --max-precision)\n", []string{"--max-precision", "1000"}},
