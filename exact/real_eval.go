@@ -324,8 +324,9 @@ func (x *Real) sign(start, maxPrec uint) (int, error) {
 func (x *Real) SignFrom(start, maxPrec uint) (int, error) { return x.sign(start, maxPrec) }
 
 // RealCmp compares x and y: −1 if x < y, 0 if x = y (known exactly: both
-// rational, or the very same *Real), +1 if x > y; ErrUndecided when the
-// difference is not separated from 0 within maxPrec bits.
+// rational, the very same *Real, or an algebraic difference proved zero
+// by its zero bound, as Sign does), +1 if x > y; ErrUndecided when the
+// difference is not settled within maxPrec bits.
 func RealCmp(x, y *Real, maxPrec uint) (int, error) {
 	if x == y && x.exact == nil {
 		// The same node: equal as soon as it is certified to be defined,

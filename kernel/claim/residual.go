@@ -191,7 +191,12 @@ func OfReal(lhs, rhs *exact.Real, t Target) (Residual, error) {
 	case decided && sign == 0:
 		return Residual{Text: "0", Size: new(big.Rat), Zero: true, Algebraic: true, ZeroBits: bound}, nil
 	case decided:
-		return nonZero(d, t, Residual{Algebraic: true, ZeroBits: bound})
+		// The sign's refinement left its best enclosure cached on d.
+		iv, err := d.EncloseCoarse(t.Bits + 32)
+		if err != nil {
+			return Residual{}, err
+		}
+		return nonZero(d, iv, t, Residual{Algebraic: true, ZeroBits: bound}), nil
 	}
 	r, err := ofInterval(lhs, rhs, d, t)
 	r.ZeroBits = bound
@@ -224,21 +229,16 @@ func algebraicSign(d *exact.Real, t Target) (sign int, bound int64, decided bool
 // refine to the cap for digits it can never settle.
 const printCap = 1 << 16
 
-// nonZero fills r for a difference d certified non-zero: 12 certified
-// digits, or a rounded value with a proved bound, or, when even that
-// cannot be told from 0 within printCap bits, the enclosure that excluded
-// 0 (the best one cached, whatever precision is asked for).
-func nonZero(d *exact.Real, t Target, r Residual) (Residual, error) {
-	iv, err := d.EncloseCoarse(t.Bits + 32)
-	if err != nil {
-		return Residual{}, err
-	}
-	text, derr := d.Text(12, min(t.Cap, printCap))
-	if derr != nil || strings.HasPrefix(text, "0 (") {
+// nonZero fills r for a difference d certified non-zero by its enclosure
+// iv: 12 certified digits, or a rounded value with a proved bound, or,
+// when even that cannot be told from 0 within printCap bits, iv itself.
+func nonZero(d *exact.Real, iv exact.Interval, t Target, r Residual) Residual {
+	text, err := d.Text(12, min(t.Cap, printCap))
+	if err != nil || strings.HasPrefix(text, "0 (") {
 		text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
 	}
 	r.Text, r.Size, r.Real = text+" (certified non-zero)", magUpper(iv), true
-	return r, nil
+	return r
 }
 
 // ofInterval decides lhs = rhs by intervals alone: fails, holds to the
@@ -258,7 +258,7 @@ func ofInterval(lhs, rhs, d *exact.Real, t Target) (Residual, error) {
 	case nearZero:
 		return Residual{Text: fmt.Sprintf("|lhs|, |rhs| < 1e-%d", n), Size: iv.Width(), Real: true, Certified: n, NearZero: true}, nil
 	}
-	return nonZero(d, t, Residual{})
+	return nonZero(d, iv, t, Residual{}), nil
 }
 
 // OfKVector is the residual of a difference of k-vectors: its largest coefficient.
