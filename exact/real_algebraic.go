@@ -130,11 +130,29 @@ func (x *Real) computeAlg() algInfo {
 }
 
 // degreeBound is D: the product of the indices of the distinct root nodes
-// below x (saturated). Roots of one rational with one index count once
-// even when built twice, as sqrt(2) typed twice in a cell is.
+// below x (saturated), a bound on the degree of the field they generate.
+// A k-th root of a rational r adds nothing when an earlier k-th root of a
+// rational s is already counted and r/s is a rational's k-th power: then
+// r^(1/k) = t·s^(1/k) lies in the field already (sqrt(8) = 2·sqrt(2), and
+// sqrt(2) typed twice in a cell).
 func (x *Real) degreeBound() int64 {
 	seen := map[*Real]bool{}
-	leaves := map[string]bool{}
+	type ratRootOf struct {
+		k int
+		r *big.Rat
+	}
+	var counted []ratRootOf
+	inField := func(k int, r *big.Rat) bool {
+		for _, c := range counted {
+			if c.k == k && c.r.Sign() != 0 {
+				if _, ok := ratRoot(new(big.Rat).Quo(r, c.r), k); ok {
+					return true
+				}
+			}
+		}
+		counted = append(counted, ratRootOf{k, r})
+		return false
+	}
 	d := int64(1)
 	var walk func(n *Real)
 	walk = func(n *Real) {
@@ -142,15 +160,8 @@ func (x *Real) degreeBound() int64 {
 			return
 		}
 		seen[n] = true
-		if n.op == opRoot {
-			key := ""
-			if n.x.exact != nil {
-				key = fmt.Sprintf("%d:%s", n.k, n.x.exact.RatString())
-			}
-			if key == "" || !leaves[key] {
-				leaves[key] = key != ""
-				d = satMul(d, int64(n.k))
-			}
+		if n.op == opRoot && (n.x.exact == nil || !inField(n.k, n.x.exact)) {
+			d = satMul(d, int64(n.k))
 		}
 		walk(n.x)
 		walk(n.y)

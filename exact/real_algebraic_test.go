@@ -187,3 +187,22 @@ func TestAlgebraicSignsAgainstBigFloat(t *testing.T) {
 		t.Errorf("only %d zero cases: the test does not exercise the bound", zeros)
 	}
 }
+
+// √8 = 2√2 and √(1/2) = √2/2 (from memory) lie in the field of √2, so they
+// do not raise the degree bound; √3 does. The smaller bound still decides.
+func TestDegreeBoundSharesFields(t *testing.T) {
+	same := RealAdd(RealSub(rtSqrt("8"), RealMul(rtR("2"), rtSqrt("2"))), RealSub(rtSqrt("1/2"), RealQuo(rtSqrt("2"), rtR("2"))))
+	if d := same.degreeBound(); d != 2 {
+		t.Errorf("√8, √2, √(1/2): degree bound %d, want 2", d)
+	}
+	if d := RealAdd(rtSqrt("8"), rtSqrt("3")).degreeBound(); d != 4 {
+		t.Errorf("√8, √3: degree bound %d, want 4", d)
+	}
+	// Cube roots: ∛(−16) = −2·∛2.
+	if d := RealAdd(rtRoot("-16", 3), rtRoot("2", 3)).degreeBound(); d != 3 {
+		t.Errorf("∛−16, ∛2: degree bound %d, want 3", d)
+	}
+	if s, err := same.Sign(DefaultMaxPrecision); err != nil || s != 0 {
+		t.Errorf("√8 − 2√2 + √(1/2) − √2/2: %d %v", s, err)
+	}
+}
