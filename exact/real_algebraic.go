@@ -10,11 +10,12 @@ package exact
 // expression alone, a number 2^-B that its value cannot lie below unless it
 // is exactly zero. Refining the enclosure until it either excludes 0
 // (non-zero, with certified digits) or lies inside (−2^-B, 2^-B) (exactly
-// zero: a proof) then decides the sign completely. The bound is the one of
-// Burnikel, Fleischer, Mehlhorn and Schirra ("A strong and easily
-// computable separation bound for arithmetic expressions involving
-// radicals", Algorithmica 27, 2000), in the form with one radical per root
-// node, which is what the argument below needs:
+// zero: a proof) then decides the sign completely. The bound follows the
+// u/l bookkeeping of Burnikel, Fleischer, Mehlhorn and Schirra ("A strong
+// and easily computable separation bound for arithmetic expressions
+// involving radicals", Algorithmica 27, 2000), with the root rule that
+// adds one radical per root node; the rules and the argument are stated
+// here in full, so the bound can be checked without the paper:
 //
 // Every node's value ξ is written U/L with U, L algebraic integers of one
 // number field K (the rationals with the values of the root nodes
@@ -30,11 +31,13 @@ package exact
 // (the root's numerator is the k-th root of U·L^(k−1), an algebraic integer
 // equal to the root times L, so it lies in K and the denominator stays L).
 // K has degree at most D, the product of the indices of the distinct root
-// nodes. A non-zero U has a non-zero integer norm, the product of its at
-// most D conjugates, each at most u in size; so |U| ≥ u^-(D−1), and
-// |ξ| = |U|/|L| ≥ 1/(u^(D−1)·l). The kernel keeps log2 of u and l as
-// integer upper bounds (bit lengths, rounded up), so B = (D−1)·log2 u +
-// log2 l is a safe exponent.
+// nodes (each root node's value is a k-th root of an element of the field
+// below it). A non-zero U has degree d ≤ D and a non-zero integer norm,
+// the product of its d conjugates, each at most u in size; so
+// |U| ≥ u^-(d−1) ≥ u^-(D−1) (u ≥ 1 here), and |ξ| = |U|/|L| ≥
+// 1/(u^(D−1)·l), L itself being one of its conjugates. The bookkeeping
+// keeps log2 of u and l as integer upper bounds (bit lengths, rounded up,
+// saturating at algCap), so B = (D−1)·log2 u + log2 l is a safe exponent.
 //
 // # Cost, and the cap
 //
@@ -42,10 +45,14 @@ package exact
 // is the precision: proving a zero needs an enclosure narrower than 2^-B,
 // so a working precision of about B bits plus the magnitude of the operands.
 // B is small for the identities geometry brings (√2 + √3 = √(5 + 2√6):
-// D = 16, B = 60) and grows with nested and repeated roots (D doubles with
-// each distinct square root). No separate degree cap is kept: B is bounded
-// by the precision cap of the query (--max-precision), and a zero whose
-// bound lies beyond it stays undecided with a message that says so.
+// D = 16, B = 60, decided in about 0.06 ms, BenchmarkAlgebraicDenesting)
+// and grows with nested and repeated roots (D doubles with each distinct
+// square root: twelve square roots of primes give B ≈ 320,000 and take
+// about 5 s). No separate degree cap is kept, since the cost follows B and
+// not D alone: B is bounded by the precision cap of the query
+// (--max-precision), and a zero whose bound lies beyond it is not decided
+// exactly — Sign stays undecided and says so, and a claim falls back to
+// intervals with a note naming the precision that would decide it.
 //
 // Transcendental nodes (exp, log, sin, cos, atan, atan2, acos, π) make an
 // expression non-algebraic; it is decided by intervals as before.
