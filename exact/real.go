@@ -81,6 +81,9 @@ type Real struct {
 	exact *big.Rat // the exact value, when known to be rational
 	fail  error    // for opFail
 
+	algOnce sync.Once // guards alg
+	alg     algInfo   // zero-bound bookkeeping (real_algebraic.go)
+
 	mu   sync.Mutex
 	enc  ival  // best enclosure so far
 	prec uint  // precision enc was computed at; 0: none yet

@@ -14,7 +14,8 @@ import (
 // positional form ("1.41421356237309504880", "0.00031415", "12300" when x
 // has more integer digits than n: those positions are written as zeros),
 // others in scientific form ("-2.7182818e-5", "6.0221e+23"). An x known to
-// be the rational zero (or enclosed in [0, 0]) is written "0".
+// be the rational zero (or enclosed in [0, 0]), or an algebraic x proved
+// zero by its zero bound (ZeroBound), is written "0".
 //
 // Rationals known exactly (Rat) are truncated exactly. Otherwise the
 // working precision starts near n·log2(10) bits and doubles up to maxPrec.
@@ -35,9 +36,10 @@ func (x *Real) Digits(n int, maxPrec uint) (string, error) {
 		return formatSignificant(x.exact.Sign() < 0, t, e, n), nil
 	}
 	start := uint(math.Ceil(float64(n)*math.Log2(10))) + 32
+	bound, alg := x.ZeroBound()
 	var out string
 	err := x.refine(start, maxPrec, fmt.Sprintf("%d certified digits", n), func(v ival, p uint) bool {
-		if v.isZero() {
+		if v.isZero() || alg && v.containsZero() && belowBound(v, bound) {
 			out = "0"
 			return true
 		}

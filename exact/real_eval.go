@@ -104,7 +104,7 @@ func (x *Real) compute(p uint) (ival, error) {
 			return ivAtan2(a, b, p)
 		}
 		switch {
-		case b.isZero():
+		case b.isZero() || b.containsZero() && x.y.provedZero(b):
 			return ival{}, fmt.Errorf("real division by a certified zero: %w", ErrDivisionByZero)
 		case b.containsZero():
 			return ival{}, undecidedAt("division: divisor not separated from 0", p)
@@ -123,7 +123,7 @@ func (x *Real) compute(p uint) (ival, error) {
 			return ivRound(v, p), nil
 		}
 		switch {
-		case v.isZero():
+		case v.isZero() || a.containsZero() && x.x.provedZero(a):
 			return ival{}, fmt.Errorf("negative power of a certified zero: %w", ErrDivisionByZero)
 		case v.containsZero():
 			return ival{}, undecidedAt("negative power: base not separated from 0", p)
@@ -140,6 +140,9 @@ func (x *Real) compute(p uint) (ival, error) {
 			return ival{neg.Neg(neg), rootBound(a.hi, x.k, p, true)}, nil
 		case a.negative():
 			return ival{}, fmt.Errorf("root of degree %d of a negative number: %w", x.k, ErrDomain)
+		case x.x.provedZero(a):
+			// An algebraic argument proved zero by its zero bound.
+			return ivExact(0), nil
 		}
 		return ival{}, undecidedAt(fmt.Sprintf("root of degree %d: argument not separated from 0", x.k), p)
 	case opExp:
@@ -276,15 +279,24 @@ func (x *Real) Approx(bits, maxPrec uint) (Interval, error) {
 
 // Sign returns −1, 0 or +1 for x < 0, x = 0, x > 0, refining (from 64
 // bits, doubling) until an enclosure excludes 0. It returns 0 only when x
-// is known exactly to be zero (a rational zero, or an enclosure [0, 0]);
-// an x that is zero but not known to be (sqrt(2)−sqrt(2)) gives
-// ErrUndecided at the cap, as does a nonzero x too small for maxPrec bits.
+// is proved zero: a rational zero, an enclosure [0, 0], or an algebraic x
+// (no transcendental function or π in it) whose enclosure lies below its
+// zero bound (ZeroBound), as sqrt(2)·sqrt(3) − sqrt(6) does. A zero that
+// is not algebraic (sin π) gives ErrUndecided at the cap, as does a zero
+// whose bound asks for more than maxPrec bits, or a nonzero x too small
+// for maxPrec bits.
 func (x *Real) Sign(maxPrec uint) (int, error) {
+	return x.sign(64, maxPrec)
+}
+
+// sign is Sign refining from start bits.
+func (x *Real) sign(start, maxPrec uint) (int, error) {
 	if x.exact != nil {
 		return x.exact.Sign(), nil
 	}
+	bound, alg := x.ZeroBound()
 	sign := 0
-	err := x.refine(64, maxPrec, "sign", func(v ival, p uint) bool {
+	err := x.refine(start, maxPrec, "sign", func(v ival, p uint) bool {
 		switch {
 		case v.positive():
 			sign = 1
@@ -292,17 +304,29 @@ func (x *Real) Sign(maxPrec uint) (int, error) {
 			sign = -1
 		case v.isZero():
 			sign = 0
+		case alg && belowBound(v, bound):
+			sign = 0
 		default:
 			return false
 		}
 		return true
 	})
+	if alg && errors.Is(err, ErrUndecided) {
+		if note := zeroBoundNote(bound, clampPrec(maxPrec)); note != "" {
+			err = capError{err.Error() + note}
+		}
+	}
 	return sign, err
 }
 
+// SignFrom is Sign with the refinement starting at start bits, for a
+// caller that knows the precision a first look needs.
+func (x *Real) SignFrom(start, maxPrec uint) (int, error) { return x.sign(start, maxPrec) }
+
 // RealCmp compares x and y: −1 if x < y, 0 if x = y (known exactly: both
-// rational, or the very same *Real), +1 if x > y; ErrUndecided when the
-// difference is not separated from 0 within maxPrec bits.
+// rational, the very same *Real, or an algebraic difference proved zero
+// by its zero bound, as Sign does), +1 if x > y; ErrUndecided when the
+// difference is not settled within maxPrec bits.
 func RealCmp(x, y *Real, maxPrec uint) (int, error) {
 	if x == y && x.exact == nil {
 		// The same node: equal as soon as it is certified to be defined,

@@ -42,12 +42,16 @@ func ExampleReal_Sign() {
 	n := exact.RealFromRat(new(big.Rat).SetInt64(262537412640768744))
 	fmt.Println(exact.RealSub(r, n).Sign(exact.DefaultMaxPrecision))
 
-	// √2 − √2 is zero, but intervals can never prove it.
-	sqrt2 := exact.RealSqrt(exact.RealFromInt(2))
-	_, err := exact.RealSub(sqrt2, sqrt2).Sign(4096)
+	// √2·√3 − √6 is zero, proved by its zero bound: it is algebraic.
+	sqrt := func(n int64) *exact.Real { return exact.RealSqrt(exact.RealFromInt(n)) }
+	fmt.Println(exact.RealSub(exact.RealMul(sqrt(2), sqrt(3)), sqrt(6)).Sign(4096))
+
+	// sin π is zero, but intervals can never prove it.
+	_, err := exact.RealSin(pi).Sign(4096)
 	fmt.Println(err)
 	// Output:
 	// -1 <nil>
 	// -1 <nil>
+	// 0 <nil>
 	// sign not settled within the precision cap of 4096 bits
 }

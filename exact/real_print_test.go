@@ -210,7 +210,7 @@ func TestRealTextFallbackEdges(t *testing.T) {
 		prec uint
 		v    *big.Rat
 	}{
-		{"√2·√2 − 2", zero, 8192, new(big.Rat)},
+		{"e·e − e²", RealSub(RealMul(RealExp(RealFromInt(1)), RealExp(RealFromInt(1))), RealExp(RealFromInt(2))), 8192, new(big.Rat)},
 		{"√2·√2 − 2 + 10^-3000", RealAdd(zero, RealFromRat(tiny)), 8192, tiny},
 		{"√2·√2 at 40 bits", RealMul(sqrt2, sqrt2), 40, big.NewRat(2, 1)},
 		{"−√2·√2 at 40 bits", RealNeg(RealMul(sqrt2, sqrt2)), 40, big.NewRat(-2, 1)},
@@ -229,8 +229,12 @@ func TestRealTextFallbackEdges(t *testing.T) {
 			t.Errorf("%s printed %q: more digits than the enclosure fixes", c.what, s)
 		}
 	}
-	if _, err := RealSqrt(zero).Text(20, 8192); !errors.Is(err, ErrUndecided) {
-		t.Errorf("√(√2·√2 − 2): %v, want undecided", err)
+	// An algebraic zero is proved one, and prints as one.
+	if s, err := zero.Text(20, 8192); err != nil || s != "0" {
+		t.Errorf("√2·√2 − 2 printed %q, %v", s, err)
+	}
+	if _, err := RealSqrt(RealSin(Pi())).Text(20, 8192); !errors.Is(err, ErrUndecided) {
+		t.Errorf("√(sin π): %v, want undecided", err)
 	}
 	below := RealSub(zero, RealFromRat(new(big.Rat).SetFrac(big.NewInt(1), rtPow10(2000))))
 	if _, err := RealSqrt(below).Text(20, 8192); !errors.Is(err, ErrDomain) {

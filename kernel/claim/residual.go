@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math/big"
+	"strings"
 
 	"assay/cells"
 	"assay/exact"
@@ -15,6 +16,10 @@ const (
 	ExactMethod = "exact rational arithmetic"
 	PolyMethod  = "exact polynomial arithmetic (expanded)"
 	RealMethod  = "certified interval arithmetic"
+	// AlgebraicMethod decides a residual built from rationals by + − × ÷,
+	// integer powers and roots: intervals refined until they exclude 0,
+	// or lie below the residual's zero bound, which proves it zero.
+	AlgebraicMethod = "exact algebraic arithmetic (zero bound)"
 )
 
 // log10of2 turns bits into decimal digits.
@@ -46,6 +51,13 @@ type Residual struct {
 	// 0, and the bound is absolute, |lhs|, |rhs| < 10^-Certified.
 	NearZero  bool
 	Undecided bool // the precision cap came first
+	// Algebraic: decided exactly by the zero bound of an algebraic
+	// residual, zero (Zero) or certified non-zero (Real).
+	Algebraic bool
+	// ZeroBits is, for an algebraic residual, the B of its zero bound
+	// 2^-B; set also when the bound lay beyond the cap and the residual
+	// was only bounded.
+	ZeroBits int64
 }
 
 // Exact is the residual of an exact rational difference.
@@ -161,11 +173,77 @@ func excludesZero(iv exact.Interval) bool { return iv.Lo.Sign() > 0 || iv.Hi.Sig
 // until it excludes 0 (fails) or is within 10^-N of 0 relative to the
 // sides (N significant digits agree: holds to N digits), or, for sides
 // that cannot be told from 0, until both are within 10^-N of 0.
+//
+// An algebraic difference (rationals, + − × ÷, integer powers, roots) is
+// decided exactly by its zero bound (exact.Real.ZeroBound): proved zero, or
+// certified non-zero however small, refining up to the cap whatever the
+// target. When the bound lies beyond the cap it is bounded as above, with
+// the bound's bits kept for the note.
 func OfReal(lhs, rhs *exact.Real, t Target) (Residual, error) {
 	d := exact.RealSub(lhs, rhs)
 	if q, ok := d.Rat(); ok {
 		return Exact(q), nil
 	}
+	sign, bound, decided, err := algebraicSign(d, t)
+	switch {
+	case err != nil:
+		return Residual{}, err
+	case decided && sign == 0:
+		return Residual{Text: "0", Size: new(big.Rat), Zero: true, Algebraic: true, ZeroBits: bound}, nil
+	case decided:
+		// The sign's refinement left its best enclosure cached on d.
+		iv, err := d.EncloseCoarse(t.Bits + 32)
+		if err != nil {
+			return Residual{}, err
+		}
+		return nonZero(d, iv, t, Residual{Algebraic: true, ZeroBits: bound}), nil
+	}
+	r, err := ofInterval(lhs, rhs, d, t)
+	r.ZeroBits = bound
+	return r, err
+}
+
+// algebraicSign decides the sign of an algebraic d exactly, by its zero
+// bound (exact.Real.ZeroBound), refining from the target's precision up to
+// the cap. decided is false when d is not algebraic (bound 0) or the cap
+// came first (bound > 0, for the note); err is a certain failure.
+func algebraicSign(d *exact.Real, t Target) (sign int, bound int64, decided bool, err error) {
+	bound, alg := d.ZeroBound()
+	if !alg {
+		return 0, 0, false, nil
+	}
+	// A bound beyond the cap cannot be reached: refining to the cap first
+	// would only add its cost to the interval route's.
+	if bound > int64(t.Cap) {
+		return 0, bound, false, nil
+	}
+	sign, err = d.SignFrom(t.Bits+32, t.Cap)
+	if errors.Is(err, exact.ErrUndecided) {
+		return 0, bound, false, nil
+	}
+	return sign, bound, err == nil, err
+}
+
+// printCap bounds the precision spent on printing a residual certified
+// non-zero: one on a decimal boundary (exactly −10^-100) would otherwise
+// refine to the cap for digits it can never settle.
+const printCap = 1 << 16
+
+// nonZero fills r for a difference d certified non-zero by its enclosure
+// iv: 12 certified digits, or a rounded value with a proved bound, or,
+// when even that cannot be told from 0 within printCap bits, iv itself.
+func nonZero(d *exact.Real, iv exact.Interval, t Target, r Residual) Residual {
+	text, err := d.Text(12, min(t.Cap, printCap))
+	if err != nil || strings.HasPrefix(text, "0 (") {
+		text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
+	}
+	r.Text, r.Size, r.Real = text+" (certified non-zero)", magUpper(iv), true
+	return r
+}
+
+// ofInterval decides lhs = rhs by intervals alone: fails, holds to the
+// target's digits, or undecided at the cap.
+func ofInterval(lhs, rhs, d *exact.Real, t Target) (Residual, error) {
 	iv, how, err := compareSides(lhs, rhs, t, excludesZero)
 	switch {
 	case err != nil && errors.Is(err, exact.ErrUndecided):
@@ -180,11 +258,7 @@ func OfReal(lhs, rhs *exact.Real, t Target) (Residual, error) {
 	case nearZero:
 		return Residual{Text: fmt.Sprintf("|lhs|, |rhs| < 1e-%d", n), Size: iv.Width(), Real: true, Certified: n, NearZero: true}, nil
 	}
-	text, derr := d.Digits(12, t.Cap)
-	if derr != nil {
-		text = exact.FormatRat(iv.Lo) + " … " + exact.FormatRat(iv.Hi)
-	}
-	return Residual{Text: text + " (certified non-zero)", Size: magUpper(iv), Real: true}, nil
+	return nonZero(d, iv, t, Residual{}), nil
 }
 
 // OfKVector is the residual of a difference of k-vectors: its largest coefficient.
@@ -321,6 +395,12 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		if samples > 0 {
 			c.Note = fmt.Sprintf("the expanded difference is the zero polynomial on each of the %d samples: for each sample, a proof for all values of the variables; for the general statement, evidence, not a proof", samples)
 		}
+	case r.Zero && r.Algebraic && samples > 0:
+		c.Verdict, c.Method = cells.Holds, AlgebraicMethod
+		c.Note = fmt.Sprintf("the residual is exactly zero on each of the %d samples, proved where it is not rational by its enclosure lying below the zero bound (BFMSS) that a non-zero algebraic number built as it is cannot go below: each instance is proved; for the general statement this is evidence, not a proof", samples)
+	case r.Zero && r.Algebraic:
+		c.Verdict, c.Method = cells.Holds, AlgebraicMethod
+		c.Note = fmt.Sprintf("the residual is exactly zero: its enclosure lies below 2^-%d, the zero bound (BFMSS) that a non-zero algebraic number built as this residual is cannot go below — a proof for this instance", r.ZeroBits)
 	case r.Zero && samples > 0:
 		c.Verdict = cells.Holds
 		c.Note = "exact zero residual " + every + ": each instance is proved; for the general statement this is evidence, not a proof"
@@ -337,20 +417,33 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 			c.Note = fmt.Sprintf("neither side could be separated from 0, and both are certified below 10^-%d in absolute value: an absolute bound, with no significant digits to compare", r.Certified)
 		}
 		c.Note += "; evidence, not a proof — an exactly zero residual and a very small one look the same at any finite precision"
+		c.Note += beyondCap(r.ZeroBits)
 	case r.Undecided:
 		c.Verdict, c.Method, c.Why = cells.Undecided, RealMethod, cells.PrecisionCap
-		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits="
+		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits=" + beyondCap(r.ZeroBits)
 	case r.Symbolic:
 		c.Verdict, c.Method = cells.Fails, PolyMethod
 		c.Note = "the expanded difference is a non-zero polynomial"
 	case r.Real:
 		c.Verdict, c.Method = cells.Fails, RealMethod
 		c.Note = "the residual is certified non-zero: its enclosure excludes 0"
+		if r.Algebraic {
+			c.Note += " (the residual is algebraic, so its enclosure was refined past the target precision until its sign was certain: exactly zero, shown by the zero bound, or non-zero, as here)"
+		}
 	default:
 		c.Verdict = cells.Fails
 		c.Note = "exact non-zero residual"
 	}
 	c.Residual = r.Text
+}
+
+// beyondCap says, for an algebraic residual that was only bounded, that
+// its zero bound lay beyond the precision cap and how to reach it.
+func beyondCap(bits int64) string {
+	if bits == 0 {
+		return ""
+	}
+	return fmt.Sprintf("; the residual is algebraic, but proving it zero needs its enclosure below 2^-%d (its BFMSS zero bound), which the precision cap did not reach: raise --max-precision above %d bits to decide it exactly", bits, bits)
 }
 
 // Preview prints a polynomial, or its first terms and the count when long.

@@ -20,7 +20,10 @@ type Slack struct {
 	// 0 either, and both are below 10^-bound in absolute value; else the
 	// sides agree to bound significant digits.
 	NearZero bool
-	bound    int
+	// Algebraic: the sign was decided exactly by the slack's zero bound
+	// (a slack proved zero is then Exact, with Lo = 0).
+	Algebraic bool
+	bound     int
 }
 
 // MeasureSlack decides lesser <= greater: exactly when the slack is known
@@ -28,15 +31,35 @@ type Slack struct {
 // residual is (compareSides): "holds" when it is certified >= 0, "fails"
 // when < 0, and undecided when the two sides agree to the target's digits
 // (or are both that close to 0), since a slack that cannot be told from 0
-// shows nothing about its sign.
+// shows nothing about its sign. An algebraic slack has its sign decided
+// exactly by its zero bound, as OfReal decides a residual: an inequality
+// at equality then holds, the equality proved.
 func MeasureSlack(lesser, greater *exact.Real, t Target) (Slack, error) {
 	d := exact.RealSub(greater, lesser)
 	sl := Slack{Value: d}
+	sign, _, decided, err := algebraicSign(d, t)
+	if err != nil {
+		return Slack{}, err
+	}
 	if q, ok := d.Rat(); ok {
 		sl.Lo, sl.Exact = q, true
 		sl.Verdict = cells.Holds
 		if q.Sign() < 0 {
 			sl.Verdict = cells.Fails
+		}
+	} else if decided {
+		sl.Algebraic, sl.Verdict = true, cells.Holds
+		if sign < 0 {
+			sl.Verdict = cells.Fails
+		}
+		if sign == 0 {
+			sl.Lo, sl.Exact = new(big.Rat), true
+		} else {
+			iv, err := d.EncloseCoarse(t.Bits + 32)
+			if err != nil {
+				return Slack{}, err
+			}
+			sl.Lo = iv.Lo
 		}
 	} else {
 		signed := func(iv exact.Interval) bool { return iv.Lo.Sign() >= 0 || iv.Hi.Sign() < 0 }
@@ -99,7 +122,7 @@ func (sl Slack) Text() string {
 	case sl.Verdict == cells.Undecided:
 		return fmt.Sprintf("|slack| < 1e-%d relative", sl.bound)
 	}
-	if d, err := sl.Value.Digits(12, 1<<12); err == nil {
+	if d, err := sl.Value.Text(12, 1<<12); err == nil {
 		return d
 	}
 	return "≈ " + sl.Lo.FloatString(15)
@@ -114,7 +137,7 @@ func (sl Slack) Record(k int64) SampleSlack {
 
 // record is the slack as a tally keeps it, without the printed form.
 func (sl Slack) record(k int64) SampleSlack {
-	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, NearZero: sl.NearZero, Ratio: sl.Ratio}
+	return SampleSlack{K: k, Lo: sl.Lo.RatString(), Rel: sl.Rel.RatString(), Exact: sl.Exact, Verdict: sl.Verdict, NearZero: sl.NearZero, Ratio: sl.Ratio, Algebraic: sl.Algebraic}
 }
 
 // Add records one instance's slack; the printed forms are made only for
@@ -167,7 +190,10 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	if w.Verdict == cells.Undecided {
 		c.Residual = w.Text // a bound, which names the slack itself
 	}
-	if !w.Exact {
+	switch {
+	case w.Algebraic && w.Exact:
+		c.Method = AlgebraicMethod // a slack proved zero
+	case !w.Exact:
 		c.Method, c.Precision = RealMethod, int(t.Bits)
 	}
 	if samples > 0 && (w.Verdict != cells.Holds || it.Violations > 0 || fromSearch) {
@@ -220,6 +246,12 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	case fromSearch:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s and at the point the search reached, which is shown%s", every, ratio)
+	case w.Algebraic && w.Exact:
+		c.Verdict = cells.Holds
+		c.Note = "the slack is exactly zero: the sides are equal, proved by the slack's enclosure lying below its zero bound (BFMSS), which a non-zero algebraic number built as it is cannot go below"
+		if samples > 0 {
+			c.Note = fmt.Sprintf("slack certified >= 0 %s; the smallest is exactly zero, proved by its zero bound (BFMSS)", every)
+		}
 	default:
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("slack certified >= 0 %s%s", every, ratio)

@@ -67,6 +67,8 @@ type IdentityTally struct {
 	Raised   int64           `json:"raised,omitempty"` // samples on which f raised
 	Audit    *SampleAudit    `json:"audit,omitempty"`  // the float64 audit that lost most digits
 	Skip     *SampleNote     `json:"skip,omitempty"`   // why the audit was skipped, first sample
+	// Algebraic: some zero residual was proved by the zero bound.
+	Algebraic bool `json:"algebraic,omitempty"`
 }
 
 // SampleResidual is one sample's residual.
@@ -80,6 +82,8 @@ type SampleResidual struct {
 	Certified int    `json:"certified,omitempty"`
 	NearZero  bool   `json:"near_zero,omitempty"`
 	Undecided bool   `json:"undecided,omitempty"`
+	Algebraic bool   `json:"algebraic,omitempty"`
+	ZeroBits  int64  `json:"zero_bits,omitempty"`
 }
 
 // SampleAudit is the float64 audit of one sample.
@@ -121,6 +125,9 @@ type SampleSlack struct {
 	Text     string `json:"text"`
 	Ratio    string `json:"ratio,omitempty"`
 	Sample   string `json:"sample,omitempty"` // printed instance, for one found by search
+	// Algebraic: the sign was decided by the zero bound; with Exact, the
+	// slack was proved zero.
+	Algebraic bool `json:"algebraic,omitempty"`
 }
 
 // SearchTally is the best point a counterexample search found.
@@ -252,6 +259,7 @@ func (t *IdentityTally) merge(o *IdentityTally) {
 	}
 	t.Symbolic = t.Symbolic || o.Symbolic
 	t.Real = t.Real || o.Real
+	t.Algebraic = t.Algebraic || o.Algebraic
 	t.Failing += o.Failing
 	t.Raised += o.Raised
 	if a := o.Audit; a != nil && (t.Audit == nil || a.Audit.DigitsLost > t.Audit.Audit.DigitsLost ||
@@ -263,7 +271,7 @@ func (t *IdentityTally) merge(o *IdentityTally) {
 
 // Add records one sample's residual.
 func (t *IdentityTally) Add(k int64, r Residual) {
-	t.merge(&IdentityTally{Worst: sampleResidual(k, r), Symbolic: r.Symbolic, Real: r.Real})
+	t.merge(&IdentityTally{Worst: sampleResidual(k, r), Symbolic: r.Symbolic, Real: r.Real, Algebraic: r.Zero && r.Algebraic})
 	if r.Failing() {
 		t.Failing++
 	}
@@ -276,7 +284,7 @@ func (t *IdentityTally) AddAudit(k int64, audit cells.FloatAudit) {
 
 func sampleResidual(k int64, r Residual) *SampleResidual {
 	return &SampleResidual{K: k, Text: r.Text, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic,
-		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided}
+		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided, Algebraic: r.Algebraic, ZeroBits: r.ZeroBits}
 }
 
 // Residual turns the record back into the residual it was made from.
@@ -286,7 +294,7 @@ func (s *SampleResidual) Residual() Residual {
 		size = new(big.Rat)
 	}
 	return Residual{Text: s.Text, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Real: s.Real,
-		Certified: s.Certified, NearZero: s.NearZero, Undecided: s.Undecided}
+		Certified: s.Certified, NearZero: s.NearZero, Undecided: s.Undecided, Algebraic: s.Algebraic, ZeroBits: s.ZeroBits}
 }
 
 // worseThan orders residuals as Worst does, the lower index first on ties.

@@ -30,10 +30,15 @@ type realPair struct {
 	lhs, rhs func() *exact.Real
 }
 
-// pairs: true identities from memory (√2·√3 = √6; π/4 = atan(1)), a near
-// miss in the 110th significant digit, one in the 30th, and 0 = 0 where
-// one side, sin(π), can never be told from 0 (common practice).
+// eOf is e^n, transcendental: no zero bound applies to it.
+func eOf(n int64) *exact.Real { return exact.RealExp(exact.RealFromInt(n)) }
+
+// pairs: true identities from memory (√2·√3 = √6; π/4 = atan(1)), near
+// misses in the 110th significant digit (algebraic, and transcendental),
+// one in the 30th, and 0 = 0 where one side, sin(π), can never be told
+// from 0 (common practice).
 var pairs = []realPair{
+	{"e = e + 10^-110", func() *exact.Real { return eOf(1) }, func() *exact.Real { return exact.RealAdd(eOf(1), tenTo(-110)) }},
 	{"√2·√3 = √6", func() *exact.Real { return exact.RealMul(sqrtOf(2), sqrtOf(3)) }, func() *exact.Real { return sqrtOf(6) }},
 	{"π/4 = atan(1)", func() *exact.Real { return exact.RealQuo(exact.Pi(), exact.RealFromInt(4)) },
 		func() *exact.Real { return exact.RealAtan(exact.RealFromInt(1)) }},
@@ -44,9 +49,11 @@ var pairs = []realPair{
 
 // Scale invariance, a property of the definition "N significant digits
 // agree": the residual of (a·s, b·s) reads as that of (a, b) for s = 10^50
-// and 10^-50, and the pairs get the verdicts they should.
+// and 10^-50, and the pairs get the verdicts they should: the algebraic
+// ones decided exactly (zero, or non-zero however small), the others to
+// 77 digits.
 func TestResidualIsBlindToScale(t *testing.T) {
-	want := []string{"|r| < 1e-77 relative", "|r| < 1e-77 relative", "|r| < 1e-77 relative", "(certified non-zero)", "|lhs|, |rhs| < 1e-77"}
+	want := []string{"|r| < 1e-77 relative", "0", "|r| < 1e-77 relative", "(certified non-zero)", "(certified non-zero)", "|lhs|, |rhs| < 1e-77"}
 	for i, p := range pairs {
 		var first Residual
 		for j, e := range []int64{0, 50, -50} {
@@ -97,12 +104,15 @@ func TestNearZeroIsTheWorseBound(t *testing.T) {
 	}
 }
 
-// √2 + 10^-90 <= √2 is false and √2 <= √2 + 10^-90 is true (trivially),
-// yet at 77 digits neither slack can be told from 0: both are undecided,
+// e + 10^-90 <= e is false and e <= e + 10^-90 is true (trivially), yet
+// at 77 digits neither slack can be told from 0: both are undecided,
 // never "holds". At 100 digits each is decided, and rightly (common
-// practice: a difference below the precision is invisible to it).
+// practice: a difference below the precision is invisible to it). The
+// same with √2, an algebraic number, is decided at any precision by the
+// zero bound, and √2·√3 <= √6 holds with the equality proved.
 func TestSlackAtEqualityIsUndecided(t *testing.T) {
-	big90 := func() *exact.Real { return exact.RealAdd(sqrtOf(2), tenTo(-90)) }
+	big90 := func() *exact.Real { return exact.RealAdd(eOf(1), tenTo(-90)) }
+	root90 := func() *exact.Real { return exact.RealAdd(sqrtOf(2), tenTo(-90)) }
 	at100 := Target{Bits: BitsForDigits(100), Cap: exact.DefaultMaxPrecision}
 	for _, tc := range []struct {
 		name            string
@@ -110,12 +120,15 @@ func TestSlackAtEqualityIsUndecided(t *testing.T) {
 		t               Target
 		want            cells.Verdict
 	}{
-		{"false at 77 digits", big90(), sqrtOf(2), at77, cells.Undecided},
-		{"true at 77 digits", sqrtOf(2), big90(), at77, cells.Undecided},
-		{"false at 100 digits", big90(), sqrtOf(2), at100, cells.Fails},
-		{"true at 100 digits", sqrtOf(2), big90(), at100, cells.Holds},
-		{"scaled by 10^60 at 77 digits", exact.RealMul(big90(), tenTo(60)), exact.RealMul(sqrtOf(2), tenTo(60)), at77, cells.Undecided},
-		{"√2·√3 <= √6", exact.RealMul(sqrtOf(2), sqrtOf(3)), sqrtOf(6), at77, cells.Undecided},
+		{"false at 77 digits", big90(), eOf(1), at77, cells.Undecided},
+		{"true at 77 digits", eOf(1), big90(), at77, cells.Undecided},
+		{"false at 100 digits", big90(), eOf(1), at100, cells.Fails},
+		{"true at 100 digits", eOf(1), big90(), at100, cells.Holds},
+		{"scaled by 10^60 at 77 digits", exact.RealMul(big90(), tenTo(60)), exact.RealMul(eOf(1), tenTo(60)), at77, cells.Undecided},
+		{"e·e <= e²", exact.RealMul(eOf(1), eOf(1)), eOf(2), at77, cells.Undecided},
+		{"algebraic, false at 77 digits", root90(), sqrtOf(2), at77, cells.Fails},
+		{"algebraic, true at 77 digits", sqrtOf(2), root90(), at77, cells.Holds},
+		{"√2·√3 <= √6", exact.RealMul(sqrtOf(2), sqrtOf(3)), sqrtOf(6), at77, cells.Holds},
 	} {
 		sl, err := MeasureSlack(tc.lesser, tc.greater, tc.t)
 		if err != nil {
@@ -125,6 +138,15 @@ func TestSlackAtEqualityIsUndecided(t *testing.T) {
 			t.Errorf("%s: %s (%s)", tc.name, sl.Verdict, sl.Text())
 		}
 		if tc.want != cells.Undecided {
+			if strings.HasPrefix(tc.name, "√2·√3") {
+				var c cells.Claim
+				it := &InequalityTally{}
+				it.Add(0, sl)
+				JudgeInequality(&c, it, nil, 0, 0, tc.t, nil)
+				if c.Verdict != cells.Holds || c.Method != AlgebraicMethod || c.Residual != "slack 0" || !strings.Contains(c.Note, "exactly zero") {
+					t.Errorf("%s: %s by %q, residual %q: %q", tc.name, c.Verdict, c.Method, c.Residual, c.Note)
+				}
+			}
 			continue
 		}
 		var c cells.Claim
@@ -137,13 +159,13 @@ func TestSlackAtEqualityIsUndecided(t *testing.T) {
 	}
 }
 
-// A sampled inequality: one sample at equality (√2·√3 against √6) among
-// samples that hold makes it undecided and is the one shown; a certified
-// violation elsewhere makes it fail and is shown instead, though the
-// lower end of the equal sample's enclosure may lie below the violation's
-// slack.
+// A sampled inequality: one sample at equality (e·e against e², which no
+// zero bound reaches) among samples that hold makes it undecided and is
+// the one shown; a certified violation elsewhere makes it fail and is
+// shown instead, though the lower end of the equal sample's enclosure may
+// lie below the violation's slack.
 func TestSampledSlackAtEquality(t *testing.T) {
-	equal, err := MeasureSlack(exact.RealMul(sqrtOf(2), sqrtOf(3)), sqrtOf(6), at77)
+	equal, err := MeasureSlack(exact.RealMul(eOf(1), eOf(1)), eOf(2), at77)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -167,8 +189,8 @@ func TestSampledSlackAtEquality(t *testing.T) {
 	// A violation by 10^-200 relative, far below the equal sample's
 	// enclosure width, found at 700 digits.
 	deep := Target{Bits: BitsForDigits(700), Cap: exact.DefaultMaxPrecision}
-	tiny := exact.RealAdd(sqrtOf(6), tenTo(-200))
-	violation, err := MeasureSlack(tiny, sqrtOf(6), deep)
+	tiny := exact.RealAdd(eOf(2), tenTo(-200))
+	violation, err := MeasureSlack(tiny, eOf(2), deep)
 	if err != nil {
 		t.Fatal(err)
 	}

@@ -135,6 +135,10 @@ func (s *Session) sampled(c *cells.Claim, t claim.Target, fam family, samples py
 	}
 	w := it.Worst.Residual()
 	w.Symbolic, w.Real = it.Symbolic, it.Real
+	if w.Zero {
+		// Every sample is zero: proved by the zero bound on some of them.
+		w.Algebraic = it.Algebraic
+	}
 	w.Decide(c, int(counted))
 	c.Samples = int(n)
 	if w.Real {

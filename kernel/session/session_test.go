@@ -425,9 +425,15 @@ func TestRealsAndGeometry(t *testing.T) {
 		{"print(sqrt(2) < frac(3, 2), sqrt(2) > frac(141, 100), float(sqrt(2)) == 2 ** 0.5)", "True True True"},
 		{"lo, hi = sqrt(2).enclosure(40)\nprint(lo < sqrt(2), sqrt(2) < hi, hi - lo <= frac(1, 2 ** 40))", "True True True"},
 		{"print(1 / sqrt(4), str(sqrt(2) * sqrt(8))[:32])", "1/2 4.0000000000000000000 (within 1e"},
-		// √(√2·√2 − 2) is the root of an exact zero no enclosure clears:
-		// printing says why instead of naming a cap it did not use.
-		{"print(sqrt(sqrt(2) * sqrt(2) - 2))", "<real with no enclosure for printing: root of degree 2: argument not separated from 0 at 8192 bits>"},
+		// √(sin π) is the root of an exact zero no enclosure clears (sin π
+		// is not algebraic): printing says why instead of naming a cap it
+		// did not use. √(√2·√2 − 2) is the root of an algebraic zero,
+		// which its zero bound proves.
+		{"print(sqrt(sin(pi)))", "<real with no enclosure for printing: root of degree 2: argument not separated from 0 at 8192 bits>"},
+		{"print(sqrt(sqrt(2) * sqrt(2) - 2), sqrt(2) - sqrt(2))", "0 0"},
+		// Comparisons of algebraic reals are decided exactly (√2·√2 = 2,
+		// √2·√3 = √6, from memory).
+		{"print(sqrt(2) * sqrt(2) == 2, sqrt(2) == sqrt(2), sqrt(2) * sqrt(3) != sqrt(6), sqrt(2) * sqrt(3) <= sqrt(6))", "True True False True"},
 		{"s = simplex([[0, 0], [4, 0], [0, 3]])\nprint(s.volume(), s.inradius(), s.circumradius_sq(), s.sq_edges())", "6 1 25/4 [16, 9, 25]"},
 		{"print(wedge([1, 0, 0], [0, 1, 0]) * 3, wedge([1, 2], [3, 4]).components())", "3*e1^e2 [((0, 1), -2)]"},
 		{"print(cayley_menger(matrix([[0, 1, 1], [1, 0, 1], [1, 1, 0]])), volume_sq(matrix([[0, 4], [4, 0]])))", "-3 4"},
@@ -435,7 +441,8 @@ func TestRealsAndGeometry(t *testing.T) {
 		{"print(embeddable(matrix([[0, 1, 9], [1, 0, 1], [9, 1, 0]]), 2)[0], sliver(frac(1, 10)).is_degenerate())", "False False"},
 	})
 	expectErrors(t, []errorCase{
-		{"sqrt(2) == sqrt(2)", "cannot decide"},
+		{"exp(1) * exp(1) == exp(2)", "cannot decide"},
+		{"1 / (sqrt(2) * sqrt(3) - sqrt(6))", "exactly zero"},
 		{"sqrt(2) + 0.5", "float64"},
 		{"sqrt(0.5)", "float64"},
 		{"digits(sqrt(2), 0)", "1 <= n"},
@@ -602,13 +609,17 @@ inequality("x^2 <= x/2 (false from x = 1/2 on)", lambda x: (x * x, x / 2), over=
 	if o.Error != nil {
 		t.Fatalf("cell failed: line %d: %s", o.Error.Line, o.Error.Message)
 	}
-	// The Euler equality case cannot be told from equality by intervals:
-	// undecided, not "holds to digits" (its slack has no known sign).
-	want := []cells.Verdict{cells.Holds, cells.Holds, cells.Undecided, cells.Fails, cells.Holds, cells.Fails, cells.Fails}
+	// The Euler equality case R = 3r of the regular tetrahedron (from
+	// memory) has an algebraic slack, proved exactly zero by its zero
+	// bound: the inequality holds with the equality proved.
+	want := []cells.Verdict{cells.Holds, cells.Holds, cells.Holds, cells.Fails, cells.Holds, cells.Fails, cells.Fails}
 	for i, c := range o.Claims {
 		if c.Verdict != want[i] {
 			t.Errorf("%s: %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])
 		}
+	}
+	if c := o.Claims[2]; c.Method != "exact algebraic arithmetic (zero bound)" || !strings.Contains(c.Note, "exactly zero") {
+		t.Errorf("Euler equality: method %q note %q", c.Method, c.Note)
 	}
 	if c := o.Claims[3]; !strings.Contains(c.Note, "certified negative") || c.Worst == "" {
 		t.Errorf("strengthened inequality: note %q worst %q", c.Note, c.Worst)
@@ -698,7 +709,7 @@ identity("isoperimetric equality for the regular tetrahedron", iso(1)([0, 0, 0, 
 	if o.Error != nil {
 		t.Fatalf("line %d: %s", o.Error.Line, o.Error.Message)
 	}
-	want := []cells.Verdict{cells.Holds, cells.Fails, cells.Holds, cells.Fails, cells.Fails, cells.HoldsToDigits}
+	want := []cells.Verdict{cells.Holds, cells.Fails, cells.Holds, cells.Fails, cells.Fails, cells.Holds}
 	for i, c := range o.Claims {
 		if c.Verdict != want[i] {
 			t.Errorf("%s: %s (%s; %s), want %s", c.Name, c.Verdict, c.Residual, c.Note, want[i])

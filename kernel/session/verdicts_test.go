@@ -8,18 +8,18 @@ import (
 	"assay/cells"
 )
 
-// √2 + 10^-90 <= √2 is false, √2 <= √2 + 10^-90 trivially true; at the
-// default 77 digits neither slack can be told from 0, so both are
-// undecided (equal within 10^-77) and the run exits 1; digits=100 decides
-// both, rightly (common practice). A sampled inequality with one sample
-// at equality — √2·√3 against √6 (from memory) at k = 3 — is undecided
-// and shows that sample.
+// e + 10^-90 <= e is false, e <= e + 10^-90 trivially true; at the
+// default 77 digits neither slack can be told from 0 (e is transcendental:
+// no zero bound applies), so both are undecided (equal within 10^-77) and
+// the run exits 1; digits=100 decides both, rightly (common practice). A
+// sampled inequality with one sample at equality — e·e against e² at
+// k = 3 — is undecided and shows that sample.
 func TestInequalityAtEqualityIsUndecided(t *testing.T) {
-	rep := runHere(t, `inequality("false, equal to 77 digits", sqrt(2) + frac(1, 10**90), sqrt(2))
-inequality("true, equal to 77 digits", sqrt(2), sqrt(2) + frac(1, 10**90))
-inequality("false at 100 digits", sqrt(2) + frac(1, 10**90), sqrt(2), digits=100)
-inequality("true at 100 digits", sqrt(2), sqrt(2) + frac(1, 10**90), digits=100)
-inequality("one sample at equality", lambda k: (sqrt(2) * sqrt(3), sqrt(6) + frac(abs(k - 3), 10)), over=lambda k: k, samples=6)`)
+	rep := runHere(t, `inequality("false, equal to 77 digits", exp(1) + frac(1, 10**90), exp(1))
+inequality("true, equal to 77 digits", exp(1), exp(1) + frac(1, 10**90))
+inequality("false at 100 digits", exp(1) + frac(1, 10**90), exp(1), digits=100)
+inequality("true at 100 digits", exp(1), exp(1) + frac(1, 10**90), digits=100)
+inequality("one sample at equality", lambda k: (exp(1) * exp(1), exp(2) + frac(abs(k - 3), 10)), over=lambda k: k, samples=6)`)
 	o := rep.Outcomes[0]
 	if o.Error != nil {
 		t.Fatalf("line %d: %s", o.Error.Line, o.Error.Message)
@@ -45,18 +45,20 @@ inequality("one sample at equality", lambda k: (sqrt(2) * sqrt(3), sqrt(6) + fra
 // "Holds to N digits" means N significant digits agree, so a common factor
 // does not change a verdict (a property of the definition): each pair is
 // checked as an identity and as an inequality at the scales 1, 10^50 and
-// 10^-50. True identities from memory: √2·√3 = √6, π/4 = atan(1),
-// sin(π) = 0; near misses in the 110th digit (equal to 77 digits) and in
-// the 30th (different).
+// 10^-50. True identities from memory: √2·√3 = √6 (algebraic: proved by
+// the zero bound), π/4 = atan(1), sin(π) = 0; near misses in the 110th
+// digit (equal to 77 digits; decided exactly when algebraic) and in the
+// 30th (different).
 func TestVerdictsAreBlindToScale(t *testing.T) {
 	for _, tc := range []struct {
 		lhs, rhs         string
 		identity, lessEq cells.Verdict
 		residual         string
 	}{
-		{"sqrt(2) * sqrt(3)", "sqrt(6)", cells.HoldsToDigits, cells.Undecided, "|r| < 1e-77 relative"},
+		{"sqrt(2) * sqrt(3)", "sqrt(6)", cells.Holds, cells.Holds, "0"},
 		{"pi / 4", "atan2(1, 1)", cells.HoldsToDigits, cells.Undecided, "|r| < 1e-77 relative"},
-		{"sqrt(2)", "sqrt(2) + frac(1, 10**110)", cells.HoldsToDigits, cells.Undecided, "|r| < 1e-77 relative"},
+		{"sqrt(2)", "sqrt(2) + frac(1, 10**110)", cells.Fails, cells.Holds, "certified non-zero"},
+		{"exp(1)", "exp(1) + frac(1, 10**110)", cells.HoldsToDigits, cells.Undecided, "|r| < 1e-77 relative"},
 		{"sqrt(2)", "sqrt(2) + frac(1, 10**30)", cells.Fails, cells.Holds, "certified non-zero"},
 		{"sin(pi)", "0", cells.HoldsToDigits, cells.Undecided, "|lhs|, |rhs| < 1e-77"},
 	} {
