@@ -52,6 +52,14 @@ var (
 	// magnitude is beyond what the evaluator represents (binary exponents
 	// beyond about ±2^28).
 	ErrOverflow = errors.New("magnitude out of range")
+	// ErrNotAlgebraic reports a Real with a transcendental function or π
+	// in it where an algebraic one is needed (MinimalPolynomial). Its
+	// value may still be algebraic (cos(2π/5) is); the expression does not
+	// show it.
+	ErrNotAlgebraic = errors.New("not built from rationals by arithmetic and roots")
+	// ErrDegreeCap reports an algebraic computation that would pass the
+	// degree cap (MinimalPolynomial's maxDegree, the flag --max-degree).
+	ErrDegreeCap = errors.New("degree cap reached")
 )
 
 // capError is ErrUndecided with a message of its own: what was asked and
