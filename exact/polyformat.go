@@ -23,14 +23,7 @@ func (p *Poly) format(names []string) string {
 		c := p.coefAt(i)
 		neg := c.Sign() < 0
 		c.Abs(c)
-		switch {
-		case i == 0 && neg:
-			sb.WriteByte('-')
-		case i > 0 && neg:
-			sb.WriteString(" - ")
-		case i > 0:
-			sb.WriteString(" + ")
-		}
+		writeSign(&sb, i, neg)
 		m := p.monoAt(i)
 		if !(c.IsInt() && c.Num().Cmp(bigOne) == 0) || m[0] == 0 {
 			sb.WriteString(FormatRat(c))
@@ -64,5 +57,18 @@ func writeMono(sb *strings.Builder, m []uint64, names []string) {
 			sb.WriteByte('^')
 			sb.WriteString(strconv.Itoa(e))
 		}
+	}
+}
+
+// writeSign writes what comes before term i of a sum: "-" for a negative
+// first term, " - " or " + " between terms.
+func writeSign(sb *strings.Builder, i int, neg bool) {
+	switch {
+	case i == 0 && neg:
+		sb.WriteByte('-')
+	case i > 0 && neg:
+		sb.WriteString(" - ")
+	case i > 0:
+		sb.WriteString(" + ")
 	}
 }

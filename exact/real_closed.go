@@ -326,16 +326,8 @@ func (s radSum) text() (string, int) {
 	var b strings.Builder
 	for i, t := range s {
 		n := new(big.Int).Mul(t.c.Num(), new(big.Int).Quo(den, t.c.Denom()))
-		neg := n.Sign() < 0
+		writeSign(&b, i, n.Sign() < 0)
 		n.Abs(n)
-		switch {
-		case i == 0 && neg:
-			b.WriteString("-")
-		case i > 0 && neg:
-			b.WriteString(" - ")
-		case i > 0:
-			b.WriteString(" + ")
-		}
 		switch {
 		case t.k == 1:
 			b.WriteString(n.String())

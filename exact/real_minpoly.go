@@ -87,7 +87,7 @@ type minpoly struct {
 // itself (ErrDomain, ErrDivisionByZero).
 func (x *Real) MinimalPolynomial(maxDegree int, maxPrec uint) ([]*big.Int, error) {
 	if !x.algebraic().ok {
-		return nil, fmt.Errorf("minimal polynomial: the value involves a transcendental function or pi: %w", ErrNotAlgebraic)
+		return nil, fmt.Errorf("minimal polynomial: the value involves a transcendental function or pi (it may still be algebraic, as cos(2*pi/5) is, but the expression does not show it): %w", ErrNotAlgebraic)
 	}
 	if maxDegree <= 0 {
 		maxDegree = DefaultMaxDegree
@@ -216,6 +216,11 @@ func (m *minpoly) binary(x *Real) (*Poly, error) {
 	if err != nil {
 		return nil, err
 	}
+	return m.eliminate(x, A, B)
+}
+
+// eliminate returns the factor of Res_y(A, B) that vanishes at x.
+func (m *minpoly) eliminate(x *Real, A, B *Poly) (*Poly, error) {
 	res, err := Resultant(A, B, 1)
 	if err != nil {
 		return nil, err
@@ -256,11 +261,7 @@ func (m *minpoly) power(x *Real) (*Poly, error) {
 	if err != nil {
 		return nil, err
 	}
-	res, err := Resultant(A, B, 1)
-	if err != nil {
-		return nil, err
-	}
-	return m.pick(x, toDense(res.PrimitivePart(), 0))
+	return m.eliminate(x, A, B)
 }
 
 // monomial returns c·t^i·y^j.

@@ -42,6 +42,10 @@ type Options struct {
 // DefaultMaxTerms is the default cap on the terms of a polynomial.
 var DefaultMaxTerms = exact.DefaultMaxTerms
 
+// DefaultMaxDegree is the default cap on the degree of the polynomials a
+// minimal polynomial is computed through (--max-degree).
+var DefaultMaxDegree = exact.DefaultMaxDegree
+
 // Defaults for Options.
 const (
 	DefaultTimeout   = 60 * time.Second

@@ -83,6 +83,7 @@ type runFlags struct {
 	precisionValue int
 	maxTerms       int
 	maxPrecision   int
+	maxDegree      int
 }
 
 // limits are the flags of every command that runs kernels.
@@ -140,6 +141,7 @@ func addRunFlags(fs *flag.FlagSet) *runFlags {
 	fs.IntVar(&f.precisionValue, "precision", session.DefaultSettings.Precision, "working precision in bits (overrides setup(precision=…))")
 	fs.IntVar(&f.maxTerms, "max-terms", kernel.DefaultMaxTerms, "largest number of terms a polynomial may have")
 	fs.IntVar(&f.maxPrecision, "max-precision", session.DefaultMaxPrecision, "largest precision in bits a certified real may be refined to")
+	fs.IntVar(&f.maxDegree, "max-degree", kernel.DefaultMaxDegree, "largest degree of a polynomial a minimal polynomial is computed through")
 	addLimitFlags(fs, &f.limits)
 	addStrictFlag(fs, &f.strictOn)
 	return f
@@ -181,6 +183,10 @@ func (f *runFlags) options(fs *flag.FlagSet, stderr io.Writer) (kernel.Options, 
 	}
 	s.MaxTerms = f.maxTerms
 	s.MaxPrecision = f.maxPrecision
+	if f.maxDegree < 1 {
+		return kernel.Options{}, fmt.Errorf("--max-degree must be positive, got %d", f.maxDegree)
+	}
+	s.MaxDegree = f.maxDegree
 	if s.Precision < 2 {
 		return kernel.Options{}, fmt.Errorf("--precision must be at least 2 bits, got %d", s.Precision)
 	}

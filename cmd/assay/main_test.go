@@ -91,6 +91,10 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"real-acos-domain.md", 4, "acos of 3/2", nil},
 		{"real-divide-unseparated.md", 5, "cannot be separated from zero", nil},
 		{"real-divide-algebraic-zero.md", 5, "division by a real that is exactly zero", nil},
+		{"real-root-zero.md", 5, "root(x, k) needs an integer k from 2 to 1048576, got 0", nil},
+		{"real-even-root-negative.md", 5, "root of degree 4 of a negative number", nil},
+		{"real-degree-cap.md", 8, "degree 125 on the way, beyond the degree cap of 64 (raise it with the flag --max-degree)", nil},
+		{"real-minimal-polynomial-transcendental.md", 7, "involves a transcendental function or pi", nil},
 		{"precision-zero.md", 3, "at least 2", nil},
 		{"precision-above-cap.md", 4, "above the precision cap", nil},
 		{"precision-digits-undecided.md", 9, "ArithmeticError: 30 certified digits not settled within the precision cap of 1000 bits (raise the cap with --max-precision)\n", []string{"--max-precision", "1000"}},
@@ -177,6 +181,7 @@ func TestBadFlags(t *testing.T) {
 		{"run", "--max-memory", "lots", "a.md"},
 		{"run", "--timeout", "-1s", "a.md"},
 		{"run", "--max-terms", "0", "a.md"},
+		{"run", "--max-degree", "0", "a.md"},
 		{"frobnicate"},
 	} {
 		if code, _, _ := assay(t, args...); code != 2 {

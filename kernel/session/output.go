@@ -92,6 +92,12 @@ func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
 
 func (s *Session) show(a interp.Args) (py.Object, error) {
 	text := interp.Str(a.Get("value"))
+	if x, ok := a.Get("value").(*values.Real); ok {
+		var err error
+		if text, err = x.Show(); err != nil {
+			return nil, err
+		}
+	}
 	if a.Given("label") {
 		label := interp.Str(a.Get("label"))
 		if strings.Contains(text, "\n") {

@@ -27,6 +27,9 @@ type Settings struct {
 	MaxTerms int `json:"max_terms,omitempty"`
 	// MaxPrecision caps the bits of any certified-real refinement (0: DefaultMaxPrecision).
 	MaxPrecision int `json:"max_precision,omitempty"`
+	// MaxDegree caps the degree of the polynomials a minimal polynomial
+	// is computed through (0: exact.DefaultMaxDegree).
+	MaxDegree int `json:"max_degree,omitempty"`
 	// Driven means a driver answers the kernel's exchanges: it splits
 	// sampled claims among workers and shards and merges their tallies.
 	Driven bool `json:"driven,omitempty"`
@@ -69,6 +72,7 @@ func New(s Settings) (*Session, error) {
 		s.MaxPrecision = DefaultMaxPrecision
 	}
 	env := values.NewEnv(s.MaxTerms, uint(s.MaxPrecision))
+	env.MaxDegree = s.MaxDegree
 	sb, err := interp.NewSandbox(env)
 	if err != nil {
 		return nil, err

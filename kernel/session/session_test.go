@@ -420,11 +420,13 @@ func TestTermCap(t *testing.T) {
 func TestRealsAndGeometry(t *testing.T) {
 	expectPrints(t, []printCase{
 		// sqrt(2) = 1.41421356237309504880… (OEIS A002193, from memory)
-		{"print(sqrt(2))", "1.4142135623730950488"},
+		{"print(digits(sqrt(2), 20))", "1.4142135623730950488"},
+		// An algebraic real prints its closed form (exact.ClosedForm).
+		{"print(sqrt(2), sqrt(8), sqrt(frac(1, 3)), sqrt(2) + 1)", "sqrt(2) 2*sqrt(2) sqrt(3)/3 1 + sqrt(2)"},
 		{"print(digits(pi, 10), sqrt(frac(9, 4)), root(-27, 3))", "3.141592653 3/2 -3"},
 		{"print(sqrt(2) < frac(3, 2), sqrt(2) > frac(141, 100), float(sqrt(2)) == 2 ** 0.5)", "True True True"},
 		{"lo, hi = sqrt(2).enclosure(40)\nprint(lo < sqrt(2), sqrt(2) < hi, hi - lo <= frac(1, 2 ** 40))", "True True True"},
-		{"print(1 / sqrt(4), str(sqrt(2) * sqrt(8))[:32])", "1/2 4.0000000000000000000 (within 1e"},
+		{"print(1 / sqrt(4), sqrt(2) * sqrt(8), str(8 * sin(pi / 6))[:32])", "1/2 4 4.0000000000000000000 (within 1e"},
 		// √(sin π) is the root of an exact zero no enclosure clears (sin π
 		// is not algebraic): printing says why instead of naming a cap it
 		// did not use. √(√2·√2 − 2) is the root of an algebraic zero,

@@ -14,6 +14,9 @@ import (
 type Env struct {
 	Ring *exact.Ring // the notebook's polynomial variables
 	Cap  uint        // precision cap, in bits, of any certified-real refinement
+	// MaxDegree caps the degree of the polynomials a minimal polynomial is
+	// computed through (--max-degree; 0: exact.DefaultMaxDegree).
+	MaxDegree int
 	// Float is on while the float64 audit reruns a claim's function: exact
 	// numbers then compute as float64 and matrices through gonum, as
 	// ordinary code would.

@@ -400,19 +400,9 @@ func (m *Matrix) at(a interp.Args) (py.Object, error) {
 }
 
 func (m *Matrix) characteristicPolynomial(a interp.Args) (py.Object, error) {
-	var t *exact.Poly
-	switch v := a.Get("variable").(type) {
-	case py.String:
-		var err error
-		if t, err = m.env.Ring.Var(string(v)); err != nil {
-			return nil, py.ExceptionNewf(py.ValueError, "characteristic_polynomial(): %v", err)
-		}
-	default:
-		i, err := m.env.variableIndex("characteristic_polynomial", v)
-		if err != nil {
-			return nil, err
-		}
-		t, _ = m.env.Ring.Var(m.env.Ring.Names()[i])
+	t, err := m.env.namedVariable("characteristic_polynomial", a.Get("variable"))
+	if err != nil {
+		return nil, err
 	}
 	c, err := exact.CharacteristicPolynomial(m.q, t)
 	if err != nil {

@@ -66,6 +66,23 @@ func (e *Env) variableIndex(fn string, o py.Object) (int, error) {
 	return 0, py.ExceptionNewf(py.TypeError, "%s(): name a variable by a string or give the variable itself, not %s", fn, interp.TypeName(o))
 }
 
+// namedVariable reads the variable a result is to be written in: a name
+// (made a variable if it is not one yet) or a variable itself.
+func (e *Env) namedVariable(fn string, o py.Object) (*exact.Poly, error) {
+	if name, ok := o.(py.String); ok {
+		t, err := e.Ring.Var(string(name))
+		if err != nil {
+			return nil, py.ExceptionNewf(py.ValueError, "%s(): %v", fn, err)
+		}
+		return t, nil
+	}
+	i, err := e.variableIndex(fn, o)
+	if err != nil {
+		return nil, err
+	}
+	return e.Ring.Var(e.Ring.Names()[i])
+}
+
 // knownVariables lists the notebook's variables for a message, the first
 // few when there are many.
 func (e *Env) knownVariables() string {

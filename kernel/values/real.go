@@ -118,7 +118,7 @@ func (e *Env) root(a interp.Args) (py.Object, error) {
 	}
 	k, err := a.Int("k", 0)
 	if err != nil || k < 2 || k > MaxExponent {
-		return nil, py.ExceptionNewf(py.ValueError, "root(x, k) needs an integer k >= 2")
+		return nil, py.ExceptionNewf(py.ValueError, "root(x, k) needs an integer k from 2 to %d, got %s", MaxExponent, interp.Str(a.Get("k")))
 	}
 	return e.checked(exact.RealRoot(x, int(k)))
 }
@@ -177,7 +177,9 @@ func (r *Real) enclosure(a interp.Args) (py.Object, error) {
 	return py.Tuple{r.env.Rational(iv.Lo), r.env.Rational(iv.Hi)}, nil
 }
 
-// M__str__ prints 20 significant digits, every one certified (exact.Text):
+// M__str__ prints an algebraic real's closed form when it is short
+// (exact.ClosedForm: exactly equal, sqrt(2)/2, (1 + sqrt(5))/2), and
+// otherwise 20 significant digits, every one certified (exact.Text):
 // a value that sits on a digit boundary (an exact 4 computed as
 // sqrt(2)*sqrt(8), say) has no certified digits beyond the boundary, so it
 // prints rounded, with a bound proved to cover the rounding and the
@@ -188,6 +190,11 @@ func (r *Real) M__str__() (res py.Object, err error) {
 	text, err := r.x.Text(printedDigits, min(r.env.Cap, 8192))
 	switch {
 	case err == nil:
+		// The enclosure exists, so every root argument and divisor in x
+		// was valid: a closed form, when short, prints instead.
+		if form, ok := r.closedForm(); ok {
+			return py.String(form), nil
+		}
 		return py.String(text), nil
 	case errors.Is(err, exact.ErrDomain):
 		// Certified outside a domain only at this precision (the square
