@@ -53,6 +53,8 @@ package exact
 // (--max-precision), and a zero whose bound lies beyond it is not decided
 // exactly — Sign stays undecided and says so, and a claim falls back to
 // intervals with a note naming the precision that would decide it.
+// (The degree cap --max-degree is for minimal polynomials, real_minpoly.go,
+// whose cost follows the degree; here the precision cap already bounds B.)
 //
 // Transcendental nodes (exp, log, sin, cos, atan, atan2, acos, π) make an
 // expression non-algebraic; it is decided by intervals as before.

@@ -248,3 +248,18 @@ func (p *closedParser) atom() (*Real, error) {
 	p.i = j
 	return RealFromRat(new(big.Rat).SetInt(n)), nil
 }
+
+// BenchmarkClosedForm: Ramanujan's right side, (∛2 + ∛20 − ∛25)/3, and
+// 1/(√2 + √3 + √5) rationalized, fresh nodes each time.
+func BenchmarkClosedForm(b *testing.B) {
+	for i := 0; i < b.N; i++ {
+		x := RealQuo(RealSub(RealAdd(rtRoot("2", 3), rtRoot("20", 3)), rtRoot("25", 3)), rtR("3"))
+		y := RealQuo(rtR("1"), RealAdd(RealAdd(rtSqrt("2"), rtSqrt("3")), rtSqrt("5")))
+		if _, ok := x.ClosedForm(ClosedFormMaxLen); !ok {
+			b.Fatal("no closed form")
+		}
+		if _, ok := y.ClosedForm(ClosedFormMaxLen); !ok {
+			b.Fatal("no closed form")
+		}
+	}
+}

@@ -217,3 +217,29 @@ func TestMinimalPolynomialErrors(t *testing.T) {
 		t.Errorf("π + 1: %v", err)
 	}
 }
+
+// BenchmarkMinimalPolynomial: moderately nested expressions, fresh nodes
+// each time. Ramanujan's √(∛5 − ∛4) has degree 9, √2 + √3 + √5 + √7
+// degree 16, √(2 + √(3 + √(5 + ∛7))) degree 24.
+func BenchmarkMinimalPolynomial(b *testing.B) {
+	for _, c := range []struct {
+		name string
+		make func() *Real
+	}{
+		{"ramanujan", func() *Real { return RealSqrt(RealSub(rtRoot("5", 3), rtRoot("4", 3))) }},
+		{"four-square-roots", func() *Real {
+			return RealAdd(RealAdd(rtSqrt("2"), rtSqrt("3")), RealAdd(rtSqrt("5"), rtSqrt("7")))
+		}},
+		{"nested", func() *Real {
+			return RealSqrt(RealAdd(rtR("2"), RealSqrt(RealAdd(rtR("3"), RealSqrt(RealAdd(rtR("5"), rtRoot("7", 3)))))))
+		}},
+	} {
+		b.Run(c.name, func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if _, err := c.make().MinimalPolynomial(0, DefaultMaxPrecision); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+	}
+}
