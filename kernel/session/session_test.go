@@ -894,8 +894,8 @@ inequality("absolute", lambda s: s, over=pairs, samples=3, rank="absolute")`).Ou
 
 // A sample the report prints is cell code: pasted into a cell it rebuilds
 // the sample (compared through its own printed form and, for a matrix,
-// with ==). A sample holding an irrational certified real has no such
-// code, and the report says so instead of printing digits as code.
+// with ==). A sample holding a certified real with no closed form has no
+// such code, and the report says so instead of printing digits as code.
 func TestPrintedSampleIsCellCode(t *testing.T) {
 	const families = `tri = lambda k: random_simplex(2, seed=k, bound=5)
 mat = lambda k: matrix([[k, frac(1, 3)], [2, k + 1]])
@@ -905,11 +905,14 @@ pol = lambda k: (X[0] ** 2 + frac(k, 2) * X[1], [k, frac(1, 7)])
 	o := runHere(t, families+`identity("a triangle has no area", lambda s: (s.volume_sq(), 0), over=tri, samples=3)
 identity("a matrix is its transpose", lambda m: (m, m.transpose()), over=mat, samples=2)
 identity("a polynomial is constant", lambda p: (p[0], 1), over=pol, samples=2)
-identity("sqrt(2) k is rational", lambda r: (r, 0), over=lambda k: sqrt(2) * (k + 1), samples=2)`).Outcomes[0]
+identity("sqrt(2) k is rational", lambda r: (r, 0), over=lambda k: sqrt(2) * (k + 1), samples=2)
+identity("e k is rational", lambda r: (r, 0), over=lambda k: exp(1) * (k + 1), samples=2)`).Outcomes[0]
 	if o.Error != nil {
 		t.Fatal(o.Error.Message)
 	}
-	for i, check := range []string{"repr(s) == repr(tri(%d))", "s == mat(%d)", "str(s) == str(pol(%d))"} {
+	// An algebraic real prints its closed form, which is cell code for
+	// exactly that value (== is decided exactly by the zero bound).
+	for i, check := range []string{"repr(s) == repr(tri(%d))", "s == mat(%d)", "str(s) == str(pol(%d))", "s == sqrt(2) * (%d + 1)"} {
 		c := o.Claims[i]
 		var k int
 		if _, err := fmt.Sscanf(c.Worst, "sample %d:", &k); err != nil || c.Sample == "" {
@@ -920,7 +923,7 @@ identity("sqrt(2) k is rational", lambda r: (r, 0), over=lambda k: sqrt(2) * (k 
 			t.Errorf("%s: %s does not rebuild sample %d (%q)", c.Name, c.Sample, k, got)
 		}
 	}
-	if c := o.Claims[3]; c.Sample != "" || !strings.Contains(c.Worst, "not cell code") {
+	if c := o.Claims[4]; c.Sample != "" || !strings.Contains(c.Worst, "not cell code") {
 		t.Errorf("a real sample: sample %q worst %q", c.Sample, c.Worst)
 	}
 }

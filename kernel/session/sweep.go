@@ -250,7 +250,9 @@ func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k
 
 // code prints a value as the cell code that rebuilds it: its repr, except
 // that a polynomial is wrapped in polynomial("…") and lists and tuples are
-// printed item by item. An irrational certified real has no such code.
+// printed item by item. An irrational certified real has such code only
+// when it prints as its closed form (exact.ClosedForm), which is exactly
+// its value.
 func code(o py.Object) (string, bool) {
 	switch v := o.(type) {
 	case *values.Polynomial:
@@ -260,7 +262,9 @@ func code(o py.Object) (string, bool) {
 		if q, ok := x.Rat(); ok {
 			return exact.FormatRat(q), true
 		}
-		return interp.Str(v), false
+		text := interp.Str(v)
+		form, ok := x.ClosedForm(exact.ClosedFormMaxLen)
+		return text, ok && form == text
 	case *py.List, py.Tuple:
 		items, _ := interp.Items(v)
 		parts := make([]string, len(items))
