@@ -70,3 +70,26 @@ func TestNearMissAt149Digits(t *testing.T) {
 		t.Errorf("%s, residual %q", c.Verdict, c.Residual)
 	}
 }
+
+// A closed form is cell code for exactly the value: evaluated again by the
+// notebook's own interpreter, it compares equal (== on algebraic reals is
+// decided exactly). Expected forms: the issue's examples and textbook
+// rationalizations (1/(√2 + √3 + √5) = (3√2 + 2√3 − √30)/12, from
+// multiplying by conjugates by hand; (∛2 − 1)³ = 1 + 3∛2 − 3∛4).
+func TestClosedFormEvaluatesBack(t *testing.T) {
+	src := `xs = [sqrt(frac(128999, 144)), (1 + sqrt(5)) / 2, 2 * root(3, 3), 1 / (sqrt(2) + sqrt(3) + sqrt(5)),
+      sqrt(2 + sqrt(3)) ** -3, -root(frac(-16, 27), 3) / 7, (root(2, 3) - 1) ** 3, sqrt(root(5, 3) - root(4, 3))]
+for x in xs:
+    print(x, eval(str(x)) == x)`
+	want := `sqrt(128999)/12 True
+(1 + sqrt(5))/2 True
+2*root(3, 3) True
+(3*sqrt(2) + 2*sqrt(3) - sqrt(30))/12 True
+sqrt(2 + sqrt(3))**(-3) True
+2*root(2, 3)/21 True
+1 + 3*root(2, 3) - 3*root(4, 3) True
+sqrt(root(5, 3) - root(4, 3)) True`
+	if got := strings.TrimSpace(output(t, runHere(t, src), 1)); got != want {
+		t.Errorf("got\n%s\nwant\n%s", got, want)
+	}
+}
