@@ -243,6 +243,11 @@ func textOp(x *Real, a, b cform) cform {
 	}
 	switch x.op {
 	case opAdd:
+		if b.isSum && b.rs.allNegative() {
+			// a + (−3/4) reads better as a − 3/4.
+			nb := sumForm(b.rs.scale(big.NewRat(-1, 1)))
+			return cform{text: a.String() + " - " + nb.paren(precProd), prec: precSum}
+		}
 		return cform{text: a.String() + " + " + b.paren(precSum), prec: precSum}
 	case opSub:
 		return cform{text: a.String() + " - " + b.paren(precProd), prec: precSum}
@@ -262,6 +267,16 @@ func textOp(x *Real, a, b cform) cform {
 		return cform{text: rootText(a.String(), x.k), prec: precAtom}
 	}
 	return cform{tooLong: true}
+}
+
+// allNegative reports whether s has terms, all with negative coefficients.
+func (s radSum) allNegative() bool {
+	for _, t := range s {
+		if t.c.Sign() > 0 {
+			return false
+		}
+	}
+	return len(s) > 0
 }
 
 // isOne reports whether f is the rational 1.
@@ -447,7 +462,7 @@ func radReduce(m *big.Int, k int) (*big.Int, *big.Int, int) {
 		if r, ok := exactIntRoot(m, k); ok {
 			return c.Mul(c, r), big.NewInt(1), 1
 		}
-		for _, p := range smallPrimeList() {
+		for _, p := range closedPrimes {
 			pk := new(big.Int).Exp(big.NewInt(int64(p)), big.NewInt(int64(k)), nil)
 			if pk.Cmp(m) > 0 {
 				break
@@ -487,25 +502,18 @@ func exactIntRoot(m *big.Int, k int) (*big.Int, bool) {
 	return r, new(big.Int).Exp(r, big.NewInt(int64(k)), nil).Cmp(m) == 0
 }
 
-var smallPrimesClosed []int
-
-// smallPrimeList is the primes below 1000.
-func smallPrimeList() []int {
-	if smallPrimesClosed == nil {
-		var ps []int
-	next:
-		for n := 2; n < 1000; n++ {
-			for _, p := range ps {
-				if n%p == 0 {
-					continue next
-				}
-			}
-			ps = append(ps, n)
+// closedPrimes are the primes below 1000, whose powers radReduce takes
+// out of a radicand; made once, before any goroutine can ask.
+var closedPrimes = func() []int {
+	out := []int{2}
+	for _, p := range smallPrimes() {
+		if p >= 1000 {
+			break
 		}
-		smallPrimesClosed = ps
+		out = append(out, int(p))
 	}
-	return smallPrimesClosed
-}
+	return out
+}()
 
 // root is the real k-th root of a radSum of one term (a rational or
 // c·m^(1/j)): |c|^(1/k)·m^(1/(jk)), negative for an odd root of a negative c.

@@ -41,6 +41,7 @@ func TestClosedFormKnown(t *testing.T) {
 		// A power of a root folded back: (√(2 + √3))² = 2 + √3.
 		{RealPowInt(RealSqrt(RealAdd(rtR("2"), rtSqrt("3"))), 2), "2 + sqrt(3)"},
 		{RealSub(rtR("1"), RealSqrt(RealAdd(rtR("2"), rtSqrt("3")))), "1 - sqrt(2 + sqrt(3))"},
+		{RealAdd(RealSqrt(RealAdd(rtR("2"), rtSqrt("3"))), RealNeg(RealAdd(rtR("3/4"), rtSqrt("2")))), "sqrt(2 + sqrt(3)) - (3 + 4*sqrt(2))/4"},
 	} {
 		got, ok := c.x.ClosedForm(ClosedFormMaxLen)
 		if !ok || got != c.want {
