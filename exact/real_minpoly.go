@@ -38,21 +38,24 @@ package exact
 //
 // # Cost, and the degree cap
 //
-// A node of degrees m and n costs a subresultant PRS (Poly.Resultant) on
+// A node of degrees m and n costs a subresultant PRS (Resultant) on
 // polynomials of degree m in t and n in y, whose result has degree m·n in t
 // and coefficients of about n·|P_ξ| + m·|P_η| bits, then a factorization of
-// that degree. Zassenhaus's recombination is exponential in the number of
-// modular factors, and numbers such as √2 + √3 + √5 + … (whose minimal
-// polynomials split into factors of degree ≤ 2 modulo every prime) are the
-// worst case: degree 16 (four square roots) takes about 10 ms, degree 32
-// about 0.13 s, and degree 64 (six square roots) stops at the
-// recombination cap (ErrFactorLimit) after about 3.5 s; degree-64 numbers
-// of other kinds take 30–650 ms (∜2 + ∜3 + ∜5, ⁸√2 + ⁸√3). So a degree
-// cap, checked before each resultant: a polynomial whose degree would pass
-// it stops with ErrDegreeCap, naming the flag --max-degree. Its default,
-// DefaultMaxDegree = 64, keeps every step within a few seconds, far under
-// the default cell time limit of 60 s (measured December 2026 on the
-// 2-core machine).
+// that degree. The factorization dominates: Zassenhaus's recombination is
+// exponential in the number of modular factors, and numbers such as
+// √2 + √3 + √5 + … (whose minimal polynomials split into factors of degree
+// ≤ 2 modulo every prime) are the worst case. Degree 16 (four square
+// roots) takes 3–6 ms, almost all of it in the factorization (Hensel
+// lifting and the modular factors; the resultants take a few per cent, the
+// choice of factor less: CPU profile of BenchmarkMinimalPolynomial);
+// degree 32 about 0.13 s; degree 64 (six square roots) stops at the
+// recombination cap (ErrFactorLimit) after about 3.5 s, while degree-64
+// numbers of other kinds take 30–650 ms (⁸√2 + ⁸√3, ∜2 + ∜3 + ∜5). So a
+// degree cap, checked before each resultant: a polynomial whose degree
+// would pass it stops with ErrDegreeCap, naming the flag --max-degree. Its
+// default, DefaultMaxDegree = 64, keeps every step within a few seconds,
+// far under the default cell time limit of 60 s (measured December 2026 on
+// the 2-core machine).
 
 import (
 	"errors"
