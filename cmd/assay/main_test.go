@@ -94,6 +94,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"real-root-zero.md", 5, "root(x, k) needs an integer k from 2 to 1048576, got 0", nil},
 		{"real-even-root-negative.md", 5, "root of degree 4 of a negative number", nil},
 		{"real-degree-cap.md", 8, "degree 125 on the way, beyond the degree cap of 64 (raise it with the flag --max-degree)", nil},
+		{"real-degree-cap.md", 8, "degree 125 on the way, beyond the degree cap of 100 (raise it with the flag --max-degree)", []string{"--max-degree", "100"}},
 		{"real-minimal-polynomial-transcendental.md", 7, "involves a transcendental function or pi", nil},
 		{"precision-zero.md", 3, "at least 2", nil},
 		{"precision-above-cap.md", 4, "above the precision cap", nil},
