@@ -142,48 +142,43 @@ func (p *closedParser) eat(tok string) bool {
 	return false
 }
 
-func (p *closedParser) sum() (*Real, error) {
-	x, err := p.product()
+// binaryOp is an operator token of one precedence level and what it does.
+type binaryOp struct {
+	tok string
+	f   func(x, y *Real) *Real
+}
+
+// level reads operands of the next level joined left to right by ops.
+func (p *closedParser) level(next func() (*Real, error), ops []binaryOp) (*Real, error) {
+	x, err := next()
 	for err == nil {
-		switch {
-		case p.eat("+"):
-			var y *Real
-			if y, err = p.product(); err == nil {
-				x = RealAdd(x, y)
+		if strings.HasPrefix(p.s[p.i:], "**") {
+			return x, nil // for unary's caller
+		}
+		found := false
+		for _, op := range ops {
+			if p.eat(op.tok) {
+				var y *Real
+				if y, err = next(); err == nil {
+					x = op.f(x, y)
+				}
+				found = true
+				break
 			}
-		case p.eat("-"):
-			var y *Real
-			if y, err = p.product(); err == nil {
-				x = RealSub(x, y)
-			}
-		default:
+		}
+		if !found {
 			return x, nil
 		}
 	}
 	return nil, err
 }
 
+func (p *closedParser) sum() (*Real, error) {
+	return p.level(p.product, []binaryOp{{"+", RealAdd}, {"-", RealSub}})
+}
+
 func (p *closedParser) product() (*Real, error) {
-	x, err := p.unary()
-	for err == nil {
-		switch {
-		case p.eat("**"):
-			return nil, fmt.Errorf("** after a product at %d", p.i)
-		case p.eat("*"):
-			var y *Real
-			if y, err = p.unary(); err == nil {
-				x = RealMul(x, y)
-			}
-		case p.eat("/"):
-			var y *Real
-			if y, err = p.unary(); err == nil {
-				x = RealQuo(x, y)
-			}
-		default:
-			return x, nil
-		}
-	}
-	return nil, err
+	return p.level(p.unary, []binaryOp{{"*", RealMul}, {"/", RealQuo}})
 }
 
 func (p *closedParser) unary() (*Real, error) {
