@@ -86,6 +86,9 @@ type cform struct {
 // + − × ÷, integer powers and roots) and the expression is short: at most
 // maxLen characters, and no integer in it longer than 12 digits. What is
 // simplified, and why the form is exact, is at the top of real_closed.go.
+// Ask it only of an x that has a value (an enclosure exists): a form is
+// refused where the simplification shows a division by zero or an even
+// root of a negative, but not every such x is recognised here.
 func (x *Real) ClosedForm(maxLen int) (string, bool) {
 	if !x.algebraic().ok {
 		return "", false
@@ -154,7 +157,7 @@ func (c *closer) build(x *Real) cform {
 			return b
 		}
 	}
-	if a.isSum && invalid(x, a.rs, b) {
+	if invalid(x, a, b) {
 		// x is not a real number (a division by zero, an even root of a
 		// negative): there is nothing to print.
 		return cform{tooLong: true}
@@ -175,15 +178,15 @@ func (c *closer) build(x *Real) cform {
 	return textOp(x, a, b)
 }
 
-// invalid reports an operation on radSums that has no real value.
-func invalid(x *Real, a radSum, b cform) bool {
+// invalid reports an operation that the forms show to have no real value.
+func invalid(x *Real, a, b cform) bool {
 	switch x.op {
 	case opQuo:
 		return b.isSum && len(b.rs) == 0
 	case opPow:
-		return x.k < 0 && len(a) == 0
+		return x.k < 0 && a.isSum && len(a.rs) == 0
 	case opRoot:
-		return x.k%2 == 0 && len(a) == 1 && a[0].c.Sign() < 0
+		return x.k%2 == 0 && a.isSum && len(a.rs) == 1 && a.rs[0].c.Sign() < 0
 	}
 	return false
 }

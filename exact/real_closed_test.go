@@ -55,6 +55,7 @@ func TestClosedFormKnown(t *testing.T) {
 		RealSub(RealSqrt(RealAdd(rtPow10R(80), rtR("1"))), rtPow10R(40)),
 		// Division by an exact zero has no value to print.
 		RealQuo(rtR("1"), RealSub(RealMul(rtSqrt("2"), rtSqrt("3")), rtSqrt("6"))),
+		RealQuo(RealSqrt(RealAdd(rtR("2"), rtSqrt("3"))), RealSub(RealMul(rtSqrt("2"), rtSqrt("3")), rtSqrt("6"))),
 	} {
 		if s, ok := x.ClosedForm(ClosedFormMaxLen); ok {
 			t.Errorf("closed form %q, want none", s)
