@@ -225,15 +225,7 @@ func (m *PolyMatrix) Eval(vals map[int]*big.Rat) *PolyMatrix {
 
 // Equal reports whether m and o have the same shape and equal entries.
 func (m *PolyMatrix) Equal(o *PolyMatrix) bool {
-	if m.rows != o.rows || m.cols != o.cols {
-		return false
-	}
-	for k := range m.e {
-		if !m.e[k].Equal(o.e[k]) {
-			return false
-		}
-	}
-	return true
+	return m.rows == o.rows && m.cols == o.cols && equalEntries(m.e, o.e)
 }
 
 // Constant returns m as a rational Matrix when every entry is a constant;
