@@ -287,7 +287,7 @@ func TestRatFuncMatrixInverseSolve(t *testing.T) {
 	det := ok(m3.Det())
 	for i := 0; i < 3; i++ {
 		for j := 0; j < 3; j++ {
-			minor := ok(submatrix(t, m3, skip(j), skip(i)).Det())
+			minor := ok(m3.Minor(skip(j), skip(i)))
 			if (i+j)%2 == 1 {
 				minor = minor.Neg()
 			}
@@ -346,20 +346,6 @@ func skip(k int) []int {
 		}
 	}
 	return out
-}
-
-func submatrix(t testing.TB, m *RatFuncMatrix, rows, cols []int) *RatFuncMatrix {
-	out := make([][]*RatFunc, len(rows))
-	for i, ri := range rows {
-		for _, cj := range cols {
-			out[i] = append(out[i], m.At(ri, cj))
-		}
-	}
-	s, err := NewRatFuncMatrix(m.r, out)
-	if err != nil {
-		t.Fatal(err)
-	}
-	return s
 }
 
 // EvalReal at t = √2: the circle's point (−1/3, 2√2/3), x² + y² = 1.

@@ -147,14 +147,22 @@ func (m *RatFuncMatrix) Scale(f *RatFunc) (*RatFuncMatrix, error) {
 
 // Transpose returns the transposed matrix.
 func (m *RatFuncMatrix) Transpose() *RatFuncMatrix {
-	out := &RatFuncMatrix{r: m.r, rows: m.cols, cols: m.rows, e: make([]*RatFunc, len(m.e))}
-	for i := 0; i < m.rows; i++ {
-		for j := 0; j < m.cols; j++ {
-			out.e[j*m.rows+i] = m.e[i*m.cols+j]
-		}
-	}
-	return out
+	return &RatFuncMatrix{r: m.r, rows: m.cols, cols: m.rows, e: transposed(m.e, m.rows, m.cols)}
 }
+
+// Submatrix returns the matrix on the given rows and columns (0-based, in
+// the order given; ErrShape for an index out of range or repeated).
+func (m *RatFuncMatrix) Submatrix(rows, cols []int) (*RatFuncMatrix, error) {
+	e, err := subEntries(m.e, m.rows, m.cols, rows, cols)
+	if err != nil {
+		return nil, err
+	}
+	return &RatFuncMatrix{r: m.r, rows: len(rows), cols: len(cols), e: e}, nil
+}
+
+// Minor returns the determinant of Submatrix(rows, cols) (ErrNotSquare
+// for lists of different lengths).
+func (m *RatFuncMatrix) Minor(rows, cols []int) (*RatFunc, error) { return minor(m, rows, cols) }
 
 // Eval puts rational values in for variables in every entry
 // (ErrDivisionByZero when a denominator vanishes there).
@@ -257,6 +265,9 @@ func quoReduced(n *Poly, ds []*Poly) (*RatFunc, error) {
 func (m *RatFuncMatrix) Det() (*RatFunc, error) {
 	if m.rows != m.cols {
 		return nil, fmt.Errorf("det needs a square matrix, got %s: %w", m.shape(), ErrNotSquare)
+	}
+	if m.rows == 0 {
+		return RatFuncOf(m.r.one()), nil
 	}
 	rows, mult, err := clearRows(m)
 	if err != nil {

@@ -39,6 +39,8 @@ func FloatValue(o py.Object) (py.Object, error) {
 		return &FloatMatrix{m: x.q.Float()}, nil
 	case *Polynomial:
 		return nil, NoCompanion("a polynomial")
+	case *RationalFunction:
+		return nil, NoCompanion("a rational function")
 	case *Simplex, *KVector:
 		return nil, NoCompanion("a " + o.Type().Name)
 	case *py.List:
