@@ -10,6 +10,13 @@ import (
 // of its session's sandbox.
 func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
 	if e.Float {
+		switch b.(type) {
+		case *Polynomial, *RationalFunction:
+			// A number over a polynomial is a rational function, which
+			// float64 code has no counterpart of: say so, rather than let
+			// the number's division fail on a float conversion.
+			return nil, true, NoCompanion("a rational function")
+		}
 		return nil, false, nil
 	}
 	x, ok1 := ExactOf(a)
