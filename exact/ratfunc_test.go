@@ -364,3 +364,63 @@ func TestRatFuncEvalReal(t *testing.T) {
 		t.Errorf("no value: err = %v", err)
 	}
 }
+
+// Solve on random matrices of rational functions in two variables: the
+// solution satisfies M·X = B exactly (the definition), and det(M) agrees
+// with the product of the row-cleared polynomial determinant and the
+// row factors taken out, det(diag(1/d_i)·P) = det(P)/∏ d_i.
+func TestRatFuncMatrixRandomSolve(t *testing.T) {
+	ok := mustRF(t)
+	r, _ := testRing(t, "x", "y")
+	rng := rand.New(rand.NewSource(7))
+	for trial := 0; trial < 12; trial++ {
+		n := 2 + trial%3
+		rows := make([][]*RatFunc, n)
+		prows := make([][]*Poly, n)
+		var ds []*Poly
+		for i := range rows {
+			d := randPoly(rng, r, 2, 2, 1, 0).Add(r.one())
+			if d.IsZero() {
+				d = r.one()
+			}
+			ds = append(ds, d)
+			for j := 0; j < n; j++ {
+				p := randPoly(rng, r, 2, 3, 2, 3)
+				prows[i] = append(prows[i], p)
+				rows[i] = append(rows[i], ok(NewRatFunc(p, d)))
+			}
+		}
+		m, err := NewRatFuncMatrix(r, rows)
+		if err != nil {
+			t.Fatal(err)
+		}
+		pm, _ := NewPolyMatrix(r, prows)
+		pd, err := pm.Det()
+		if err != nil {
+			t.Fatal(err)
+		}
+		prod, err := mulAll(ds...)
+		if err != nil {
+			t.Fatal(err)
+		}
+		want := ok(NewRatFunc(pd, prod))
+		if got := ok(m.Det()); !got.Equal(want) {
+			t.Fatalf("trial %d: det = %s, want %s", trial, got, want)
+		}
+		if pd.IsZero() {
+			continue
+		}
+		b := make([][]*RatFunc, n)
+		for i := range b {
+			b[i] = []*RatFunc{ok(NewRatFunc(randPoly(rng, r, 2, 2, 2, 0), ds[(i+1)%n])), RatFuncOf(randPoly(rng, r, 2, 2, 1, 3))}
+		}
+		bm, _ := NewRatFuncMatrix(r, b)
+		x, err := m.Solve(bm)
+		if err != nil {
+			t.Fatal(err)
+		}
+		if back, err := m.Mul(x); err != nil || !back.Equal(bm) {
+			t.Fatalf("trial %d: M·X =\n%s\nwant\n%s (%v)", trial, back, bm, err)
+		}
+	}
+}

@@ -25,6 +25,8 @@ func TestRationalFunctions(t *testing.T) {
 		{tx + "f = (2*x + 1) / (x + 3)\nprint(f.substitute(x=(x - 1) / (4*x + 2)))", "(6*x)/(13*x + 5)"},
 		// Quotient rule by hand: (x/(x² + 1))' = (1 − x²)/(x² + 1)².
 		{tx + "print((x / (x**2 + 1)).derivative(\"x\"))", "(-x^2 + 1)/(x^4 + 2*x^2 + 1)"},
+		// A polynomial with rational functions put in: the circle again.
+		{tx + "print((x**2 + y**2).substitute(x=(1 - t**2) / (1 + t**2), y=2*t / (1 + t**2)), (x*y).substitute(x=1/y))", "1 1"},
 		{tx + "f = x / (x + y)\nprint(f == x / (x + y), f != 1 / (x + y), f * (x + y), f + y / (x + y))", "True True x 1"},
 		// The 2x2 inverse by the adjugate formula (textbook).
 		{tx + "M = matrix([[x, y], [1, x]])\nprint(M.inverse()[0, 0], M.inverse()[0, 1], det(M.inverse()))", "x/(x^2 - y) (-y)/(x^2 - y) 1/(x^2 - y)"},

@@ -33,6 +33,9 @@ func FloatValue(o py.Object) (py.Object, error) {
 		}
 		return py.Float(f), nil
 	case *Matrix:
+		if x.f != nil {
+			return nil, NoCompanion("a matrix with rational-function entries")
+		}
 		if x.q == nil {
 			return nil, NoCompanion("a matrix with polynomial entries")
 		}

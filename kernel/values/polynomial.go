@@ -233,7 +233,7 @@ func (e *Env) discriminant(a interp.Args) (py.Object, error) {
 func init() {
 	setMethods(PolynomialType, []method[*Polynomial]{
 		{"at", params("*values", "**values"), "p.at(a=2, b=frac(1, 3)) -> p with those values put in (a rational when no variable is left)", (*Polynomial).at},
-		{"substitute", params("*replacements", "**replacements"), "p.substitute(a=b+c) -> p with polynomials put in for variables, all at once", (*Polynomial).substitute},
+		{"substitute", params("*replacements", "**replacements"), "p.substitute(a=b+c) -> p with polynomials (or rational functions, giving a rational function) put in for variables, all at once", (*Polynomial).substitute},
 		{"derivative", params("variable"), "p.derivative(\"a\") -> the partial derivative with respect to a", (*Polynomial).derivative},
 		{"degree", params("variable="), "p.degree() -> total degree; p.degree(\"a\") -> degree in a (-1 for the zero polynomial)", (*Polynomial).degree},
 		{"terms", nil, "p.terms() -> [(coefficient, {\"a\": 2, \"b\": 1}), ...] in canonical order", (*Polynomial).terms},
@@ -263,6 +263,12 @@ func (p *Polynomial) at(a interp.Args) (py.Object, error) {
 func (p *Polynomial) substitute(a interp.Args) (py.Object, error) {
 	if err := byName(a, "substitute() takes replacements by name: p.substitute(a=b+c)"); err != nil {
 		return nil, err
+	}
+	for _, v := range a.Keywords() {
+		if _, ok := v.(*RationalFunction); ok {
+			// Rational functions put in make a rational function.
+			return (&RationalFunction{f: exact.RatFuncOf(p.p), env: p.env}).substitute(a)
+		}
 	}
 	subs := map[int]*exact.Poly{}
 	for name, v := range a.Keywords() {
