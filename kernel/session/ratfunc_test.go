@@ -1,6 +1,7 @@
 package session
 
 import (
+	"fmt"
 	"strings"
 	"testing"
 
@@ -156,5 +157,24 @@ func TestRationalFunctionMethods(t *testing.T) {
 		if _, ok := values.RationalFunctionType.Dict[name]; !ok {
 			t.Errorf("the polynomial method %s is neither implemented nor refused for rational functions", name)
 		}
+	}
+}
+
+// A sample that is a rational function is shown as cell code that
+// rebuilds it.
+func TestRationalFunctionSampleIsCellCode(t *testing.T) {
+	const family = "x, y = variables(\"x y\")\nfam = lambda k: (x + k) / (y - k)\n"
+	o := runHere(t, family+`identity("f = f + 1", lambda f: (f, f + 1), over=fam, samples=3)`).Outcomes[0]
+	if o.Error != nil {
+		t.Fatal(o.Error.Message)
+	}
+	c := o.Claims[0]
+	var k int
+	if _, err := fmt.Sscanf(c.Worst, "sample %d:", &k); err != nil || c.Verdict != cells.Fails || !strings.Contains(c.Sample, ") / polynomial(") {
+		t.Fatalf("%s: sample %q worst %q", c.Verdict, c.Sample, c.Worst)
+	}
+	again := runHere(t, family+"s = "+c.Sample+fmt.Sprintf("\nprint(s == fam(%d))", k))
+	if got := output(t, again, 1); got != "True\n" {
+		t.Errorf("%s does not rebuild sample %d (%q)", c.Sample, k, got)
 	}
 }
