@@ -39,6 +39,7 @@ func NewEnv(maxTerms int, cap uint) *Env {
 
 // Install puts the builtins of every value type into b.
 func (e *Env) Install(b py.StringDict) {
+	refusePolynomialOnly()
 	for _, install := range []func(py.StringDict){
 		e.rationalBuiltins,
 		e.realBuiltins,

@@ -5,6 +5,7 @@ import (
 	"math/big"
 	"slices"
 	"strings"
+	"sync"
 
 	"github.com/go-python/gpython/py"
 
@@ -60,12 +61,28 @@ func (e *Env) RatFunc(o py.Object) (*exact.RatFunc, bool) {
 	return nil, false
 }
 
-// polynomialOnly are the polynomial methods a rational function refuses
-// by name, pointing at its numerator and denominator
-// (TestRationalFunctionMethods checks that every polynomial method is
-// here or implemented).
-var polynomialOnly = []string{"degree", "terms", "coefficient", "collect", "divide", "content",
-	"primitive_part", "squarefree", "is_irreducible", "is_homogeneous"}
+// refuseOnce guards refusePolynomialOnly.
+var refuseOnce sync.Once
+
+// refusePolynomialOnly gives rational functions, for every polynomial
+// method they lack (degree, coefficient, terms, …), a refusal that points
+// at the numerator and denominator. Env.Install runs it, once, when every
+// init has filled the method tables, so a polynomial method added later
+// is covered too.
+func refusePolynomialOnly() {
+	refuseOnce.Do(func() {
+		var table []method[*RationalFunction]
+		for name := range PolynomialType.Dict {
+			if _, ok := RationalFunctionType.Dict[name]; ok || strings.HasPrefix(name, "__") {
+				continue
+			}
+			table = append(table, method[*RationalFunction]{name, params("*args", "**kwargs"), name + "() is for polynomials: use f.numerator or f.denominator", func(f *RationalFunction, _ interp.Args) (py.Object, error) {
+				return nil, py.ExceptionNewf(py.TypeError, "%s() is for polynomials, and %s is a rational function: apply it to f.numerator or f.denominator", name, clip(f.f.String(), 200))
+			}})
+		}
+		setMethods(RationalFunctionType, table)
+	})
+}
 
 func init() {
 	RationalFunctionType.Dict["numerator"] = &py.Property{Fget: func(self py.Object) (py.Object, error) {
@@ -76,18 +93,12 @@ func init() {
 		f := self.(*RationalFunction)
 		return f.env.Polynomial(f.f.Den()), nil
 	}, Doc: "the denominator, a polynomial with coprime integer coefficients and a positive leading coefficient"}
-	table := []method[*RationalFunction]{
+	setMethods(RationalFunctionType, []method[*RationalFunction]{
 		{"at", params("*values", "**values"), "f.at(t=2) -> f with those values put in (exact numbers, or certified reals for every variable); an error where the denominator vanishes", (*RationalFunction).at},
 		{"substitute", params("*replacements", "**replacements"), "f.substitute(t=(1 - s)/(1 + s)) -> f with polynomials or rational functions put in for variables, all at once", (*RationalFunction).substitute},
 		{"derivative", params("variable"), "f.derivative(\"t\") -> the partial derivative with respect to t (quotient rule), in lowest terms", (*RationalFunction).derivative},
 		{"variables", nil, "f.variables() -> the names of the variables that occur in f", (*RationalFunction).variables},
-	}
-	for _, name := range polynomialOnly {
-		table = append(table, method[*RationalFunction]{name, params("*args", "**kwargs"), name + "() is for polynomials: use f.numerator or f.denominator", func(f *RationalFunction, _ interp.Args) (py.Object, error) {
-			return nil, py.ExceptionNewf(py.TypeError, "%s() is for polynomials, and %s is a rational function: apply it to f.numerator or f.denominator", name, clip(f.f.String(), 200))
-		}})
-	}
-	setMethods(RationalFunctionType, table)
+	})
 }
 
 func (f *RationalFunction) at(a interp.Args) (py.Object, error) {
