@@ -173,9 +173,16 @@ func (m *PolyMatrix) Scale(p *Poly) (*PolyMatrix, error) {
 // Transpose returns the transpose of m.
 func (m *PolyMatrix) Transpose() *PolyMatrix {
 	out := m.like(m.cols, m.rows)
-	for i := 0; i < m.rows; i++ {
-		for j := 0; j < m.cols; j++ {
-			out.e[j*m.rows+i] = m.at(i, j)
+	out.e = transposed(m.e, m.rows, m.cols)
+	return out
+}
+
+// transposed returns the entries of a rows x cols matrix transposed.
+func transposed[T any](e []T, rows, cols int) []T {
+	out := make([]T, len(e))
+	for i := 0; i < rows; i++ {
+		for j := 0; j < cols; j++ {
+			out[j*rows+i] = e[i*cols+j]
 		}
 	}
 	return out
@@ -185,16 +192,28 @@ func (m *PolyMatrix) Transpose() *PolyMatrix {
 // columns (0-based, in the order given). An index out of range or repeated
 // gives ErrShape. Empty index lists give an empty matrix.
 func (m *PolyMatrix) Submatrix(rows, cols []int) (*PolyMatrix, error) {
-	if err := checkIndices("row", rows, m.rows); err != nil {
-		return nil, err
-	}
-	if err := checkIndices("column", cols, m.cols); err != nil {
+	e, err := subEntries(m.e, m.rows, m.cols, rows, cols)
+	if err != nil {
 		return nil, err
 	}
 	out := m.like(len(rows), len(cols))
-	for a, i := range rows {
-		for b, j := range cols {
-			out.e[a*len(cols)+b] = m.at(i, j)
+	out.e = e
+	return out, nil
+}
+
+// subEntries returns the entries of a rows x cols matrix on the rows and
+// columns given (ErrShape for an index out of range or repeated).
+func subEntries[T any](e []T, nr, nc int, rows, cols []int) ([]T, error) {
+	if err := checkIndices("row", rows, nr); err != nil {
+		return nil, err
+	}
+	if err := checkIndices("column", cols, nc); err != nil {
+		return nil, err
+	}
+	out := make([]T, 0, len(rows)*len(cols))
+	for _, i := range rows {
+		for _, j := range cols {
+			out = append(out, e[i*nc+j])
 		}
 	}
 	return out, nil
@@ -225,15 +244,7 @@ func (m *PolyMatrix) Eval(vals map[int]*big.Rat) *PolyMatrix {
 
 // Equal reports whether m and o have the same shape and equal entries.
 func (m *PolyMatrix) Equal(o *PolyMatrix) bool {
-	if m.rows != o.rows || m.cols != o.cols {
-		return false
-	}
-	for k := range m.e {
-		if !m.e[k].Equal(o.e[k]) {
-			return false
-		}
-	}
-	return true
+	return m.rows == o.rows && m.cols == o.cols && equalEntries(m.e, o.e)
 }
 
 // Constant returns m as a rational Matrix when every entry is a constant;

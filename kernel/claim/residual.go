@@ -15,6 +15,8 @@ import (
 const (
 	ExactMethod = "exact rational arithmetic"
 	PolyMethod  = "exact polynomial arithmetic (expanded)"
+	// CrossMethod compares rational functions by cross-multiplication.
+	CrossMethod = "exact rational-function arithmetic (cross-multiplied)"
 	RealMethod  = "certified interval arithmetic"
 	// AlgebraicMethod decides a residual built from rationals by + − × ÷,
 	// integer powers and roots: intervals refined until they exclude 0,
@@ -44,6 +46,9 @@ type Residual struct {
 	Zero     bool     // exactly zero
 	Symbolic bool     // a polynomial difference: zero proves the identity for all values
 	Real     bool     // decided by interval arithmetic
+	// Cross qualifies Symbolic: the sides are rational functions and the
+	// polynomial is lhs.num·rhs.den − rhs.num·lhs.den.
+	Cross bool
 	// Certified is, for a real residual enclosing 0, the N of the bound
 	// |residual| < 10^-N·max(|lhs|, |rhs|): N significant digits agree.
 	Certified int
@@ -71,6 +76,23 @@ func Zero() Residual { return Exact(new(big.Rat)) }
 // OfPoly is the residual of an expanded polynomial difference.
 func OfPoly(d *exact.Poly) Residual {
 	return Residual{Text: Preview(d), Size: big.NewRat(int64(d.Len()), 1), Zero: d.IsZero(), Symbolic: true}
+}
+
+// OfRatFuncs is the residual of two rational functions compared by
+// cross-multiplication: lhs.num·rhs.den − rhs.num·lhs.den, which is the
+// zero polynomial exactly when the sides are equal rational functions.
+func OfRatFuncs(lhs, rhs *exact.RatFunc) (Residual, error) {
+	x, err := lhs.Num().Mul(rhs.Den())
+	if err != nil {
+		return Residual{}, err
+	}
+	y, err := rhs.Num().Mul(lhs.Den())
+	if err != nil {
+		return Residual{}, err
+	}
+	r := OfPoly(x.Sub(y))
+	r.Cross = true
+	return r, nil
 }
 
 // closeness is what refining lhs − rhs against the sides showed.
@@ -303,10 +325,29 @@ func OfPolyMatrices(a, b *exact.PolyMatrix) (Residual, error) {
 	if err != nil {
 		return Residual{}, err
 	}
-	for i := 0; i < d.Rows(); i++ {
-		for j := 0; j < d.Cols(); j++ {
-			if e := d.At(i, j); !e.IsZero() {
-				return Residual{Text: fmt.Sprintf("entry [%d, %d] of the difference: %s", i, j, Preview(e)), Size: big.NewRat(int64(e.Len()), 1), Symbolic: true}, nil
+	return firstEntry(d.Rows(), d.Cols(), func(i, j int) (Residual, error) { return OfPoly(d.At(i, j)), nil })
+}
+
+// OfRatFuncMatrices compares two matrices of rational functions entry by
+// entry, each by cross-multiplication (OfRatFuncs).
+func OfRatFuncMatrices(a, b *exact.RatFuncMatrix) (Residual, error) {
+	if a.Rows() != b.Rows() || a.Cols() != b.Cols() {
+		return Residual{}, fmt.Errorf("compare a %dx%d matrix with a %dx%d one: %w", a.Rows(), a.Cols(), b.Rows(), b.Cols(), exact.ErrShape)
+	}
+	r, err := firstEntry(a.Rows(), a.Cols(), func(i, j int) (Residual, error) { return OfRatFuncs(a.At(i, j), b.At(i, j)) })
+	r.Cross = true
+	return r, err
+}
+
+// firstEntry is the residual of the first non-zero entry, labelled with
+// its place, or "0" when every entry is zero.
+func firstEntry(rows, cols int, entry func(i, j int) (Residual, error)) (Residual, error) {
+	for i := 0; i < rows; i++ {
+		for j := 0; j < cols; j++ {
+			r, err := entry(i, j)
+			if err != nil || !r.Zero {
+				r.Text = fmt.Sprintf("entry [%d, %d] of the difference: %s", i, j, r.Text)
+				return r, err
 			}
 		}
 	}
@@ -389,6 +430,12 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		every = fmt.Sprintf("on each of the %d samples", samples)
 	}
 	switch {
+	case r.Zero && r.Symbolic && r.Cross:
+		c.Verdict, c.Method = cells.Holds, CrossMethod
+		c.Note = "lhs.num·rhs.den − rhs.num·lhs.den is the zero polynomial: a proof of the identity for all values where the denominators are non-zero"
+		if samples > 0 {
+			c.Note = fmt.Sprintf("lhs.num·rhs.den − rhs.num·lhs.den is the zero polynomial on each of the %d samples: for each sample, a proof for all values where the denominators are non-zero; for the general statement, evidence, not a proof", samples)
+		}
 	case r.Zero && r.Symbolic:
 		c.Verdict, c.Method = cells.Holds, PolyMethod
 		c.Note = "the expanded difference is the zero polynomial: a proof of the identity for all values of the variables"
@@ -421,6 +468,9 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 	case r.Undecided:
 		c.Verdict, c.Method, c.Why = cells.Undecided, RealMethod, cells.PrecisionCap
 		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits=" + beyondCap(r.ZeroBits)
+	case r.Symbolic && r.Cross:
+		c.Verdict, c.Method = cells.Fails, CrossMethod
+		c.Note = "lhs.num·rhs.den − rhs.num·lhs.den (the residual shown) is a non-zero polynomial: the sides are different rational functions, so they differ wherever that polynomial and the denominators are non-zero"
 	case r.Symbolic:
 		c.Verdict, c.Method = cells.Fails, PolyMethod
 		c.Note = "the expanded difference is a non-zero polynomial"

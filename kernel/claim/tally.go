@@ -78,6 +78,7 @@ type SampleResidual struct {
 	Size      string `json:"size"` // exact rational
 	Zero      bool   `json:"zero,omitempty"`
 	Symbolic  bool   `json:"symbolic,omitempty"`
+	Cross     bool   `json:"cross,omitempty"`
 	Real      bool   `json:"real,omitempty"`
 	Certified int    `json:"certified,omitempty"`
 	NearZero  bool   `json:"near_zero,omitempty"`
@@ -283,7 +284,7 @@ func (t *IdentityTally) AddAudit(k int64, audit cells.FloatAudit) {
 }
 
 func sampleResidual(k int64, r Residual) *SampleResidual {
-	return &SampleResidual{K: k, Text: r.Text, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic,
+	return &SampleResidual{K: k, Text: r.Text, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic, Cross: r.Cross,
 		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided, Algebraic: r.Algebraic, ZeroBits: r.ZeroBits}
 }
 
@@ -293,7 +294,7 @@ func (s *SampleResidual) Residual() Residual {
 	if !ok {
 		size = new(big.Rat)
 	}
-	return Residual{Text: s.Text, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Real: s.Real,
+	return Residual{Text: s.Text, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Cross: s.Cross, Real: s.Real,
 		Certified: s.Certified, NearZero: s.NearZero, Undecided: s.Undecided, Algebraic: s.Algebraic, ZeroBits: s.ZeroBits}
 }
 

@@ -35,6 +35,17 @@ func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, e
 	_, lr := lhs.(*values.Real)
 	_, rr := rhs.(*values.Real)
 	switch {
+	case fraction(lhs) || fraction(rhs):
+		a, ok1 := s.env.RatFunc(lhs)
+		b, ok2 := s.env.RatFunc(rhs)
+		if !ok1 {
+			return claim.Residual{}, sideError(lhs)
+		}
+		if !ok2 {
+			return claim.Residual{}, sideError(rhs)
+		}
+		r, err := claim.OfRatFuncs(a, b)
+		return r, interp.Exception(err)
 	case lr || rr:
 		a, ok1 := values.RealOf(lhs)
 		b, ok2 := values.RealOf(rhs)
@@ -84,9 +95,12 @@ func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, e
 		var err error
 		qa, ok1 := a.Rational()
 		qb, ok2 := b.Rational()
-		if ok1 && ok2 {
+		switch {
+		case ok1 && ok2:
 			r, err = claim.OfMatrices(qa, qb)
-		} else {
+		case a.HasRatFuncs() || b.HasRatFuncs():
+			r, err = claim.OfRatFuncMatrices(a.RatLifted(), b.RatLifted())
+		default:
 			r, err = claim.OfPolyMatrices(a.Lifted(), b.Lifted())
 		}
 		return r, interp.Exception(err)
@@ -109,11 +123,24 @@ func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, e
 	return claim.Entries(entries), nil
 }
 
+// fraction reports whether a side is a rational function, or a
+// polynomial made by a division: an identity about it holds only where
+// the denominators are non-zero, and is compared by cross-multiplication.
+func fraction(o py.Object) bool {
+	switch x := o.(type) {
+	case *values.RationalFunction:
+		return true
+	case *values.Polynomial:
+		return x.Quotient()
+	}
+	return false
+}
+
 func sideError(o py.Object) error {
 	if _, ok := o.(py.Float); ok {
 		return py.ExceptionNewf(py.TypeError, "a side of the identity is a float64 (%s), which cannot be checked exactly; build it from ints and frac(...) instead (int / int is already exact in assay)", interp.Str(o))
 	}
-	return py.ExceptionNewf(py.TypeError, "a side of the identity is %s; claims compare exact numbers, polynomials, matrices, or lists and tuples of them", interp.TypeName(o))
+	return py.ExceptionNewf(py.TypeError, "a side of the identity is %s; claims compare exact numbers, polynomials, rational functions, matrices, or lists and tuples of them", interp.TypeName(o))
 }
 
 // pair unpacks the (lhs, rhs) returned by a claim's function.

@@ -389,20 +389,20 @@ func TestPolynomialClaims(t *testing.T) {
 
 func TestPolynomialErrors(t *testing.T) {
 	cases := []errorCase{
-		{"a = variables(\"a\")\na ** -1", "negative power"},
+		{"a = variables(\"a\")\n(a - a) ** -1", "negative power"},
 		{"a = variables(\"a\")\na ** (2 ** 30)", "too large"},
 		{"a = variables(\"a\")\na ** frac(1, 2)", "integer exponent"},
 		{"a = variables(\"a\")\na.divide(a - a)", "ZeroDivisionError"},
 		{"a, b = variables(\"a b\")\n(a**2 + 1).divide(a + b)", "remainder"},
-		{"a = variables(\"a\")\na / (a + 1)", "p.divide(q)"},
-		{"a = variables(\"a\")\n1 / a", "not a polynomial"},
+		{"a = variables(\"a\")\na / (a - a)", "ZeroDivisionError"},
+		{"a = variables(\"a\")\n1 / (a - a)", "ZeroDivisionError"},
 		{"a = variables(\"a\")\na + 0.5", "float64"},
 		{"a = variables(\"a\")\na.at(a=0.5)", "float64"},
 		{"polynomial(\"2*a^\")", "column"},
 		{"polynomial(\"a + * b\")", "column"},
 		{"variables(\"1x\")", "ValueError"},
 		{"a = variables(\"a\")\na.derivative(\"zz\")", "no variable \"zz\""},
-		{"a, b = variables(\"a b\")\nmatrix([[a, b], [b, a]]).inverse()", "polynomial entries"},
+		{"a, b = variables(\"a b\")\nmatrix([[a, b], [b, a]]).rank()", "polynomial entries"},
 		{"a = variables(\"a\")\nidentity(\"f\", a, 0.5)", "float64"},
 		{"a = variables(\"a\")\nfactorization(\"f\", a, [0.5])", "float64"},
 	}

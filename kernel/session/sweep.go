@@ -249,14 +249,17 @@ func raise(e *claim.SweepError) error {
 func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k)) }
 
 // code prints a value as the cell code that rebuilds it: its repr, except
-// that a polynomial is wrapped in polynomial("…") and lists and tuples are
-// printed item by item. An irrational certified real has such code only
-// when it prints as its closed form (exact.ClosedForm), which is exactly
-// its value.
+// that a polynomial is wrapped in polynomial("…"), a rational function
+// is the quotient of two such, and lists and tuples are printed item by
+// item. An irrational certified real has such code only when it prints as
+// its closed form (exact.ClosedForm), which is exactly its value.
 func code(o py.Object) (string, bool) {
 	switch v := o.(type) {
 	case *values.Polynomial:
 		return fmt.Sprintf("polynomial(%q)", interp.Str(v)), true
+	case *values.RationalFunction:
+		f := v.Value()
+		return fmt.Sprintf("polynomial(%q) / polynomial(%q)", f.Num().String(), f.Den().String()), true
 	case *values.Real:
 		x, _ := values.RealOf(v)
 		if q, ok := x.Rat(); ok {

@@ -10,6 +10,13 @@ import (
 // of its session's sandbox.
 func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
 	if e.Float {
+		switch b.(type) {
+		case *Polynomial, *RationalFunction:
+			// A number over a polynomial is a rational function, which
+			// float64 code has no counterpart of: say so, rather than let
+			// the number's division fail on a float conversion.
+			return nil, true, NoCompanion("a rational function")
+		}
 		return nil, false, nil
 	}
 	x, ok1 := ExactOf(a)
@@ -58,7 +65,7 @@ func (e *Env) Power(a, b py.Object) (py.Object, bool, error) {
 // isNotebookValue reports whether o is one of the kernel's own value types.
 func isNotebookValue(o py.Object) bool {
 	switch o.(type) {
-	case *Rational, *Polynomial, *Matrix, *Real:
+	case *Rational, *Polynomial, *RationalFunction, *Matrix, *Real:
 		return true
 	}
 	return false

@@ -42,6 +42,7 @@ func NewEnv(maxTerms int, cap uint) *Env {
 
 // Install puts the builtins of every value type into b.
 func (e *Env) Install(b py.StringDict) {
+	refusePolynomialOnly()
 	for _, install := range []func(py.StringDict){
 		e.rationalBuiltins,
 		e.realBuiltins,
@@ -127,10 +128,15 @@ func indexList(o py.Object, what string) ([]int, error) {
 	return out, nil
 }
 
-// FloatHint explains how to get an exact value when a float turned up.
+// FloatHint explains how to get an exact value when a float turned up,
+// and how to reach the polynomials of a rational function where a
+// polynomial is needed.
 func FloatHint(o py.Object) string {
-	if _, ok := o.(py.Float); ok {
+	switch o.(type) {
+	case py.Float:
 		return " (it is a float64; write frac(\"0.1\") for the decimal or frac(x) for the float's exact value)"
+	case *RationalFunction:
+		return " (for a polynomial, take its .numerator or .denominator)"
 	}
 	return ""
 }

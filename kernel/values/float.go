@@ -33,12 +33,17 @@ func FloatValue(o py.Object) (py.Object, error) {
 		}
 		return py.Float(f), nil
 	case *Matrix:
+		if x.f != nil {
+			return nil, NoCompanion("a matrix with rational-function entries")
+		}
 		if x.q == nil {
 			return nil, NoCompanion("a matrix with polynomial entries")
 		}
 		return &FloatMatrix{m: x.q.Float()}, nil
 	case *Polynomial:
 		return nil, NoCompanion("a polynomial")
+	case *RationalFunction:
+		return nil, NoCompanion("a rational function")
 	case *Simplex, *KVector:
 		return nil, NoCompanion("a " + o.Type().Name)
 	case *py.List:

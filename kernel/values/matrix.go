@@ -1,6 +1,7 @@
 package values
 
 import (
+	"errors"
 	"fmt"
 	"math/big"
 	"strings"
@@ -11,11 +12,13 @@ import (
 	"assay/kernel/interp"
 )
 
-// Matrix is an exact matrix in a cell: over Q, or over Q[variables] when an
-// entry is a polynomial. Exactly one of q and p is set.
+// Matrix is an exact matrix in a cell: over Q, over Q[variables] when an
+// entry is a polynomial, or over the rational functions when an entry is
+// one. Exactly one of q, p and f is set.
 type Matrix struct {
 	q       *exact.Matrix
 	p       *exact.PolyMatrix
+	f       *exact.RatFuncMatrix
 	env     *Env
 	rounded bool // made by the input-rounding run (rounding.go)
 }
@@ -37,10 +40,31 @@ func (e *Env) PolyMatrix(p *exact.PolyMatrix) *Matrix {
 	return &Matrix{p: p, env: e}
 }
 
+// RatFuncMatrix wraps a matrix of rational functions, as a polynomial or
+// rational one when every denominator is 1.
+func (e *Env) RatFuncMatrix(f *exact.RatFuncMatrix) *Matrix {
+	if p, ok := f.Poly(); ok {
+		return e.PolyMatrix(p)
+	}
+	return &Matrix{f: f, env: e}
+}
+
 // Rational is the matrix over Q, when it is one.
 func (m *Matrix) Rational() (*exact.Matrix, bool) { return m.q, m.q != nil }
 
-// Lifted is m over Q[variables].
+// RatLifted is m over the rational functions.
+func (m *Matrix) RatLifted() *exact.RatFuncMatrix {
+	if m.f != nil {
+		return m.f
+	}
+	return exact.RatFuncMatrixFrom(m.Lifted())
+}
+
+// HasRatFuncs reports whether an entry of m is a rational function that
+// is not a polynomial.
+func (m *Matrix) HasRatFuncs() bool { return m.f != nil }
+
+// Lifted is m over Q[variables]; m must not have rational-function entries.
 func (m *Matrix) Lifted() *exact.PolyMatrix {
 	if m.p != nil {
 		return m.p
@@ -49,23 +73,32 @@ func (m *Matrix) Lifted() *exact.PolyMatrix {
 }
 
 func (m *Matrix) rows() int {
-	if m.q != nil {
+	switch {
+	case m.q != nil:
 		return m.q.Rows()
+	case m.f != nil:
+		return m.f.Rows()
 	}
 	return m.p.Rows()
 }
 
 func (m *Matrix) cols() int {
-	if m.q != nil {
+	switch {
+	case m.q != nil:
 		return m.q.Cols()
+	case m.f != nil:
+		return m.f.Cols()
 	}
 	return m.p.Cols()
 }
 
 // entry returns m[i, j] as a notebook value.
 func (m *Matrix) entry(i, j int) py.Object {
-	if m.q != nil {
+	switch {
+	case m.q != nil:
 		return m.env.Rational(m.q.At(i, j))
+	case m.f != nil:
+		return m.env.RatFuncValue(m.f.At(i, j))
 	}
 	return m.env.PolyResult(m.p.At(i, j))
 }
@@ -83,7 +116,7 @@ func (e *Env) MatrixOf(o py.Object) (*Matrix, error) {
 		return nil, py.ExceptionNewf(py.ValueError, "matrix needs at least one row")
 	}
 	grid := make([][]py.Object, len(rows))
-	symbolic := false
+	symbolic, fractions := false, false
 	for i, row := range rows {
 		if grid[i], err = Sequence(row, fmt.Sprintf("row %d of the matrix", i)); err != nil {
 			return nil, err
@@ -92,12 +125,28 @@ func (e *Env) MatrixOf(o py.Object) (*Matrix, error) {
 			switch x.(type) {
 			case *Polynomial:
 				symbolic = true
+			case *RationalFunction:
+				fractions = true
 			default:
 				if !isExactScalar(x) {
-					return nil, py.ExceptionNewf(py.TypeError, "matrix entry [%d, %d] is %s, not an exact number or a polynomial%s", i, j, interp.TypeName(x), FloatHint(x))
+					return nil, py.ExceptionNewf(py.TypeError, "matrix entry [%d, %d] is %s, not an exact number, a polynomial or a rational function%s", i, j, interp.TypeName(x), FloatHint(x))
 				}
 			}
 		}
+	}
+	if fractions {
+		frows := make([][]*exact.RatFunc, len(grid))
+		for i, row := range grid {
+			frows[i] = make([]*exact.RatFunc, len(row))
+			for j, x := range row {
+				frows[i][j], _ = e.RatFunc(x)
+			}
+		}
+		f, err := exact.NewRatFuncMatrix(e.Ring, frows)
+		if err != nil {
+			return nil, interp.Exception(err)
+		}
+		return e.RatFuncMatrix(f), nil
 	}
 	if symbolic {
 		prows := make([][]*exact.Poly, len(grid))
@@ -134,7 +183,7 @@ func (e *Env) RationalMatrixArg(what string, o py.Object) (*exact.Matrix, error)
 		return nil, err
 	}
 	if m.q == nil {
-		return nil, symbolicRefusal(what)
+		return nil, symbolicRefusal(what, m)
 	}
 	return m.q, nil
 }
@@ -143,7 +192,7 @@ func (e *Env) RationalMatrixArg(what string, o py.Object) (*exact.Matrix, error)
 func (e *Env) columnOrMatrix(o py.Object) (*exact.Matrix, bool, error) {
 	if m, ok := o.(*Matrix); ok {
 		if m.q == nil {
-			return nil, false, symbolicRefusal("solve")
+			return nil, false, symbolicRefusal("solve", m)
 		}
 		return m.q, false, nil
 	}
@@ -159,8 +208,12 @@ func (e *Env) columnOrMatrix(o py.Object) (*exact.Matrix, bool, error) {
 	return q, true, err
 }
 
-func symbolicRefusal(op string) error {
-	return py.ExceptionNewf(py.TypeError, "%s needs a matrix of rationals, and this one has polynomial entries; put values in first with M.at(a=…)", op)
+func symbolicRefusal(op string, m *Matrix) error {
+	entries := "polynomial entries"
+	if m.f != nil {
+		entries = "rational-function entries"
+	}
+	return py.ExceptionNewf(py.TypeError, "%s needs a matrix of rationals, and this one has %s; put values in first with M.at(a=…)", op, entries)
 }
 
 func (e *Env) column(m *exact.Matrix, j int) *py.List {
@@ -261,8 +314,8 @@ func init() {
 		{"det", nil, "det() -> the exact determinant (expanded, for polynomial entries)", inFloatToo("det", (*Matrix).detMethod)},
 		{"rank", nil, "rank() -> the rank over Q", inFloatToo("rank", overQ("rank", (*Matrix).rank))},
 		{"transpose", nil, "transpose() -> the transposed matrix", inFloatToo("transpose", (*Matrix).transpose)},
-		{"inverse", nil, "inverse() -> the exact inverse; ZeroDivisionError if singular", inFloatToo("inverse", overQ("inverse", (*Matrix).inverse))},
-		{"solve", params("b"), "solve(b) -> x with M x = b; b a list (gives a list) or a matrix", inFloatToo("solve", overQ("solve", (*Matrix).solve))},
+		{"inverse", nil, "inverse() -> the exact inverse (rational functions for symbolic entries); ZeroDivisionError if singular", inFloatToo("inverse", (*Matrix).inverse)},
+		{"solve", params("b"), "solve(b) -> x with M x = b; b a list (gives a list) or a matrix", inFloatToo("solve", (*Matrix).solve)},
 		{"nullspace", nil, "nullspace() -> a list of basis vectors of {x : M x = 0}", inFloatToo("nullspace", overQ("nullspace", (*Matrix).nullspace))},
 		{"minor", params("rows", "cols"), "minor(rows, cols) -> determinant of the submatrix on those rows and columns", inFloatToo("minor", (*Matrix).minor)},
 		{"submatrix", params("rows", "cols"), "submatrix(rows, cols) -> the matrix on those rows and columns", inFloatToo("submatrix", (*Matrix).submatrixMethod)},
@@ -301,7 +354,7 @@ func inFloatToo(name string, f func(*Matrix, interp.Args) (py.Object, error)) fu
 func overQ(name string, f func(*Matrix, interp.Args) (py.Object, error)) func(*Matrix, interp.Args) (py.Object, error) {
 	return func(m *Matrix, a interp.Args) (py.Object, error) {
 		if m.q == nil {
-			return nil, symbolicRefusal(name + "()")
+			return nil, symbolicRefusal(name+"()", m)
 		}
 		return f(m, a)
 	}
@@ -312,13 +365,23 @@ func (m *Matrix) detMethod(interp.Args) (py.Object, error) { return m.det() }
 func (m *Matrix) rank(interp.Args) (py.Object, error) { return py.Int(m.q.Rank()), nil }
 
 func (m *Matrix) transpose(interp.Args) (py.Object, error) {
-	if m.q != nil {
+	switch {
+	case m.q != nil:
 		return m.env.RationalMatrix(m.q.Transpose()), nil
+	case m.f != nil:
+		return m.env.RatFuncMatrix(m.f.Transpose()), nil
 	}
 	return m.env.PolyMatrix(m.p.Transpose()), nil
 }
 
 func (m *Matrix) inverse(interp.Args) (py.Object, error) {
+	if m.q == nil {
+		inv, err := m.RatLifted().Inverse()
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncMatrix(inv), nil
+	}
 	inv, err := m.q.Inverse()
 	if err != nil {
 		return nil, err
@@ -327,6 +390,9 @@ func (m *Matrix) inverse(interp.Args) (py.Object, error) {
 }
 
 func (m *Matrix) solve(a interp.Args) (py.Object, error) {
+	if m.q == nil || !rationalColumns(a.Get("b")) {
+		return m.solveSymbolic(a.Get("b"))
+	}
 	b, isVector, err := m.env.columnOrMatrix(a.Get("b"))
 	if err != nil {
 		return nil, err
@@ -339,6 +405,62 @@ func (m *Matrix) solve(a interp.Args) (py.Object, error) {
 		return m.env.column(x, 0), nil
 	}
 	return m.env.RationalMatrix(x), nil
+}
+
+// rationalColumns reports whether a right-hand side is a rational matrix
+// or a list of exact numbers (anything else is solved symbolically, or
+// refused there).
+func rationalColumns(o py.Object) bool {
+	if m, ok := o.(*Matrix); ok {
+		return m.q != nil
+	}
+	items, err := Sequence(o, "right-hand side")
+	if err != nil {
+		return true
+	}
+	for _, it := range items {
+		if !isExactScalar(it) {
+			if _, ok := it.(*Polynomial); ok {
+				return false
+			}
+			if _, ok := it.(*RationalFunction); ok {
+				return false
+			}
+		}
+	}
+	return true
+}
+
+// solveSymbolic solves M x = b over the rational functions; b is a list
+// (the answer is a list) or a matrix.
+func (m *Matrix) solveSymbolic(o py.Object) (py.Object, error) {
+	b, isVector := o.(*Matrix)
+	isVector = !isVector
+	if isVector {
+		items, err := Sequence(o, "right-hand side")
+		if err != nil {
+			return nil, err
+		}
+		rows := make([]py.Object, len(items))
+		for i, it := range items {
+			rows[i] = py.Tuple{it}
+		}
+		if b, err = m.env.MatrixOf(py.NewListFromItems(rows)); err != nil {
+			return nil, err
+		}
+	}
+	x, err := m.RatLifted().Solve(b.RatLifted())
+	if err != nil {
+		return nil, err
+	}
+	if !isVector {
+		return m.env.RatFuncMatrix(x), nil
+	}
+	out := make([]py.Object, x.Rows())
+	for i := range out {
+		out[i] = m.env.RatFuncValue(x.At(i, 0))
+	}
+	return py.NewListFromItems(out), nil
 }
 
 func (m *Matrix) nullspace(interp.Args) (py.Object, error) {
@@ -369,12 +491,15 @@ func (m *Matrix) trace(interp.Args) (py.Object, error) {
 	if m.rows() != m.cols() {
 		return nil, py.ExceptionNewf(py.ValueError, "trace needs a square matrix, got %dx%d", m.rows(), m.cols())
 	}
-	t := m.env.Ring.Const(new(big.Rat))
+	t := exact.RatFuncOf(m.env.Ring.Const(new(big.Rat)))
 	for i := 0; i < m.rows(); i++ {
-		e, _ := m.env.Poly(m.entry(i, i))
-		t = t.Add(e)
+		e, _ := m.env.RatFunc(m.entry(i, i))
+		var err error
+		if t, err = t.Add(e); err != nil {
+			return nil, err
+		}
 	}
-	return m.env.PolyResult(t), nil
+	return m.env.RatFuncValue(t), nil
 }
 
 func (m *Matrix) rowList(interp.Args) (py.Object, error) {
@@ -396,6 +521,16 @@ func (m *Matrix) at(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
+	if m.f != nil {
+		f, err := m.f.Eval(vals)
+		if errors.Is(err, exact.ErrDivisionByZero) {
+			return nil, py.ExceptionNewf(py.ZeroDivisionError, "M.at(): %v", err)
+		}
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncMatrix(f), nil
+	}
 	return m.env.PolyMatrix(m.p.Eval(vals)), nil
 }
 
@@ -413,8 +548,16 @@ func (m *Matrix) characteristicPolynomial(a interp.Args) (py.Object, error) {
 
 func (m *Matrix) toFloat(interp.Args) (py.Object, error) { return &FloatMatrix{m: m.q.Float()}, nil }
 
-// det is the exact determinant: a rational, or an expanded polynomial.
+// det is the exact determinant: a rational, an expanded polynomial, or a
+// rational function in lowest terms.
 func (m *Matrix) det() (py.Object, error) {
+	if m.f != nil {
+		d, err := m.f.Det()
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncValue(d), nil
+	}
 	if m.q != nil {
 		d, err := m.q.Det()
 		if err != nil {
@@ -444,6 +587,13 @@ func (m *Matrix) submatrix(name string, a interp.Args) (*Matrix, error) {
 			return nil, err
 		}
 		return m.env.RationalMatrix(s), nil
+	}
+	if m.f != nil {
+		s, err := m.f.Submatrix(r, c)
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncMatrix(s), nil
 	}
 	s, err := m.p.Submatrix(r, c)
 	if err != nil {
@@ -511,8 +661,9 @@ func (m *Matrix) M__len__() (res py.Object, err error) {
 	return py.Int(m.rows()), nil
 }
 
-// arith combines two matrices, over Q when both are rational.
-func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error)) (res py.Object, err error) {
+// arith combines two matrices, over Q when both are rational, over the
+// rational functions when either has such entries.
+func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exact.Matrix, error), p func(a, b *exact.PolyMatrix) (*exact.PolyMatrix, error), f func(a, b *exact.RatFuncMatrix) (*exact.RatFuncMatrix, error)) (res py.Object, err error) {
 	defer interp.Recover("matrix arithmetic", &res, &err)
 	other, ok := o.(*Matrix)
 	if !ok {
@@ -529,6 +680,13 @@ func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exac
 		}
 		return m.env.RationalMatrix(r), nil
 	}
+	if a.f != nil || b.f != nil {
+		r, err := f(a.RatLifted(), b.RatLifted())
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncMatrix(r), nil
+	}
 	r, err := p(a.Lifted(), b.Lifted())
 	if err != nil {
 		return nil, err
@@ -536,12 +694,20 @@ func (m *Matrix) arith(o py.Object, swap bool, q func(a, b *exact.Matrix) (*exac
 	return m.env.PolyMatrix(r), nil
 }
 
-// scale multiplies by an exact number or a polynomial.
+// scale multiplies by an exact number, a polynomial or a rational function.
 func (m *Matrix) scale(o py.Object) (py.Object, error) {
 	if s, ok := ExactOf(o); ok && m.q != nil {
 		return m.env.RationalMatrix(m.q.Scale(s)), nil
 	}
 	p, ok := m.env.Poly(o)
+	if _, isFraction := o.(*RationalFunction); isFraction || (ok && m.f != nil) {
+		f, _ := m.env.RatFunc(o)
+		r, err := m.RatLifted().Scale(f)
+		if err != nil {
+			return nil, err
+		}
+		return m.env.RatFuncMatrix(r), nil
+	}
 	if !ok {
 		return py.NotImplemented, nil
 	}
@@ -558,7 +724,7 @@ func (m *Matrix) M__add__(o py.Object) (res py.Object, err error) {
 	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, false, py.Add)
 	}
-	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add)
+	return m.arith(o, false, (*exact.Matrix).Add, (*exact.PolyMatrix).Add, (*exact.RatFuncMatrix).Add)
 }
 
 // M__sub__ subtracts entrywise.
@@ -567,7 +733,7 @@ func (m *Matrix) M__sub__(o py.Object) (res py.Object, err error) {
 	if m.env.Float || m.env.Rounding {
 		return m.floatOperator(o, false, py.Sub)
 	}
-	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub)
+	return m.arith(o, false, (*exact.Matrix).Sub, (*exact.PolyMatrix).Sub, (*exact.RatFuncMatrix).Sub)
 }
 
 // M__mul__ is the matrix product, or scaling by a number or polynomial.
@@ -577,7 +743,7 @@ func (m *Matrix) M__mul__(o py.Object) (res py.Object, err error) {
 		return m.floatOperator(o, false, py.Mul)
 	}
 	if _, ok := o.(*Matrix); ok {
-		return m.arith(o, false, (*exact.Matrix).Mul, (*exact.PolyMatrix).Mul)
+		return m.arith(o, false, (*exact.Matrix).Mul, (*exact.PolyMatrix).Mul, (*exact.RatFuncMatrix).Mul)
 	}
 	return m.scale(o)
 }
@@ -614,10 +780,10 @@ func (m *Matrix) M__pow__(o, mod py.Object) (res py.Object, err error) {
 	if k > MaxExponent || k < -MaxExponent {
 		return nil, py.ExceptionNewf(py.OverflowError, "matrix exponent %d is too large (limit %d)", k, MaxExponent)
 	}
+	if m.q == nil && (k < 0 || m.f != nil) {
+		return m.ratPower(int(k))
+	}
 	if m.q == nil {
-		if k < 0 {
-			return nil, symbolicRefusal("a negative power")
-		}
 		if m.rows() != m.cols() {
 			return nil, py.ExceptionNewf(py.ValueError, "a matrix power needs a square matrix, got %dx%d", m.rows(), m.cols())
 		}
@@ -634,6 +800,30 @@ func (m *Matrix) M__pow__(o, mod py.Object) (res py.Object, err error) {
 		return nil, err
 	}
 	return m.env.RationalMatrix(p), nil
+}
+
+// ratPower raises a square matrix of rational functions to an integer
+// power, through the inverse for a negative one.
+func (m *Matrix) ratPower(k int) (py.Object, error) {
+	if m.rows() != m.cols() {
+		return nil, py.ExceptionNewf(py.ValueError, "a matrix power needs a square matrix, got %dx%d", m.rows(), m.cols())
+	}
+	base := m.RatLifted()
+	if k < 0 {
+		var err error
+		if base, err = base.Inverse(); err != nil {
+			return nil, err
+		}
+		k = -k
+	}
+	r := exact.RatFuncMatrixFrom(exact.PolyMatrixFrom(m.env.Ring, exact.Identity(m.rows())))
+	for i := 0; i < k; i++ {
+		var err error
+		if r, err = r.Mul(base); err != nil {
+			return nil, err
+		}
+	}
+	return m.env.RatFuncMatrix(r), nil
 }
 
 // M__neg__ negates every entry.
@@ -655,6 +845,9 @@ func (m *Matrix) M__eq__(o py.Object) (res py.Object, err error) {
 	}
 	if m.q != nil && other.q != nil {
 		return py.NewBool(m.q.Equal(other.q)), nil
+	}
+	if m.f != nil || other.f != nil {
+		return py.NewBool(m.RatLifted().Equal(other.RatLifted())), nil
 	}
 	return py.NewBool(m.Lifted().Equal(other.Lifted())), nil
 }
@@ -685,8 +878,11 @@ func (m *Matrix) M__str__() (res py.Object, err error) {
 // M__repr__ is the expression that rebuilds the matrix.
 func (m *Matrix) M__repr__() (res py.Object, err error) {
 	defer interp.Recover("matrix.__repr__", &res, &err)
-	if m.q != nil {
+	switch {
+	case m.q != nil:
 		return py.String("matrix(" + m.q.String() + ")"), nil
+	case m.f != nil:
+		return py.String("matrix(" + m.f.String() + ")"), nil
 	}
 	return py.String("matrix(" + m.p.String() + ")"), nil
 }

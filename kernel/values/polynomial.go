@@ -16,6 +16,10 @@ import (
 type Polynomial struct {
 	p   *exact.Poly
 	env *Env
+	// quotient: made by dividing by a polynomial (or from such a value by
+	// + − × and powers), so an identity it enters holds only where those
+	// divisors were non-zero, and claims say so (Quotient).
+	quotient bool
 }
 
 // PolynomialType is the Python type of Polynomial.
@@ -29,6 +33,10 @@ func (p *Polynomial) Value() *exact.Poly { return p.p }
 
 // Polynomial makes a notebook polynomial.
 func (e *Env) Polynomial(p *exact.Poly) *Polynomial { return &Polynomial{p: p, env: e} }
+
+// Quotient reports whether p was made by dividing by a polynomial (see
+// the field quotient).
+func (p *Polynomial) Quotient() bool { return p.quotient }
 
 // Poly lifts an exact scalar or a polynomial into the notebook's ring.
 func (e *Env) Poly(o py.Object) (*exact.Poly, bool) {
@@ -242,7 +250,7 @@ func (e *Env) discriminant(a interp.Args) (py.Object, error) {
 func init() {
 	setMethods(PolynomialType, []method[*Polynomial]{
 		{"at", params("*values", "**values"), "p.at(a=2, b=frac(1, 3)) -> p with those values put in (a rational when no variable is left)", (*Polynomial).at},
-		{"substitute", params("*replacements", "**replacements"), "p.substitute(a=b+c) -> p with polynomials put in for variables, all at once", (*Polynomial).substitute},
+		{"substitute", params("*replacements", "**replacements"), "p.substitute(a=b+c) -> p with polynomials (or rational functions, giving a rational function) put in for variables, all at once", (*Polynomial).substitute},
 		{"derivative", params("variable"), "p.derivative(\"a\") -> the partial derivative with respect to a", (*Polynomial).derivative},
 		{"degree", params("variable="), "p.degree() -> total degree; p.degree(\"a\") -> degree in a (-1 for the zero polynomial)", (*Polynomial).degree},
 		{"terms", nil, "p.terms() -> [(coefficient, {\"a\": 2, \"b\": 1}), ...] in canonical order", (*Polynomial).terms},
@@ -272,6 +280,12 @@ func (p *Polynomial) at(a interp.Args) (py.Object, error) {
 func (p *Polynomial) substitute(a interp.Args) (py.Object, error) {
 	if err := byName(a, "substitute() takes replacements by name: p.substitute(a=b+c)"); err != nil {
 		return nil, err
+	}
+	for _, v := range a.Keywords() {
+		if _, ok := v.(*RationalFunction); ok {
+			// Rational functions put in make a rational function.
+			return (&RationalFunction{f: exact.RatFuncOf(p.p), env: p.env}).substitute(a)
+		}
 	}
 	subs := map[int]*exact.Poly{}
 	for name, v := range a.Keywords() {
@@ -496,7 +510,8 @@ func (p *Polynomial) arith(o py.Object, swap bool, op func(a, b *exact.Poly) (*e
 	if err != nil {
 		return nil, err
 	}
-	return p.env.Polynomial(r), nil
+	q, _ := o.(*Polynomial)
+	return &Polynomial{p: r, env: p.env, quotient: p.quotient || q != nil && q.quotient}, nil
 }
 
 func polyAdd(a, b *exact.Poly) (*exact.Poly, error) { return a.Add(b), nil }
@@ -521,7 +536,8 @@ func (p *Polynomial) M__mul__(o py.Object) (py.Object, error) { return p.arith(o
 // M__rmul__ multiplies.
 func (p *Polynomial) M__rmul__(o py.Object) (py.Object, error) { return p.arith(o, true, polyMul) }
 
-// M__truediv__ divides by an exact non-zero number; polynomial divisors go through divide().
+// M__truediv__ divides by an exact non-zero number, or by a polynomial (a
+// rational function in lowest terms, a polynomial when the division is exact).
 func (p *Polynomial) M__truediv__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("polynomial.__truediv__", &res, &err)
 	if c, ok := ExactOf(o); ok {
@@ -532,29 +548,30 @@ func (p *Polynomial) M__truediv__(o py.Object) (res py.Object, err error) {
 		return p.env.Polynomial(r), nil
 	}
 	if _, ok := o.(*Polynomial); ok {
-		return nil, py.ExceptionNewf(py.TypeError, "p / q is defined for a number q only; for polynomials use p.divide(q), which checks that the division is exact")
+		// p / q in lowest terms: a polynomial when q divides p.
+		return p.env.ratArith(exact.RatFuncOf(p.p), o, false, (*exact.RatFunc).Quo)
 	}
 	return py.NotImplemented, nil
 }
 
-// M__rtruediv__ refuses number / polynomial, which is not a polynomial.
+// M__rtruediv__ divides a number by p: a rational function.
 func (p *Polynomial) M__rtruediv__(o py.Object) (res py.Object, err error) {
 	defer interp.Recover("polynomial.__rtruediv__", &res, &err)
 	if isExactScalar(o) {
-		return nil, py.ExceptionNewf(py.TypeError, "a number divided by a polynomial is not a polynomial")
+		return p.env.ratArith(exact.RatFuncOf(p.p), o, true, (*exact.RatFunc).Quo)
 	}
 	return py.NotImplemented, nil
 }
 
-// M__pow__ raises to a non-negative integer power.
+// M__pow__ raises to an integer power; a negative one gives a rational function.
 func (p *Polynomial) M__pow__(o, mod py.Object) (res py.Object, err error) {
 	defer interp.Recover("polynomial.__pow__", &res, &err)
 	e, ok := ExactOf(o)
 	if !ok || mod != py.None || !e.IsInt() {
-		return nil, py.ExceptionNewf(py.TypeError, "a polynomial power needs a non-negative integer exponent")
+		return nil, py.ExceptionNewf(py.TypeError, "a polynomial power needs an integer exponent")
 	}
 	if e.Sign() < 0 {
-		return nil, py.ExceptionNewf(py.ValueError, "a polynomial to a negative power (%s) is not a polynomial", exact.FormatRat(e))
+		return p.env.ratPow(exact.RatFuncOf(p.p), o, mod) // a rational function
 	}
 	if e.Num().Cmp(big.NewInt(MaxExponent)) > 0 {
 		return nil, py.ExceptionNewf(py.OverflowError, "exponent %s is too large (limit %d)", e.Num(), MaxExponent)
@@ -563,13 +580,13 @@ func (p *Polynomial) M__pow__(o, mod py.Object) (res py.Object, err error) {
 	if err != nil {
 		return nil, err
 	}
-	return p.env.Polynomial(r), nil
+	return &Polynomial{p: r, env: p.env, quotient: p.quotient}, nil
 }
 
 // M__neg__ negates.
 func (p *Polynomial) M__neg__() (res py.Object, err error) {
 	defer interp.Recover("polynomial.__neg__", &res, &err)
-	return p.env.Polynomial(p.p.Neg()), nil
+	return &Polynomial{p: p.p.Neg(), env: p.env, quotient: p.quotient}, nil
 }
 
 // M__pos__ returns p.

@@ -84,6 +84,8 @@ func (e *Env) RoundIn(o py.Object) (py.Object, error) {
 		return &Matrix{q: q, env: e, rounded: true}, nil
 	case *Polynomial:
 		return nil, NoCompanion("a polynomial")
+	case *RationalFunction:
+		return nil, NoCompanion("a rational function")
 	case *Simplex, *KVector:
 		return nil, NoCompanion("a " + o.Type().Name)
 	case *py.List:
