@@ -101,6 +101,9 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"sweep-seedless-draw.md", 5, "random draw without seed=", nil},
 		{"given-not-sampled.md", 5, "given= states a hypothesis, which is tested on samples: it needs over=g and samples=N", nil},
 		{"rank-unknown.md", 5, "rank must be \"relative\" or \"absolute\", got worst", nil},
+		{"poly-sqrt-not-square.md", 5, "is not the square of a polynomial over Q (its square-free factor", nil},
+		{"poly-plus-real.md", 5, "TypeError: a polynomial cannot be combined with the certified real", nil},
+		{"distance-not-embeddable.md", 7, "violates the triangle inequality", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {
