@@ -104,6 +104,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"poly-sqrt-not-square.md", 5, "is not the square of a polynomial over Q (its square-free factor", nil},
 		{"poly-plus-real.md", 5, "TypeError: a polynomial cannot be combined with the certified real", nil},
 		{"distance-not-embeddable.md", 7, "violates the triangle inequality", nil},
+		{"simplex-irrational-distance.md", 6, "the squared distance between points 1 and 2 (2.5358983848622454129) is irrational", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/big"
 	"strings"
+	"sync"
 
 	"github.com/go-python/gpython/py"
 
@@ -14,9 +15,20 @@ import (
 )
 
 // Simplex is a simplex in a cell, given by points or squared distances.
+//
+// Its metric lives in s (the exact Gram matrix); its coordinates are the
+// rational points of s when it has them, and otherwise certified reals in
+// alg: the points given with algebraic coordinates (whose squared
+// distances were proved rational), or, for a simplex from distances, its
+// canonical embedding (geom.Simplex.Frame), made on first use. A face
+// keeps its parent's coordinates.
 type Simplex struct {
 	s   *geom.Simplex
 	env *Env
+
+	algOnce sync.Once
+	alg     [][]*exact.Real
+	given   bool // alg holds points given to simplex(), not an embedding
 }
 
 // SimplexType is the Python type of Simplex.
@@ -102,6 +114,12 @@ func (e *Env) simplex(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
+	if pts, ok, err := e.algebraicPoints(items); ok || err != nil {
+		if err != nil {
+			return nil, err
+		}
+		return e.algebraicSimplex(pts)
+	}
 	pts := make([][]*big.Rat, len(items))
 	for i, it := range items {
 		if pts[i], err = rationalVector(it, fmt.Sprintf("point %d", i)); err != nil {
@@ -113,6 +131,72 @@ func (e *Env) simplex(a interp.Args) (py.Object, error) {
 		return nil, geomErr("simplex", err)
 	}
 	return e.Simplex(g), nil
+}
+
+// algebraicPoints reads points with a certified real among their
+// coordinates; ok is false when there is none (the rational reading then
+// gives its own messages).
+func (e *Env) algebraicPoints(items []py.Object) (pts [][]*exact.Real, ok bool, err error) {
+	pts = make([][]*exact.Real, len(items))
+	for i, it := range items {
+		row, err := Sequence(it, fmt.Sprintf("point %d", i))
+		if err != nil {
+			return nil, false, err
+		}
+		pts[i] = make([]*exact.Real, len(row))
+		for c, x := range row {
+			if _, isReal := x.(*Real); isReal {
+				ok = true
+			}
+			if pts[i][c], _ = RealOf(x); pts[i][c] == nil {
+				return nil, false, nil
+			}
+		}
+	}
+	return pts, ok, nil
+}
+
+// algebraicSimplex makes the simplex with vertices given by certified
+// reals. Its metric must be rational: each squared distance is decided
+// rational or not exactly (exact.Real.RationalValue), and the simplex is
+// the one from those distances, keeping the points as its coordinates.
+func (e *Env) algebraicSimplex(pts [][]*exact.Real) (py.Object, error) {
+	lens := make([]int, len(pts))
+	for i, p := range pts {
+		lens[i] = len(p)
+	}
+	if err := geom.CheckPoints(lens); err != nil {
+		return nil, geomErr("simplex", err)
+	}
+	d := exact.Zeros(len(pts), len(pts))
+	for i := range pts {
+		for j := i + 1; j < len(pts); j++ {
+			sq := squaredDistance(pts[i], pts[j])
+			r, rational, err := sq.RationalValue(e.Cap)
+			if err != nil {
+				return nil, py.ExceptionNewf(py.ArithmeticError, "simplex(points): whether the squared distance between points %d and %d is rational is not settled: %v", i, j, interp.Exception(err))
+			}
+			if !rational {
+				return nil, py.ExceptionNewf(py.ValueError, "simplex(points): the squared distance between points %d and %d (%s) is irrational (proved); simplices here are exact over rational squared distances, so points with algebraic coordinates must be at rational squared distances, as the points of distance_simplex(D) are", i, j, interp.Str(e.Real(sq)))
+			}
+			d.Set(i, j, r)
+			d.Set(j, i, r)
+		}
+	}
+	g, err := geom.FromSquaredDistances(d)
+	if err != nil {
+		return nil, geomErr("simplex", err)
+	}
+	return &Simplex{s: g, env: e, alg: pts, given: true}, nil
+}
+
+// squaredDistance is |p − q|² as a certified real.
+func squaredDistance(p, q []*exact.Real) *exact.Real {
+	sum := exact.RealFromInt(0)
+	for c := range p {
+		sum = exact.RealAdd(sum, exact.RealPowInt(exact.RealSub(p[c], q[c]), 2))
+	}
+	return sum
 }
 
 func (e *Env) distanceSimplex(a interp.Args) (py.Object, error) {
@@ -204,6 +288,9 @@ func (e *Env) affine(a interp.Args) (py.Object, error) {
 	if !ok {
 		return nil, py.ExceptionNewf(py.TypeError, "affine(s, A, t): s must be a simplex, got %s", interp.TypeName(a.Get("s")))
 	}
+	if sx.algebraic() {
+		return nil, noRationalCoordinates("affine")
+	}
 	m, err := e.RationalMatrixArg("affine", a.Get("A"))
 	if err != nil {
 		return nil, err
@@ -285,18 +372,100 @@ func exactMethods(table []method[*Simplex]) []method[*Simplex] {
 }
 
 func (s *Simplex) points(interp.Args) (py.Object, error) {
-	pts, ok := s.s.Points()
-	if !ok {
-		return nil, py.ExceptionNewf(py.ValueError, "points(): this simplex was built from distances and has no coordinates")
+	if pts, ok := s.s.Points(); ok {
+		out := make([]py.Object, len(pts))
+		for i, p := range pts {
+			out[i] = s.env.list(p)
+		}
+		return py.NewListFromItems(out), nil
 	}
+	pts := s.coords()
 	out := make([]py.Object, len(pts))
 	for i, p := range pts {
-		out[i] = s.env.list(p)
+		out[i] = s.env.realList(p)
 	}
 	return py.NewListFromItems(out), nil
 }
 
+// realList is a list of certified reals (rationals where known).
+func (e *Env) realList(v []*exact.Real) *py.List {
+	out := make([]py.Object, len(v))
+	for i, x := range v {
+		out[i] = e.Real(x)
+	}
+	return py.NewListFromItems(out)
+}
+
+// algebraic reports whether the coordinates are certified reals rather
+// than the rational points of s.
+func (s *Simplex) algebraic() bool {
+	_, ok := s.s.Points()
+	return !ok
+}
+
+// coords returns the vertices as certified reals: the rational points, the
+// algebraic points given, or the canonical embedding of a simplex from
+// distances (vertex 0 at the origin, vertex i in the span of the first i
+// axes; geom.Simplex.Frame), one shared square root per axis so that the
+// zero bound counts each root once.
+func (s *Simplex) coords() [][]*exact.Real {
+	if pts, ok := s.s.Points(); ok {
+		out := make([][]*exact.Real, len(pts))
+		for i, p := range pts {
+			out[i] = make([]*exact.Real, len(p))
+			for c, x := range p {
+				out[i][c] = exact.RealFromRat(x)
+			}
+		}
+		return out
+	}
+	s.algOnce.Do(func() {
+		if s.alg != nil {
+			return
+		}
+		rows, scales := s.s.Frame()
+		k := s.s.Dim()
+		roots := make([]*exact.Real, k)
+		for j, d := range scales {
+			roots[j] = exact.RealSqrt(exact.RealFromRat(d))
+		}
+		s.alg = make([][]*exact.Real, k+1)
+		for i := range s.alg {
+			s.alg[i] = make([]*exact.Real, k)
+			for j := range s.alg[i] {
+				if i == 0 || rows[i-1][j].Sign() == 0 {
+					s.alg[i][j] = exact.RealFromInt(0)
+				} else {
+					s.alg[i][j] = exact.RealMul(exact.RealFromRat(rows[i-1][j]), roots[j])
+				}
+			}
+		}
+	})
+	return s.alg
+}
+
+// weighted returns Σ w_i p_i / total, coordinate by coordinate.
+func weighted(w []*exact.Real, pts [][]*exact.Real, total *exact.Real) []*exact.Real {
+	out := make([]*exact.Real, len(pts[0]))
+	for c := range out {
+		sum := exact.RealFromInt(0)
+		for i, p := range pts {
+			sum = exact.RealAdd(sum, exact.RealMul(w[i], p[c]))
+		}
+		out[c] = exact.RealQuo(sum, total)
+	}
+	return out
+}
+
+// noRationalCoordinates refuses an operation that needs rational coordinates.
+func noRationalCoordinates(name string) error {
+	return py.ExceptionNewf(py.ValueError, "%s(): this simplex has algebraic coordinates (given with certified reals, or the canonical embedding of a simplex from distances), and %s needs rational ones; build it with simplex(points) from rational points", name, name)
+}
+
 func (s *Simplex) facetAreaVectors(interp.Args) (py.Object, error) {
+	if s.algebraic() {
+		return nil, noRationalCoordinates("facet_area_vectors")
+	}
 	vs, err := s.s.FacetAreaVectors()
 	if err != nil {
 		return nil, geomErr("facet_area_vectors", err)
@@ -317,11 +486,22 @@ func (s *Simplex) circumradiusSq(interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) circumcenter(interp.Args) (py.Object, error) {
-	c, err := s.s.Circumcenter()
+	if !s.algebraic() {
+		c, err := s.s.Circumcenter()
+		if err != nil {
+			return nil, geomErr("circumcenter", err)
+		}
+		return s.env.list(c), nil
+	}
+	lam, err := s.s.CircumcenterBarycentric()
 	if err != nil {
 		return nil, geomErr("circumcenter", err)
 	}
-	return s.env.list(c), nil
+	w := make([]*exact.Real, len(lam))
+	for i, l := range lam {
+		w[i] = exact.RealFromRat(l)
+	}
+	return s.env.realList(weighted(w, s.coords(), exact.RealFromInt(1))), nil
 }
 
 func (s *Simplex) inradius(interp.Args) (py.Object, error) {
@@ -337,22 +517,12 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 	if s.s.IsDegenerate() {
 		return nil, geomErr("incenter", geom.ErrDegenerate)
 	}
-	pts, ok := s.s.Points()
-	if !ok {
-		return nil, py.ExceptionNewf(py.ValueError, "incenter(): this simplex was built from distances and has no coordinates")
-	}
 	areas := s.s.FacetContentsSq()
-	total := sqrtSum(areas)
-	out := make([]py.Object, len(pts[0]))
-	for c := range out {
-		sum := exact.RealFromRat(new(big.Rat))
-		for i, p := range pts {
-			w := exact.RealMul(exact.RealSqrt(exact.RealFromRat(areas[i])), exact.RealFromRat(p[c]))
-			sum = exact.RealAdd(sum, w)
-		}
-		out[c] = s.env.Real(exact.RealQuo(sum, total))
+	w := make([]*exact.Real, len(areas))
+	for i, a := range areas {
+		w[i] = exact.RealSqrt(exact.RealFromRat(a))
 	}
-	return py.NewListFromItems(out), nil
+	return s.env.realList(weighted(w, s.coords(), sqrtSum(areas))), nil
 }
 
 func (s *Simplex) sqEdge(a interp.Args) (py.Object, error) {
@@ -372,7 +542,20 @@ func (s *Simplex) face(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, geomErr("face", err)
 	}
-	return s.env.Simplex(f), nil
+	return s.sub(f, idx), nil
+}
+
+// sub is the face f on the vertices idx, keeping algebraic coordinates.
+func (s *Simplex) sub(f *geom.Simplex, idx []int) *Simplex {
+	if !s.algebraic() {
+		return s.env.Simplex(f)
+	}
+	pts := s.coords()
+	alg := make([][]*exact.Real, len(idx))
+	for a, i := range idx {
+		alg[a] = pts[i]
+	}
+	return &Simplex{s: f, env: s.env, alg: alg, given: s.given}
 }
 
 func (s *Simplex) facet(a interp.Args) (py.Object, error) {
@@ -384,7 +567,13 @@ func (s *Simplex) facet(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, geomErr("facet", err)
 	}
-	return s.env.Simplex(f), nil
+	idx := make([]int, 0, s.s.Dim())
+	for j := 0; j < s.s.Vertices(); j++ {
+		if j != int(i) {
+			idx = append(idx, j)
+		}
+	}
+	return s.sub(f, idx), nil
 }
 
 func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
@@ -425,6 +614,15 @@ func (s *Simplex) M__str__() (res py.Object, err error) {
 		rows := make([]string, len(pts))
 		for i, p := range pts {
 			rows[i] = interp.Str(s.env.list(p))
+		}
+		return py.String("simplex([" + strings.Join(rows, ", ") + "])"), nil
+	}
+	if s.given {
+		// Points given with certified reals: their digits (a real prints
+		// no closed form).
+		rows := make([]string, len(s.alg))
+		for i, p := range s.alg {
+			rows[i] = interp.Str(s.env.realList(p))
 		}
 		return py.String("simplex([" + strings.Join(rows, ", ") + "])"), nil
 	}
