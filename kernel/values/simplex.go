@@ -16,19 +16,25 @@ import (
 
 // Simplex is a simplex in a cell, given by points or squared distances.
 //
-// Its metric lives in s (the exact Gram matrix); its coordinates are the
-// rational points of s when it has them, and otherwise certified reals in
-// alg: the points given with algebraic coordinates (whose squared
-// distances were proved rational), or, for a simplex from distances, its
-// canonical embedding (geom.Simplex.Frame), made on first use. A face
-// keeps its parent's coordinates.
+// Its metric lives in s (the exact Gram matrix). Its coordinates are, for
+// rational points and for the canonical embedding of a simplex from
+// distances (geom.Simplex.Frame, made on first use), in frame form: vertex
+// i's coordinate c is coef[i][c]·scale[c], coef rational and scale[c] the
+// axis's square root (nil for rational points), so that a point combined
+// from the vertices with rational weights, such as the circumcentre, is
+// again one rational times the axis root — which keeps zero bounds small.
+// Points given to simplex() with certified reals (their squared distances
+// proved rational) are kept as they are, in alg. A face keeps its parent's
+// coordinates.
 type Simplex struct {
 	s   *geom.Simplex
 	env *Env
 
-	algOnce sync.Once
-	alg     [][]*exact.Real
-	given   bool // alg holds points given to simplex(), not an embedding
+	once  sync.Once
+	coef  [][]*big.Rat
+	scale []*exact.Real
+	alg   [][]*exact.Real
+	given bool // alg holds points given to simplex(), not an embedding
 }
 
 // SimplexType is the Python type of Simplex.
@@ -403,54 +409,85 @@ func (s *Simplex) algebraic() bool {
 	return !ok
 }
 
-// coords returns the vertices as certified reals: the rational points, the
-// algebraic points given, or the canonical embedding of a simplex from
-// distances (vertex 0 at the origin, vertex i in the span of the first i
-// axes; geom.Simplex.Frame), one shared square root per axis so that the
-// zero bound counts each root once.
-func (s *Simplex) coords() [][]*exact.Real {
-	if pts, ok := s.s.Points(); ok {
-		out := make([][]*exact.Real, len(pts))
-		for i, p := range pts {
-			out[i] = make([]*exact.Real, len(p))
-			for c, x := range p {
-				out[i][c] = exact.RealFromRat(x)
-			}
+// frame makes the frame form on first use: the rational points, or the
+// canonical embedding of a simplex from distances (vertex 0 at the origin,
+// vertex i in the span of the first i axes), one shared square root per
+// axis so that the zero bound counts each root once. It leaves coef nil
+// for points given with certified reals.
+func (s *Simplex) frame() {
+	s.once.Do(func() {
+		if s.alg != nil || s.coef != nil {
+			return
 		}
-		return out
-	}
-	s.algOnce.Do(func() {
-		if s.alg != nil {
+		if pts, ok := s.s.Points(); ok {
+			s.coef = pts
 			return
 		}
 		rows, scales := s.s.Frame()
-		k := s.s.Dim()
-		roots := make([]*exact.Real, k)
+		s.scale = make([]*exact.Real, len(scales))
 		for j, d := range scales {
-			roots[j] = exact.RealSqrt(exact.RealFromRat(d))
+			s.scale[j] = exact.RealSqrt(exact.RealFromRat(d))
 		}
-		s.alg = make([][]*exact.Real, k+1)
-		for i := range s.alg {
-			s.alg[i] = make([]*exact.Real, k)
-			for j := range s.alg[i] {
-				if i == 0 || rows[i-1][j].Sign() == 0 {
-					s.alg[i][j] = exact.RealFromInt(0)
-				} else {
-					s.alg[i][j] = exact.RealMul(exact.RealFromRat(rows[i-1][j]), roots[j])
-				}
-			}
+		s.coef = make([][]*big.Rat, len(rows)+1)
+		s.coef[0] = make([]*big.Rat, len(rows))
+		for j := range s.coef[0] {
+			s.coef[0][j] = new(big.Rat)
 		}
+		copy(s.coef[1:], rows)
 	})
-	return s.alg
 }
 
-// weighted returns Σ w_i p_i / total, coordinate by coordinate.
-func weighted(w []*exact.Real, pts [][]*exact.Real, total *exact.Real) []*exact.Real {
-	out := make([]*exact.Real, len(pts[0]))
+// coords returns the vertices as certified reals.
+func (s *Simplex) coords() [][]*exact.Real {
+	s.frame()
+	if s.coef == nil {
+		return s.alg
+	}
+	out := make([][]*exact.Real, len(s.coef))
+	for i, row := range s.coef {
+		out[i] = make([]*exact.Real, len(row))
+		for c, x := range row {
+			out[i][c] = s.scaled(exact.RealFromRat(x), c)
+		}
+	}
+	return out
+}
+
+// scaled multiplies x by the root of axis c (frame form only).
+func (s *Simplex) scaled(x *exact.Real, c int) *exact.Real {
+	if s.scale == nil {
+		return x
+	}
+	if q, ok := x.Rat(); ok && q.Sign() == 0 {
+		return x
+	}
+	return exact.RealMul(x, s.scale[c])
+}
+
+// weighted returns Σ w_i v_i / total over the vertices v_i, coordinate by
+// coordinate; in frame form the root of each axis is factored out, so
+// rational weights give one rational times the root.
+func (s *Simplex) weighted(w []*exact.Real, total *exact.Real) []*exact.Real {
+	s.frame()
+	n := s.s.Vertices()
+	var dim int
+	if s.coef != nil {
+		dim = len(s.coef[0])
+	} else {
+		dim = len(s.alg[0])
+	}
+	out := make([]*exact.Real, dim)
 	for c := range out {
 		sum := exact.RealFromInt(0)
-		for i, p := range pts {
-			sum = exact.RealAdd(sum, exact.RealMul(w[i], p[c]))
+		for i := 0; i < n; i++ {
+			if s.coef != nil {
+				sum = exact.RealAdd(sum, exact.RealMul(w[i], exact.RealFromRat(s.coef[i][c])))
+			} else {
+				sum = exact.RealAdd(sum, exact.RealMul(w[i], s.alg[i][c]))
+			}
+		}
+		if s.coef != nil {
+			sum = s.scaled(sum, c)
 		}
 		out[c] = exact.RealQuo(sum, total)
 	}
@@ -501,7 +538,7 @@ func (s *Simplex) circumcenter(interp.Args) (py.Object, error) {
 	for i, l := range lam {
 		w[i] = exact.RealFromRat(l)
 	}
-	return s.env.realList(weighted(w, s.coords(), exact.RealFromInt(1))), nil
+	return s.env.realList(s.weighted(w, exact.RealFromInt(1))), nil
 }
 
 func (s *Simplex) inradius(interp.Args) (py.Object, error) {
@@ -522,7 +559,7 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 	for i, a := range areas {
 		w[i] = exact.RealSqrt(exact.RealFromRat(a))
 	}
-	return s.env.realList(weighted(w, s.coords(), sqrtSum(areas))), nil
+	return s.env.realList(s.weighted(w, sqrtSum(areas))), nil
 }
 
 func (s *Simplex) sqEdge(a interp.Args) (py.Object, error) {
@@ -550,12 +587,16 @@ func (s *Simplex) sub(f *geom.Simplex, idx []int) *Simplex {
 	if !s.algebraic() {
 		return s.env.Simplex(f)
 	}
-	pts := s.coords()
-	alg := make([][]*exact.Real, len(idx))
-	for a, i := range idx {
-		alg[a] = pts[i]
+	s.frame()
+	out := &Simplex{s: f, env: s.env, scale: s.scale, given: s.given}
+	for _, i := range idx {
+		if s.coef != nil {
+			out.coef = append(out.coef, s.coef[i])
+		} else {
+			out.alg = append(out.alg, s.alg[i])
+		}
 	}
-	return &Simplex{s: f, env: s.env, alg: alg, given: s.given}
+	return out
 }
 
 func (s *Simplex) facet(a interp.Args) (py.Object, error) {
