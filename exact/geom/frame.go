@@ -1,6 +1,11 @@
 package geom
 
-import "math/big"
+import (
+	"fmt"
+	"math/big"
+
+	"assay/exact"
+)
 
 // Frame gives the canonical embedding of the simplex, the one a simplex
 // from squared distances is given coordinates by: vertex 0 at the origin,
@@ -61,4 +66,33 @@ func (s *Simplex) Frame() (rows [][]*big.Rat, scales []*big.Rat) {
 		}
 	}
 	return rows, scales
+}
+
+// FootRatios returns, for the facet opposite vertex i, the coefficients
+// c_m = Q_im/Q_ii (m = 0..k), where Q_ij = ∇λ_i·∇λ_j for the barycentric
+// coordinate functions λ (see DihedralCosSq). Since ∇λ_i = Σ_m Q_im v_m,
+// the vector Σ_m c_m v_m is ∇λ_i/|∇λ_i|², the inward normal of the facet
+// whose length is the height h_i over it (|∇λ_i| = 1/h_i), and its
+// coefficients sum to 0. The foot of the perpendicular from a point X with
+// barycentric coordinates λ_m(X) to the facet's hyperplane is therefore the
+// point with barycentric coordinates λ_m(X) − λ_i(X)·c_m: all rational when
+// X's are. It needs a non-degenerate simplex with k >= 1 (ErrDegenerate,
+// exact.ErrShape).
+func (s *Simplex) FootRatios(i int) ([]*big.Rat, error) {
+	if s.k < 1 {
+		return nil, fmt.Errorf("foot of a perpendicular: a point has no facets: %w", exact.ErrShape)
+	}
+	if err := s.checkVertex("foot of a perpendicular", i); err != nil {
+		return nil, err
+	}
+	c := s.core()
+	if c.det.Sign() == 0 {
+		return nil, fmt.Errorf("foot of a perpendicular: %w (squared volume 0)", ErrDegenerate)
+	}
+	q := c.qInts(s.k)
+	out := make([]*big.Rat, s.k+1)
+	for m := range out {
+		out[m] = new(big.Rat).SetFrac(q[i][m], q[i][i])
+	}
+	return out, nil
 }

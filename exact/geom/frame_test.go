@@ -77,3 +77,44 @@ func TestFrameRegularSimplex(t *testing.T) {
 		t.Errorf("vertex 2's first coordinate %v, want 1/2", rows[1][0])
 	}
 }
+
+// The feet of the perpendiculars from the vertices: the altitude foot from
+// the right angle of the 3-4-5 triangle lies on the hypotenuse at
+// (36/25, 48/25) (the altitude to the hypotenuse, length 12/5; common
+// practice), and every foot is on its facet (barycentric coordinate 0) at
+// the facet's height (h_i² = k²V²/F_i²).
+func TestFootRatios(t *testing.T) {
+	s := mustPoints(t, vec(0, 0), vec(4, 0), vec(0, 3))
+	c, err := s.FootRatios(0)
+	if err != nil {
+		t.Fatal(err)
+	}
+	// Foot from vertex 0: λ(v0) = (1, 0, 0), so weights (1 − c_0, −c_1, −c_2).
+	w := []*big.Rat{new(big.Rat).Sub(qi(1), c[0]), new(big.Rat).Neg(c[1]), new(big.Rat).Neg(c[2])}
+	foot := s.combine(w)
+	if foot[0].Cmp(q("36/25")) != 0 || foot[1].Cmp(q("48/25")) != 0 {
+		t.Errorf("foot of the altitude at %v, want (36/25, 48/25)", fmtVec(foot))
+	}
+	r := Random(4, 9, 10, 1)
+	F := r.FacetContentsSq()
+	V := r.VolumeSq()
+	for i := 0; i <= 4; i++ {
+		c, err := r.FootRatios(i)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sum := new(big.Rat)
+		for _, x := range c {
+			sum.Add(sum, x)
+		}
+		n := r.combine(c) // Σ c_m v_m: the normal of length h_i
+		h2 := new(big.Rat)
+		for _, x := range n {
+			h2.Add(h2, new(big.Rat).Mul(x, x))
+		}
+		want := new(big.Rat).Quo(new(big.Rat).Mul(qi(16), V), F[i])
+		if sum.Sign() != 0 || h2.Cmp(want) != 0 || c[i].Cmp(qi(1)) != 0 {
+			t.Errorf("facet %d: coefficients sum to %v, |n|² = %v, want h² = %v", i, sum, h2, want)
+		}
+	}
+}

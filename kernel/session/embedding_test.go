@@ -170,3 +170,34 @@ print(s.facet(3))`
 		{"s = simplex([[0, 0], [1, sqrt(2)], [1, 0], [2, 1]])", "needs at least 3 coordinates"},
 	})
 }
+
+// The insphere touches facet i at the foot of the perpendicular from the
+// incentre: for the 3-4-5 triangle (0,0), (4,0), (0,3) the incircle of
+// radius 1 about (1, 1) touches the sides at (8/5, 9/5), (0, 1), (1, 0)
+// (computed by hand; common practice). In a tetrahedron each touch point
+// is at distance r from the incentre, with T_i − I normal to facet i, and
+// the tangent segments from a vertex to the touch points of the three
+// facets through it are equal (tangents from a point to a sphere; a
+// standard fact) — proved on tetrahedra from distances.
+func TestInsphereTouchPoints(t *testing.T) {
+	src := embeddingHelpers + `identity("3-4-5", simplex([[0, 0], [4, 0], [0, 3]]).insphere_touch_points(), [[frac(8, 5), frac(9, 5)], [0, 1], [1, 0]])
+def dot(u, v):
+    return sum([u[i] * v[i] for i in range(len(u))])
+for name, D in [("disphenoid", matrix([[0, 5, 6, 7], [5, 0, 7, 6], [6, 7, 0, 5], [7, 6, 5, 0]])),
+                ("scalene", matrix([[0, 4, 5, 6], [4, 0, 7, 8], [5, 7, 0, 9], [6, 8, 9, 0]]))]:
+    s = distance_simplex(D)
+    P, I, T, r = s.points(), s.incenter(), s.insphere_touch_points(), s.inradius()
+    for i in range(4):
+        identity("%s touch %d at distance r" % (name, i), dist2(T[i], I), r ** 2)
+        a, b, c = [P[j] for j in range(4) if j != i]
+        identity("%s touch %d normal" % (name, i), [dot(sub(T[i], I), sub(b, a)), dot(sub(T[i], I), sub(c, a))], [0, 0])
+    for m in range(4):
+        tangents = [dist2(P[m], T[i]) for i in range(4) if i != m]
+        identity("%s equal tangents from %d" % (name, m), tangents[1:], tangents[:1] * 2)`
+	if o := allHold(t, src); len(o.Claims) != 1+2*12 {
+		t.Errorf("%d claims", len(o.Claims))
+	}
+	expectErrors(t, []errorCase{
+		{"print(simplex([[0, 0], [1, 1], [2, 2]]).insphere_touch_points())", "degenerate"},
+	})
+}

@@ -1,6 +1,7 @@
 package session
 
 import (
+	"strings"
 	"testing"
 
 	"assay/cells"
@@ -50,6 +51,11 @@ print(sqrt(9 * (x - 2*y)**4))`
 	}
 	if got := o.Output; got != "3*x^2 - 12*x*y + 12*y^2\n" {
 		t.Errorf("printed %q", got)
+	}
+	for _, c := range o.Claims {
+		if isRoot := c.Name == "sign convention" || strings.HasPrefix(c.Name, "Pell") && c.Name != "Pell 1"; isRoot != strings.Contains(c.Note, "only where it is ≥ 0") {
+			t.Errorf("%s: note %q", c.Name, c.Note)
+		}
 	}
 }
 

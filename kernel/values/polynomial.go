@@ -14,9 +14,17 @@ import (
 
 // Polynomial is a multivariate polynomial over Q in a cell. It is immutable.
 type Polynomial struct {
-	p   *exact.Poly
-	env *Env
+	p    *exact.Poly
+	env  *Env
+	root bool // made by sqrt() of a perfect square: SquareRootNote applies
 }
+
+// SquareRootNote is what a claim says about a side made by sqrt() of a
+// polynomial.
+const SquareRootNote = "sqrt() of a polynomial is its square root with a positive leading coefficient, which equals the function √p only where it is ≥ 0 (elsewhere it is −√p)"
+
+// SquareRoot reports whether p was made by sqrt() of a perfect square.
+func (p *Polynomial) SquareRoot() bool { return p.root }
 
 // PolynomialType is the Python type of Polynomial.
 var PolynomialType = py.NewType("polynomial", "A polynomial over Q: a, b = variables(\"a b\"); a**2 - 2*b.")
@@ -597,7 +605,10 @@ func (e *Env) polySqrt(p *exact.Poly) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
-	return e.PolyResult(q), nil
+	if _, ok := q.Constant(); ok {
+		return e.PolyResult(q), nil
+	}
+	return &Polynomial{p: q, env: e, root: true}, nil
 }
 
 // M__rtruediv__ refuses number / polynomial, which is not a polynomial.

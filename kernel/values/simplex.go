@@ -356,6 +356,7 @@ func init() {
 		{"circumcenter", nil, "circumcenter()", (*Simplex).circumcenter},
 		{"inradius", nil, "inradius()", (*Simplex).inradius},
 		{"incenter", nil, "incenter()", (*Simplex).incenter},
+		{"insphere_touch_points", nil, "insphere_touch_points() -> the points where the insphere touches the facets, the i-th on the facet opposite vertex i", (*Simplex).touchPoints},
 		{"sq_edge", params("i", "j"), "sq_edge(i, j) -> the squared distance between vertices i and j (0 when i == j)", (*Simplex).sqEdge},
 		{"face", params("indices"), "face(indices) -> the face on those vertices", (*Simplex).face},
 		{"facet", params("i"), "facet(i) -> the facet opposite vertex i", (*Simplex).facet},
@@ -560,6 +561,34 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 		w[i] = exact.RealSqrt(exact.RealFromRat(a))
 	}
 	return s.env.realList(s.weighted(w, sqrtSum(areas))), nil
+}
+
+// touchPoints: the touch point on facet i is the foot of the perpendicular
+// from the incentre, whose barycentric coordinates are F_m/ΣF, so its own
+// are (F_m − F_i·c_m)/ΣF with c from geom.Simplex.FootRatios.
+func (s *Simplex) touchPoints(interp.Args) (py.Object, error) {
+	if s.s.IsDegenerate() || s.s.Dim() < 1 {
+		return nil, geomErr("insphere_touch_points", geom.ErrDegenerate)
+	}
+	areas := s.s.FacetContentsSq()
+	F := make([]*exact.Real, len(areas))
+	for i, a := range areas {
+		F[i] = exact.RealSqrt(exact.RealFromRat(a))
+	}
+	total := sqrtSum(areas)
+	out := make([]py.Object, len(F))
+	for i := range F {
+		c, err := s.s.FootRatios(i)
+		if err != nil {
+			return nil, geomErr("insphere_touch_points", err)
+		}
+		w := make([]*exact.Real, len(F))
+		for m := range w {
+			w[m] = exact.RealSub(F[m], exact.RealMul(F[i], exact.RealFromRat(c[m])))
+		}
+		out[i] = s.env.realList(s.weighted(w, total))
+	}
+	return py.NewListFromItems(out), nil
 }
 
 func (s *Simplex) sqEdge(a interp.Args) (py.Object, error) {
