@@ -6,6 +6,7 @@ import (
 
 	"assay/cells"
 	"assay/kernel/claim"
+	"assay/kernel/values"
 )
 
 // embeddingHelpers are cell functions the embedding tests share.
@@ -200,4 +201,52 @@ for name, D in [("disphenoid", matrix([[0, 5, 6, 7], [5, 0, 7, 6], [6, 7, 0, 5],
 	expectErrors(t, []errorCase{
 		{"print(simplex([[0, 0], [1, 1], [2, 2]]).insphere_touch_points())", "degenerate"},
 	})
+}
+
+// Every method of a simplex works on one with algebraic coordinates (from
+// distances, or points given with certified reals), or says clearly that
+// it needs rational coordinates; the table of methods is read from the
+// type, so a method added later must be added here. The values are
+// checked elsewhere; this is about reach.
+func TestEveryMethodOnAlgebraicSimplices(t *testing.T) {
+	calls := map[string]string{
+		"sq_edges": "t.sq_edges()", "cayley_menger": "t.cayley_menger()", "cayley_menger_matrix": "t.cayley_menger_matrix()",
+		"volume_sq": "t.volume_sq()", "volume": "t.volume()", "facet_areas_sq": "t.facet_areas_sq()", "gram": "t.gram()",
+		"dim": "t.dim()", "is_degenerate": "t.is_degenerate()", "points": "t.points()", "circumradius_sq": "t.circumradius_sq()",
+		"circumcenter": "t.circumcenter()", "inradius": "t.inradius()", "incenter": "t.incenter()",
+		"insphere_touch_points": "t.insphere_touch_points()", "sq_edge": "t.sq_edge(0, 2)", "face": "t.face([0, 2]).points()",
+		"facet": "t.facet(1).points()", "dihedral_cos": "t.dihedral_cos(0, 1)",
+	}
+	refused := map[string]string{"facet_area_vectors": "t.facet_area_vectors()"}
+	found := 0
+	for name := range values.SimplexType.Dict {
+		if strings.HasPrefix(name, "__") {
+			continue
+		}
+		found++
+		if calls[name] == "" && refused[name] == "" {
+			t.Errorf("method %s is not covered", name)
+		}
+	}
+	if found != len(calls)+len(refused) {
+		t.Errorf("the simplex type has %d methods, %d are listed here", found, len(calls)+len(refused))
+	}
+	setup := `s = distance_simplex(matrix([[0, 4, 5, 6], [4, 0, 7, 8], [5, 7, 0, 9], [6, 8, 9, 0]]))
+g = simplex([[0, 0, 0], [1, 0, 0], [frac(1, 2), sqrt(3) / 2, 0], [frac(1, 2), sqrt(3) / 6, sqrt(6) / 3]])
+`
+	for _, which := range []string{"s", "g"} {
+		var b strings.Builder
+		b.WriteString(setup + "t = " + which + "\n")
+		for _, c := range calls {
+			b.WriteString("print(" + c + ")\n")
+		}
+		b.WriteString("print(cayley_menger(t), volume_sq(t))")
+		if o := runHere(t, b.String()).Outcomes[0]; o.Error != nil {
+			t.Errorf("%s: line %d: %s", which, o.Error.Line, o.Error.Message)
+		}
+		expectErrors(t, []errorCase{
+			{setup + "t = " + which + "\n" + refused["facet_area_vectors"], "needs rational ones"},
+			{setup + "affine(" + which + ", unit_matrix(3), [0, 0, 0])", "needs rational ones"},
+		})
+	}
 }

@@ -250,11 +250,16 @@ func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k
 
 // code prints a value as the cell code that rebuilds it: its repr, except
 // that a polynomial is wrapped in polynomial("…") and lists and tuples are
-// printed item by item. An irrational certified real has no such code.
+// printed item by item. An irrational certified real has no such code, nor
+// a simplex whose points were given with such reals.
 func code(o py.Object) (string, bool) {
 	switch v := o.(type) {
 	case *values.Polynomial:
 		return fmt.Sprintf("polynomial(%q)", interp.Str(v)), true
+	case *values.Simplex:
+		if v.CertifiedPoints() {
+			return interp.Str(v), false
+		}
 	case *values.Real:
 		x, _ := values.RealOf(v)
 		if q, ok := x.Rat(); ok {

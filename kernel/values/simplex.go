@@ -403,6 +403,10 @@ func (e *Env) realList(v []*exact.Real) *py.List {
 	return py.NewListFromItems(out)
 }
 
+// CertifiedPoints reports whether the points were given with certified
+// reals: the simplex then prints their digits, which are not cell code.
+func (s *Simplex) CertifiedPoints() bool { return s.given }
+
 // algebraic reports whether the coordinates are certified reals rather
 // than the rational points of s.
 func (s *Simplex) algebraic() bool {
