@@ -70,7 +70,10 @@ func (e *Env) realBuiltins(b py.StringDict) {
 	}
 	setBuiltins(b, []builtin{
 		{"sqrt", params("x"), "sqrt(x) -> the certified square root (a rational when x is a rational square); of a polynomial that is a perfect square, its square root with a positive leading coefficient", func(a interp.Args) (py.Object, error) {
-			if p, ok := a.Get("x").(*Polynomial); ok && !e.Float {
+			if p, ok := a.Get("x").(*Polynomial); ok {
+				if e.Float {
+					return nil, NoCompanion("a polynomial")
+				}
 				return e.polySqrt(p.p)
 			}
 			return e.unary("sqrt", exact.RealSqrt, a.Get("x"))
