@@ -200,7 +200,11 @@ for name, D in [("disphenoid", matrix([[0, 5, 6, 7], [5, 0, 7, 6], [6, 7, 0, 5],
 	}
 	expectErrors(t, []errorCase{
 		{"print(simplex([[0, 0], [1, 1], [2, 2]]).insphere_touch_points())", "degenerate"},
+		{"print(simplex([[1, 2]]).insphere_touch_points())", "a point has no facets"},
+		{"print(distance_simplex(matrix([[0]])).inradius())", "a point has no facets"},
 	})
+	// A point is its own incentre.
+	expectPrints(t, []printCase{{"print(simplex([[1, 2]]).incenter(), distance_simplex(matrix([[0]])).incenter())", "[1, 2] []"}})
 }
 
 // Every method of a simplex works on one with algebraic coordinates (from

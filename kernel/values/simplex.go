@@ -547,6 +547,9 @@ func (s *Simplex) circumcenter(interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) inradius(interp.Args) (py.Object, error) {
+	if s.s.Dim() == 0 {
+		return nil, py.ExceptionNewf(py.ValueError, "inradius(): a point has no facets, so no insphere")
+	}
 	if s.s.IsDegenerate() {
 		return nil, geomErr("inradius", geom.ErrDegenerate)
 	}
@@ -558,6 +561,10 @@ func (s *Simplex) inradius(interp.Args) (py.Object, error) {
 func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 	if s.s.IsDegenerate() {
 		return nil, geomErr("incenter", geom.ErrDegenerate)
+	}
+	if s.s.Dim() == 0 {
+		// A point, which has no facets to weigh, is its own incentre.
+		return s.env.realList(s.coords()[0]), nil
 	}
 	areas := s.s.FacetContentsSq()
 	w := make([]*exact.Real, len(areas))
@@ -571,7 +578,10 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 // from the incentre, whose barycentric coordinates are F_m/ΣF, so its own
 // are (F_m − F_i·c_m)/ΣF with c from geom.Simplex.FootRatios.
 func (s *Simplex) touchPoints(interp.Args) (py.Object, error) {
-	if s.s.IsDegenerate() || s.s.Dim() < 1 {
+	if s.s.Dim() < 1 {
+		return nil, py.ExceptionNewf(py.ValueError, "insphere_touch_points(): a point has no facets to touch")
+	}
+	if s.s.IsDegenerate() {
 		return nil, geomErr("insphere_touch_points", geom.ErrDegenerate)
 	}
 	areas := s.s.FacetContentsSq()
