@@ -106,6 +106,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"distance-not-embeddable.md", 7, "violates the triangle inequality", nil},
 		{"poly-at-real-partial.md", 5, "with a certified real among the values every variable needs one (b left without)", nil},
 		{"simplex-algebraic-affine.md", 7, "this simplex has algebraic coordinates", nil},
+		{"point-inradius.md", 5, "inradius(): a point has no facets, so no insphere", nil},
 		{"degenerate-touch-points.md", 5, "the simplex is degenerate (zero volume)", nil},
 		{"simplex-irrational-distance.md", 6, "the squared distance between points 1 and 2 (2.5358983848622454129) is irrational", nil},
 	}
