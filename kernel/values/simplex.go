@@ -148,23 +148,29 @@ func (e *Env) simplex(a interp.Args) (py.Object, error) {
 // coordinates; ok is false when there is none (the rational reading then
 // gives its own messages).
 func (e *Env) algebraicPoints(items []py.Object) (pts [][]*exact.Real, ok bool, err error) {
-	pts = make([][]*exact.Real, len(items))
+	rows := make([][]py.Object, len(items))
 	for i, it := range items {
-		row, err := Sequence(it, fmt.Sprintf("point %d", i))
-		if err != nil {
+		if rows[i], err = Sequence(it, fmt.Sprintf("point %d", i)); err != nil {
 			return nil, false, err
 		}
+		for _, x := range rows[i] {
+			_, isReal := x.(*Real)
+			ok = ok || isReal
+		}
+	}
+	if !ok {
+		return nil, false, nil
+	}
+	pts = make([][]*exact.Real, len(rows))
+	for i, row := range rows {
 		pts[i] = make([]*exact.Real, len(row))
 		for c, x := range row {
-			if _, isReal := x.(*Real); isReal {
-				ok = true
-			}
 			if pts[i][c], _ = RealOf(x); pts[i][c] == nil {
 				return nil, false, nil
 			}
 		}
 	}
-	return pts, ok, nil
+	return pts, true, nil
 }
 
 // algebraicSimplex makes the simplex with vertices given by certified
