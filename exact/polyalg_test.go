@@ -80,8 +80,12 @@ func TestPolyVandermonde(t *testing.T) {
 }
 
 // chebyshev returns T_0..T_n by T_0 = 1, T_1 = x, T_{k+1} = 2x T_k - T_{k-1}.
-func chebyshev(t testing.TB, x *Poly, n int) []*Poly {
-	ts := []*Poly{x.ring.one(), x}
+func chebyshev(t testing.TB, x *Poly, n int) []*Poly { return chebyshevFrom(t, x, x, n) }
+
+// chebyshevFrom returns the n+1 polynomials of the Chebyshev recurrence
+// P_{k+1} = 2x P_k - P_{k-1} from P_0 = 1 and P_1 = first.
+func chebyshevFrom(t testing.TB, x, first *Poly, n int) []*Poly {
+	ts := []*Poly{x.ring.one(), first}
 	two := x.Scale(big.NewRat(2, 1))
 	for k := 1; k < n; k++ {
 		ts = append(ts, mustMulP(t, two, ts[k]).Sub(ts[k-1]))

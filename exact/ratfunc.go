@@ -456,41 +456,6 @@ func (f *RatFunc) EvalReal(vals map[int]*Real) (num, den *Real, err error) {
 	return num, den, nil
 }
 
-// EvalReal returns the certified real value of p with real values put in
-// for every variable of p (ErrShape names one without a value). The sum
-// is built as a balanced tree, so its expression graph stays shallow.
-func (p *Poly) EvalReal(vals map[int]*Real) (*Real, error) {
-	for _, v := range p.Vars() {
-		if vals[v] == nil {
-			return nil, fmt.Errorf("no value for the variable %s: %w", p.ring.name(v), ErrShape)
-		}
-	}
-	if p.IsZero() {
-		return RealFromInt(0), nil
-	}
-	terms := make([]*Real, 0, p.n())
-	for _, t := range p.Terms() {
-		x := RealFromRat(t.Coef)
-		for v, e := range t.Exps {
-			if e > 0 {
-				x = RealMul(x, RealPowInt(vals[v], e))
-			}
-		}
-		terms = append(terms, x)
-	}
-	for len(terms) > 1 {
-		next := terms[:0:0]
-		for i := 0; i+1 < len(terms); i += 2 {
-			next = append(next, RealAdd(terms[i], terms[i+1]))
-		}
-		if len(terms)%2 == 1 {
-			next = append(next, terms[len(terms)-1])
-		}
-		terms = next
-	}
-	return terms[0], nil
-}
-
 // String prints num/den, each part in parentheses unless it is a single
 // variable or a non-negative integer; a polynomial prints as itself.
 func (f *RatFunc) String() string {

@@ -206,3 +206,27 @@ func TestDegreeBoundSharesFields(t *testing.T) {
 		t.Errorf("√8 − 2√2 + √(1/2) − √2/2: %d %v", s, err)
 	}
 }
+
+// Directed subtraction from an exact zero: 0 − x must enclose −x at every
+// precision (big.Float.Sub rounds 0 − y the wrong way under directed
+// modes; real_interval.go's sub avoids it). The reference is the exact
+// negation, whose enclosure is the mirror image of x's.
+func TestSubtractionFromZeroEncloses(t *testing.T) {
+	for _, s := range []string{"3", "2", "5", "7/3"} {
+		x := RealQuo(rtSqrt(s), rtR("2"))
+		if _, err := x.Approx(64, 4096); err != nil { // a cached enclosure finer than the next ones
+			t.Fatal(err)
+		}
+		for _, p := range []uint{24, 48, 53, 96, 200} {
+			got, err1 := RealSub(rtR("0"), x).Enclose(p)
+			ref, err2 := RealNeg(x).Enclose(400)
+			if err1 != nil || err2 != nil || got.Lo.Cmp(ref.Lo) > 0 || got.Hi.Cmp(ref.Hi) < 0 {
+				t.Errorf("0 − √%s/2 at %d bits: %v does not contain %v (%v, %v)", s, p, got, ref, err1, err2)
+			}
+			w, err := RealSub(x, x).Enclose(p)
+			if err != nil || w.Lo.Sign() > 0 || w.Hi.Sign() < 0 {
+				t.Errorf("x − x at %d bits: %v", p, w)
+			}
+		}
+	}
+}

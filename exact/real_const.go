@@ -132,7 +132,7 @@ func piChudnovsky(p uint) ival {
 	tf := new(big.Float).SetInt(t)
 	qf := new(big.Float).SetInt(q)
 	s := fDown(w).Quo(tf, qf)
-	sLo := fDown(w).Sub(s, tail)
+	sLo := sub(fDown(w), s, tail)
 	s = fUp(w).Quo(tf, qf)
 	sHi := fUp(w).Add(s, tail)
 	root := ivSqrt(ivPoint(big.NewFloat(10005)), w)

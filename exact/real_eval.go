@@ -217,6 +217,13 @@ func (x *Real) EncloseCoarse(prec uint) (Interval, error) {
 // Precision shortfalls (ErrUndecided) move on to the next precision; other
 // errors end the search. At the cap it returns ErrUndecided naming what.
 func (x *Real) refine(start, maxPrec uint, what string, done func(ival, uint) bool) error {
+	return x.refineJump(start, maxPrec, what, done, nil)
+}
+
+// refineJump is refine with a say in the next precision: when next is not
+// nil and returns more than twice the precision just tried, refinement
+// goes there directly (capped at maxPrec) instead of doubling.
+func (x *Real) refineJump(start, maxPrec uint, what string, done func(ival, uint) bool, next func(ival, uint) uint) error {
 	maxPrec = clampPrec(maxPrec)
 	p := clampPrec(start)
 	if p > maxPrec {
@@ -225,12 +232,16 @@ func (x *Real) refine(start, maxPrec uint, what string, done func(ival, uint) bo
 	var last error
 	for {
 		v, err := x.eval(p)
+		jump := uint(0)
 		switch {
 		case err == nil:
 			if done(v, p) {
 				return nil
 			}
 			last = nil
+			if next != nil {
+				jump = next(v, p)
+			}
 		case errors.Is(err, ErrUndecided):
 			last = err
 		default:
@@ -243,7 +254,7 @@ func (x *Real) refine(start, maxPrec uint, what string, done func(ival, uint) bo
 			}
 			return capError{msg}
 		}
-		p *= 2
+		p = max(2*p, jump)
 		if p > maxPrec {
 			p = maxPrec
 		}
@@ -296,7 +307,28 @@ func (x *Real) sign(start, maxPrec uint) (int, error) {
 	}
 	bound, alg := x.ZeroBound()
 	sign := 0
-	err := x.refine(start, maxPrec, "sign", func(v ival, p uint) bool {
+	// An algebraic value whose enclosure straddles 0 is refined straight to
+	// the precision at which the enclosure should fit within its zero
+	// bound: the width scales as 2^-p, so from width 2^e at precision p,
+	// p + e + B + 8 bits should do. Doubling instead would overshoot the
+	// bound by up to a factor two in precision, and the cost grows faster
+	// than the precision (Kahan's tetrahedron volume against Cayley–Menger,
+	// B ≈ 700,000: 2.6–4.5 s doubling, about 1 s jumping).
+	var next func(ival, uint) uint
+	if alg && bound < algCap {
+		next = func(v ival, p uint) uint {
+			w := ivWidth(v)
+			if w.Sign() == 0 {
+				return 0
+			}
+			want := int64(p) + int64(w.MantExp(nil)) + bound + 8
+			if want <= 0 || want > int64(^uint32(0)) {
+				return 0
+			}
+			return uint(want)
+		}
+	}
+	err := x.refineJump(start, maxPrec, "sign", func(v ival, p uint) bool {
 		switch {
 		case v.positive():
 			sign = 1
@@ -310,7 +342,7 @@ func (x *Real) sign(start, maxPrec uint) (int, error) {
 			return false
 		}
 		return true
-	})
+	}, next)
 	if alg && errors.Is(err, ErrUndecided) {
 		if note := zeroBoundNote(bound, clampPrec(maxPrec)); note != "" {
 			err = capError{err.Error() + note}

@@ -295,7 +295,7 @@ func atanhSeries(u ival, w uint) ival {
 		mag := fMax(new(big.Float).Abs(t.lo), new(big.Float).Abs(t.hi))
 		if mag.Cmp(thresh) <= 0 {
 			tail := fUp(w).SetMantExp(mag, 1)
-			return ival{fDown(w).Sub(sum.lo, tail), fUp(w).Add(sum.hi, tail)}
+			return ival{sub(fDown(w), sum.lo, tail), fUp(w).Add(sum.hi, tail)}
 		}
 		sum = ivAdd(sum, t, w)
 	}
@@ -318,7 +318,7 @@ func ivLog(a ival, p uint) ival {
 	lo := logPoint(a.lo, q)
 	hi := lo
 	if !a.isPoint() {
-		delta := quoUp(q, fUp(q).Sub(a.hi, a.lo), a.lo)
+		delta := quoUp(q, sub(fUp(q), a.hi, a.lo), a.lo)
 		if delta.MantExp(nil) <= -8 {
 			hi = ival{lo.lo, fUp(q).Add(lo.hi, delta)}
 		} else {

@@ -32,6 +32,14 @@ type ival struct{ lo, hi *big.Float }
 // enclosure; see ivCheckRange.
 const ivMaxExp = 1 << 28
 
+// sub sets z = x − y rounded in z's mode and returns z. Directed
+// subtraction must go through it: big.Float.Sub computes 0 − y by rounding
+// y in z's mode and then negating it, which rounds the wrong way under
+// ToNegativeInf and ToPositiveInf (Go 1.26: 0 − 0.8660254037844386… at 48
+// bits toward −∞ came out as −0.8660254037844374…, above the value);
+// adding the exactly negated y rounds as asked in every case.
+func sub(z, x, y *big.Float) *big.Float { return z.Add(x, new(big.Float).Neg(y)) }
+
 func fDown(p uint) *big.Float { return new(big.Float).SetPrec(p).SetMode(big.ToNegativeInf) }
 func fUp(p uint) *big.Float   { return new(big.Float).SetPrec(p).SetMode(big.ToPositiveInf) }
 
@@ -94,7 +102,7 @@ func ivAdd(a, b ival, p uint) ival {
 }
 
 func ivSub(a, b ival, p uint) ival {
-	return ival{fDown(p).Sub(a.lo, b.hi), fUp(p).Sub(a.hi, b.lo)}
+	return ival{sub(fDown(p), a.lo, b.hi), sub(fUp(p), a.hi, b.lo)}
 }
 
 func ivNeg(a ival) ival {
@@ -215,7 +223,7 @@ func ivWidth(a ival) *big.Float {
 	if a.hi.Prec() > p {
 		p = a.hi.Prec()
 	}
-	return fUp(p).Sub(a.hi, a.lo)
+	return sub(fUp(p), a.hi, a.lo)
 }
 
 // ivMagLower is a lower bound of min |x| over a (0 if a contains 0).
@@ -237,7 +245,7 @@ func ivMid(a ival, p uint) (mid, rad *big.Float) {
 	}
 	sum := new(big.Float).SetPrec(p+1).Add(a.lo, a.hi)
 	mid = sum.SetMantExp(sum, -1)
-	r1 := fUp(p).Sub(mid, a.lo)
-	r2 := fUp(p).Sub(a.hi, mid)
+	r1 := sub(fUp(p), mid, a.lo)
+	r2 := sub(fUp(p), a.hi, mid)
 	return mid, fMax(r1, r2)
 }

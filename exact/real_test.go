@@ -4,6 +4,7 @@ import (
 	"errors"
 	"math"
 	"math/big"
+	"math/rand"
 	"strings"
 	"sync"
 	"testing"
@@ -436,5 +437,27 @@ func TestRealEncloseCache(t *testing.T) {
 			t.Errorf("enclosure at %d bits not inside the earlier one", p)
 		}
 		prev = cur
+	}
+}
+
+// isqrt against big.Int.Sqrt (math/big's own integer square root, an
+// independent route) on squares, their neighbours and random numbers of
+// lengths around and far above the switch-over.
+func TestIsqrtAgainstBigSqrt(t *testing.T) {
+	rng := rand.New(rand.NewSource(3))
+	for _, bits := range []int{1, 64, 2047, 2048, 2049, 4100, 9000, 40000, 100003} {
+		for trial := 0; trial < 6; trial++ {
+			n := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(bits)))
+			r := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(bits/2+1)))
+			sq := new(big.Int).Mul(r, r)
+			for _, m := range []*big.Int{n, sq, new(big.Int).Sub(sq, big.NewInt(1)), new(big.Int).Add(sq, big.NewInt(1))} {
+				if m.Sign() < 0 {
+					continue
+				}
+				if got, want := isqrt(m), new(big.Int).Sqrt(m); got.Cmp(want) != 0 {
+					t.Fatalf("isqrt of a %d-bit number: %v, want %v", m.BitLen(), got, want)
+				}
+			}
+		}
 	}
 }

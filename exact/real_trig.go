@@ -42,7 +42,7 @@ func sinCosPoint(x *big.Float, q uint) (s, c ival, err error) {
 		k := roundToInt(kf)
 		kF := new(big.Float).SetInt(k)
 		prod := ivMul(hp, ivPoint(kF), w)
-		r = ival{fDown(w).Sub(x, prod.hi), fUp(w).Sub(x, prod.lo)}
+		r = ival{sub(fDown(w), x, prod.hi), sub(fUp(w), x, prod.lo)}
 		quad = int(new(big.Int).And(k, big.NewInt(3)).Int64())
 	}
 	// Halve r to a = r/2^m with |a| ≤ 2^-mt.
@@ -78,7 +78,7 @@ func sinCosPoint(x *big.Float, q uint) (s, c ival, err error) {
 	if v.hi.Cmp(big.NewFloat(2)) > 0 {
 		v.hi = big.NewFloat(2)
 	}
-	cr := ival{fDown(w).Sub(fOne, v.hi), fUp(w).Sub(fOne, v.lo)}
+	cr := ival{sub(fDown(w), fOne, v.hi), sub(fUp(w), fOne, v.lo)}
 	// sin²r = v(2 − v), increasing for v ≤ 1; at most 1.
 	g := func(x *big.Float, mk func(uint) *big.Float) *big.Float {
 		d := mk(w).Sub(fTwo, x)
@@ -127,7 +127,7 @@ func alternatingSum(first ival, w uint, next func(j int64) ival) ival {
 	for j := int64(1); ; j++ {
 		t := next(j)
 		if t.hi.Cmp(thresh) <= 0 {
-			return ival{fDown(w).Sub(s.lo, t.hi), fUp(w).Add(s.hi, t.hi)}
+			return ival{sub(fDown(w), s.lo, t.hi), fUp(w).Add(s.hi, t.hi)}
 		}
 		if j&1 == 1 {
 			s = ivSub(s, t, w)
@@ -161,7 +161,7 @@ func ivSinCos(a ival, p uint) (s, c ival, err error) {
 	}
 	widen := func(v ival) ival {
 		if rad.Sign() != 0 {
-			v = ival{fDown(p).Sub(v.lo, rad), fUp(p).Add(v.hi, rad)}
+			v = ival{sub(fDown(p), v.lo, rad), fUp(p).Add(v.hi, rad)}
 		}
 		if v.lo.Cmp(big.NewFloat(-1)) < 0 {
 			v.lo = big.NewFloat(-1)
@@ -253,7 +253,7 @@ func acosPoint(t *big.Float, q uint) ival {
 		return halfPiIval(q)
 	}
 	w := q + 16
-	num := ival{fDown(w).Sub(fOne, t), fUp(w).Sub(fOne, t)}
+	num := ival{sub(fDown(w), fOne, t), sub(fUp(w), fOne, t)}
 	den := ival{fDown(w).Add(fOne, t), fUp(w).Add(fOne, t)}
 	r := ivSqrt(ivQuo(num, den, w), w)
 	return ivRound(ivScale(atanNonneg(r, w), 1), q)
@@ -268,7 +268,7 @@ func ivAcos(a ival, p uint) ival {
 	q := p + 8
 	if !a.isPoint() && a.lo.Cmp(big.NewFloat(-1)) > 0 {
 		w := q + 16
-		num := ival{fDown(w).Sub(fOne, a.hi), fUp(w).Sub(fOne, a.lo)}
+		num := ival{sub(fDown(w), fOne, a.hi), sub(fUp(w), fOne, a.lo)}
 		den := ival{fDown(w).Add(fOne, a.lo), fUp(w).Add(fOne, a.hi)}
 		r := ivSqrt(ivQuo(num, den, w), w)
 		return ivRound(ivScale(atanNonneg(r, w), 1), p)

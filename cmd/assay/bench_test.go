@@ -60,12 +60,36 @@ func BenchmarkCellRoundTrip(b *testing.B) {
 // volume against Cayley–Menger), as a user runs it, with 1 and 2 kernel
 // processes. Target (issue: sampled claims): < 1 s with 2 workers.
 func BenchmarkSampledIdentityWorkers(b *testing.B) {
+	checkWorkers(b, "# sweep\n\n```cell\n"+
+		"identity(\"volume from coordinates = Cayley-Menger volume\",\n"+
+		"         lambda t: (t.volume_sq(), cayley_menger(t) / 288),\n"+
+		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=10000, companion=False)\n```\n")
+}
+
+// BenchmarkSampledAlgebraicWorkers times the whole run of a notebook with a
+// 1,000-sample identity with square-root sides, proved on every sample by
+// the zero bound: random tetrahedra given by their squared edges
+// (distance_simplex), whose canonical coordinates are algebraic, and the
+// distance from the circumcentre to each vertex against the circumradius
+// (both sides square roots). Target (issue 15): < 5 s with 2 workers.
+func BenchmarkSampledAlgebraicWorkers(b *testing.B) {
+	checkWorkers(b, "# sweep\n\n```cell\n"+
+		"def tet(k):\n"+
+		"    e = random_simplex(3, seed=k, bound=20).sq_edges()\n"+
+		"    return distance_simplex(matrix([[0, e[0], e[1], e[2]], [e[0], 0, e[3], e[4]], [e[1], e[3], 0, e[5]], [e[2], e[4], e[5], 0]]))\n"+
+		"def dist(p, q):\n"+
+		"    return sqrt(sum([(p[i] - q[i]) ** 2 for i in range(len(p))]))\n"+
+		"def circumsphere(s):\n"+
+		"    P, C = s.points(), s.circumcenter()\n"+
+		"    return ([dist(C, p) for p in P], [sqrt(s.circumradius_sq())] * 4)\n"+
+		"identity(\"proved: circumcentre at distance R from every vertex\", circumsphere, over=tet, samples=1000, companion=False)\n```\n")
+}
+
+// checkWorkers builds assay, writes the notebook src and runs `assay check`
+// on it with 1 and 2 workers.
+func checkWorkers(b *testing.B, src string) {
 	dir, bin := buildAssay(b)
 	nb := filepath.Join(dir, "sweep.md")
-	src := "# sweep\n\n```cell\n" +
-		"identity(\"volume from coordinates = Cayley-Menger volume\",\n" +
-		"         lambda t: (t.volume_sq(), cayley_menger(t) / 288),\n" +
-		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=10000, companion=False)\n```\n"
 	if err := os.WriteFile(nb, []byte(src), 0o644); err != nil {
 		b.Fatal(err)
 	}

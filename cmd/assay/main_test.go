@@ -110,6 +110,14 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"sweep-seedless-draw.md", 5, "random draw without seed=", nil},
 		{"given-not-sampled.md", 5, "given= states a hypothesis, which is tested on samples: it needs over=g and samples=N", nil},
 		{"rank-unknown.md", 5, "rank must be \"relative\" or \"absolute\", got worst", nil},
+		{"poly-sqrt-not-square.md", 5, "is not the square of a polynomial over Q (its square-free factor", nil},
+		{"poly-plus-real.md", 5, "TypeError: a polynomial cannot be combined with the certified real", nil},
+		{"distance-not-embeddable.md", 7, "violates the triangle inequality", nil},
+		{"poly-at-real-partial.md", 5, "with a certified real among the values every variable needs one (b left without)", nil},
+		{"simplex-algebraic-affine.md", 7, "this simplex has algebraic coordinates", nil},
+		{"point-inradius.md", 5, "inradius(): a point has no facets, so no insphere", nil},
+		{"degenerate-touch-points.md", 5, "the simplex is degenerate (zero volume)", nil},
+		{"simplex-irrational-distance.md", 6, "the squared distance between points 1 and 2 (2.5358983848622454129) is irrational", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {

@@ -36,19 +36,14 @@ type Simplex struct {
 // names the offending point. A nil coordinate is read as 0. The points may
 // be affinely dependent: the simplex is then degenerate.
 func FromPoints(pts [][]*big.Rat) (*Simplex, error) {
-	if len(pts) == 0 {
-		return nil, fmt.Errorf("from points: no points: %w", exact.ErrShape)
+	lens := make([]int, len(pts))
+	for i, p := range pts {
+		lens[i] = len(p)
+	}
+	if err := CheckPoints(lens); err != nil {
+		return nil, err
 	}
 	n := len(pts[0])
-	for i, p := range pts {
-		if len(p) != n {
-			return nil, fmt.Errorf("from points: point %d has length %d, point 0 has length %d: %w", i, len(p), n, exact.ErrShape)
-		}
-	}
-	if n < len(pts)-1 {
-		return nil, fmt.Errorf("from points: %d points span a %d-simplex, which needs at least %d coordinates per point, got %d: %w",
-			len(pts), len(pts)-1, len(pts)-1, n, exact.ErrShape)
-	}
 	cp := make([][]*big.Rat, len(pts))
 	for i, p := range pts {
 		cp[i] = make([]*big.Rat, n)
@@ -60,6 +55,27 @@ func FromPoints(pts [][]*big.Rat) (*Simplex, error) {
 		}
 	}
 	return fromOwnedPoints(cp), nil
+}
+
+// CheckPoints checks the shape of a list of points given by their lengths,
+// as FromPoints needs it: at least one point, all of one length n, and n
+// at least the number of points minus 1; the error wraps exact.ErrShape
+// and names the offending point.
+func CheckPoints(lens []int) error {
+	if len(lens) == 0 {
+		return fmt.Errorf("from points: no points: %w", exact.ErrShape)
+	}
+	n := lens[0]
+	for i, l := range lens {
+		if l != n {
+			return fmt.Errorf("from points: point %d has length %d, point 0 has length %d: %w", i, l, n, exact.ErrShape)
+		}
+	}
+	if n < len(lens)-1 {
+		return fmt.Errorf("from points: %d points span a %d-simplex, which needs at least %d coordinates per point, got %d: %w",
+			len(lens), len(lens)-1, len(lens)-1, n, exact.ErrShape)
+	}
+	return nil
 }
 
 // fromOwnedPoints builds a points simplex from validated points it may

@@ -10,6 +10,7 @@ import (
 	"assay/cells"
 	"assay/kernel/claim"
 	"assay/kernel/interp"
+	"assay/kernel/values"
 )
 
 const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs: exactly for numbers, polynomials
@@ -65,6 +66,9 @@ func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error 
 		return err
 	}
 	r.Decide(c, 0)
+	if squareRootSide(lhs) || squareRootSide(rhs) {
+		c.Note += "; " + values.SquareRootNote
+	}
 	if call != nil && companion {
 		audit, skipped := s.companion(plainRun(call), lhs, rhs, true)
 		c.Float = audit
@@ -204,3 +208,18 @@ func (w *identitySweep) visit(k int64, sample, lhs, rhs py.Object) error {
 }
 
 func (w *identitySweep) into(t *claim.Tally) { t.Identity = w.it }
+
+// squareRootSide reports whether a claim's side, or an item of it, is a
+// polynomial made by sqrt() of a perfect square.
+func squareRootSide(o py.Object) bool {
+	if p, ok := o.(*values.Polynomial); ok {
+		return p.SquareRoot()
+	}
+	items, _ := interp.Items(o)
+	for _, it := range items {
+		if squareRootSide(it) {
+			return true
+		}
+	}
+	return false
+}

@@ -449,7 +449,7 @@ func TestRealsAndGeometry(t *testing.T) {
 		{"sqrt(0.5)", "float64"},
 		{"digits(sqrt(2), 0)", "1 <= n"},
 		{"simplex([[0, 0], [1, 0]]).dihedral_cos(0, 0)", "two different vertex indices"},
-		{"distance_simplex(matrix([[0, 1], [1, 0]])).points()", "built from distances"},
+		{"distance_simplex(matrix([[0, 1], [1, 0]])).facet_area_vectors()", "algebraic coordinates"},
 	})
 }
 

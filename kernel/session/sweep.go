@@ -252,7 +252,8 @@ func sampleCode(g py.Object, k int64) (string, bool) { return code(sampleAt(g, k
 // that a polynomial is wrapped in polynomial("…"), a rational function
 // is the quotient of two such, and lists and tuples are printed item by
 // item. An irrational certified real has such code only when it prints as
-// its closed form (exact.ClosedForm), which is exactly its value.
+// its closed form (exact.ClosedForm), which is exactly its value; a simplex
+// whose points were given with such reals has none.
 func code(o py.Object) (string, bool) {
 	switch v := o.(type) {
 	case *values.Polynomial:
@@ -260,6 +261,10 @@ func code(o py.Object) (string, bool) {
 	case *values.RationalFunction:
 		f := v.Value()
 		return fmt.Sprintf("polynomial(%q) / polynomial(%q)", f.Num().String(), f.Den().String()), true
+	case *values.Simplex:
+		if v.CertifiedPoints() {
+			return interp.Str(v), false
+		}
 	case *values.Real:
 		x, _ := values.RealOf(v)
 		if q, ok := x.Rat(); ok {

@@ -20,7 +20,15 @@ type Polynomial struct {
 	// + − × and powers), so an identity it enters holds only where those
 	// divisors were non-zero, and claims say so (Quotient).
 	quotient bool
+	root     bool // made by sqrt() of a perfect square: SquareRootNote applies
 }
+
+// SquareRootNote is what a claim says about a side made by sqrt() of a
+// polynomial.
+const SquareRootNote = "sqrt() of a polynomial is its square root with a positive leading coefficient, which equals the function √p only where it is ≥ 0 (elsewhere it is −√p)"
+
+// SquareRoot reports whether p was made by sqrt() of a perfect square.
+func (p *Polynomial) SquareRoot() bool { return p.root }
 
 // PolynomialType is the Python type of Polynomial.
 var PolynomialType = py.NewType("polynomial", "A polynomial over Q: a, b = variables(\"a b\"); a**2 - 2*b.")
@@ -249,7 +257,7 @@ func (e *Env) discriminant(a interp.Args) (py.Object, error) {
 
 func init() {
 	setMethods(PolynomialType, []method[*Polynomial]{
-		{"at", params("*values", "**values"), "p.at(a=2, b=frac(1, 3)) -> p with those values put in (a rational when no variable is left)", (*Polynomial).at},
+		{"at", params("*values", "**values"), "p.at(a=2, b=frac(1, 3)) -> p with those values put in (a rational when no variable is left); p.at(a=sqrt(2), b=1) with certified reals gives a real (every variable needs a value)", (*Polynomial).at},
 		{"substitute", params("*replacements", "**replacements"), "p.substitute(a=b+c) -> p with polynomials (or rational functions, giving a rational function) put in for variables, all at once", (*Polynomial).substitute},
 		{"derivative", params("variable"), "p.derivative(\"a\") -> the partial derivative with respect to a", (*Polynomial).derivative},
 		{"degree", params("variable="), "p.degree() -> total degree; p.degree(\"a\") -> degree in a (-1 for the zero polynomial)", (*Polynomial).degree},
@@ -270,11 +278,59 @@ func (p *Polynomial) at(a interp.Args) (py.Object, error) {
 	if err := byName(a, "at() takes values by name: p.at(a=2, b=3)"); err != nil {
 		return nil, err
 	}
-	vals, err := p.env.keywordValues("at", a.Keywords())
+	exacts, reals := py.StringDict{}, map[string]*exact.Real{}
+	for name, v := range a.Keywords() {
+		switch x := v.(type) {
+		case *Real:
+			reals[name] = x.x
+		case py.Float:
+			if p.env.Float {
+				return nil, NoCompanion("a polynomial")
+			}
+			exacts[name] = v
+		default:
+			exacts[name] = v
+		}
+	}
+	vals, err := p.env.keywordValues("at", exacts)
 	if err != nil {
 		return nil, err
 	}
-	return p.env.PolyResult(p.p.Eval(vals)), nil
+	q := p.p.Eval(vals)
+	if len(reals) == 0 {
+		return p.env.PolyResult(q), nil
+	}
+	return p.env.atReals(q, reals)
+}
+
+// atReals evaluates q at certified reals: every variable left in q needs
+// one, since a polynomial with a real coefficient is not a polynomial over
+// Q. The value is algebraic when the reals are, so identities with it are
+// proved by the zero bound.
+func (e *Env) atReals(q *exact.Poly, reals map[string]*exact.Real) (py.Object, error) {
+	vals := map[int]*exact.Real{}
+	for name, x := range reals {
+		i, err := e.variableIndex("at", py.String(name))
+		if err != nil {
+			return nil, err
+		}
+		vals[i] = x
+	}
+	var left []string
+	for _, v := range q.Vars() {
+		if vals[v] == nil {
+			left = append(left, e.Ring.Names()[v])
+		}
+	}
+	if len(left) > 0 {
+		return nil, py.ExceptionNewf(py.ValueError, "at(): with a certified real among the values every variable needs one (%s left without): polynomials here have rational coefficients, so a polynomial in %s with real coefficients cannot be made; give %s a value too",
+			strings.Join(left, ", "), strings.Join(left, ", "), strings.Join(left, ", "))
+	}
+	x, err := q.EvalReal(vals)
+	if err != nil {
+		return nil, err
+	}
+	return e.checked(x)
 }
 
 func (p *Polynomial) substitute(a interp.Args) (py.Object, error) {
@@ -486,6 +542,9 @@ func (p *Polynomial) M__bool__() (res py.Object, err error) {
 func (p *Polynomial) operands(o py.Object, swap bool) (a, b *exact.Poly, ok bool, err error) {
 	q, ok := p.env.Poly(o)
 	if !ok {
+		if _, isReal := o.(*Real); isReal {
+			return nil, nil, false, polyRealRefusal(o)
+		}
 		if _, isFloat := o.(py.Float); isFloat {
 			return nil, nil, false, py.ExceptionNewf(py.TypeError, "a polynomial cannot be mixed with a float64 (%s); use exact numbers, e.g. frac(\"%s\")", interp.Str(o), interp.Str(o))
 		}
@@ -551,7 +610,39 @@ func (p *Polynomial) M__truediv__(o py.Object) (res py.Object, err error) {
 		// p / q in lowest terms: a polynomial when q divides p.
 		return p.env.ratArith(exact.RatFuncOf(p.p), o, false, (*exact.RatFunc).Quo)
 	}
+	if _, ok := o.(*Real); ok {
+		return nil, polyRealRefusal(o)
+	}
 	return py.NotImplemented, nil
+}
+
+// polyRealRefusal is the error for a polynomial combined with a certified
+// real such as sqrt(2). Polynomials stay over Q (their arithmetic, gcd,
+// factoring and claims are exact over Q); a root is brought in either
+// after the algebra, by evaluating, or as a variable of its own whose
+// defining equation is checked by division.
+func polyRealRefusal(o py.Object) error {
+	return py.ExceptionNewf(py.TypeError, "a polynomial cannot be combined with the certified real %s: polynomials have rational coefficients. "+
+		"Put numbers in first with p.at(a=sqrt(2)), which gives an exact real, or let a variable stand for the root, s = variables(\"s\"), "+
+		"and check an identity by dividing the difference of its sides by the root's equation: (lhs - rhs).divide(s**2 - 2) succeeds exactly when it holds at s = sqrt(2)",
+		clip(interp.Str(o), 60))
+}
+
+// polySqrt is sqrt(p) of a polynomial: its square root with a positive
+// leading coefficient (exact.Poly.Sqrt), or an error saying why p is no square.
+func (e *Env) polySqrt(p *exact.Poly) (py.Object, error) {
+	q, err := p.Sqrt()
+	if ns := (*exact.NotSquareError)(nil); errors.As(err, &ns) {
+		return nil, py.ExceptionNewf(py.ValueError, "sqrt(): %s is not the square of a polynomial over Q (%s), so its square root is no polynomial; square the other side instead and compare p with q**2",
+			clip(p.String(), 200), ns.Reason)
+	}
+	if err != nil {
+		return nil, err
+	}
+	if _, ok := q.Constant(); ok {
+		return e.PolyResult(q), nil
+	}
+	return &Polynomial{p: q, env: e, root: true}, nil
 }
 
 // M__rtruediv__ divides a number by p: a rational function.

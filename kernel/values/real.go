@@ -69,7 +69,15 @@ func (e *Env) realBuiltins(b py.StringDict) {
 		return builtin{name, params("x"), doc, func(a interp.Args) (py.Object, error) { return e.unary(name, f, a.Get("x")) }}
 	}
 	setBuiltins(b, []builtin{
-		unary("sqrt", "sqrt(x) -> the certified square root (a rational when x is a rational square)", exact.RealSqrt),
+		{"sqrt", params("x"), "sqrt(x) -> the certified square root (a rational when x is a rational square); of a polynomial that is a perfect square, its square root with a positive leading coefficient", func(a interp.Args) (py.Object, error) {
+			if p, ok := a.Get("x").(*Polynomial); ok {
+				if e.Float {
+					return nil, NoCompanion("a polynomial")
+				}
+				return e.polySqrt(p.p)
+			}
+			return e.unary("sqrt", exact.RealSqrt, a.Get("x"))
+		}},
 		unary("exp", "exp(x) -> the certified exponential", exact.RealExp),
 		unary("log", "log(x) -> the certified natural logarithm", exact.RealLog),
 		unary("sin", "sin(x) -> the certified sine", exact.RealSin),
