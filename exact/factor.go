@@ -20,13 +20,11 @@ import (
 	"fmt"
 	"math/big"
 	"slices"
+	"sync"
 )
 
 // Sentinel errors of factorization.
 var (
-	// ErrMultivariate reports a polynomial in more than one variable
-	// where only univariate ones are handled (Factor, IsIrreducible).
-	ErrMultivariate = errors.New("polynomial in more than one variable")
 	// ErrFactorLimit reports a factorization given up at the subset
 	// search cap: the answer is undecided, not "irreducible".
 	ErrFactorLimit = errors.New("factor search limit reached")
@@ -50,34 +48,14 @@ type Factorization struct {
 	Factors []FactorPower
 }
 
-// Factor returns the factorization of a univariate p into irreducible
-// factors over Q. A polynomial in two or more variables gives
-// ErrMultivariate; a modular factorization whose recombination would need
-// more than maxSubsets candidate products gives ErrFactorLimit.
-func (p *Poly) Factor() (*Factorization, error) {
-	vs := p.Vars()
-	if len(vs) > 1 {
-		return nil, fmt.Errorf("factor %v: %w (only univariate factorization is implemented)", p, ErrMultivariate)
-	}
-	u, parts, err := p.SquareFree()
-	if err != nil {
-		return nil, err
-	}
-	out := &Factorization{Unit: u}
-	for _, sf := range parts {
-		fs, err := factorSquareFreeZ(toDense(sf.Factor, vs[0]))
-		if err != nil {
-			return nil, err
-		}
-		for _, f := range fs {
-			out.Factors = append(out.Factors, FactorPower{fromDense(p.ring, vs[0], f), sf.Mult})
-		}
-	}
-	slices.SortFunc(out.Factors, func(a, b FactorPower) int { return cmpFactor(a.Factor, b.Factor) })
-	return out, nil
-}
+// Factor returns the factorization of p into irreducible factors over Q,
+// in any number of variables (factor_multi.go for several). A modular
+// factorization whose recombination would need more than maxSubsets
+// candidate products, or a multivariate one past maxLiftSubsets lifts,
+// gives ErrFactorLimit: undecided, not irreducible.
+func (p *Poly) Factor() (*Factorization, error) { return p.FactorStages(nil) }
 
-// IsIrreducible reports whether a univariate p is irreducible over Q:
+// IsIrreducible reports whether p is irreducible over Q:
 // not constant, and not a product of two non-constant polynomials.
 func (p *Poly) IsIrreducible() (bool, error) {
 	if p.isConst() || p.IsZero() {
@@ -90,17 +68,48 @@ func (p *Poly) IsIrreducible() (bool, error) {
 	return len(f.Factors) == 1 && f.Factors[0].Mult == 1, nil
 }
 
-// cmpFactor orders univariate factors by degree, then by coefficients
-// from the highest power down.
+// cmpFactor orders factors by total degree; then by leading monomial,
+// the larger in the ring's term order first (a − b before b − c); then
+// term by term from the largest monomial down: at the first monomial
+// where the coefficients differ (an absent term counts as 0), the smaller
+// coefficient comes first. For one variable this is the degree, then the
+// coefficients from the highest power down.
 func cmpFactor(a, b *Poly) int {
 	if c := a.Degree() - b.Degree(); c != 0 {
 		return c
 	}
-	v := a.Vars()[0]
-	da, db := toDense(a, v), toDense(b, v)
-	for i := len(da) - 1; i >= 0; i-- {
-		if c := da[i].Cmp(db[i]); c != 0 {
-			return c
+	w := max(a.w, b.w)
+	am, bm := a.monoW(w), b.monoW(w)
+	if c := monoCmp(am[:w], bm[:w]); c != 0 {
+		return -c
+	}
+	i, j := 0, 0
+	for i < a.n() || j < b.n() {
+		c := 0
+		switch {
+		case j == b.n():
+			c = 1
+		case i == a.n():
+			c = -1
+		default:
+			c = monoCmp(am[i*w:(i+1)*w], bm[j*w:(j+1)*w])
+		}
+		switch c {
+		case 1:
+			if s := a.numSign(i); s != 0 {
+				return s
+			}
+			i++
+		case -1:
+			if s := b.numSign(j); s != 0 {
+				return -s
+			}
+			j++
+		default:
+			if d := a.coefAt(i).Cmp(b.coefAt(j)); d != 0 {
+				return d
+			}
+			i, j = i+1, j+1
 		}
 	}
 	return 0
@@ -188,8 +197,10 @@ func choosePrime(f []*big.Int) (uint64, [][]uint64, error) {
 
 const primeSieveLimit = 1 << 16
 
-// smallPrimes returns the odd primes below primeSieveLimit.
-func smallPrimes() []uint64 {
+// smallPrimes returns the odd primes below primeSieveLimit, sieved once
+// (every univariate factorization asks, and the multivariate method
+// factors many images).
+var smallPrimes = sync.OnceValue(func() []uint64 {
 	composite := make([]bool, primeSieveLimit)
 	var out []uint64
 	for i := 3; i < primeSieveLimit; i += 2 {
@@ -202,7 +213,7 @@ func smallPrimes() []uint64 {
 		}
 	}
 	return out
-}
+})
 
 // mignotte returns a bound on the coefficients of l·g/lc(g) for every
 // factor g of f over Z, l = lc(f): by Mignotte's inequality (M. Mignotte,
@@ -310,8 +321,9 @@ func combinations(n, k int) func(yield func([]int) bool) {
 	}
 }
 
-func removeIndices(T [][]*big.Int, S []int) [][]*big.Int {
-	var out [][]*big.Int
+// removeIndices returns the items of T whose indices are not in S.
+func removeIndices[E any](T []E, S []int) []E {
+	var out []E
 	for i, t := range T {
 		if !slices.Contains(S, i) {
 			out = append(out, t)

@@ -1,0 +1,418 @@
+package exact
+
+// Factorization of polynomials in several variables over Q, by evaluation
+// and multivariate Hensel lifting (P. S. Wang, "An improved multivariate
+// polynomial factoring algorithm", Math. Comp. 32, 1978; Algorithms for
+// Computer Algebra, ch. 6):
+//
+//  1. A square-free part F, primitive over Z, is split into its content
+//     and primitive part with respect to a main variable x; the content,
+//     in fewer variables, is factored recursively. x is a variable whose
+//     leading coefficient in F is a constant if there is one (then no
+//     leading-coefficient work is needed), else one of lowest degree.
+//  2. A point a for the other variables is chosen with lc_x(P)(a) ≠ 0 and
+//     P(x, a) square-free (so the degree in x is kept and the images of
+//     distinct factors are coprime): the origin first, which keeps sparse
+//     polynomials sparse, then small random integers. Of the first
+//     evalPoints such points, the one whose image has the fewest factors
+//     over Q (the univariate factorization of factor.go) is kept.
+//  3. One factor in the image: P is irreducible (below). Otherwise the
+//     images are lifted (factor_lift.go). Leading coefficients are handled
+//     the simple way rather than by Wang's predetermination: with
+//     L = lc_x(P) and r images, L^(r−1)·P is lifted with L imposed as the
+//     leading coefficient of every factor, and the true factors are the
+//     primitive parts of the lifted ones. It needs no factorization of L
+//     and no conditions on the point beyond step 2, and costs nothing when
+//     L is a constant, which step 1 makes common; its price is the larger
+//     polynomial lifted when L is not.
+//  4. A lift fails exactly when the image has more factors than P (a
+//     factorization with those images would be found: lifting with imposed
+//     leading coefficients is unique). Then subsets of the images are
+//     lifted as two-factor splits, smallest first, as in Zassenhaus's
+//     recombination (factor.go): the first subset that lifts gives an
+//     irreducible factor, which is divided out.
+//
+// Why a factor G found is irreducible: G is primitive in x, G(x, a) is a
+// constant times one irreducible image, or (step 4) the image of a subset
+// no smaller subset of which lifts, and lc_x(G)(a) ≠ 0. A split G = H·K
+// would have deg_x H, deg_x K ≥ 1 (G is primitive in x), images of full
+// degree, so it would split the image: a contradiction in the first case,
+// and in the second H would have been found from a smaller subset.
+
+import (
+	"fmt"
+	"math/big"
+	"math/rand"
+	"slices"
+)
+
+// evalPoints is how many good evaluation points are tried before the one
+// whose image has the fewest factors is kept (common practice: a few
+// points guard against an unlucky one with extraneous factors).
+const evalPoints = 3
+
+// maxPointTries bounds the candidates drawn for a good evaluation point.
+const maxPointTries = 200
+
+// maxLiftSubsets caps the two-factor lifts of step 4.
+const maxLiftSubsets = 1 << 12
+
+// factorer carries the stage reporter through one factorization.
+type factorer struct {
+	stage func(string)
+}
+
+func (f *factorer) say(s string) {
+	if f.stage != nil {
+		f.stage(s)
+	}
+}
+
+// FactorStages is Factor reporting, through stage, the stage it is in
+// each time a stage starts or a long one takes another step (a string
+// such as "Hensel lifting in y (degree 3 of 12)"; "" when it returns). It
+// lets a caller that is stopped by a time limit say what was running.
+func (p *Poly) FactorStages(stage func(string)) (*Factorization, error) {
+	if c, ok := p.Constant(); ok {
+		return &Factorization{Unit: c}, nil
+	}
+	f := &factorer{stage: stage}
+	defer f.say("")
+	fs, err := f.primitive(p.PrimitivePart())
+	if err != nil {
+		return nil, err
+	}
+	slices.SortFunc(fs, func(a, b FactorPower) int { return cmpFactor(a.Factor, b.Factor) })
+	return &Factorization{Unit: unitOf(p, fs), Factors: fs}, nil
+}
+
+// primitive factors F, primitive over Z with a positive leading
+// coefficient, with multiplicities: the content in the main variable
+// recursively, and the primitive part P either directly, when one image
+// shows it square-free, or through its square-free decomposition (Yun's
+// method, which for large P costs more than the rest together).
+func (f *factorer) primitive(F *Poly) ([]FactorPower, error) {
+	vs := F.Vars()
+	if len(vs) == 0 {
+		return nil, nil
+	}
+	x := vs[0]
+	var out []FactorPower
+	P := F
+	if len(vs) > 1 {
+		x = mainVariable(F, vs)
+		f.say("content in " + F.ring.name(x))
+		C, pp, err := splitContentIn(F, x)
+		if err != nil {
+			return nil, err
+		}
+		if out, err = f.primitive(C); err != nil {
+			return nil, err
+		}
+		P = pp
+		if ok, err := squareFreeByImage(P, x, vs); err != nil || ok {
+			if err != nil {
+				return nil, err
+			}
+			fs, err := f.primitiveIn(P, x)
+			return appendMult(out, fs, 1), err
+		}
+	}
+	f.say("square-free decomposition")
+	parts, err := squareFreePrim(P)
+	if err != nil {
+		return nil, err
+	}
+	for _, sf := range parts {
+		fs, err := f.primSquareFree(sf.Factor)
+		if err != nil {
+			return nil, err
+		}
+		out = appendMult(out, fs, sf.Mult)
+	}
+	return out, nil
+}
+
+func appendMult(out []FactorPower, fs []*Poly, k int) []FactorPower {
+	for _, g := range fs {
+		out = append(out, FactorPower{g, k})
+	}
+	return out
+}
+
+// squareFreeByImage reports that P, primitive in x, is square-free, from
+// an image P(x, a) that keeps the degree in x and is square-free: a
+// repeated factor G of P involves x (P is primitive in x), keeps its
+// degree in x at a, and so would repeat in the image. False means no such
+// image among the origin and two small points, not that P has a square.
+func squareFreeByImage(P *Poly, x int, vs []int) (bool, error) {
+	L := P.lcIn(x)
+	for try := int64(0); try < 3; try++ {
+		vals := map[int]*big.Rat{}
+		for i, v := range vs {
+			if v != x {
+				vals[v] = big.NewRat(try*int64(i%3-1+2*i), 1)
+			}
+		}
+		if L.Eval(vals).IsZero() {
+			continue
+		}
+		img := P.Eval(vals)
+		g, err := GCD(img, img.Derivative(x))
+		if err != nil {
+			return false, err
+		}
+		if g.isConst() {
+			return true, nil
+		}
+	}
+	return false, nil
+}
+
+// primSquareFree returns the irreducible factors of F, square-free,
+// primitive over Z with a positive leading coefficient.
+func (f *factorer) primSquareFree(F *Poly) ([]*Poly, error) {
+	vs := F.Vars()
+	switch len(vs) {
+	case 0:
+		return nil, nil
+	case 1:
+		return f.univariate(F, vs[0])
+	}
+	x := mainVariable(F, vs)
+	f.say("content in " + F.ring.name(x))
+	C, P, err := splitContentIn(F, x)
+	if err != nil {
+		return nil, err
+	}
+	out, err := f.primSquareFree(C)
+	if err != nil {
+		return nil, err
+	}
+	fs, err := f.primitiveIn(P, x)
+	if err != nil {
+		return nil, err
+	}
+	return append(out, fs...), nil
+}
+
+func (f *factorer) univariate(F *Poly, x int) ([]*Poly, error) {
+	f.say("univariate factorization in " + F.ring.name(x))
+	gs, err := factorSquareFreeZ(toDense(F, x))
+	if err != nil {
+		return nil, err
+	}
+	out := make([]*Poly, len(gs))
+	for i, g := range gs {
+		out[i] = fromDense(F.ring, x, g)
+	}
+	return out, nil
+}
+
+// mainVariable picks x: a constant leading coefficient first, then the
+// lowest degree, then the first variable.
+func mainVariable(F *Poly, vs []int) int {
+	best, bestConst, bestDeg := -1, false, 0
+	for _, v := range vs {
+		c, d := F.lcIn(v).isConst(), F.DegreeIn(v)
+		if best < 0 || c && !bestConst || c == bestConst && d < bestDeg {
+			best, bestConst, bestDeg = v, c, d
+		}
+	}
+	return best
+}
+
+// primitiveIn factors P, primitive in x and square-free.
+func (f *factorer) primitiveIn(P *Poly, x int) ([]*Poly, error) {
+	vs := P.Vars()
+	if P.DegreeIn(x) == 1 {
+		return []*Poly{P}, nil
+	}
+	if len(vs) == 1 {
+		return f.univariate(P, x)
+	}
+	ys := slices.DeleteFunc(slices.Clone(vs), func(v int) bool { return v == x })
+	a, images, err := f.choosePoint(P, x, ys)
+	if err != nil {
+		return nil, err
+	}
+	if len(images) == 1 {
+		return []*Poly{P}, nil
+	}
+	// Move the point to the origin.
+	shift, back := map[int]*Poly{}, map[int]*Poly{}
+	for i, y := range ys {
+		if a[i] != 0 {
+			c := P.ring.Const(new(big.Rat).SetInt64(a[i]))
+			shift[y] = P.ring.varPoly(y).Add(c)
+			back[y] = P.ring.varPoly(y).Sub(c)
+		}
+	}
+	Ps, err := P.Substitute(shift)
+	if err != nil {
+		return nil, err
+	}
+	gs, err := f.recombine(Ps, x, ys, images)
+	if err != nil {
+		return nil, err
+	}
+	for i, g := range gs {
+		if gs[i], err = g.Substitute(back); err != nil {
+			return nil, err
+		}
+		gs[i] = gs[i].PrimitivePart()
+	}
+	return gs, nil
+}
+
+// choosePoint returns a point for ys (step 2) and the irreducible factors
+// of the image, primitive integer polynomials in x.
+func (f *factorer) choosePoint(P *Poly, x int, ys []int) ([]int64, []*Poly, error) {
+	L := P.lcIn(x)
+	rng := rand.New(rand.NewSource(int64(P.Len())))
+	var best []*Poly
+	var bestA []int64
+	good := 0
+	for try := 0; try < maxPointTries && good < evalPoints; try++ {
+		f.say("choosing an evaluation point")
+		a := make([]int64, len(ys))
+		vals := make(map[int]*big.Rat, len(ys))
+		for i, y := range ys {
+			if try > 0 {
+				bound := int64(1 + try/4)
+				a[i] = rng.Int63n(2*bound+1) - bound
+			}
+			vals[y] = new(big.Rat).SetInt64(a[i])
+		}
+		if L.Eval(vals).IsZero() {
+			continue
+		}
+		img := P.Eval(vals).PrimitivePart()
+		g, err := GCD(img, img.Derivative(x))
+		if err != nil {
+			return nil, nil, err
+		}
+		if !g.isConst() {
+			continue
+		}
+		good++
+		fs, err := f.univariate(img, x)
+		if err != nil {
+			return nil, nil, err
+		}
+		if best == nil || len(fs) < len(best) {
+			best, bestA = fs, a
+		}
+		if len(best) == 1 {
+			break
+		}
+	}
+	if best == nil {
+		return nil, nil, fmt.Errorf("factor: no evaluation point among %d tried keeps %v square-free with its degree in %s: %w", maxPointTries, clipText(P.String()), P.ring.name(x), ErrFactorLimit)
+	}
+	return bestA, best, nil
+}
+
+func clipText(s string) string {
+	if len(s) > 120 {
+		return s[:117] + "..."
+	}
+	return s
+}
+
+// recombine lifts the images of P (point at the origin) to the
+// irreducible factors of P: all at once, else by subsets (steps 3, 4).
+func (f *factorer) recombine(P *Poly, x int, ys []int, images []*Poly) ([]*Poly, error) {
+	if gs, ok, err := f.liftImages(P, x, ys, images); err != nil || ok {
+		return gs, err
+	}
+	var out []*Poly
+	T := images
+	tried := 0
+	for s := 1; 2*s <= len(T); {
+		found := false
+		for S := range combinations(len(T), s) {
+			if tried++; tried > maxLiftSubsets {
+				return nil, fmt.Errorf("factor: the %d factors of the image need more than %d two-factor lifts to recombine; undecided: %w", len(images), maxLiftSubsets, ErrFactorLimit)
+			}
+			f.say(fmt.Sprintf("recombination: lifting subset %d of the %d image factors", tried, len(T)))
+			g, err := mulAll(P.ring, pick(T, S, true))
+			if err != nil {
+				return nil, err
+			}
+			h, err := mulAll(P.ring, pick(T, S, false))
+			if err != nil {
+				return nil, err
+			}
+			gs, ok, err := f.liftImages(P, x, ys, []*Poly{g, h})
+			if err != nil {
+				return nil, err
+			}
+			if !ok {
+				continue
+			}
+			out = append(out, gs[0])
+			if P, err = exactQuo(P, gs[0]); err != nil {
+				return nil, err
+			}
+			T = removeIndices(T, S)
+			found = true
+			break
+		}
+		if !found {
+			s++
+		}
+	}
+	return append(out, P.PrimitivePart()), nil
+}
+
+// pick returns the items of T in S (in = true) or not in S.
+func pick(T []*Poly, S []int, in bool) []*Poly {
+	var out []*Poly
+	for i, t := range T {
+		if slices.Contains(S, i) == in {
+			out = append(out, t)
+		}
+	}
+	return out
+}
+
+// liftImages lifts L^(r−1)·P from the images (step 3) and returns the
+// primitive parts of the lifted factors, or false when the images do not
+// come from a factorization of P.
+func (f *factorer) liftImages(P *Poly, x int, ys []int, images []*Poly) ([]*Poly, bool, error) {
+	L := P.lcIn(x)
+	r := len(images)
+	Lr, err := L.Pow(r - 1)
+	if err != nil {
+		return nil, false, err
+	}
+	A, err := P.Mul(Lr)
+	if err != nil {
+		return nil, false, err
+	}
+	l0, _ := L.Eval(zeroAt(ys)).Constant()
+	u := make([]*Poly, r)
+	lc := make([]*Poly, r)
+	for i, g := range images {
+		// u_i = g·L(0)/lc(g), so that lc(u_i) = L(0).
+		u[i] = g.Scale(new(big.Rat).Quo(l0, g.lcIn(x).LeadingCoefficient()))
+		lc[i] = L
+	}
+	bound := make([]int, len(ys))
+	for i, y := range ys {
+		bound[i] = A.DegreeIn(y)
+	}
+	l := &lifter{x: x, ys: ys, bound: bound, A: A, lc: lc, say: f.say}
+	U, ok, err := l.lift(u)
+	if err != nil || !ok {
+		return nil, false, err
+	}
+	out := make([]*Poly, r)
+	for i, g := range U {
+		if _, out[i], err = splitContentIn(g.PrimitivePart(), x); err != nil {
+			return nil, false, err
+		}
+	}
+	return out, true, nil
+}

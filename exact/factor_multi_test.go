@@ -1,0 +1,326 @@
+package exact
+
+import (
+	"fmt"
+	"math/big"
+	"math/rand"
+	"slices"
+	"strings"
+	"testing"
+)
+
+// factorStrings returns "u: f1^k1, f2, …" for comparing with a table.
+func factorStrings(f *Factorization) string {
+	var parts []string
+	for _, fp := range f.Factors {
+		s := fp.Factor.String()
+		if fp.Mult > 1 {
+			s += fmt.Sprintf("^%d", fp.Mult)
+		}
+		parts = append(parts, s)
+	}
+	return f.Unit.RatString() + ": " + strings.Join(parts, ", ")
+}
+
+// circulant returns the n×n circulant matrix with first row vs.
+func circulant(tb testing.TB, r *Ring, vs []*Poly) *PolyMatrix {
+	n := len(vs)
+	rows := make([][]*Poly, n)
+	for i := range rows {
+		rows[i] = make([]*Poly, n)
+		for j := range rows[i] {
+			rows[i][j] = vs[(j-i+n)%n]
+		}
+	}
+	m, err := NewPolyMatrix(r, rows)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return m
+}
+
+// vandermonde returns the n×n Vandermonde matrix (x_i^j).
+func vandermonde(tb testing.TB, r *Ring, xs []*Poly) *PolyMatrix {
+	rows := make([][]*Poly, len(xs))
+	for i, x := range xs {
+		for j := range xs {
+			rows[i] = append(rows[i], mustPow(tb, x, j))
+		}
+	}
+	m, err := NewPolyMatrix(r, rows)
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return m
+}
+
+func mustPolyDet(tb testing.TB, m *PolyMatrix) *Poly {
+	tb.Helper()
+	d, err := m.Det()
+	if err != nil {
+		tb.Fatal(err)
+	}
+	return d
+}
+
+// heron returns 16·Area² of a triangle with sides a, b, c in its expanded
+// form 2a²b² + 2b²c² + 2c²a² − a⁴ − b⁴ − c⁴ (handbook: CRC Standard
+// Mathematical Tables, Heron's formula multiplied out).
+func heron(tb testing.TB, r *Ring) *Poly {
+	return mustParse(tb, r, "2*a^2*b^2 + 2*b^2*c^2 + 2*c^2*a^2 - a^4 - b^4 - c^4")
+}
+
+// TestFactorMultivariateClassical factors polynomials whose factorization
+// is classical, each against its source.
+func TestFactorMultivariateClassical(t *testing.T) {
+	r, v := testRing(t, "a", "b", "c", "d", "e", "x", "y")
+	cases := []struct {
+		name, source string
+		p            *Poly
+		want         string
+	}{
+		{"Sophie Germain", "Sophie Germain's identity x⁴ + 4y⁴ = (x² + 2xy + 2y²)(x² − 2xy + 2y²) (from memory; any number-theory text)",
+			mustParse(t, r, "x^4 + 4*y^4"), "1: x^2 - 2*x*y + 2*y^2, x^2 + 2*x*y + 2*y^2"},
+		{"Heron", "Heron: 16·Area² = (a+b+c)(−a+b+c)(a−b+c)(a+b−c) (handbook)",
+			heron(t, r), "-1: a - b - c, a - b + c, a + b - c, a + b + c"},
+		{"circulant 3x3", "det circ(a, b, c) = a³ + b³ + c³ − 3abc = (a+b+c)(a²+b²+c²−ab−bc−ca) (from memory; the eigenvalues a + bω + cω²)",
+			mustPolyDet(t, circulant(t, r, v[:3])), "1: a + b + c, a^2 - a*b - a*c + b^2 - b*c + c^2"},
+		{"circulant 4x4", "det circ(a, b, c, d) = (a+b+c+d)(a−b+c−d)((a−c)² + (b−d)²) (from memory: the eigenvalues a + bζ + cζ² + dζ³ for ζ = ±1, ±i, the last two conjugate)",
+			mustPolyDet(t, circulant(t, r, v[:4])), "1: a - b + c - d, a + b + c + d, a^2 - 2*a*c + b^2 - 2*b*d + c^2 + d^2"},
+		{"Vandermonde 5x5", "det (x_i^j) = ∏_{i<j} (x_j − x_i) (Vandermonde; any linear algebra text)",
+			mustPolyDet(t, vandermonde(t, r, v[:5])), "1: a - b, a - c, a - d, a - e, b - c, b - d, b - e, c - d, c - e, d - e"},
+		{"difference of squares, squared", "(x² − y²)² = (x − y)²(x + y)² (from memory)",
+			mustParse(t, r, "(x^2 - y^2)^2*3/4"), "3/4: x - y^2, x + y^2"},
+	}
+	for _, c := range cases {
+		f := mustFactor(t, c.p)
+		if got := factorStrings(f); got != c.want {
+			t.Errorf("%s (%s): got %s, want %s", c.name, c.source, got, c.want)
+		}
+	}
+}
+
+// TestFactorContentStage: the content in the main variable is split off
+// and factored on its own. (y² − 1)(x³ + xy + 1): the content in x is
+// y² − 1 = (y − 1)(y + 1), and x³ + xy + 1, primitive and of degree 1 in
+// y, is irreducible (from memory: a primitive polynomial of degree 1 in
+// one of its variables has no proper factor).
+func TestFactorContentStage(t *testing.T) {
+	r, _ := testRing(t, "x", "y")
+	F := mustParse(t, r, "(y^2 - 1)*(x^3 + x*y + 1)")
+	if x := mainVariable(F, F.Vars()); x != 0 {
+		t.Errorf("main variable %d, want x: degrees 3 and 3, the first", x)
+	}
+	// x·y² + x + y: leading coefficient 1 in y? No: y² has x; in x it is
+	// y² + 1. Degree 1 in x against 2 in y: x is chosen.
+	if x := mainVariable(mustParse(t, r, "x*y^2 + x + y"), []int{0, 1}); x != 0 {
+		t.Errorf("main variable %d, want the one of lowest degree", x)
+	}
+	// x·y + y³ + 1 has the constant leading coefficient 1 in y.
+	if x := mainVariable(mustParse(t, r, "x^2*y + y^3 + 1"), []int{0, 1}); x != 1 {
+		t.Errorf("main variable %d, want the one with a constant leading coefficient", x)
+	}
+	fs, err := (&factorer{}).primSquareFree(F)
+	if err != nil {
+		t.Fatal(err)
+	}
+	got := polyStrings(fs)
+	if want := "[x^3 + x*y + 1 y + 1 y - 1]"; got != want {
+		t.Errorf("factors %s, want %s", got, want)
+	}
+}
+
+func polyStrings(ps []*Poly) string {
+	var out []string
+	for _, p := range ps {
+		out = append(out, p.String())
+	}
+	slices.Sort(out)
+	return fmt.Sprint(out)
+}
+
+// TestFactorEvaluationPoint: the point keeps the leading coefficient
+// nonzero and the image square-free, checked by a second route (the
+// discriminant, a resultant, is nonzero exactly for a square-free
+// polynomial; from memory, any algebra text), and the origin is refused
+// when its image x³ is not square-free. For Sophie Germain's x⁴ + 4y⁴ the
+// image at y = a splits as (x² + 2ax + 2a²)(x² − 2ax + 2a²) (the identity
+// at y = a).
+func TestFactorEvaluationPoint(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	P := mustParse(t, r, "(x - y)*(x - z)*(x + y + z)*(y*x + 1)")
+	a, images, err := (&factorer{}).choosePoint(P, 0, []int{1, 2})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if a[0] == 0 && a[1] == 0 {
+		t.Errorf("the origin was taken though the image x^3 is not square-free")
+	}
+	vals := map[int]*big.Rat{1: big.NewRat(a[0], 1), 2: big.NewRat(a[1], 1)}
+	img := P.Eval(vals)
+	if img.DegreeIn(0) != P.DegreeIn(0) {
+		t.Errorf("point %v loses degree: %v", a, img)
+	}
+	disc, err := Discriminant(img, 0)
+	if err != nil || disc.IsZero() {
+		t.Errorf("point %v: image %v has discriminant %v (%v)", a, img, disc, err)
+	}
+	if len(images) != 4 {
+		t.Errorf("point %v: image factors %v, want 4", a, images)
+	}
+	prod := mustProduct(t, r, images)
+	if !prod.PrimitivePart().Equal(img.PrimitivePart()) {
+		t.Errorf("image factors multiply to %v, not %v", prod, img)
+	}
+
+	G := mustParse(t, r, "x^4 + 4*y^4")
+	a, images, err = (&factorer{}).choosePoint(G, 0, []int{1})
+	if err != nil || a[0] == 0 {
+		t.Fatalf("point %v, %v", a, err)
+	}
+	want := fmt.Sprintf("[x^2 + %d*x + %d x^2 - %d*x + %d]", 2*abs64(a[0]), 2*a[0]*a[0], 2*abs64(a[0]), 2*a[0]*a[0])
+	if got := polyStrings(images); got != want && got != strings.Replace(want, "1*x", "x", 2) {
+		t.Errorf("image factors at y = %d: %s, want %s", a[0], got, want)
+	}
+}
+
+func abs64(x int64) int64 {
+	if x < 0 {
+		return -x
+	}
+	return x
+}
+
+func mustProduct(t testing.TB, r *Ring, ps []*Poly) *Poly {
+	p, err := mulAll(r, ps)
+	if err != nil {
+		t.Fatal(err)
+	}
+	return p
+}
+
+// TestHenselLiftKnownProduct: the lift alone, from the images at the
+// origin of a product of known factors with non-constant leading
+// coefficients, gives back exactly those factors (up to the constant the
+// primitive part removes); the product is built here, so the factors are
+// known without factoring.
+func TestHenselLiftKnownProduct(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	known := []*Poly{
+		mustParse(t, r, "(y + 1)*x^2 + z - 3"),
+		mustParse(t, r, "(z + 2)*x - y^2 + 1"),
+		mustParse(t, r, "x^3 + y*z + 2*y + 5"),
+	}
+	P := mustProduct(t, r, known)
+	f := &factorer{}
+	images := make([]*Poly, len(known))
+	for i, g := range known {
+		images[i] = g.Eval(zeroAt([]int{1, 2})).PrimitivePart()
+	}
+	gs, ok, err := f.liftImages(P, 0, []int{1, 2}, images)
+	if err != nil || !ok {
+		t.Fatalf("lift: %v %v", ok, err)
+	}
+	for i, g := range gs {
+		if !g.Equal(known[i].PrimitivePart()) {
+			t.Errorf("lifted factor %d: %v, want %v", i, g, known[i])
+		}
+	}
+}
+
+// TestRecombinationExtraneous: x² − y − 1 is irreducible (y + 1 is not a
+// square in Q[y]; from memory), but its image at the origin is
+// (x − 1)(x + 1). The lift of all three images of (x² − y − 1)(x + y + 2)
+// must fail, and the subset search must pair (x − 1)(x + 1) back up.
+func TestRecombinationExtraneous(t *testing.T) {
+	r, _ := testRing(t, "x", "y")
+	P := mustParse(t, r, "(x^2 - y - 1)*(x + y + 2)")
+	images := []*Poly{mustParse(t, r, "x - 1"), mustParse(t, r, "x + 1"), mustParse(t, r, "x + 2")}
+	f := &factorer{}
+	if _, ok, err := f.liftImages(P, 0, []int{1}, images); err != nil || ok {
+		t.Errorf("the lift of three images succeeded: %v %v", ok, err)
+	}
+	gs, err := f.recombine(P, 0, []int{1}, images)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if got, want := polyStrings(gs), "[x + y + 2 x^2 - y - 1]"; got != want {
+		t.Errorf("recombined %s, want %s", got, want)
+	}
+}
+
+// irreducibleSecondRoute proves g irreducible without Hensel lifting or
+// recombination: for a variable v in which g is primitive and a random
+// point for the others keeping deg_v, an image irreducible over Q (the
+// univariate factorization) proves g irreducible (a split of g would give
+// one of the image: Algorithms for Computer Algebra, ch. 6; from memory).
+// It tries variables in turn and points from its own generator; false
+// means no attempt succeeded, not that g is reducible.
+func irreducibleSecondRoute(t testing.TB, g *Poly, rng *rand.Rand) bool {
+	vs := g.Vars()
+	if len(vs) == 1 {
+		f := mustFactor(t, g)
+		return len(f.Factors) == 1 && f.Factors[0].Mult == 1
+	}
+	for try := 0; try < 40; try++ {
+		v := vs[try%len(vs)]
+		c, err := contentIn(g.PrimitivePart(), v)
+		if err != nil || !c.isConst() {
+			continue
+		}
+		vals := map[int]*big.Rat{}
+		for _, w := range vs {
+			if w != v {
+				vals[w] = big.NewRat(rng.Int63n(201)-100, 1)
+			}
+		}
+		img := g.Eval(vals)
+		if img.DegreeIn(v) != g.DegreeIn(v) {
+			continue
+		}
+		f := mustFactor(t, img)
+		if len(f.Factors) == 1 && f.Factors[0].Mult == 1 {
+			return true
+		}
+	}
+	return false
+}
+
+// TestFactorRandomProducts: on random products of powers of random
+// factors in two and three variables, the factors multiply back to the
+// input exactly (mustFactor) and each is proved irreducible by the second
+// route; the planted factors' count bounds the result's from below.
+func TestFactorRandomProducts(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	rng := rand.New(rand.NewSource(1616))
+	check := rand.New(rand.NewSource(61))
+	trials := 2000
+	if testing.Short() {
+		trials = 200
+	}
+	for trial := 0; trial < trials; trial++ {
+		nv := 2 + trial%2
+		p := r.Const(big.NewRat(rng.Int63n(9)-4|1, 1+rng.Int63n(3)))
+		planted := 0
+		for k := 1 + rng.Intn(3); k > 0; k-- {
+			g := randPoly(rng, r, nv, 2+rng.Intn(3), 2, 0)
+			if g.IsZero() || g.isConst() {
+				continue
+			}
+			e := 1 + rng.Intn(2)
+			planted += e
+			p = mustMulP(t, p, mustPow(t, g, e))
+		}
+		f := mustFactor(t, p)
+		n := 0
+		for _, fp := range f.Factors {
+			n += fp.Mult
+			if !irreducibleSecondRoute(t, fp.Factor, check) {
+				t.Fatalf("%v: factor %v not proved irreducible by the second route", p, fp.Factor)
+			}
+		}
+		if n < planted {
+			t.Fatalf("%v: %d factors, fewer than the %d planted", p, n, planted)
+		}
+	}
+}
