@@ -40,9 +40,9 @@ const primeTrials = 5
 
 // Factorization is p = Unit·∏ Factors[i].Factor^Factors[i].Mult, with the
 // factors irreducible over Q, primitive with positive leading
-// coefficients, distinct, and sorted by degree, then by their integer
-// coefficients compared from the highest power down. A constant p has no
-// factors; Unit is then p itself (0 for the zero polynomial).
+// coefficients, distinct, and sorted as cmpFactor says: by total degree,
+// leading monomial, then coefficients. A constant p has no factors; Unit
+// is then p itself (0 for the zero polynomial).
 type Factorization struct {
 	Unit    *big.Rat
 	Factors []FactorPower
@@ -240,38 +240,56 @@ func mignotte(f []*big.Int) *big.Int {
 // the number left, the rest of f is irreducible.
 func recombine(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64, limit int) ([][]*big.Int, error) {
 	var out [][]*big.Int
-	T := lifted
+	l := f[len(f)-1]
+	ok, _ := subsetSearch(lifted, limit, func(T [][]*big.Int, S []int, _ int) (bool, error) {
+		if !constantTermPasses(f, T, S, M) {
+			return false, nil
+		}
+		g := []*big.Int{new(big.Int).Set(l)}
+		for _, i := range S {
+			g = zMod(zMul(g, T[i]), M)
+		}
+		g = zPrimitive(zSym(g, M))
+		q, ok := zDivExact(f, g)
+		if ok {
+			out, f = append(out, g), q
+		}
+		return ok, nil
+	})
+	if !ok {
+		return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
+	}
+	return append(out, f), nil
+}
+
+// subsetSearch is the search of Zassenhaus's recombination over the
+// items T: for subsets S of size s = 1, 2, …, found(T, S, tried) says
+// whether S gives a factor (and records it); a found S leaves T, and the
+// search ends when 2s passes the number of items left, whose product is
+// then irreducible. False means it gave up after limit subsets.
+func subsetSearch[E any](T []E, limit int, found func(T []E, S []int, tried int) (bool, error)) (bool, error) {
 	tried := 0
 	for s := 1; 2*s <= len(T); {
-		found := false
+		hit := false
 		for S := range combinations(len(T), s) {
 			if tried++; tried > limit {
-				return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
+				return false, nil
 			}
-			if !constantTermPasses(f, T, S, M) {
-				continue
+			ok, err := found(T, S, tried)
+			if err != nil {
+				return false, err
 			}
-			l := f[len(f)-1]
-			g := []*big.Int{new(big.Int).Set(l)}
-			for _, i := range S {
-				g = zMod(zMul(g, T[i]), M)
+			if ok {
+				T = removeIndices(T, S)
+				hit = true
+				break
 			}
-			g = zPrimitive(zSym(g, M))
-			q, ok := zDivExact(f, g)
-			if !ok {
-				continue
-			}
-			out = append(out, g)
-			f = q
-			T = removeIndices(T, S)
-			found = true
-			break
 		}
-		if !found {
+		if !hit {
 			s++
 		}
 	}
-	return append(out, f), nil
+	return true, nil
 }
 
 // constantTermPasses is a cheap necessary test for a subset: a true

@@ -44,6 +44,7 @@ import (
 	"math/big"
 	"math/rand"
 	"slices"
+	"strings"
 )
 
 // evalPoints is how many good evaluation points are tried before the one
@@ -78,7 +79,7 @@ func (p *Poly) FactorStages(stage func(string)) (*Factorization, error) {
 	}
 	f := &factorer{stage: stage}
 	defer f.say("")
-	fs, err := f.primitive(p.PrimitivePart())
+	fs, err := f.primitive(p.PrimitivePart(), false)
 	if err != nil {
 		return nil, err
 	}
@@ -88,47 +89,53 @@ func (p *Poly) FactorStages(stage func(string)) (*Factorization, error) {
 
 // primitive factors F, primitive over Z with a positive leading
 // coefficient, with multiplicities: the content in the main variable
-// recursively, and the primitive part P either directly, when one image
-// shows it square-free, or through its square-free decomposition (Yun's
-// method, which for large P costs more than the rest together).
-func (f *factorer) primitive(F *Poly) ([]FactorPower, error) {
+// recursively, and the primitive part P directly when it is known to be
+// square-free or one image shows it is, else through its square-free
+// decomposition (Yun's method, which for large P costs more than the rest
+// together).
+func (f *factorer) primitive(F *Poly, squareFree bool) ([]FactorPower, error) {
 	vs := F.Vars()
-	if len(vs) == 0 {
-		return nil, nil
-	}
-	x := vs[0]
 	var out []FactorPower
-	P := F
-	if len(vs) > 1 {
-		x = mainVariable(F, vs)
-		f.say("content in " + F.ring.name(x))
-		C, pp, err := splitContentIn(F, x)
+	switch {
+	case len(vs) == 0:
+		return nil, nil
+	case len(vs) == 1 && squareFree:
+		fs, err := f.univariate(F, vs[0])
+		return appendMult(nil, fs, 1), err
+	case len(vs) > 1:
+		x := mainVariable(F, vs)
+		f.say("splitting off the content in " + F.ring.name(x))
+		C, P, err := splitContentIn(F, x)
 		if err != nil {
 			return nil, err
 		}
-		if out, err = f.primitive(C); err != nil {
+		if out, err = f.primitive(C, squareFree); err != nil {
 			return nil, err
 		}
-		P = pp
-		if ok, err := squareFreeByImage(P, x, vs); err != nil || ok {
-			if err != nil {
+		if !squareFree {
+			if squareFree, err = squareFreeByImage(P, x, vs); err != nil {
 				return nil, err
 			}
+		}
+		if squareFree {
 			fs, err := f.primitiveIn(P, x)
 			return appendMult(out, fs, 1), err
 		}
+		F = P
 	}
-	f.say("square-free decomposition")
-	parts, err := squareFreePrim(P)
+	f.say("decomposing into square-free parts")
+	parts, err := squareFreePrim(F)
 	if err != nil {
 		return nil, err
 	}
 	for _, sf := range parts {
-		fs, err := f.primSquareFree(sf.Factor)
+		fs, err := f.primitive(sf.Factor, true)
 		if err != nil {
 			return nil, err
 		}
-		out = appendMult(out, fs, sf.Mult)
+		for _, g := range fs {
+			out = append(out, FactorPower{g.Factor, sf.Mult})
+		}
 	}
 	return out, nil
 }
@@ -169,35 +176,8 @@ func squareFreeByImage(P *Poly, x int, vs []int) (bool, error) {
 	return false, nil
 }
 
-// primSquareFree returns the irreducible factors of F, square-free,
-// primitive over Z with a positive leading coefficient.
-func (f *factorer) primSquareFree(F *Poly) ([]*Poly, error) {
-	vs := F.Vars()
-	switch len(vs) {
-	case 0:
-		return nil, nil
-	case 1:
-		return f.univariate(F, vs[0])
-	}
-	x := mainVariable(F, vs)
-	f.say("content in " + F.ring.name(x))
-	C, P, err := splitContentIn(F, x)
-	if err != nil {
-		return nil, err
-	}
-	out, err := f.primSquareFree(C)
-	if err != nil {
-		return nil, err
-	}
-	fs, err := f.primitiveIn(P, x)
-	if err != nil {
-		return nil, err
-	}
-	return append(out, fs...), nil
-}
-
 func (f *factorer) univariate(F *Poly, x int) ([]*Poly, error) {
-	f.say("univariate factorization in " + F.ring.name(x))
+	f.say("factoring a polynomial in " + F.ring.name(x) + " alone")
 	gs, err := factorSquareFreeZ(toDense(F, x))
 	if err != nil {
 		return nil, err
@@ -327,41 +307,29 @@ func (f *factorer) recombine(P *Poly, x int, ys []int, images []*Poly) ([]*Poly,
 		return gs, err
 	}
 	var out []*Poly
-	T := images
-	tried := 0
-	for s := 1; 2*s <= len(T); {
-		found := false
-		for S := range combinations(len(T), s) {
-			if tried++; tried > maxLiftSubsets {
-				return nil, fmt.Errorf("factor: the %d factors of the image need more than %d two-factor lifts to recombine; undecided: %w", len(images), maxLiftSubsets, ErrFactorLimit)
-			}
-			f.say(fmt.Sprintf("recombination: lifting subset %d of the %d image factors", tried, len(T)))
-			g, err := mulAll(P.ring, pick(T, S, true))
-			if err != nil {
-				return nil, err
-			}
-			h, err := mulAll(P.ring, pick(T, S, false))
-			if err != nil {
-				return nil, err
-			}
-			gs, ok, err := f.liftImages(P, x, ys, []*Poly{g, h})
-			if err != nil {
-				return nil, err
-			}
-			if !ok {
-				continue
-			}
-			out = append(out, gs[0])
-			if P, err = exactQuo(P, gs[0]); err != nil {
-				return nil, err
-			}
-			T = removeIndices(T, S)
-			found = true
-			break
+	ok, err := subsetSearch(images, maxLiftSubsets, func(T []*Poly, S []int, tried int) (bool, error) {
+		f.say(fmt.Sprintf("recombining: lifting subset %d of the %d image factors", tried, len(T)))
+		g, err := mulAll(P.ring, pick(T, S, true))
+		if err != nil {
+			return false, err
 		}
-		if !found {
-			s++
+		h, err := mulAll(P.ring, pick(T, S, false))
+		if err != nil {
+			return false, err
 		}
+		gs, ok, err := f.liftImages(P, x, ys, []*Poly{g, h})
+		if err != nil || !ok {
+			return false, err
+		}
+		out = append(out, gs[0])
+		P, err = exactQuo(P, gs[0])
+		return err == nil, err
+	})
+	if err != nil {
+		return nil, err
+	}
+	if !ok {
+		return nil, fmt.Errorf("factor: the %d factors of the image need more than %d two-factor lifts to recombine; undecided: %w", len(images), maxLiftSubsets, ErrFactorLimit)
 	}
 	return append(out, P.PrimitivePart()), nil
 }
@@ -383,6 +351,7 @@ func pick(T []*Poly, S []int, in bool) []*Poly {
 func (f *factorer) liftImages(P *Poly, x int, ys []int, images []*Poly) ([]*Poly, bool, error) {
 	L := P.lcIn(x)
 	r := len(images)
+	f.say(fmt.Sprintf("imposing the leading coefficient on %d factors", r))
 	Lr, err := L.Pow(r - 1)
 	if err != nil {
 		return nil, false, err
@@ -415,4 +384,37 @@ func (f *factorer) liftImages(P *Poly, x int, ys []int, images []*Poly) ([]*Poly
 		}
 	}
 	return out, true, nil
+}
+
+// String writes the product readably: the unit (left out when it is 1, a
+// minus sign when it is −1), then each factor, in parentheses unless it
+// is a single term, with ^k for a multiplicity k above 1, joined by "·":
+// "-(a - b - c)·(a + b + c)", "3/4·(x - y)^2·x^3". A constant prints as
+// its unit.
+func (f *Factorization) String() string {
+	if len(f.Factors) == 0 {
+		return FormatRat(f.Unit)
+	}
+	var sb strings.Builder
+	switch u := FormatRat(f.Unit); u {
+	case "1":
+	case "-1":
+		sb.WriteString("-")
+	default:
+		sb.WriteString(u + "·")
+	}
+	for i, fp := range f.Factors {
+		if i > 0 {
+			sb.WriteString("·")
+		}
+		if s := fp.Factor.String(); fp.Factor.Len() == 1 {
+			sb.WriteString(s)
+		} else {
+			sb.WriteString("(" + s + ")")
+		}
+		if fp.Mult > 1 {
+			fmt.Fprintf(&sb, "^%d", fp.Mult)
+		}
+	}
+	return sb.String()
 }

@@ -1,6 +1,7 @@
 package exact
 
 import (
+	"flag"
 	"fmt"
 	"math/big"
 	"math/rand"
@@ -120,11 +121,15 @@ func TestFactorContentStage(t *testing.T) {
 	if x := mainVariable(mustParse(t, r, "x^2*y + y^3 + 1"), []int{0, 1}); x != 1 {
 		t.Errorf("main variable %d, want the one with a constant leading coefficient", x)
 	}
-	fs, err := (&factorer{}).primSquareFree(F)
+	fs, err := (&factorer{}).primitive(F, true)
 	if err != nil {
 		t.Fatal(err)
 	}
-	got := polyStrings(fs)
+	var ps []*Poly
+	for _, f := range fs {
+		ps = append(ps, f.Factor)
+	}
+	got := polyStrings(ps)
 	if want := "[x^3 + x*y + 1 y + 1 y - 1]"; got != want {
 		t.Errorf("factors %s, want %s", got, want)
 	}
@@ -286,6 +291,8 @@ func irreducibleSecondRoute(t testing.TB, g *Poly, rng *rand.Rand) bool {
 	return false
 }
 
+var factorTrials = flag.Int("factor.trials", 2000, "random products in TestFactorRandomProducts")
+
 // TestFactorRandomProducts: on random products of powers of random
 // factors in two and three variables, the factors multiply back to the
 // input exactly (mustFactor) and each is proved irreducible by the second
@@ -294,9 +301,9 @@ func TestFactorRandomProducts(t *testing.T) {
 	r, _ := testRing(t, "x", "y", "z")
 	rng := rand.New(rand.NewSource(1616))
 	check := rand.New(rand.NewSource(61))
-	trials := 2000
+	trials := *factorTrials
 	if testing.Short() {
-		trials = 200
+		trials = min(trials, 200)
 	}
 	for trial := 0; trial < trials; trial++ {
 		nv := 2 + trial%2
