@@ -84,7 +84,32 @@ func (p *Poly) FactorStages(stage func(string)) (*Factorization, error) {
 		return nil, err
 	}
 	slices.SortFunc(fs, func(a, b FactorPower) int { return cmpFactor(a.Factor, b.Factor) })
-	return &Factorization{Unit: unitOf(p, fs), Factors: fs}, nil
+	out := &Factorization{Unit: unitOf(p, fs), Factors: fs}
+	// The unit comes from leading coefficients alone, so the product is
+	// checked whole: a factorization returned is one.
+	f.say("multiplying the factors back")
+	if back, err := out.Product(p.ring); err != nil || !back.Equal(p) {
+		if err != nil {
+			return nil, err
+		}
+		return nil, fmt.Errorf("factor %v: internal error: the factors found do not multiply back to it", clipText(p.String()))
+	}
+	return out, nil
+}
+
+// Product returns Unit·∏ Factor^Mult, in the ring r.
+func (f *Factorization) Product(r *Ring) (*Poly, error) {
+	out := r.Const(f.Unit)
+	for _, fp := range f.Factors {
+		pw, err := fp.Factor.Pow(fp.Mult)
+		if err != nil {
+			return nil, err
+		}
+		if out, err = out.Mul(pw); err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
 }
 
 // primitive factors F, primitive over Z with a positive leading
@@ -232,7 +257,7 @@ func (f *factorer) primitiveIn(P *Poly, x int) ([]*Poly, error) {
 	if err != nil {
 		return nil, err
 	}
-	gs, err := f.recombine(Ps, x, ys, images)
+	gs, err := f.recombine(Ps, x, ys, images, maxLiftSubsets)
 	if err != nil {
 		return nil, err
 	}
@@ -301,13 +326,14 @@ func clipText(s string) string {
 }
 
 // recombine lifts the images of P (point at the origin) to the
-// irreducible factors of P: all at once, else by subsets (steps 3, 4).
-func (f *factorer) recombine(P *Poly, x int, ys []int, images []*Poly) ([]*Poly, error) {
+// irreducible factors of P: all at once, else by subsets (steps 3, 4), at
+// most limit of them.
+func (f *factorer) recombine(P *Poly, x int, ys []int, images []*Poly, limit int) ([]*Poly, error) {
 	if gs, ok, err := f.liftImages(P, x, ys, images); err != nil || ok {
 		return gs, err
 	}
 	var out []*Poly
-	ok, err := subsetSearch(images, maxLiftSubsets, func(T []*Poly, S []int, tried int) (bool, error) {
+	ok, err := subsetSearch(images, limit, func(T []*Poly, S []int, tried int) (bool, error) {
 		f.say(fmt.Sprintf("recombining: lifting subset %d of the %d image factors", tried, len(T)))
 		g, err := mulAll(P.ring, pick(T, S, true))
 		if err != nil {
@@ -329,7 +355,7 @@ func (f *factorer) recombine(P *Poly, x int, ys []int, images []*Poly) ([]*Poly,
 		return nil, err
 	}
 	if !ok {
-		return nil, fmt.Errorf("factor: the %d factors of the image need more than %d two-factor lifts to recombine; undecided: %w", len(images), maxLiftSubsets, ErrFactorLimit)
+		return nil, fmt.Errorf("factor: the %d factors of the image need more than %d two-factor lifts to recombine; undecided: %w", len(images), limit, ErrFactorLimit)
 	}
 	return append(out, P.PrimitivePart()), nil
 }

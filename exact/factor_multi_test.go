@@ -1,6 +1,7 @@
 package exact
 
 import (
+	"errors"
 	"flag"
 	"fmt"
 	"math/big"
@@ -245,12 +246,17 @@ func TestRecombinationExtraneous(t *testing.T) {
 	if _, ok, err := f.liftImages(P, 0, []int{1}, images); err != nil || ok {
 		t.Errorf("the lift of three images succeeded: %v %v", ok, err)
 	}
-	gs, err := f.recombine(P, 0, []int{1}, images)
+	gs, err := f.recombine(P, 0, []int{1}, images, maxLiftSubsets)
 	if err != nil {
 		t.Fatal(err)
 	}
 	if got, want := polyStrings(gs), "[x + y + 2 x^2 - y - 1]"; got != want {
 		t.Errorf("recombined %s, want %s", got, want)
+	}
+	// Capped at one subset, the search cannot finish: undecided, not a
+	// wrong factorization.
+	if gs, err := f.recombine(P, 0, []int{1}, images, 1); !errors.Is(err, ErrFactorLimit) {
+		t.Errorf("capped recombination: %v, %v", polyStrings(gs), err)
 	}
 }
 
@@ -329,5 +335,24 @@ func TestFactorRandomProducts(t *testing.T) {
 		if n < planted {
 			t.Fatalf("%v: %d factors, fewer than the %d planted", p, n, planted)
 		}
+	}
+}
+
+// TestFactorStagesReported: the stages come in order of the method and
+// the last report is "" (the factorization returned).
+func TestFactorStagesReported(t *testing.T) {
+	r, _ := testRing(t, "x", "y")
+	var got []string
+	if _, err := mustParse(t, r, "x^4 + 4*y^4").FactorStages(func(s string) { got = append(got, s) }); err != nil {
+		t.Fatal(err)
+	}
+	joined := strings.Join(got, "; ")
+	for _, w := range []string{"splitting off the content in", "choosing an evaluation point", "factoring a polynomial in x alone", "imposing the leading coefficient on 2 factors", "Hensel lifting in y (degree 1 of 4)"} {
+		if !strings.Contains(joined, w) {
+			t.Errorf("stages %q lack %q", joined, w)
+		}
+	}
+	if got[len(got)-1] != "" {
+		t.Errorf("last stage %q, want the empty string", got[len(got)-1])
 	}
 }
