@@ -51,32 +51,116 @@ func (l *lifter) lift(u []*Poly) ([]*Poly, bool, error) {
 		if err != nil {
 			return nil, false, err
 		}
-		e, err := residue(Aj, U)
-		if err != nil {
+		if U, err = l.liftIn(y, j, Aj, U, d); err != nil || U == nil {
 			return nil, false, err
-		}
-		for m := 1; m <= Aj.DegreeIn(y) && !e.IsZero(); m++ {
-			l.say(liftStage(l.A.ring, y, m, Aj.DegreeIn(y)))
-			c := e.coeffIn(y, m)
-			if c.IsZero() {
-				continue
-			}
-			ds, ok, err := d.solve(c, j)
-			if err != nil || !ok {
-				return nil, false, err
-			}
-			for i := range U {
-				U[i] = U[i].Add(ds[i].mulVarPow(y, m))
-			}
-			if e, err = residue(Aj, U); err != nil {
-				return nil, false, err
-			}
-		}
-		if !e.IsZero() {
-			return nil, false, nil
 		}
 	}
 	return U, true, nil
+}
+
+// liftIn lifts the factors U (correct modulo y) to factors of Aj, or
+// returns nil when there are none. The y-adic digits of the factors and
+// of their prefix products U_0⋯U_i are kept, so the digit of ∏ U at y^m
+// costs a few small products instead of a whole product of the factors
+// at every step (five dense trivariate factors with non-constant leading
+// coefficients: 3.8 s with whole products).
+func (l *lifter) liftIn(y, j int, Aj *Poly, U []*Poly, d *diophant) ([]*Poly, error) {
+	D := Aj.DegreeIn(y)
+	r := len(U)
+	zero := Aj.ring.zero()
+	at := func(ps []*Poly, k int) *Poly {
+		if k < len(ps) && ps[k] != nil {
+			return ps[k]
+		}
+		return zero
+	}
+	digits := make([][]*Poly, r)
+	for i, u := range U {
+		cs := u.Collect(y)
+		digits[i] = make([]*Poly, max(D+1, len(cs)))
+		for k := range digits[i] {
+			digits[i][k] = at(cs, k)
+		}
+	}
+	prefix := make([][]*Poly, r)
+	// digit returns digit m of U_0⋯U_i.
+	digit := func(i, m int) (*Poly, error) {
+		if i == 0 {
+			return digits[0][m], nil
+		}
+		terms := make([]*Poly, 0, m+1)
+		for k := 0; k <= m; k++ {
+			a, b := prefix[i-1][k], digits[i][m-k]
+			if a.IsZero() || b.IsZero() {
+				continue
+			}
+			t, err := a.Mul(b)
+			if err != nil {
+				return nil, err
+			}
+			terms = append(terms, t)
+		}
+		return sumOrZero(Aj.ring, terms)
+	}
+	setDigits := func(m int) error {
+		for i := range prefix {
+			t, err := digit(i, m)
+			if err != nil {
+				return err
+			}
+			if len(prefix[i]) == m {
+				prefix[i] = append(prefix[i], t)
+			} else {
+				prefix[i][m] = t
+			}
+		}
+		return nil
+	}
+	Ac := Aj.Collect(y)
+	for m := 0; m <= D; m++ {
+		if err := setDigits(m); err != nil {
+			return nil, err
+		}
+		c := at(Ac, m).Sub(prefix[r-1][m])
+		if m == 0 || c.IsZero() {
+			continue
+		}
+		l.say(liftStage(l.A.ring, y, m, D))
+		ds, ok, err := d.solve(c, j)
+		if err != nil || !ok {
+			return nil, err
+		}
+		for i := range digits {
+			digits[i][m] = digits[i][m].Add(ds[i])
+		}
+		if err := setDigits(m); err != nil {
+			return nil, err
+		}
+	}
+	out := make([]*Poly, r)
+	for i, ds := range digits {
+		terms := make([]*Poly, 0, len(ds))
+		for k, c := range ds {
+			terms = append(terms, c.mulVarPow(y, k))
+		}
+		var err error
+		if out[i], err = sumOrZero(Aj.ring, terms); err != nil {
+			return nil, err
+		}
+	}
+	e, err := residue(Aj, out)
+	if err != nil || !e.IsZero() {
+		return nil, err
+	}
+	return out, nil
+}
+
+// sumOrZero adds ps, held to the term cap (0 for none).
+func sumOrZero(r *Ring, ps []*Poly) (*Poly, error) {
+	if len(ps) == 0 {
+		return r.zero(), nil
+	}
+	return sumPolys(ps, r.MaxTerms(), "lift")
 }
 
 func liftStage(r *Ring, y, m, of int) string {
