@@ -102,24 +102,14 @@ func (l *lifter) liftIn(y, j int, Aj *Poly, U []*Poly, d *diophant) ([]*Poly, er
 		}
 		return sumOrZero(Aj.ring, terms)
 	}
-	setDigits := func(m int) error {
+	Ac := Aj.Collect(y)
+	for m := 0; m <= D; m++ {
 		for i := range prefix {
 			t, err := digit(i, m)
 			if err != nil {
-				return err
+				return nil, err
 			}
-			if len(prefix[i]) == m {
-				prefix[i] = append(prefix[i], t)
-			} else {
-				prefix[i][m] = t
-			}
-		}
-		return nil
-	}
-	Ac := Aj.Collect(y)
-	for m := 0; m <= D; m++ {
-		if err := setDigits(m); err != nil {
-			return nil, err
+			prefix[i] = append(prefix[i], t)
 		}
 		c := at(Ac, m).Sub(prefix[r-1][m])
 		if m == 0 || c.IsZero() {
@@ -130,11 +120,26 @@ func (l *lifter) liftIn(y, j int, Aj *Poly, U []*Poly, d *diophant) ([]*Poly, er
 		if err != nil || !ok {
 			return nil, err
 		}
+		// Only digit m of each factor changed, by ds_i, so digit m of
+		// the prefix products changes by δ_i = P_{i−1}[0]·ds_i +
+		// δ_{i−1}·U_i[0]: two products, not m + 1.
+		var delta *Poly
 		for i := range digits {
 			digits[i][m] = digits[i][m].Add(ds[i])
-		}
-		if err := setDigits(m); err != nil {
-			return nil, err
+			step := ds[i]
+			if i > 0 {
+				a, err := prefix[i-1][0].Mul(ds[i])
+				if err != nil {
+					return nil, err
+				}
+				b, err := delta.Mul(digits[i][0])
+				if err != nil {
+					return nil, err
+				}
+				step = a.Add(b)
+			}
+			prefix[i][m] = prefix[i][m].Add(step)
+			delta = step
 		}
 	}
 	out := make([]*Poly, r)

@@ -9,7 +9,8 @@ package exact
 //     and primitive part with respect to a main variable x; the content,
 //     in fewer variables, is factored recursively. x is a variable whose
 //     leading coefficient in F is a constant if there is one (then no
-//     leading-coefficient work is needed), else one of lowest degree.
+//     leading-coefficient work is needed), else one of lowest degree, and
+//     of those one whose leading coefficient has the lowest degree.
 //  2. A point a for the other variables is chosen with lc_x(P)(a) ≠ 0 and
 //     P(x, a) square-free (so the degree in x is kept and the images of
 //     distinct factors are coprime): the origin first, which keeps sparse
@@ -215,13 +216,19 @@ func (f *factorer) univariate(F *Poly, x int) ([]*Poly, error) {
 }
 
 // mainVariable picks x: a constant leading coefficient first, then the
-// lowest degree, then the first variable.
+// lowest degree, then the leading coefficient of lowest total degree (the
+// lift multiplies by its powers), then the first variable.
 func mainVariable(F *Poly, vs []int) int {
-	best, bestConst, bestDeg := -1, false, 0
+	best := -1
+	var bestKey [3]int
 	for _, v := range vs {
-		c, d := F.lcIn(v).isConst(), F.DegreeIn(v)
-		if best < 0 || c && !bestConst || c == bestConst && d < bestDeg {
-			best, bestConst, bestDeg = v, c, d
+		L := F.lcIn(v)
+		key := [3]int{1, F.DegreeIn(v), L.Degree()}
+		if L.isConst() {
+			key[0] = 0
+		}
+		if best < 0 || slices.Compare(key[:], bestKey[:]) < 0 {
+			best, bestKey = v, key
 		}
 	}
 	return best

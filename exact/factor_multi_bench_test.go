@@ -1,6 +1,7 @@
 package exact
 
 import (
+	"fmt"
 	"math/big"
 	"math/rand"
 	"strings"
@@ -112,5 +113,34 @@ func BenchmarkFactorStagesFiveDense(b *testing.B) {
 		if s != "" {
 			b.ReportMetric(float64(d.Microseconds())/1000/float64(b.N), strings.ReplaceAll(s, " ", "_")+"_ms/op")
 		}
+	}
+}
+
+// BenchmarkFactorDenseLeadingCoefficients factors products of two to
+// five random dense trivariate factors of total degree 6 without the pure
+// powers x⁶, y⁶, z⁶, so that no variable has a constant leading
+// coefficient: the price of imposing L on every factor (L^(r−1)·P is
+// lifted) instead of Wang's predetermination.
+func BenchmarkFactorDenseLeadingCoefficients(b *testing.B) {
+	r, _ := testRing(b, "x", "y", "z")
+	rng := rand.New(rand.NewSource(3))
+	p := r.one()
+	for n := 1; n <= 5; n++ {
+		f := denseFactor(r, rng, 3, 6)
+		for v := 0; v < 3; v++ {
+			f = f.Sub(f.coeffIn(v, 6).mulVarPow(v, 6))
+		}
+		p = mustMulP(b, p, f)
+		if n < 2 {
+			continue
+		}
+		b.Run(fmt.Sprint(n, "factors"), func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				f, err := p.Factor()
+				if err != nil || len(f.Factors) != n {
+					b.Fatal(f, err)
+				}
+			}
+		})
 	}
 }

@@ -103,24 +103,26 @@ func TestFactorMultivariateClassical(t *testing.T) {
 }
 
 // TestFactorContentStage: the content in the main variable is split off
-// and factored on its own. (y² − 1)(x³ + xy + 1): the content in x is
-// y² − 1 = (y − 1)(y + 1), and x³ + xy + 1, primitive and of degree 1 in
-// y, is irreducible (from memory: a primitive polynomial of degree 1 in
-// one of its variables has no proper factor).
+// and factored on its own. (y² − 1)(x²y + x + y): x has the lower degree,
+// the content in x is y² − 1 = (y − 1)(y + 1), and x²y + x + y =
+// (x² + 1)y + x, primitive and of degree 1 in y, is irreducible (from
+// memory: a primitive polynomial of degree 1 in one of its variables has
+// no proper factor).
 func TestFactorContentStage(t *testing.T) {
-	r, _ := testRing(t, "x", "y")
-	F := mustParse(t, r, "(y^2 - 1)*(x^3 + x*y + 1)")
+	r, _ := testRing(t, "x", "y", "z")
+	F := mustParse(t, r, "(y^2 - 1)*(x^2*y + x + y)")
 	if x := mainVariable(F, F.Vars()); x != 0 {
-		t.Errorf("main variable %d, want x: degrees 3 and 3, the first", x)
+		t.Errorf("main variable %d, want x, of lower degree", x)
 	}
-	// x·y² + x + y: leading coefficient 1 in y? No: y² has x; in x it is
-	// y² + 1. Degree 1 in x against 2 in y: x is chosen.
-	if x := mainVariable(mustParse(t, r, "x*y^2 + x + y"), []int{0, 1}); x != 0 {
-		t.Errorf("main variable %d, want the one of lowest degree", x)
-	}
-	// x·y + y³ + 1 has the constant leading coefficient 1 in y.
+	// x²y + y³ + 1: y has the constant leading coefficient 1 (x has y),
+	// so y is chosen though its degree is higher.
 	if x := mainVariable(mustParse(t, r, "x^2*y + y^3 + 1"), []int{0, 1}); x != 1 {
 		t.Errorf("main variable %d, want the one with a constant leading coefficient", x)
+	}
+	// Degree 2 in each; leading coefficients yz, x, x: y, the first of
+	// those with a leading coefficient of lower degree.
+	if x := mainVariable(mustParse(t, r, "x^2*y*z + x*y^2 + x*z^2 + 1"), []int{0, 1, 2}); x != 1 {
+		t.Errorf("main variable %d, want y", x)
 	}
 	fs, err := (&factorer{}).primitive(F, true)
 	if err != nil {
@@ -131,7 +133,7 @@ func TestFactorContentStage(t *testing.T) {
 		ps = append(ps, f.Factor)
 	}
 	got := polyStrings(ps)
-	if want := "[x^3 + x*y + 1 y + 1 y - 1]"; got != want {
+	if want := "[x^2*y + x + y y + 1 y - 1]"; got != want {
 		t.Errorf("factors %s, want %s", got, want)
 	}
 }
