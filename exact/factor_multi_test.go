@@ -358,3 +358,64 @@ func TestFactorStagesReported(t *testing.T) {
 		t.Errorf("last stage %q, want the empty string", got[len(got)-1])
 	}
 }
+
+// TestFactorHomogeneousCyclotomic: xⁿ − yⁿ = ∏_{d|n} y^φ(d)·Φ_d(x/y), the
+// homogenized cyclotomic polynomials, each irreducible over Q (Gauss; the
+// cyclotomic polynomials, OEIS A013595, built here by their recursive
+// definition): one factor per divisor, each becoming Φ_d at y = 1.
+func TestFactorHomogeneousCyclotomic(t *testing.T) {
+	r, _ := testRing(t, "x", "y")
+	phi := cyclotomic(t, r, 30)
+	x, y := mustParse(t, r, "x"), mustParse(t, r, "y")
+	one := map[int]*big.Rat{1: big.NewRat(1, 1)}
+	for n := 1; n <= 30; n++ {
+		f := mustFactor(t, mustPow(t, x, n).Sub(mustPow(t, y, n)))
+		var want []string
+		for d := 1; d <= n; d++ {
+			if n%d == 0 {
+				want = append(want, phi[d].String())
+			}
+		}
+		var got []string
+		for _, g := range f.Factors {
+			if h, ok := g.Factor.Homogeneous(); !ok || g.Mult != 1 || h != g.Factor.DegreeIn(0) {
+				t.Fatalf("x^%d − y^%d: factor %v^%d not homogeneous of its degree in x", n, n, g.Factor, g.Mult)
+			}
+			got = append(got, g.Factor.Eval(one).String())
+		}
+		slices.Sort(want)
+		slices.Sort(got)
+		if fmt.Sprint(got) != fmt.Sprint(want) {
+			t.Fatalf("x^%d − y^%d at y = 1: %v, want %v", n, n, got, want)
+		}
+	}
+}
+
+// TestFactorClassicalIdentities: expanded forms from handbooks and
+// classical algebra, factored without being told the factors.
+func TestFactorClassicalIdentities(t *testing.T) {
+	r, _ := testRing(t, "a", "b", "c", "d")
+	for _, c := range []struct{ source, p, want string }{
+		// Brahmagupta: 16K² of a cyclic quadrilateral with sides a, b, c,
+		// d is (−a+b+c+d)(a−b+c+d)(a+b−c+d)(a+b+c−d), expanded
+		// 2Σa²b² − Σa⁴ + 8abcd (from memory; CRC handbook).
+		{"Brahmagupta", "2*(a^2*b^2 + a^2*c^2 + a^2*d^2 + b^2*c^2 + b^2*d^2 + c^2*d^2) - a^4 - b^4 - c^4 - d^4 + 8*a*b*c*d",
+			"-1: a - b - c - d, a - b + c + d, a + b - c + d, a + b + c - d"},
+		// (a + b + c)³ − a³ − b³ − c³ = 3(a + b)(b + c)(c + a) (from
+		// memory; a classical olympiad identity).
+		// (In the order of cmpFactor a + c comes before a + b: at the
+		// monomial b its coefficient 0 is the smaller.)
+		{"sum of cubes", "(a + b + c)^3 - a^3 - b^3 - c^3", "3: a + c, a + b, b + c"},
+		// a³(b − c) + b³(c − a) + c³(a − b) = −(a − b)(b − c)(c − a)(a + b
+		// + c) (from memory; the alternant a³ over the Vandermonde).
+		{"alternant", "a^3*(b - c) + b^3*(c - a) + c^3*(a - b)", "1: a - b, a - c, a + b + c, b - c"},
+		// a⁴ + b⁴ is irreducible over Q (its roots a = b·ζ₈ need √2 and
+		// i; from memory), a⁴ + 4b⁴ is not (Sophie Germain).
+		{"a^4 + b^4", "a^4 + b^4", "1: a^4 + b^4"},
+	} {
+		f := mustFactor(t, mustParse(t, r, c.p))
+		if got := factorStrings(f); got != c.want {
+			t.Errorf("%s: got %s, want %s", c.source, got, c.want)
+		}
+	}
+}
