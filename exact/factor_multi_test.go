@@ -419,3 +419,20 @@ func TestFactorClassicalIdentities(t *testing.T) {
 		}
 	}
 }
+
+// TestFactorMonomialsAndPowers: monomials and powers in several
+// variables, with rational units (unique factorization; from memory).
+func TestFactorMonomialsAndPowers(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	for _, c := range []struct{ p, want string }{
+		{"-2/3*x^2*y^3", "-2/3: x^2, y^3"},
+		{"x*y*z", "1: x, y, z"},
+		{"(x*y - z)^3*(x + 1)^2*z", "1: x + 1^2, z, x*y - z^3"},
+		{"(x^2 + y^2 + z^2)^2 - (x^2 + y^2 + z^2)", "1: x^2 + y^2 + z^2 - 1, x^2 + y^2 + z^2"},
+		{"5", "5: "},
+	} {
+		if got := factorStrings(mustFactor(t, mustParse(t, r, c.p))); got != c.want {
+			t.Errorf("%s: got %s, want %s", c.p, got, c.want)
+		}
+	}
+}
