@@ -5,9 +5,12 @@ package exact
 // polynomial factoring algorithm", Math. Comp. 32, 1978; Algorithms for
 // Computer Algebra, ch. 6):
 //
-//  1. A square-free part F, primitive over Z, is split into its content
-//     and primitive part with respect to a main variable x; the content,
-//     in fewer variables, is factored recursively. x is a variable whose
+//  1. F, primitive over Z, is split into its content and primitive part
+//     P with respect to a main variable x; the content, in fewer
+//     variables, is factored recursively. P is shown square-free by one
+//     square-free image (squareFreeByImage), or else split into its
+//     square-free parts by Yun's method (factor_sqfree.go), each factored
+//     on its own. x is a variable whose
 //     leading coefficient in F is a constant if there is one (then no
 //     leading-coefficient work is needed), else one of lowest degree, and
 //     of those one whose leading coefficient has the lowest degree.
