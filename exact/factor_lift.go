@@ -38,14 +38,14 @@ func (l *lifter) lift(u []*Poly) ([]*Poly, bool, error) {
 	k := len(l.ys)
 	for j := 0; j < k; j++ {
 		y := l.ys[j]
-		rest := zeroAt(l.ys[j+1:])
-		Aj := l.A.Eval(rest)
+		rest := l.ys[j+1:]
+		Aj := atZero(l.A, rest)
 		prev := U
 		U = make([]*Poly, len(prev))
 		for i, a := range prev {
 			// Impose the leading coefficient with y_j back in it.
 			d := a.DegreeIn(l.x)
-			U[i] = a.Sub(a.lcIn(l.x).mulVarPow(l.x, d)).Add(l.lc[i].Eval(rest).mulVarPow(l.x, d))
+			U[i] = a.Sub(a.lcIn(l.x).mulVarPow(l.x, d)).Add(atZero(l.lc[i], rest).mulVarPow(l.x, d))
 		}
 		d, err := newDiophant(l.x, l.ys[:j], l.bound, prev)
 		if err != nil {
@@ -174,13 +174,17 @@ func liftStage(r *Ring, y, m, of int) string {
 
 func itoa(n int) string { return big.NewInt(int64(n)).String() }
 
-// zeroAt maps each variable to 0.
-func zeroAt(vs []int) map[int]*big.Rat {
-	out := make(map[int]*big.Rat, len(vs))
-	for _, v := range vs {
-		out[v] = new(big.Rat)
+// atZero returns p with the variables vs set to 0: its terms free of
+// them (a selection, much cheaper than Eval).
+func atZero(p *Poly, vs []int) *Poly {
+	if len(vs) == 0 {
+		return p
 	}
-	return out
+	exps := make(map[int]int, len(vs))
+	for _, v := range vs {
+		exps[v] = 0
+	}
+	return p.CoefficientIn(exps)
 }
 
 // residue returns A − ∏ U.
@@ -231,10 +235,9 @@ func newDiophant(x int, ys []int, bound []int, a []*Poly) (*diophant, error) {
 	d.a[len(ys)] = a
 	for s := len(ys); s >= 0; s-- {
 		if s < len(ys) {
-			z := zeroAt(ys[s : s+1])
 			d.a[s] = make([]*Poly, len(a))
 			for i, f := range d.a[s+1] {
-				d.a[s][i] = f.Eval(z)
+				d.a[s][i] = atZero(f, ys[s:s+1])
 			}
 		}
 		var err error
@@ -265,7 +268,7 @@ func (d *diophant) solve(c *Poly, s int) ([]*Poly, bool, error) {
 		return d.solveUni(c)
 	}
 	y := d.ys[s-1]
-	sigma, ok, err := d.solve(c.Eval(zeroAt([]int{y})), s-1)
+	sigma, ok, err := d.solve(atZero(c, []int{y}), s-1)
 	if err != nil || !ok {
 		return nil, ok, err
 	}

@@ -290,13 +290,9 @@ func (f *factorer) choosePoint(P *Poly, x int, ys []int) ([]int64, []*Poly, erro
 	good := 0
 	for try := 0; try < maxPointTries && good < evalPoints; try++ {
 		f.say("choosing an evaluation point")
-		a := make([]int64, len(ys))
+		a := pointCandidate(rng, try, len(ys))
 		vals := make(map[int]*big.Rat, len(ys))
 		for i, y := range ys {
-			if try > 0 {
-				bound := int64(1 + try/4)
-				a[i] = rng.Int63n(2*bound+1) - bound
-			}
 			vals[y] = new(big.Rat).SetInt64(a[i])
 		}
 		if L.Eval(vals).IsZero() {
@@ -326,6 +322,25 @@ func (f *factorer) choosePoint(P *Poly, x int, ys []int) ([]int64, []*Poly, erro
 		return nil, nil, fmt.Errorf("factor: no evaluation point among %d tried keeps %v square-free with its degree in %s: %w", maxPointTries, clipText(P.String()), P.ring.name(x), ErrFactorLimit)
 	}
 	return bestA, best, nil
+}
+
+// pointCandidate returns candidate try for n coordinates: the origin,
+// then points with few nonzero coordinates, more and larger as the tries
+// go on. Zeros keep a sparse polynomial sparse when the point is moved to
+// the origin (a shifted variable spreads into all its powers).
+func pointCandidate(rng *rand.Rand, try, n int) []int64 {
+	a := make([]int64, n)
+	if try == 0 {
+		return a
+	}
+	bound := int64(1 + try/4)
+	for _, i := range rng.Perm(n)[:min(n, 1+try/8)] {
+		a[i] = 1 + rng.Int63n(bound)
+		if rng.Intn(2) == 0 {
+			a[i] = -a[i]
+		}
+	}
+	return a
 }
 
 func clipText(s string) string {
@@ -396,7 +411,7 @@ func (f *factorer) liftImages(P *Poly, x int, ys []int, images []*Poly) ([]*Poly
 	if err != nil {
 		return nil, false, err
 	}
-	l0, _ := L.Eval(zeroAt(ys)).Constant()
+	l0, _ := atZero(L, ys).Constant()
 	u := make([]*Poly, r)
 	lc := make([]*Poly, r)
 	for i, g := range images {

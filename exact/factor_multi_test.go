@@ -223,7 +223,7 @@ func TestHenselLiftKnownProduct(t *testing.T) {
 	f := &factorer{}
 	images := make([]*Poly, len(known))
 	for i, g := range known {
-		images[i] = g.Eval(zeroAt([]int{1, 2})).PrimitivePart()
+		images[i] = g.Eval(map[int]*big.Rat{1: new(big.Rat), 2: new(big.Rat)}).PrimitivePart()
 	}
 	gs, ok, err := f.liftImages(P, 0, []int{1, 2}, images)
 	if err != nil || !ok {
