@@ -157,7 +157,7 @@ func polyStrings(ps []*Poly) string {
 func TestFactorEvaluationPoint(t *testing.T) {
 	r, _ := testRing(t, "x", "y", "z")
 	P := mustParse(t, r, "(x - y)*(x - z)*(x + y + z)*(y*x + 1)")
-	a, images, err := (&factorer{}).choosePoint(P, 0, []int{1, 2})
+	a, images, _, err := (&factorer{}).choosePoint(P, 0, []int{1, 2}, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -182,7 +182,7 @@ func TestFactorEvaluationPoint(t *testing.T) {
 	}
 
 	G := mustParse(t, r, "x^4 + 4*y^4")
-	a, images, err = (&factorer{}).choosePoint(G, 0, []int{1})
+	a, images, _, err = (&factorer{}).choosePoint(G, 0, []int{1}, nil)
 	if err != nil || a[0] == 0 {
 		t.Fatalf("point %v, %v", a, err)
 	}
@@ -207,6 +207,16 @@ func mustProduct(t testing.TB, r *Ring, ps []*Poly) *Poly {
 	return p
 }
 
+// knownFactors are three factors in x, y, z whose leading coefficients in
+// x are y + 1, z + 2 and 1, for the tests of lifting alone.
+func knownFactors(t testing.TB, r *Ring) []*Poly {
+	return []*Poly{
+		mustParse(t, r, "(y + 1)*x^2 + z - 3"),
+		mustParse(t, r, "(z + 2)*x - y^2 + 1"),
+		mustParse(t, r, "x^3 + y*z + 2*y + 5"),
+	}
+}
+
 // TestHenselLiftKnownProduct: the lift alone, from the images at the
 // origin of a product of known factors with non-constant leading
 // coefficients, gives back exactly those factors (up to the constant the
@@ -214,11 +224,7 @@ func mustProduct(t testing.TB, r *Ring, ps []*Poly) *Poly {
 // known without factoring.
 func TestHenselLiftKnownProduct(t *testing.T) {
 	r, _ := testRing(t, "x", "y", "z")
-	known := []*Poly{
-		mustParse(t, r, "(y + 1)*x^2 + z - 3"),
-		mustParse(t, r, "(z + 2)*x - y^2 + 1"),
-		mustParse(t, r, "x^3 + y*z + 2*y + 5"),
-	}
+	known := knownFactors(t, r)
 	P := mustProduct(t, r, known)
 	f := &factorer{}
 	images := make([]*Poly, len(known))
@@ -236,6 +242,66 @@ func TestHenselLiftKnownProduct(t *testing.T) {
 	}
 }
 
+// TestLeadingCoefficientPredetermined: Wang's predetermination alone, on
+// a product of known factors whose leading coefficients in x are y + 1,
+// z + 2 and 1: at a point that separates y + 1 and z + 2, the leading
+// coefficient of each image's factor is found to be the known one, and
+// the lift with them gives the factors back (the product is built here,
+// so the factors are known without factoring).
+func TestLeadingCoefficientPredetermined(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	known := knownFactors(t, r)
+	P := mustProduct(t, r, known)
+	f := &factorer{}
+	lf, err := f.factorization(P.lcIn(0))
+	if err != nil {
+		t.Fatal(err)
+	}
+	ys := []int{1, 2}
+	a, images, q, err := f.choosePoint(P, 0, ys, lf)
+	if err != nil || q == nil || len(images) != 3 {
+		t.Fatalf("point %v, images %v, q %v, %v", a, images, q, err)
+	}
+	shift, back := map[int]*Poly{}, map[int]*Poly{}
+	for i, y := range ys {
+		c := r.Const(big.NewRat(a[i], 1))
+		shift[y], back[y] = r.varPoly(y).Add(c), r.varPoly(y).Sub(c)
+	}
+	pre, err := predetermine(P, 0, lf, q, images, shift)
+	if err != nil || pre == nil {
+		t.Fatalf("no predetermination: %v", err)
+	}
+	var lcs, want []*Poly
+	for i, d := range pre.lc {
+		g, err := d.Substitute(back)
+		if err != nil {
+			t.Fatal(err)
+		}
+		lcs = append(lcs, g)
+		for _, k := range known {
+			if k.Eval(map[int]*big.Rat{1: big.NewRat(a[0], 1), 2: big.NewRat(a[1], 1)}).PrimitivePart().Equal(images[i]) {
+				want = append(want, k.lcIn(0))
+			}
+		}
+	}
+	if polyStrings(lcs) != polyStrings(want) || len(want) != 3 {
+		t.Errorf("leading coefficients %s, want %s", polyStrings(lcs), polyStrings(want))
+	}
+	gs, ok, err := f.liftWith(pre.A, 0, ys, images, pre.lc)
+	if err != nil || !ok {
+		t.Fatalf("lift: %v %v", ok, err)
+	}
+	for i, g := range gs {
+		if gs[i], err = g.Substitute(back); err != nil {
+			t.Fatal(err)
+		}
+		gs[i] = gs[i].PrimitivePart()
+	}
+	if polyStrings(gs) != polyStrings(known) {
+		t.Errorf("lifted %s, want %s", polyStrings(gs), polyStrings(known))
+	}
+}
+
 // TestRecombinationExtraneous: x² − y − 1 is irreducible (y + 1 is not a
 // square in Q[y]; from memory), but its image at the origin is
 // (x − 1)(x + 1). The lift of all three images of (x² − y − 1)(x + y + 2)
@@ -248,7 +314,7 @@ func TestRecombinationExtraneous(t *testing.T) {
 	if _, ok, err := f.liftImages(P, 0, []int{1}, images); err != nil || ok {
 		t.Errorf("the lift of three images succeeded: %v %v", ok, err)
 	}
-	gs, err := f.recombine(P, 0, []int{1}, images, maxLiftSubsets)
+	gs, err := f.recombine(P, 0, []int{1}, images, maxLiftSubsets, nil)
 	if err != nil {
 		t.Fatal(err)
 	}
@@ -257,7 +323,7 @@ func TestRecombinationExtraneous(t *testing.T) {
 	}
 	// Capped at one subset, the search cannot finish: undecided, not a
 	// wrong factorization.
-	if gs, err := f.recombine(P, 0, []int{1}, images, 1); !errors.Is(err, ErrFactorLimit) {
+	if gs, err := f.recombine(P, 0, []int{1}, images, 1, nil); !errors.Is(err, ErrFactorLimit) {
 		t.Errorf("capped recombination: %v, %v", polyStrings(gs), err)
 	}
 }
@@ -302,11 +368,11 @@ func irreducibleSecondRoute(t testing.TB, g *Poly, rng *rand.Rand) bool {
 var factorTrials = flag.Int("factor.trials", 2000, "random products in TestFactorRandomProducts")
 
 // TestFactorRandomProducts: on random products of powers of random
-// factors in two and three variables, the factors multiply back to the
+// factors in two, three and four variables, the factors multiply back to the
 // input exactly (mustFactor) and each is proved irreducible by the second
 // route; the planted factors' count bounds the result's from below.
 func TestFactorRandomProducts(t *testing.T) {
-	r, _ := testRing(t, "x", "y", "z")
+	r, _ := testRing(t, "x", "y", "z", "w")
 	rng := rand.New(rand.NewSource(1616))
 	check := rand.New(rand.NewSource(61))
 	trials := *factorTrials
@@ -314,7 +380,7 @@ func TestFactorRandomProducts(t *testing.T) {
 		trials = min(trials, 200)
 	}
 	for trial := 0; trial < trials; trial++ {
-		nv := 2 + trial%2
+		nv := 2 + trial%3
 		p := r.Const(big.NewRat(rng.Int63n(9)-4|1, 1+rng.Int63n(3)))
 		planted := 0
 		for k := 1 + rng.Intn(3); k > 0; k-- {
