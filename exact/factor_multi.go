@@ -274,6 +274,7 @@ func (f *factorer) primitiveIn(P *Poly, x int) ([]*Poly, error) {
 		return []*Poly{P}, nil
 	}
 	// Move the point to the origin.
+	f.say("moving the evaluation point to the origin")
 	shift, back := map[int]*Poly{}, map[int]*Poly{}
 	for i, y := range ys {
 		if a[i] != 0 {

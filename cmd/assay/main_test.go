@@ -76,7 +76,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"poly-unknown-variable.md", 5, `column 15: unknown variable "bb"; the variables are a, b`, nil},
 		{"poly-coefficient-unknown.md", 5, `coefficient(): there is no variable "zz"`, nil},
 		{"poly-collect-two.md", 5, "collect() takes one variable, got 2 (a, b)", nil},
-		{"factor-term-cap.md", 13, "factor() stopped while imposing the leading coefficient on 4 factors: mul: the result would have more than 500 terms", []string{"--max-terms", "500"}},
+		{"factor-term-cap.md", 13, "factor() stopped while moving the evaluation point to the origin: substitute: the result would have more than 200 terms", []string{"--max-terms", "200"}},
 		{"factor-time-limit.md", 15, "stopped after 1s, its time limit, while factoring: ", nil},
 		{"factor-recombination-cap.md", 13, "undecided (van Hoeij's lattice method, which avoids this, is not implemented)", nil},
 		{"factor-not-polynomial.md", 5, "factor() needs a polynomial or an exact number, got a float", nil},
