@@ -106,3 +106,36 @@ func TestFactorizationWithoutListMultivariate(t *testing.T) {
 		}
 	}
 }
+
+// stageRecorder is a coordinator that computes every sample itself and
+// records the stages passed to it.
+type stageRecorder struct {
+	solo
+	stages []string
+}
+
+func (r *stageRecorder) Progress(p claim.Progress) {
+	if p.Claim == "" {
+		r.stages = append(r.stages, p.Stage)
+	}
+}
+
+// A factorization passes its stage to the driver (the first at once,
+// then at most every StageEvery) and clears it when it returns, so that a
+// time limit names what was running and nothing after it.
+func TestFactorPassesStages(t *testing.T) {
+	sess, err := New(DefaultSettings)
+	if err != nil {
+		t.Fatal(err)
+	}
+	defer sess.Close()
+	rec := &stageRecorder{}
+	sess.SetCoordinator(rec)
+	out := sess.Run(Cell{Index: 1, Line: 1, Source: "x, y = variables(\"x y\")\nf = factor(x**4 + 4*y**4)"})
+	if out.Status == cells.Failed {
+		t.Fatalf("%+v", out.Error)
+	}
+	if len(rec.stages) < 2 || rec.stages[0] == "" || rec.stages[len(rec.stages)-1] != "" {
+		t.Errorf("stages %q: want a stage first and the empty stage last", rec.stages)
+	}
+}
