@@ -20,13 +20,11 @@ import (
 	"fmt"
 	"math/big"
 	"slices"
+	"sync"
 )
 
 // Sentinel errors of factorization.
 var (
-	// ErrMultivariate reports a polynomial in more than one variable
-	// where only univariate ones are handled (Factor, IsIrreducible).
-	ErrMultivariate = errors.New("polynomial in more than one variable")
 	// ErrFactorLimit reports a factorization given up at the subset
 	// search cap: the answer is undecided, not "irreducible".
 	ErrFactorLimit = errors.New("factor search limit reached")
@@ -42,42 +40,22 @@ const primeTrials = 5
 
 // Factorization is p = Unit·∏ Factors[i].Factor^Factors[i].Mult, with the
 // factors irreducible over Q, primitive with positive leading
-// coefficients, distinct, and sorted by degree, then by their integer
-// coefficients compared from the highest power down. A constant p has no
-// factors; Unit is then p itself (0 for the zero polynomial).
+// coefficients, distinct, and sorted as cmpFactor says: by total degree,
+// leading monomial, then coefficients. A constant p has no factors; Unit
+// is then p itself (0 for the zero polynomial).
 type Factorization struct {
 	Unit    *big.Rat
 	Factors []FactorPower
 }
 
-// Factor returns the factorization of a univariate p into irreducible
-// factors over Q. A polynomial in two or more variables gives
-// ErrMultivariate; a modular factorization whose recombination would need
-// more than maxSubsets candidate products gives ErrFactorLimit.
-func (p *Poly) Factor() (*Factorization, error) {
-	vs := p.Vars()
-	if len(vs) > 1 {
-		return nil, fmt.Errorf("factor %v: %w (only univariate factorization is implemented)", p, ErrMultivariate)
-	}
-	u, parts, err := p.SquareFree()
-	if err != nil {
-		return nil, err
-	}
-	out := &Factorization{Unit: u}
-	for _, sf := range parts {
-		fs, err := factorSquareFreeZ(toDense(sf.Factor, vs[0]))
-		if err != nil {
-			return nil, err
-		}
-		for _, f := range fs {
-			out.Factors = append(out.Factors, FactorPower{fromDense(p.ring, vs[0], f), sf.Mult})
-		}
-	}
-	slices.SortFunc(out.Factors, func(a, b FactorPower) int { return cmpFactor(a.Factor, b.Factor) })
-	return out, nil
-}
+// Factor returns the factorization of p into irreducible factors over Q,
+// in any number of variables (factor_multi.go for several). A modular
+// factorization whose recombination would need more than maxSubsets
+// candidate products, or a multivariate one past maxLiftSubsets lifts,
+// gives ErrFactorLimit: undecided, not irreducible.
+func (p *Poly) Factor() (*Factorization, error) { return p.FactorStages(nil) }
 
-// IsIrreducible reports whether a univariate p is irreducible over Q:
+// IsIrreducible reports whether p is irreducible over Q:
 // not constant, and not a product of two non-constant polynomials.
 func (p *Poly) IsIrreducible() (bool, error) {
 	if p.isConst() || p.IsZero() {
@@ -90,17 +68,48 @@ func (p *Poly) IsIrreducible() (bool, error) {
 	return len(f.Factors) == 1 && f.Factors[0].Mult == 1, nil
 }
 
-// cmpFactor orders univariate factors by degree, then by coefficients
-// from the highest power down.
+// cmpFactor orders factors by total degree; then by leading monomial,
+// the larger in the ring's term order first (a − b before b − c); then
+// term by term from the largest monomial down: at the first monomial
+// where the coefficients differ (an absent term counts as 0), the smaller
+// coefficient comes first. For one variable this is the degree, then the
+// coefficients from the highest power down.
 func cmpFactor(a, b *Poly) int {
 	if c := a.Degree() - b.Degree(); c != 0 {
 		return c
 	}
-	v := a.Vars()[0]
-	da, db := toDense(a, v), toDense(b, v)
-	for i := len(da) - 1; i >= 0; i-- {
-		if c := da[i].Cmp(db[i]); c != 0 {
-			return c
+	w := max(a.w, b.w)
+	am, bm := a.monoW(w), b.monoW(w)
+	if c := monoCmp(am[:w], bm[:w]); c != 0 {
+		return -c
+	}
+	i, j := 0, 0
+	for i < a.n() || j < b.n() {
+		c := 0
+		switch {
+		case j == b.n():
+			c = 1
+		case i == a.n():
+			c = -1
+		default:
+			c = monoCmp(am[i*w:(i+1)*w], bm[j*w:(j+1)*w])
+		}
+		switch c {
+		case 1:
+			if s := a.numSign(i); s != 0 {
+				return s
+			}
+			i++
+		case -1:
+			if s := b.numSign(j); s != 0 {
+				return -s
+			}
+			j++
+		default:
+			if d := a.coefAt(i).Cmp(b.coefAt(j)); d != 0 {
+				return d
+			}
+			i, j = i+1, j+1
 		}
 	}
 	return 0
@@ -188,8 +197,10 @@ func choosePrime(f []*big.Int) (uint64, [][]uint64, error) {
 
 const primeSieveLimit = 1 << 16
 
-// smallPrimes returns the odd primes below primeSieveLimit.
-func smallPrimes() []uint64 {
+// smallPrimes returns the odd primes below primeSieveLimit, sieved once
+// (every univariate factorization asks, and the multivariate method
+// factors many images).
+var smallPrimes = sync.OnceValue(func() []uint64 {
 	composite := make([]bool, primeSieveLimit)
 	var out []uint64
 	for i := 3; i < primeSieveLimit; i += 2 {
@@ -202,7 +213,7 @@ func smallPrimes() []uint64 {
 		}
 	}
 	return out
-}
+})
 
 // mignotte returns a bound on the coefficients of l·g/lc(g) for every
 // factor g of f over Z, l = lc(f): by Mignotte's inequality (M. Mignotte,
@@ -229,38 +240,56 @@ func mignotte(f []*big.Int) *big.Int {
 // the number left, the rest of f is irreducible.
 func recombine(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64, limit int) ([][]*big.Int, error) {
 	var out [][]*big.Int
-	T := lifted
+	l := f[len(f)-1]
+	ok, _ := subsetSearch(lifted, limit, func(T [][]*big.Int, S []int, _ int) (bool, error) {
+		if !constantTermPasses(f, T, S, M) {
+			return false, nil
+		}
+		g := []*big.Int{new(big.Int).Set(l)}
+		for _, i := range S {
+			g = zMod(zMul(g, T[i]), M)
+		}
+		g = zPrimitive(zSym(g, M))
+		q, ok := zDivExact(f, g)
+		if ok {
+			out, f = append(out, g), q
+		}
+		return ok, nil
+	})
+	if !ok {
+		return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
+	}
+	return append(out, f), nil
+}
+
+// subsetSearch is the search of Zassenhaus's recombination over the
+// items T: for subsets S of size s = 1, 2, …, found(T, S, tried) says
+// whether S gives a factor (and records it); a found S leaves T, and the
+// search ends when 2s passes the number of items left, whose product is
+// then irreducible. False means it gave up after limit subsets.
+func subsetSearch[E any](T []E, limit int, found func(T []E, S []int, tried int) (bool, error)) (bool, error) {
 	tried := 0
 	for s := 1; 2*s <= len(T); {
-		found := false
+		hit := false
 		for S := range combinations(len(T), s) {
 			if tried++; tried > limit {
-				return nil, fmt.Errorf("factor: the %d factors modulo %d need more than %d trial products to recombine; undecided (van Hoeij's lattice method, which avoids this, is not implemented): %w", len(lifted), p, limit, ErrFactorLimit)
+				return false, nil
 			}
-			if !constantTermPasses(f, T, S, M) {
-				continue
+			ok, err := found(T, S, tried)
+			if err != nil {
+				return false, err
 			}
-			l := f[len(f)-1]
-			g := []*big.Int{new(big.Int).Set(l)}
-			for _, i := range S {
-				g = zMod(zMul(g, T[i]), M)
+			if ok {
+				T = removeIndices(T, S)
+				hit = true
+				break
 			}
-			g = zPrimitive(zSym(g, M))
-			q, ok := zDivExact(f, g)
-			if !ok {
-				continue
-			}
-			out = append(out, g)
-			f = q
-			T = removeIndices(T, S)
-			found = true
-			break
 		}
-		if !found {
+		if !hit {
 			s++
 		}
 	}
-	return append(out, f), nil
+	return true, nil
 }
 
 // constantTermPasses is a cheap necessary test for a subset: a true
@@ -310,8 +339,9 @@ func combinations(n, k int) func(yield func([]int) bool) {
 	}
 }
 
-func removeIndices(T [][]*big.Int, S []int) [][]*big.Int {
-	var out [][]*big.Int
+// removeIndices returns the items of T whose indices are not in S.
+func removeIndices[E any](T []E, S []int) []E {
+	var out []E
 	for i, t := range T {
 		if !slices.Contains(S, i) {
 			out = append(out, t)

@@ -65,6 +65,7 @@ type worker struct {
 	catching bool
 	due      time.Time
 	late     func() error // the error when due passes
+	stage    string       // the stage of a long computation in its cell, "" when none
 }
 
 type settledTally struct {
@@ -184,9 +185,13 @@ func (e *replayError) Error() string {
 	return fmt.Sprintf("replay of cell %d (line %d), to run the cells after a failed one: %v", e.cell.Index, e.cell.Line, e.err)
 }
 
-// timeLimit is the error of a cell or replay stopped by its time limit.
-func timeLimit(what string, timeout time.Duration) error {
-	return &proto.LimitError{Message: fmt.Sprintf("%sstopped after %s, its time limit; raise it with the cell option timeout=… or the flag --timeout", what, timeout)}
+// timeLimit is the error of a cell or replay stopped by its time limit,
+// naming the stage of the long computation it was in, if one was reported.
+func timeLimit(what string, timeout time.Duration, stage string) error {
+	if stage != "" {
+		stage = ", while factoring: " + stage
+	}
+	return &proto.LimitError{Message: fmt.Sprintf("%sstopped after %s, its time limit%s; raise it with the cell option timeout=… or the flag --timeout", what, timeout, stage)}
 }
 
 // cellClock measures the current cell's time. It stops while helpers
@@ -227,7 +232,7 @@ func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, sess
 	}
 	d.current = ran{cell: c, timeout: timeout}
 	for _, w := range d.workers {
-		w.final = nil
+		w.final, w.stage = nil, ""
 		w.queue = append(w.queue, d.current)
 		if err := d.next(w); err != nil {
 			return d.abort(err)
@@ -243,7 +248,7 @@ func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, sess
 		// The nearest limit: the cell's, while its clock runs, or that of
 		// a helper's step in catching up.
 		now := time.Now()
-		late := func() error { return timeLimit("", timeout) }
+		late := func() error { return timeLimit("", timeout, d.workers[0].stage) }
 		clock.set(!d.catchingUp(), now)
 		wait, running := clock.left(timeout, now)
 		for _, w := range d.workers {
@@ -322,7 +327,7 @@ func (d *driver) next(w *worker) error {
 		// run of the current cell up to where the main kernel waits.
 		w.due = time.Now().Add(r.timeout)
 		w.late = func() error {
-			return d.named(w, timeLimit(fmt.Sprintf("replay of cell %d (line %d): ", r.cell.Index, r.cell.Line), r.timeout))
+			return d.named(w, timeLimit(fmt.Sprintf("replay of cell %d (line %d): ", r.cell.Index, r.cell.Line), r.timeout, w.stage))
 		}
 	}
 	return d.named(w, w.p.Send(proto.Request{Op: "run", Cell: &r.cell}))
@@ -359,6 +364,9 @@ func (d *driver) receive(m proto.Message) error {
 	r := m.Reply
 	switch {
 	case r.Progress != nil:
+		if r.Progress.Claim == "" {
+			w.stage = r.Progress.Stage
+		}
 		d.progress.update(w.index, *r.Progress)
 		return nil
 	case r.Exchange != nil:

@@ -29,7 +29,7 @@ func newProgressLine(w io.Writer) *progressLine {
 
 // update records a worker's count and redraws the line.
 func (p *progressLine) update(worker int, pr claim.Progress) {
-	if p == nil {
+	if p == nil || pr.Claim == "" { // a stage, not a sweep's count
 		return
 	}
 	if pr.Claim != p.claim {

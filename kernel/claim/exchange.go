@@ -43,9 +43,13 @@ type Answer struct {
 	Error  string `json:"error,omitempty"`
 }
 
-// Progress is a kernel's count of the samples it has done in a sweep.
+// Progress is a kernel's count of the samples it has done in a sweep,
+// or, with Stage set and no Claim, the stage a long computation is in.
 type Progress struct {
 	Claim string `json:"claim"`
 	Done  int64  `json:"done"`
 	Total int64  `json:"total"` // samples in this kernel's share
+	// Stage names what a long computation (factoring) is doing, so that
+	// a cell stopped by its time limit can say it; "" when it is done.
+	Stage string `json:"stage,omitempty"`
 }

@@ -58,6 +58,22 @@ func (s *Session) distribute(a claim.Ask, compute func(claim.Share) claim.Tally)
 	return *ans.Result, nil
 }
 
+// StageEvery is how often at most a long computation's stage is passed
+// to the driver.
+const StageEvery = 100 * time.Millisecond
+
+// stage passes the stage of a long computation (values.Env.Stage) to the
+// driver, at most every StageEvery: a computation reports each step, so
+// the stage the driver holds is at most that much behind. "" (the
+// computation returned) is passed at once when a stage was.
+func (s *Session) stage(st string) {
+	if st == s.stageSent || st != "" && time.Since(s.stageAt) < StageEvery {
+		return
+	}
+	s.stageSent, s.stageAt = st, time.Now()
+	s.coord.Progress(claim.Progress{Stage: st})
+}
+
 // ProgressEvery is how often a sweep reports how far it has got.
 const ProgressEvery = 250 * time.Millisecond
 

@@ -16,7 +16,7 @@ import (
 
 const factorizationDoc = `factorization(name, p, [f1, f2, ...]) checks p == u * f1 * f2 * ... for
 a rational unit u that the check finds; a factor may be given as (f, k) for f**k.
-factorization(name, p) with no list factors p (one variable) over Q and states the result.`
+factorization(name, p) with no list factors p over Q (any number of variables) and states the result.`
 
 func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) error {
 	p, ok := s.env.Poly(a.Get("p"))
@@ -54,7 +54,7 @@ func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) e
 	if diff.IsZero() {
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("p = u · (product of the factors) with u = %s exactly (%s): a proof of the factorization", exact.FormatRat(unit), factors)
-		c.Note += factorsFurther(given)
+		c.Note += s.factorsFurther(given)
 	} else {
 		c.Verdict = cells.Fails
 		c.Note = fmt.Sprintf("p − u · (product of the factors) is not zero for u = %s, the ratio of leading coefficients (%s)", exact.FormatRat(unit), factors)
@@ -97,13 +97,12 @@ func (s *Session) checkFactors(p *exact.Poly, given []exact.FactorPower) (*big.R
 
 // foundFactorization factors p over Q and states the result as a claim:
 // the product is multiplied out and compared with p exactly, and the
-// factors' irreducibility is what the exhaustive recombination of
-// exact.Factor established.
+// factors' irreducibility is what the method of exact.Factor established.
 func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
 	if p.IsZero() {
 		return py.ExceptionNewf(py.ValueError, "factorization(): p is 0, which has no factorization into irreducibles; give a nonzero polynomial")
 	}
-	f, err := s.env.Factor("factorization()", p)
+	f, err := s.env.Factor(p)
 	if err != nil {
 		return err
 	}
@@ -113,7 +112,7 @@ func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
 	}
 	c.Method = claim.PolyMethod
 	c.Residual = claim.Preview(diff)
-	if !diff.IsZero() { // cannot happen: exact.Factor checks its product
+	if !diff.IsZero() { // cannot happen: the factors are checked by exact division
 		return fmt.Errorf("factorization(): internal error: the factors found do not multiply back to p")
 	}
 	c.Verdict = cells.Holds
@@ -121,38 +120,28 @@ func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
 		c.Note = fmt.Sprintf("p = %s is a constant: a unit with no irreducible factors", exact.FormatRat(unit))
 		return nil
 	}
-	c.Note = fmt.Sprintf("p = u·f₁^k₁·… = %s, factors irreducible over Q (%s), with u = %s exactly; found by factoring, irreducibility established by the algorithm (factors modulo a prime, Hensel lifting, and an exhaustive search over products of the modular factors, Zassenhaus)", claim.Clip(productText(unit, f.Factors), 400), factors, exact.FormatRat(unit))
+	how := "factors modulo a prime, Hensel lifting, and an exhaustive search over products of the modular factors, Zassenhaus"
+	if len(p.Vars()) > 1 {
+		how = "content in a main variable, then for the primitive part an evaluation point that keeps its degree and square-freeness, where an irreducible image proves a factor irreducible; the image's factors lifted by multivariate Hensel lifting, Wang, and subsets of them tried when a lift fails; univariate images by " + how
+	}
+	c.Note = fmt.Sprintf("p = u·f₁^k₁·… = %s, factors irreducible over Q (%s), with u = %s exactly; found by factoring, irreducibility established by the algorithm (%s)", claim.Clip(f.String(), 400), factors, exact.FormatRat(unit), how)
 	return nil
 }
 
-// productText writes u·(f₁)^k₁·(f₂)·… readably.
-func productText(unit *big.Rat, fs []exact.FactorPower) string {
-	parts := []string{exact.FormatRat(unit)}
-	for _, f := range fs {
-		t := "(" + f.Factor.String() + ")"
-		if f.Mult > 1 {
-			t += fmt.Sprintf("^%d", f.Mult)
-		}
-		parts = append(parts, t)
-	}
-	return strings.Join(parts, "·")
-}
-
-// factorsFurther names the given factors in one variable that are not
-// irreducible over Q, with their factorization; factors in several
-// variables are not examined (multivariate factorization is not
-// implemented), and one whose search hits the cap is passed over.
-func factorsFurther(given []exact.FactorPower) string {
+// factorsFurther names the given factors that are not irreducible over
+// Q, with their factorization; a factor whose factorization stops at a
+// search cap is passed over.
+func (s *Session) factorsFurther(given []exact.FactorPower) string {
 	var out []string
 	for _, g := range given {
-		if len(g.Factor.Vars()) != 1 || g.Factor.Degree() < 2 {
+		if g.Factor.Degree() < 2 {
 			continue
 		}
-		f, err := g.Factor.Factor()
+		f, err := s.env.Factor(g.Factor)
 		if err != nil || len(f.Factors) == 1 && f.Factors[0].Mult == 1 {
 			continue
 		}
-		out = append(out, fmt.Sprintf("%s = %s", claim.Clip(g.Factor.String(), 200), claim.Clip(productText(f.Unit, f.Factors), 200)))
+		out = append(out, fmt.Sprintf("%s = %s", claim.Clip(g.Factor.String(), 200), claim.Clip(f.String(), 200)))
 	}
 	if len(out) == 0 {
 		return ""

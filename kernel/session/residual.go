@@ -30,6 +30,13 @@ func (s *Session) target(fn string, a interp.Args) (claim.Target, error) {
 // matrices, k-vectors, or lists and tuples of them. Floats are refused:
 // they would make "holds" a statement about rounding.
 func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, error) {
+	// A factorization compares as its pair (unit, [(f1, k1), ...]).
+	if f, ok := lhs.(*values.Factored); ok {
+		lhs = f.Pair()
+	}
+	if f, ok := rhs.(*values.Factored); ok {
+		rhs = f.Pair()
+	}
 	_, lp := lhs.(*values.Polynomial)
 	_, rp := rhs.(*values.Polynomial)
 	_, lr := lhs.(*values.Real)

@@ -54,6 +54,10 @@ type Session struct {
 	// elsewhere is the time other kernels spent on the claim being made,
 	// when their result came whole (a merge of shard parts).
 	elsewhere float64
+	// stageSent and stageAt are the last stage passed to the driver, and
+	// when (stage in coordinator.go).
+	stageSent string
+	stageAt   time.Time
 
 	// Per-cell state, reset by Run.
 	cell      int
@@ -79,6 +83,7 @@ func New(s Settings) (*Session, error) {
 	}
 	pyext.Install(sb.Builtins())
 	sess := &Session{sandbox: sb, env: env, settings: s, claimAt: map[string]int{}, coord: solo{}}
+	env.Stage = sess.stage
 	sess.install(sb.Builtins().Globals)
 	stream := &outputStream{s: sess}
 	sys := sb.Sys()

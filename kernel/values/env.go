@@ -27,6 +27,10 @@ type Env struct {
 	// Sweeping is on inside a sampled claim's f or g, where sample k may
 	// be computed by any kernel in any order.
 	Sweeping bool
+	// Stage, when set, hears the stage a long computation (factoring) is
+	// in, so that a cell stopped by its time limit can say what was
+	// running; "" when the computation returns.
+	Stage func(string)
 
 	seed  int64  // seed in force for this cell
 	cell  int    // the cell running

@@ -158,7 +158,7 @@ func (e *Env) polynomialBuiltins(b py.StringDict) {
 		{"gcd", params("p", "q"), "gcd(p, q) -> greatest common divisor over Q, leading coefficient 1", e.gcd},
 		{"resultant", params("p", "q", "variable"), "resultant(p, q, \"x\") -> the resultant of p and q with respect to x", e.resultant},
 		{"discriminant", params("p", "variable"), "discriminant(p, \"x\") -> the discriminant of p with respect to x", e.discriminant},
-		{"factor", params("p"), "factor(p) -> (u, [(f1, k1), ...]): p = u * f1**k1 * ..., the fi irreducible over Q, primitive, positive leading coefficient, by degree then coefficients (one variable only)", e.factor},
+		{"factor", params("p"), "factor(p) -> p = u * f1**k1 * ..., printed as that product and unpacked as (u, [(f1, k1), ...]); the fi irreducible over Q, primitive, positive leading coefficient, sorted by degree, leading monomial, coefficients; any number of variables", e.factor},
 	})
 }
 
@@ -268,7 +268,7 @@ func init() {
 		{"content", nil, "p.content() -> the rational c with p = c * p.primitive_part()", (*Polynomial).content},
 		{"primitive_part", nil, "p.primitive_part() -> p divided by its content: coprime integer coefficients, positive leading one", (*Polynomial).primitivePart},
 		{"squarefree", nil, "p.squarefree() -> [(s1, 1), (s2, 2), ...]: p = p.content() * s1 * s2**2 * ..., the si square-free and coprime (Yun; parts equal to 1 left out)", (*Polynomial).squarefree},
-		{"is_irreducible", nil, "p.is_irreducible() -> True when p (one variable) is irreducible over Q; False for constants", (*Polynomial).isIrreducible},
+		{"is_irreducible", nil, "p.is_irreducible() -> True when p is irreducible over Q; False for constants", (*Polynomial).isIrreducible},
 		{"is_homogeneous", nil, "p.is_homogeneous() -> True when every term has the same total degree", (*Polynomial).isHomogeneous},
 		{"variables", nil, "p.variables() -> the names of the variables that occur in p", (*Polynomial).variables},
 	})
