@@ -382,13 +382,6 @@ func pointCandidate(rng *rand.Rand, try, n int) []int64 {
 	return a
 }
 
-func clipText(s string) string {
-	if len(s) > 120 {
-		return s[:117] + "..."
-	}
-	return s
-}
-
 // recombine lifts the images of P (point at the origin) to the
 // irreducible factors of P: all at once, else by subsets (steps 3, 4), at
 // most limit of them.

@@ -117,18 +117,6 @@ func quoExact(p, q *Poly) (*Poly, error) {
 	return r, nil
 }
 
-// mulAll multiplies polynomials (the first must not be nil).
-func mulAll(ps ...*Poly) (*Poly, error) {
-	out := ps[0]
-	for _, p := range ps[1:] {
-		var err error
-		if out, err = out.Mul(p); err != nil {
-			return nil, err
-		}
-	}
-	return out, nil
-}
-
 // Neg returns −f.
 func (f *RatFunc) Neg() *RatFunc { return &RatFunc{num: f.num.Neg(), den: f.den} }
 
@@ -177,7 +165,7 @@ func (f *RatFunc) addSub(g *RatFunc, sub bool) (*RatFunc, error) {
 	if err != nil {
 		return nil, err
 	}
-	den, err := mulAll(b, d, gh)
+	den, err := mulAll(b.ring, []*Poly{b, d, gh})
 	if err != nil {
 		return nil, err
 	}
@@ -430,7 +418,7 @@ func (h *homState) subst(p *Poly, i int) (*Poly, error) {
 		if err != nil {
 			return nil, err
 		}
-		t, err := mulAll(c, a, b)
+		t, err := mulAll(c.ring, []*Poly{c, a, b})
 		if err != nil {
 			return nil, err
 		}

@@ -399,7 +399,7 @@ func TestRatFuncMatrixRandomSolve(t *testing.T) {
 		if err != nil {
 			t.Fatal(err)
 		}
-		prod, err := mulAll(ds...)
+		prod, err := mulAll(ds[0].ring, ds)
 		if err != nil {
 			t.Fatal(err)
 		}
