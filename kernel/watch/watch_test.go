@@ -32,6 +32,7 @@ func TestMain(m *testing.M) {
 
 // started is a server running on a temporary notebook.
 type started struct {
+	*Server
 	path string // the notebook
 	url  string
 	host string
@@ -52,7 +53,8 @@ func start(t testing.TB, text string) started {
 	opt := kernel.Options{Settings: session.DefaultSettings, Command: []string{os.Args[0]}, Workers: 1, Timeout: time.Minute}
 	ctx, cancel := context.WithCancel(context.Background())
 	done := make(chan error, 1)
-	go func() { done <- New(path, opt, nil).Serve(ctx, ln) }()
+	srv := New(path, opt, nil)
+	go func() { done <- srv.Serve(ctx, ln) }()
 	t.Cleanup(func() {
 		cancel()
 		if err := <-done; err != nil {
@@ -60,7 +62,7 @@ func start(t testing.TB, text string) started {
 		}
 		os.Unsetenv("ASSAY_TEST_KERNEL")
 	})
-	return started{path: path, url: URL(ln), host: ln.Addr().String()}
+	return started{Server: srv, path: path, url: URL(ln), host: ln.Addr().String()}
 }
 
 // save writes a new version of the notebook, as an editor saves it.
