@@ -8,9 +8,8 @@ import (
 )
 
 // slowCells is a notebook of 19 cells of about 0.1 s each on the 2-core
-// machine (the benchmark reports the first run's time)
-// (a loop of 5·10^5 additions), then a cell with a claim that the
-// benchmark edits.
+// machine (a loop of 5·10^5 additions; the benchmark reports the first
+// run's time), then a cell with a claim that the benchmark edits.
 func slowCells(last string) string {
 	var b strings.Builder
 	b.WriteString("# Twenty cells\n")

@@ -21,12 +21,7 @@ import (
 // TestMain lets the test binary stand in for `assay kernel` when the
 // server starts it as a child process.
 func TestMain(m *testing.M) {
-	if os.Getenv("ASSAY_TEST_KERNEL") == "1" {
-		if err := proto.ServeChild(os.Stdin, os.Stdout); err != nil {
-			os.Exit(2)
-		}
-		os.Exit(0)
-	}
+	proto.ServeTestKernel()
 	os.Exit(m.Run())
 }
 
