@@ -24,6 +24,11 @@ type Live struct {
 	quit chan struct{} // closed by Close: calls off a run and the replays
 	once sync.Once
 
+	// stop is closed to call off the run in progress (Interrupt, Close);
+	// a new one for each run.
+	stopMu sync.Mutex
+	stop   chan struct{}
+
 	mu    sync.Mutex // one run at a time
 	ran   bool       // a run has been made
 	last  []ran      // the cells of the last run
@@ -32,6 +37,8 @@ type Live struct {
 	prec  int
 	main  *driver // the last run's kernel: it has run last[:len(main.history)]
 	spare *spare
+	// background counts the spares being ended without waiting for them.
+	background sync.WaitGroup
 }
 
 // NewLive prepares live runs with opt (Options.Command must start kernel
@@ -61,6 +68,7 @@ func (l *Live) Run(nb *cells.Notebook) *cells.Report {
 	}
 	first := !l.ran
 	l.ran = true
+	stop := l.newStop()
 	d, from := l.pick(cs, j)
 	copy(rep.Outcomes[:from], l.outs[:from])
 	if from > 0 {
@@ -73,7 +81,7 @@ func (l *Live) Run(nb *cells.Notebook) *cells.Report {
 		}
 	}
 	if d != nil {
-		d.cancel = l.quit
+		d.cancel = stop
 		if !runCells(d, rep, list, from, l.opt) {
 			d.close()
 			d = nil
@@ -115,16 +123,30 @@ func (l *Live) pick(cs []ran, j int) (d *driver, from int) {
 		}
 		return len(d.history)
 	}
+	m := fits(l.main)
 	var sd *driver
 	if l.spare != nil {
 		k := 0
 		for k < j && k < len(l.spare.want) && sameCell(l.spare.want[k], cs[k]) {
 			k++
 		}
-		sd = l.spare.take(k)
+		if k > m {
+			sd = l.spare.take(k)
+		} else {
+			// It cannot do better than the last run's kernel: end it
+			// without waiting for it.
+			sp := l.spare
+			l.background.Add(1)
+			go func() {
+				defer l.background.Done()
+				if d := sp.take(0); d != nil {
+					d.close()
+				}
+			}()
+		}
 		l.spare = nil
 	}
-	m, s := fits(l.main), fits(sd)
+	s := fits(sd)
 	if m < s {
 		l.main, sd, m = sd, l.main, s
 	}
@@ -165,6 +187,7 @@ func (l *Live) Ready() {
 // be called after it.
 func (l *Live) Close() {
 	l.once.Do(func() { close(l.quit) })
+	l.Interrupt()
 	l.mu.Lock()
 	defer l.mu.Unlock()
 	if l.spare != nil {
@@ -176,6 +199,33 @@ func (l *Live) Close() {
 	if l.main != nil {
 		l.main.close()
 		l.main = nil
+	}
+	l.background.Wait()
+}
+
+// newStop makes the channel that calls off this run, already closed
+// after Close.
+func (l *Live) newStop() chan struct{} {
+	l.stopMu.Lock()
+	defer l.stopMu.Unlock()
+	l.stop = make(chan struct{})
+	if l.stopped() {
+		close(l.stop)
+	}
+	return l.stop
+}
+
+// Interrupt calls off the run in progress, if any: its cell stops with an
+// error and its kernel ends (a newer version of the notebook is waiting).
+func (l *Live) Interrupt() {
+	l.stopMu.Lock()
+	defer l.stopMu.Unlock()
+	if l.stop != nil {
+		select {
+		case <-l.stop:
+		default:
+			close(l.stop)
+		}
 	}
 }
 

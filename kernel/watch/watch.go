@@ -120,33 +120,56 @@ func (s *Server) Serve(ctx context.Context, ln net.Listener) error {
 }
 
 // watch runs the notebook at the start and after each change of its file.
+// A change in the middle of a run calls that run off, and its report is
+// not shown: the new version runs at once.
 func (s *Server) watch(ctx context.Context) {
-	tick := time.NewTicker(Poll)
-	defer tick.Stop()
-	var last [sha256.Size]byte
-	first := true
+	changed := make(chan struct{}, 1)
+	changed <- struct{}{}
+	go func() {
+		tick := time.NewTicker(Poll)
+		defer tick.Stop()
+		last := fileSum(s.path)
+		for {
+			select {
+			case <-ctx.Done():
+				return
+			case <-tick.C:
+			}
+			if sum := fileSum(s.path); sum != last {
+				last = sum
+				s.live.Interrupt()
+				select {
+				case changed <- struct{}{}:
+				default:
+				}
+			}
+		}
+	}()
 	for {
-		src, err := os.ReadFile(s.path)
-		sum := sha256.Sum256(src)
-		if err != nil {
-			sum = sha256.Sum256([]byte("unreadable: " + err.Error()))
-		}
-		if first || sum != last {
-			first, last = false, sum
-			s.runOnce(src, err)
-		}
 		select {
 		case <-ctx.Done():
 			return
-		case <-tick.C:
+		case <-changed:
 		}
+		src, err := os.ReadFile(s.path)
+		s.runOnce(src, err, func() bool { return len(changed) > 0 })
 	}
+}
+
+// fileSum is the SHA-256 of a file's contents, or of why it cannot be read.
+func fileSum(path string) [sha256.Size]byte {
+	src, err := os.ReadFile(path)
+	if err != nil {
+		return sha256.Sum256([]byte("unreadable: " + err.Error()))
+	}
+	return sha256.Sum256(src)
 }
 
 // runOnce runs one version of the notebook and shows its report, or,
 // when it could not be read, parsed or run cleanly, says why and keeps
-// the last good report on the page, marked stale.
-func (s *Server) runOnce(src []byte, readErr error) {
+// the last good report on the page, marked stale. A run that newer says
+// was overtaken by a newer version is not shown.
+func (s *Server) runOnce(src []byte, readErr error, newer func() bool) {
 	if readErr != nil {
 		s.fail(fmt.Sprintf("cannot read %s: %v", s.path, readErr), nil)
 		return
@@ -166,6 +189,9 @@ func (s *Server) runOnce(src []byte, readErr error) {
 	s.mu.Unlock()
 	s.setState(State{Phase: "running", Text: "running…", Stale: stale})
 	rep := s.live.Run(nb)
+	if newer() {
+		return
+	}
 	var errs []string
 	for _, p := range rep.Problems {
 		errs = append(errs, lineMessage(p))

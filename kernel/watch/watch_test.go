@@ -265,3 +265,23 @@ func TestListenLoopbackOnly(t *testing.T) {
 	}
 	ln.Close()
 }
+
+// A save in the middle of a run calls it off and runs the new version.
+func TestSaveCallsOffARun(t *testing.T) {
+	s := start(t, "# Loop\n\n```cell\nx = 1\n```\n\n```cell\nwhile True:\n    pass\n```\n")
+	ev := s.events(t)
+	for {
+		if st, _ := ev.until(t, "running"); strings.HasPrefix(st.Text, "running cell 2") {
+			break
+		}
+	}
+	began := time.Now()
+	s.save(t, "# Loop\n\n```cell\nx = 1\n```\n\n```cell\nidentity(\"one\", x, 1)\n```\n")
+	st, html := ev.until(t, "ok")
+	if !strings.Contains(html, "v-holds") || !strings.Contains(st.Text, "1 holds") {
+		t.Fatalf("after the save: %+v", st)
+	}
+	if d := time.Since(began); d > 10*time.Second {
+		t.Errorf("the new version showed %s after the save", d)
+	}
+}
