@@ -44,6 +44,7 @@ type driver struct {
 	// cancel, when closed, stops the cell being run and ends the kernels
 	// (a watch that stops, or a replay no longer wanted); nil never does.
 	cancel <-chan struct{}
+	from   int // the first cell of the run, for Options.Steps
 }
 
 type ran struct {
@@ -88,11 +89,17 @@ func newDriver(opt Options) (*driver, error) {
 	if opt.Shard.Count > 0 {
 		d.shard = opt.Shard
 	}
+	d.tell(opt)
+	return d, d.start()
+}
+
+// tell sets where the driver shows progress: opt.Progress and opt.Steps
+// (a spare kernel that replayed quietly speaks up once it runs).
+func (d *driver) tell(opt Options) {
 	d.progress = newProgressLine(opt.Progress)
 	if opt.Steps != nil {
-		d.progress = &progressLine{w: opt.Progress, step: opt.Steps, cell: func() (int, int) { return d.current.cell.Index, d.current.cell.Line }}
+		d.progress = &progressLine{w: opt.Progress, step: opt.Steps, cell: func() (int, int, int) { return d.current.cell.Index, d.current.cell.Line, d.from }}
 	}
-	return d, d.start()
 }
 
 // start opens the main kernel.

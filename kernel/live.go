@@ -82,6 +82,7 @@ func (l *Live) Run(nb *cells.Notebook) *cells.Report {
 	}
 	if d != nil {
 		d.cancel = stop
+		d.tell(l.opt)
 		if !runCells(d, rep, list, from, l.opt) {
 			d.close()
 			d = nil

@@ -14,7 +14,7 @@ import (
 type progressLine struct {
 	w     io.Writer // nil when only step is told
 	step  func(Step)
-	cell  func() (index, line int) // the cell running, for step
+	cell  func() (index, line, from int) // the cell running and the run's first, for step
 	claim string
 	began time.Time
 	done  map[int]int64 // by worker
@@ -45,8 +45,8 @@ func (p *progressLine) update(worker int, pr claim.Progress) {
 		total += p.total[i]
 	}
 	if p.step != nil {
-		i, l := p.cell()
-		p.step(Step{Cell: i, Line: l, Claim: pr.Claim, Done: done, Total: total})
+		i, l, f := p.cell()
+		p.step(Step{Cell: i, Line: l, From: f, Claim: pr.Claim, Done: done, Total: total})
 	}
 	if p.w == nil {
 		return

@@ -50,6 +50,7 @@ type Options struct {
 // (Claim empty), or how far the sweep of a sampled claim has got.
 type Step struct {
 	Cell, Line  int    // the cell running, its index and first line
+	From        int    // the first cell this run runs (a live run keeps the results before it)
 	Claim       string // the sweep's claim; empty when the cell starts
 	Done, Total int64  // samples done and to do, summed over workers
 }
@@ -182,6 +183,9 @@ func cellOf(b *cells.Block, opt Options) ran {
 // runCells runs list[from:] in d, whose kernel has run list[:from], and
 // files their outcomes in rep. It says whether d's kernel is still alive.
 func runCells(d *driver, rep *cells.Report, list []*cells.Block, from int, opt Options) (alive bool) {
+	if from < len(list) {
+		d.from = list[from].Index
+	}
 	for i := from; i < len(list); i++ {
 		b := list[i]
 		if opt.Until > 0 && b.Index > opt.Until {
@@ -189,7 +193,7 @@ func runCells(d *driver, rep *cells.Report, list []*cells.Block, from int, opt O
 		}
 		r := cellOf(b, opt)
 		if opt.Steps != nil {
-			opt.Steps(Step{Cell: b.Index, Line: b.Line})
+			opt.Steps(Step{Cell: b.Index, Line: b.Line, From: d.from})
 		}
 		cellStart := time.Now()
 		out, s, err := d.run(r.cell, r.timeout)

@@ -271,9 +271,16 @@ func (s *Server) setState(st State) {
 
 // step shows a cell starting, or a sweep's progress, on the status line.
 func (s *Server) step(st kernel.Step) {
-	text := fmt.Sprintf("running cell %d (line %d)…", st.Cell, st.Line)
+	text := ""
+	if st.From > 1 {
+		text = fmt.Sprintf("cells 1–%d unchanged, kept; ", st.From-1)
+		if st.From == 2 {
+			text = "cell 1 unchanged, kept; "
+		}
+	}
+	text += fmt.Sprintf("running cell %d (line %d)", st.Cell, st.Line)
 	if st.Claim != "" {
-		text = fmt.Sprintf("running cell %d (line %d): %s, %d of %d samples", st.Cell, st.Line, st.Claim, st.Done, st.Total)
+		text += fmt.Sprintf(": %s, %d of %d samples", st.Claim, st.Done, st.Total)
 	}
 	s.mu.Lock()
 	s.state = State{Phase: "running", Text: text, Stale: s.state.Stale}

@@ -4,6 +4,7 @@ import (
 	"bufio"
 	"context"
 	"encoding/json"
+	"fmt"
 	"io"
 	"net"
 	"net/http"
@@ -283,5 +284,44 @@ func TestSaveCallsOffARun(t *testing.T) {
 	}
 	if d := time.Since(began); d > 10*time.Second {
 		t.Errorf("the new version showed %s after the save", d)
+	}
+}
+
+// states reads events until an "ok" state, and returns the status texts
+// on the way.
+func (s *stream) states(t *testing.T) []string {
+	t.Helper()
+	var texts []string
+	for {
+		name, data := s.next(t)
+		if name != "state" {
+			continue
+		}
+		var st State
+		if err := json.Unmarshal([]byte(data), &st); err != nil {
+			t.Fatal(err)
+		}
+		texts = append(texts, st.Text)
+		if st.Phase != "running" {
+			return texts
+		}
+	}
+}
+
+// The status line says which cells are kept and which run, and how far a
+// long sweep has got.
+func TestStatusSaysWhatRuns(t *testing.T) {
+	const nb = "# Status\n\n```cell\nx = 1\n```\n\n```cell\ny = 2\n```\n\n```cell\n%s\n```\n"
+	sweep := `identity("sums", lambda k: (sum(range(3000)), 4498500), over=lambda k: k, samples=%d)`
+	s := start(t, strings.Replace(nb, "%s", "z = 3", 1))
+	ev := s.events(t)
+	ev.states(t)
+	s.save(t, strings.Replace(nb, "%s", fmt.Sprintf(sweep, 4000), 1))
+	texts := strings.Join(ev.states(t), "\n")
+	// 0 + 1 + … + 2999 = 2999·3000/2 = 4498500 (Gauss's sum).
+	if !strings.Contains(texts, "cells 1–2 unchanged, kept; running cell 3 (line 12)") ||
+		!strings.Contains(texts, `running cell 3 (line 12): sums, `) || !strings.Contains(texts, " of 4000 samples") ||
+		strings.Contains(texts, "running cell 1") || strings.Contains(texts, "running cell 2") || !strings.Contains(texts, "1 holds") {
+		t.Errorf("status lines:\n%s", texts)
 	}
 }
