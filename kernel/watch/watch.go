@@ -28,6 +28,7 @@ import (
 
 	"assay/cells"
 	"assay/kernel"
+	"assay/kernel/claim"
 )
 
 // Poll is how often the notebook file is read to see whether it changed.
@@ -91,6 +92,8 @@ func URL(ln net.Listener) string { return "http://" + ln.Addr().String() + "/" }
 // changes, until ctx ends; then it calls off a run in progress, ends the
 // kernels and returns.
 func (s *Server) Serve(ctx context.Context, ln net.Listener) error {
+	ctx, cancel := context.WithCancel(ctx) // also ends the watching when serving fails
+	defer cancel()
 	s.mu.Lock()
 	s.host = ln.Addr().String()
 	s.mu.Unlock()
@@ -107,11 +110,12 @@ func (s *Server) Serve(ctx context.Context, ln net.Listener) error {
 	case <-ctx.Done():
 	case err = <-served:
 	}
+	cancel()
 	s.live.Close() // calls off the run in progress
 	<-watched
 	close(s.done) // ends the event streams
-	shut, cancel := context.WithTimeout(context.Background(), 5*time.Second)
-	defer cancel()
+	shut, stop := context.WithTimeout(context.Background(), 5*time.Second)
+	defer stop()
 	srv.Shutdown(shut)
 	if errors.Is(err, http.ErrServerClosed) {
 		err = nil
@@ -280,7 +284,7 @@ func (s *Server) step(st kernel.Step) {
 	}
 	text += fmt.Sprintf("running cell %d (line %d)", st.Cell, st.Line)
 	if st.Claim != "" {
-		text += fmt.Sprintf(": %s, %d of %d samples", st.Claim, st.Done, st.Total)
+		text += fmt.Sprintf(": %s, %d of %d samples", claim.Clip(st.Claim, 48), st.Done, st.Total)
 	}
 	s.mu.Lock()
 	s.state = State{Phase: "running", Text: text, Stale: s.state.Stale}
