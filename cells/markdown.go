@@ -418,6 +418,10 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 	}
 	switch o.Status {
 	case NotRun:
+		if w.r.Until > 0 && b.Index > w.r.Until {
+			paras = append(paras, name+fmt.Sprintf(" was not run: the run stopped after cell %d, as --until asked.", w.r.Until))
+			break
+		}
 		paras = append(paras, name+" was not run: an earlier cell stopped with an error.")
 	case Failed:
 		paras = append(paras, name+" stopped with an error after "+seconds(o.Seconds)+".")

@@ -240,4 +240,8 @@ type Report struct {
 	// (FigureFiles) and the Markdown report links to them; when empty, no
 	// figure files are made and the Markdown report only names its figures.
 	FigureBase string
+	// Until, when positive, is the index of the last cell the run was
+	// asked to run (assay run --until): the cells after it are not run,
+	// and the report says why.
+	Until int
 }

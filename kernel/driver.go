@@ -41,6 +41,10 @@ type driver struct {
 	parts     *partSet    // merge mode
 	collected []PartClaim // shard mode: this shard's tallies, in order
 	progress  *progressLine
+	// cancel, when closed, stops the cell being run and ends the kernels
+	// (a watch that stops, or a replay no longer wanted); nil never does.
+	cancel <-chan struct{}
+	from   int // the first cell of the run, for Options.Steps
 }
 
 type ran struct {
@@ -86,8 +90,17 @@ func newDriver(opt Options) (*driver, error) {
 	if opt.Shard.Count > 0 {
 		d.shard = opt.Shard
 	}
-	d.progress = newProgressLine(opt.Progress)
+	d.tell(opt)
 	return d, d.start()
+}
+
+// tell sets where the driver shows progress: opt.Progress and opt.Steps
+// (a spare kernel that replayed quietly speaks up once it runs).
+func (d *driver) tell(opt Options) {
+	d.progress = newProgressLine(opt.Progress)
+	if opt.Steps != nil {
+		d.progress = &progressLine{w: opt.Progress, step: opt.Steps, cell: func() (int, int, int) { return d.current.cell.Index, d.current.cell.Line, d.from }}
+	}
 }
 
 // start opens the main kernel.
@@ -225,12 +238,12 @@ func (c *cellClock) left(limit time.Duration, now time.Time) (time.Duration, boo
 // A crossed limit or a dead process is a *LimitError; the kernels are then
 // unusable until restart.
 func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, session.Settings, error) {
+	d.current = ran{cell: c, timeout: timeout}
 	if d.sess != nil {
 		o := d.sess.Run(c)
 		d.history = append(d.history, ran{cell: c, timeout: timeout, failed: o.Status == cells.Failed})
 		return o, d.sess.Settings(), nil
 	}
-	d.current = ran{cell: c, timeout: timeout}
 	for _, w := range d.workers {
 		w.final, w.stage = nil, ""
 		w.queue = append(w.queue, d.current)
@@ -267,6 +280,8 @@ func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, sess
 			}
 		case <-timer.C:
 			return d.abort(late())
+		case <-d.cancel:
+			return d.abort(errStopped)
 		}
 	}
 	d.progress.clear()
@@ -280,6 +295,19 @@ func (d *driver) run(c session.Cell, timeout time.Duration) (cells.Outcome, sess
 	}
 	d.history = append(d.history, ran{cell: c, timeout: timeout, failed: out.Status == cells.Failed})
 	return out, main.Settings, nil
+}
+
+// errStopped is the error of a cell stopped because its run was called off.
+var errStopped = errors.New("stopped: the run was called off")
+
+// stopped says the driver's run was called off.
+func (d *driver) stopped() bool {
+	select {
+	case <-d.cancel:
+		return d.cancel != nil
+	default:
+		return false
+	}
 }
 
 // catchingUp says a helper is still catching up with the main kernel.

@@ -20,12 +20,7 @@ import (
 // TestMain lets the test binary stand in for `assay kernel` when a test
 // starts it as a child process.
 func TestMain(m *testing.M) {
-	if os.Getenv("ASSAY_TEST_KERNEL") == "1" {
-		if err := proto.ServeChild(os.Stdin, os.Stdout); err != nil {
-			os.Exit(2)
-		}
-		os.Exit(0)
-	}
+	proto.ServeTestKernel()
 	os.Exit(m.Run())
 }
 

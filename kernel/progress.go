@@ -12,7 +12,9 @@ import (
 // progressLine shows how far a long sweep has got on a terminal: samples
 // done, rate and time left, summed over workers, redrawn in place.
 type progressLine struct {
-	w     io.Writer
+	w     io.Writer // nil when only step is told
+	step  func(Step)
+	cell  func() (index, line, from int) // the cell running and the run's first, for step
 	claim string
 	began time.Time
 	done  map[int]int64 // by worker
@@ -42,6 +44,13 @@ func (p *progressLine) update(worker int, pr claim.Progress) {
 		done += n
 		total += p.total[i]
 	}
+	if p.step != nil {
+		i, l, f := p.cell()
+		p.step(Step{Cell: i, Line: l, From: f, Claim: pr.Claim, Done: done, Total: total})
+	}
+	if p.w == nil {
+		return
+	}
 	rate := float64(done) / time.Since(p.began).Seconds()
 	left := ""
 	if rate > 0 && total > done {
@@ -57,7 +66,7 @@ func (p *progressLine) update(worker int, pr claim.Progress) {
 
 // clear removes the line once its sweep is over.
 func (p *progressLine) clear() {
-	if p == nil || !p.shown {
+	if p == nil || p.w == nil || !p.shown {
 		return
 	}
 	fmt.Fprint(p.w, "\r\033[K")

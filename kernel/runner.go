@@ -37,6 +37,22 @@ type Options struct {
 	Shard claim.Share
 	// Progress, when set, shows the progress of long sweeps (a terminal).
 	Progress io.Writer
+	// Steps, when set, is told of each cell as it starts and of the
+	// progress of long sweeps (a watch page shows them). It is called
+	// from the goroutine running the notebook.
+	Steps func(Step)
+	// Until, when positive, is the index of the last cell to run (assay
+	// run --until): later cells are left not run.
+	Until int
+}
+
+// Step is what a run tells Options.Steps as it goes: a cell starting
+// (Claim empty), or how far the sweep of a sampled claim has got.
+type Step struct {
+	Cell, Line  int    // the cell running, its index and first line
+	From        int    // the first cell this run runs (a live run keeps the results before it)
+	Claim       string // the sweep's claim; empty when the cell starts
+	Done, Total int64  // samples done and to do, summed over workers
 }
 
 // DefaultMaxTerms is the default cap on the terms of a polynomial.
@@ -103,6 +119,26 @@ func Merge(parts []*Part, names []string, opt Options) (*cells.Report, error) {
 
 func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *driver) {
 	began := time.Now()
+	opt = withDefaults(opt)
+	rep := newReport(nb, opt)
+	defer func() { rep.Seconds = time.Since(began).Seconds() }()
+	list := nb.Cells()
+	if len(list) == 0 {
+		return rep, nil
+	}
+	d, err := newDriver(opt)
+	if err != nil {
+		rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
+		return rep, nil
+	}
+	d.parts = parts
+	defer d.close()
+	runCells(d, rep, list, 0, opt)
+	return rep, d
+}
+
+// withDefaults fills in the options left zero.
+func withDefaults(opt Options) Options {
 	if opt.Timeout <= 0 {
 		opt.Timeout = DefaultTimeout
 	}
@@ -115,6 +151,11 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 	if opt.Settings.Precision == 0 {
 		opt.Settings.Precision = session.DefaultSettings.Precision
 	}
+	return opt
+}
+
+// newReport is the report of a notebook before any cell has run.
+func newReport(nb *cells.Notebook, opt Options) *cells.Report {
 	sum := sha256.Sum256(nb.Source)
 	rep := &cells.Report{
 		Notebook:  nb,
@@ -122,36 +163,46 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 		Version:   proto.Version,
 		Seed:      opt.Settings.Seed,
 		Precision: opt.Settings.Precision,
+		Until:     opt.Until,
 	}
-	list := nb.Cells()
-	for _, b := range list {
+	for _, b := range nb.Cells() {
 		rep.Outcomes = append(rep.Outcomes, cells.Outcome{Cell: b.Index, Status: cells.NotRun})
 	}
-	defer func() { rep.Seconds = time.Since(began).Seconds() }()
-	if len(list) == 0 {
-		return rep, nil
+	return rep
+}
+
+// cellOf is the cell a block runs as, with its time limit.
+func cellOf(b *cells.Block, opt Options) ran {
+	timeout := opt.Timeout
+	if b.Options.Timeout > 0 {
+		timeout = b.Options.Timeout
 	}
-	d, err := newDriver(opt)
-	if err != nil {
-		rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
-		return rep, nil
+	return ran{cell: session.Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}, timeout: timeout}
+}
+
+// runCells runs list[from:] in d, whose kernel has run list[:from], and
+// files their outcomes in rep. It says whether d's kernel is still alive.
+func runCells(d *driver, rep *cells.Report, list []*cells.Block, from int, opt Options) (alive bool) {
+	if from < len(list) {
+		d.from = list[from].Index
 	}
-	d.parts = parts
-	defer d.close()
-	for i, b := range list {
-		c := session.Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}
-		timeout := opt.Timeout
-		if b.Options.Timeout > 0 {
-			timeout = b.Options.Timeout
+	for i := from; i < len(list); i++ {
+		b := list[i]
+		if opt.Until > 0 && b.Index > opt.Until {
+			break
+		}
+		r := cellOf(b, opt)
+		if opt.Steps != nil {
+			opt.Steps(Step{Cell: b.Index, Line: b.Line, From: d.from})
 		}
 		cellStart := time.Now()
-		out, s, err := d.run(c, timeout)
+		out, s, err := d.run(r.cell, r.timeout)
 		if err != nil {
 			out = cells.Outcome{Cell: b.Index, Status: cells.Failed, Seconds: time.Since(cellStart).Seconds(),
 				Error: &cells.Problem{Cell: b.Index, Line: b.Line, Message: err.Error()}}
 			rep.Outcomes[i] = out
-			if !opt.KeepGoing {
-				break
+			if !opt.KeepGoing || d.stopped() {
+				return false
 			}
 			// The namespace died with the process: start afresh and replay
 			// the cells that ran cleanly so later cells see their names.
@@ -162,7 +213,7 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 					p.Cell, p.Line = re.cell.Index, re.cell.Line
 				}
 				rep.Problems = append(rep.Problems, p)
-				return rep, d
+				return false
 			}
 			continue
 		}
@@ -172,5 +223,5 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 			break
 		}
 	}
-	return rep, d
+	return true
 }

@@ -32,6 +32,8 @@ Usage:
   assay check [flags] NOTEBOOK...   run notebooks, print one line per claim
   assay run --shard i/n NOTEBOOK    run shard i of n, write a part file to merge
   assay merge [flags] PART...       join the parts of a sharded run into its report
+  assay run --until ID NOTEBOOK     run the cells up to the one with id=ID
+  assay watch [flags] NOTEBOOK      serve the live report on loopback, re-run on save
   assay kernel                      serve the JSON-lines kernel protocol (fds 3/4, else stdin/stdout)
   assay version                     print the version
 
@@ -40,10 +42,12 @@ Examples:
   assay check --json notebooks/*.md
   assay run --shard 2/8 notebooks/mesh-quality-bounds.md
   assay merge -o bounds.report.md notebooks/mesh-quality-bounds.part-*-of-8.json
+  assay watch notebooks/mesh-orientation.md
 
 Exit status: 0 every claim holds; 1 a claim fails or is undecided;
 2 the notebook could not be run (parse error, cell error, limit crossed).
-Run 'assay run --help', 'assay check --help' or 'assay merge --help' for the flags.
+Run 'assay run --help', 'assay check --help', 'assay merge --help' or
+'assay watch --help' for the flags.
 `
 
 func main() {
@@ -64,6 +68,8 @@ func mainCode(args []string, stdout, stderr io.Writer) int {
 		return mergeCommand(args[1:], stdout, stderr)
 	case "kernel":
 		return kernelCommand(args[1:], stderr)
+	case "watch":
+		return watchCommand(args[1:], stdout, stderr)
 	case "version", "--version":
 		fmt.Fprintf(stdout, "assay %s\n", proto.Version)
 		return 0
@@ -242,6 +248,7 @@ func runCommand(args []string, stdout, stderr io.Writer) int {
 	report := addReportFlags(fs, "path of the Markdown report, or of the part file with --shard (default: beside the notebook)")
 	inPlace := fs.Bool("in-place", false, "write outputs into the notebook itself as output blocks")
 	shard := fs.String("shard", "", "run shard i of n (e.g. 2/8) and write a part file for assay merge")
+	until := fs.String("until", "", "run the cells up to and including the one with the option id=`ID`; later cells are not run")
 	rf := addRunFlags(fs)
 	fs.Usage = func() {
 		fmt.Fprint(stderr, `Usage: assay run [flags] NOTEBOOK
@@ -268,6 +275,16 @@ Flags:
 		return 2
 	}
 	path := names[0]
+	if *until != "" {
+		if *shard != "" || *inPlace {
+			fmt.Fprintln(stderr, "assay run: --until runs a part of the notebook: it goes with neither --shard nor --in-place")
+			return 2
+		}
+		if opt.Until, err = untilIndex(path, *until); err != nil {
+			fmt.Fprintln(stderr, "assay run:", err)
+			return 2
+		}
+	}
 	if *shard != "" {
 		if *inPlace {
 			fmt.Fprintln(stderr, "assay run: --shard writes a part file, not the notebook; drop --in-place")
@@ -612,6 +629,31 @@ func mergeReportPath(parts []string) (string, error) {
 		stem = strings.TrimSuffix(base, filepath.Ext(base))
 	}
 	return filepath.Join(dir, stem+".report.md"), nil
+}
+
+// untilIndex is the index of the cell with the option id=id.
+func untilIndex(path, id string) (int, error) {
+	src, err := readNotebook(path)
+	if err != nil {
+		return 0, err
+	}
+	nb, err := cells.Parse(path, src)
+	if err != nil {
+		return 0, nil // the run reports the parse error, with its line
+	}
+	var ids []string
+	for _, b := range nb.Cells() {
+		if b.Options.ID == id {
+			return b.Index, nil
+		}
+		if b.Options.ID != "" {
+			ids = append(ids, fmt.Sprintf("%s (line %d)", b.Options.ID, b.FenceLine))
+		}
+	}
+	if len(ids) == 0 {
+		return 0, fmt.Errorf("--until %s: no cell of %s has an id; give the cell the option id=%s (e.g. a fence line ```cell id=%s)", id, path, id, id)
+	}
+	return 0, fmt.Errorf("--until %s: no cell of %s has id=%s; the ids are %s", id, path, id, strings.Join(ids, ", "))
 }
 
 // readNotebook reads a notebook file, with a message that names it.

@@ -20,6 +20,9 @@ func TestMain(m *testing.M) {
 	if len(os.Args) > 1 && os.Args[1] == "kernel" {
 		os.Exit(kernelCommand(os.Args[2:], os.Stderr))
 	}
+	if os.Getenv("ASSAY_TEST_MAIN") == "1" { // the test binary as assay itself
+		os.Exit(mainCode(os.Args[1:], os.Stdout, os.Stderr))
+	}
 	os.Exit(m.Run())
 }
 

@@ -76,3 +76,20 @@ func ServeChild(in io.Reader, out io.Writer) error {
 	}
 	return serve(in, out, maxOutput)
 }
+
+// TestKernelEnv, set to 1, tells a test binary that a test started it as
+// a kernel process (its tests pass Command: os.Args[0]).
+const TestKernelEnv = "ASSAY_TEST_KERNEL"
+
+// ServeTestKernel is called first in the TestMain of a package whose
+// tests start kernel processes: when TestKernelEnv is 1, the test binary
+// serves as the kernel and exits; otherwise it returns.
+func ServeTestKernel() {
+	if os.Getenv(TestKernelEnv) != "1" {
+		return
+	}
+	if err := ServeChild(os.Stdin, os.Stdout); err != nil {
+		os.Exit(2)
+	}
+	os.Exit(0)
+}
