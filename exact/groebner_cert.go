@@ -1,0 +1,289 @@
+package exact
+
+// Ideal membership with certificates, saturation and radical membership:
+// what an identity under polynomial hypotheses needs.
+
+import (
+	"fmt"
+	"math/big"
+)
+
+// MembershipKind says what Certify found.
+type MembershipKind int
+
+// What Certify can find about a target t, hypotheses h_i (the ideal I)
+// and non-degeneracy conditions with product d (1 when there are none).
+const (
+	// InIdeal: t = Σ c_i·h_i.
+	InIdeal MembershipKind = iota
+	// InSaturation: d^j·t = Σ c_i·h_i for the j in Power: t vanishes
+	// wherever the hypotheses hold and d does not vanish.
+	InSaturation
+	// InRadical: (d·t)^k = Σ c_i·h_i for the k in Power: t vanishes
+	// wherever the hypotheses hold and d does not vanish (over C).
+	InRadical
+	// RadicalUnlifted: some power (d·t)^k lies in I (Rabinowitsch's test
+	// said so), but none up to MaxCertifyPower, so no certificate.
+	RadicalUnlifted
+	// NotInRadical: no power of d·t lies in I: some complex point where
+	// every hypothesis holds and d does not vanish has t ≠ 0.
+	NotInRadical
+	// Inconsistent: 1 lies in I; the hypotheses have no common complex
+	// zero, and any identity would follow from them.
+	Inconsistent
+	// Degenerate: d vanishes wherever the hypotheses hold (some power of d
+	// lies in I), so the non-degeneracy conditions exclude every point.
+	Degenerate
+)
+
+// MaxCertifyPower bounds the powers j and k Certify tries.
+const MaxCertifyPower = 32
+
+// Membership is the outcome of Certify.
+type Membership struct {
+	Kind MembershipKind
+	// Power is j for InSaturation, k for InRadical, 1 for InIdeal and
+	// Inconsistent.
+	Power int
+	// Multiple is the polynomial shown to lie in the ideal: t, d^j·t,
+	// (d·t)^k, or 1 when Inconsistent.
+	Multiple *Poly
+	// Cofactors c_i, one per hypothesis, with Multiple = Σ c_i·h_i
+	// (InIdeal, InSaturation, InRadical, Inconsistent).
+	Cofactors []*Poly
+	// Remainder is the normal form of t by the grevlex Gröbner basis of
+	// the hypotheses (0 for InIdeal).
+	Remainder *Poly
+	// BasisSize is the size of that basis.
+	BasisSize int
+}
+
+// Certify decides whether the target t vanishes where the hypotheses
+// vanish (and the polynomials in nonzero do not), and returns a
+// certificate: cofactors expressing t, d^j·t or (d·t)^k in the
+// hypotheses. The cofactors come from tracking, through Buchberger's
+// algorithm, how each basis polynomial is made from the hypotheses; the
+// caller should re-check Multiple = Σ c_i·h_i by expanding it.
+//
+// Radical membership uses Rabinowitsch's trick (t·d lies in the radical
+// of I exactly when 1 lies in I + (1 − y·d·t), y a new variable), and
+// saturation the same with 1 − y·d (I : d^∞ is the contraction of
+// I + (1 − y·d)), before the powers are searched for a certificate (Cox,
+// Little, O'Shea, "Ideals, Varieties, and Algorithms", ch. 4 §2 and §4).
+func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, error) {
+	r := t.ring
+	e, err := newEngine(r, Grevlex, 0, lim)
+	if err != nil {
+		return nil, err
+	}
+	e.track = true
+	in, err := e.inputs(hyps)
+	if err != nil {
+		return nil, err
+	}
+	if err := e.run(in); err != nil {
+		return nil, err
+	}
+	m := &Membership{BasisSize: e.size()}
+	if unit := e.constant(); unit != nil {
+		m.Kind, m.Power, m.Multiple = Inconsistent, 1, r.one()
+		m.Cofactors, m.Remainder = e.cofOf(unit, unit.coef[0]), r.zero()
+		return m, nil
+	}
+	e.stage = "reducing the claim"
+	lift := func(p *Poly) ([]*Poly, *Poly, error) {
+		f := e.fromPoly(p)
+		f.cof = make([]*Poly, len(hyps))
+		for k := range f.cof {
+			f.cof[k] = r.zero()
+		}
+		rem, s, err := e.fullReduce(f, 0)
+		if err != nil {
+			return nil, nil, err
+		}
+		// rem = s·den·p + Σ cof_i h_i (see fullReduce), so if rem is 0,
+		// p = Σ (−cof_i/(s·den)) h_i.
+		s.Mul(s, new(big.Rat).SetInt(p.denOr1()))
+		if rem.n() > 0 {
+			return nil, e.toPoly(rem, false, s), nil
+		}
+		neg := new(big.Rat).Neg(new(big.Rat).Inv(s))
+		out := make([]*Poly, len(rem.cof))
+		for k, c := range rem.cof {
+			out[k] = c.Scale(neg)
+		}
+		return out, r.zero(), nil
+	}
+	cofs, rem, err := lift(t)
+	if err != nil {
+		return nil, err
+	}
+	m.Remainder = rem
+	if cofs != nil {
+		m.Kind, m.Power, m.Multiple, m.Cofactors = InIdeal, 1, t, cofs
+		return m, nil
+	}
+	d := r.one()
+	for _, q := range nonzero {
+		if d, err = d.Mul(q); err != nil {
+			return nil, err
+		}
+	}
+	// powers finds the least power j <= MaxCertifyPower with base^j·t (or
+	// base^j when t is nil) in I, with its cofactors.
+	powers := func(base, t *Poly) (int, *Poly, []*Poly, error) {
+		p := r.one()
+		for j := 1; j <= MaxCertifyPower; j++ {
+			var err error
+			if p, err = p.Mul(base); err != nil {
+				return 0, nil, nil, err
+			}
+			q := p
+			if t != nil {
+				if q, err = p.Mul(t); err != nil {
+					return 0, nil, nil, err
+				}
+			}
+			cofs, _, err := lift(q)
+			if err != nil {
+				return 0, nil, nil, err
+			}
+			if cofs != nil {
+				return j, q, cofs, nil
+			}
+		}
+		return 0, nil, nil, nil
+	}
+	if !d.isConst() {
+		e.stage = "saturating by the non-degeneracy conditions"
+		if unit, err := rabinowitsch(hyps, d, lim); err != nil {
+			return nil, err
+		} else if unit {
+			m.Kind = Degenerate
+			return m, nil
+		}
+		sat, err := saturates(t, hyps, d, lim)
+		if err != nil {
+			return nil, err
+		}
+		if sat {
+			j, q, cofs, err := powers(d, t)
+			if err != nil {
+				return nil, err
+			}
+			if cofs != nil {
+				m.Kind, m.Power, m.Multiple, m.Cofactors = InSaturation, j, q, cofs
+				return m, nil
+			}
+		}
+	}
+	g, err := d.Mul(t)
+	if err != nil {
+		return nil, err
+	}
+	e.stage = "testing radical membership"
+	unit, err := rabinowitsch(hyps, g, lim)
+	if err != nil {
+		return nil, err
+	}
+	if !unit {
+		m.Kind = NotInRadical
+		return m, nil
+	}
+	k, q, cofs, err := powers(g, nil)
+	if err != nil {
+		return nil, err
+	}
+	if cofs == nil {
+		m.Kind = RadicalUnlifted
+		return m, nil
+	}
+	m.Kind, m.Power, m.Multiple, m.Cofactors = InRadical, k, q, cofs
+	return m, nil
+}
+
+// constant returns a basis polynomial that is a nonzero constant, or nil.
+func (e *engine) constant() *gpoly {
+	for k, p := range e.polys {
+		if e.live[k] && p.n() > 0 && p.deg == 0 {
+			return p
+		}
+	}
+	return nil
+}
+
+// cofOf returns the cofactors of f divided by c.
+func (e *engine) cofOf(f *gpoly, c *big.Int) []*Poly {
+	inv := new(big.Rat).SetFrac(bigOne, c)
+	out := make([]*Poly, len(f.cof))
+	for k, p := range f.cof {
+		out[k] = p.Scale(inv)
+	}
+	return out
+}
+
+// rabinowitsch reports whether 1 lies in ⟨hyps⟩ + ⟨1 − y·g⟩, y a new
+// variable: whether g vanishes wherever the hypotheses do.
+func rabinowitsch(hyps []*Poly, g *Poly, lim GroebnerLimits) (bool, error) {
+	e, in, err := withInverse(hyps, g, Grevlex, lim)
+	if err != nil {
+		return false, err
+	}
+	if err := e.run(in); err != nil {
+		return false, err
+	}
+	return e.constant() != nil, nil
+}
+
+// saturates reports whether t lies in I : d^∞, the ideal of I + ⟨1 − y·d⟩
+// without y (t has no y, so membership in the larger ideal is the test).
+func saturates(t *Poly, hyps []*Poly, d *Poly, lim GroebnerLimits) (bool, error) {
+	e, in, err := withInverse(hyps, d, Grevlex, lim)
+	if err != nil {
+		return false, err
+	}
+	if err := e.run(in); err != nil {
+		return false, err
+	}
+	rem, _, err := e.fullReduce(e.fromPoly(t), 0)
+	if err != nil {
+		return false, err
+	}
+	return rem.n() == 0, nil
+}
+
+// withInverse returns an engine with one variable y past the ring's and
+// its inputs: the hypotheses and 1 − y·c·g (c the denominator of g, which
+// does not change the ideal's zeros or the test).
+func withInverse(hyps []*Poly, g *Poly, o Order, lim GroebnerLimits) (*engine, []*gpoly, error) {
+	e, err := newEngine(g.ring, o, 1, lim)
+	if err != nil {
+		return nil, nil, err
+	}
+	in, err := e.inputs(hyps)
+	if err != nil {
+		return nil, nil, err
+	}
+	f := e.fromPoly(g)
+	y := make([]uint64, e.mo.w)
+	ey := make([]int, e.mo.n)
+	ey[e.nring] = 1
+	e.mo.pack(ey, y)
+	w := e.mo.w
+	for i := 0; i < f.n(); i++ {
+		for k := range y {
+			f.mono[i*w+k] += y[k]
+		}
+		f.coef[i].Neg(f.coef[i])
+	}
+	if f.deg+1 > MaxExponent {
+		return nil, nil, fmt.Errorf("Gröbner basis: total degree above %d: %w", MaxExponent, ErrExponentRange)
+	}
+	f.mono = append(f.mono, make([]uint64, w)...)
+	f.coef = append(f.coef, big.NewInt(1))
+	f.deg++
+	f.sugar = f.deg
+	e.finish(f)
+	primitive(f)
+	return e, append(in, f), nil
+}
