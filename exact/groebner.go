@@ -313,7 +313,7 @@ func (e *engine) run(in []*gpoly) error {
 			continue
 		}
 		e.add(f)
-		if f.deg == 0 {
+		if e.isConst(f) {
 			return nil
 		}
 	}
@@ -338,7 +338,7 @@ func (e *engine) run(in []*gpoly) error {
 			continue
 		}
 		e.add(h)
-		if h.deg == 0 {
+		if e.isConst(h) {
 			return nil
 		}
 	}

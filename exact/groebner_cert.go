@@ -205,7 +205,7 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 // constant returns a basis polynomial that is a nonzero constant, or nil.
 func (e *engine) constant() *gpoly {
 	for k, p := range e.polys {
-		if e.live[k] && p.n() > 0 && p.deg == 0 {
+		if e.live[k] && e.isConst(p) {
 			return p
 		}
 	}

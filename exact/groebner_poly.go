@@ -17,7 +17,7 @@ type gpoly struct {
 	mono  []uint64
 	coef  []*big.Int
 	sugar int
-	deg   int    // the largest total degree of a term
+	deg   int    // a bound on the total degree of its terms
 	sev   uint64 // short exponent vector of the leading monomial
 	cof   []*Poly
 }
@@ -63,6 +63,9 @@ func (e *engine) fromPoly(p *Poly) *gpoly {
 	return f
 }
 
+// isConst reports whether f is a nonzero constant (deg is only a bound).
+func (e *engine) isConst(f *gpoly) bool { return f.n() == 1 && zeroWords(f.mono[:e.mo.w]) }
+
 // finish sets the derived fields of a new polynomial.
 func (e *engine) finish(f *gpoly) {
 	if f.n() > 0 {
@@ -81,7 +84,7 @@ func (e *engine) toPoly(f *gpoly, monic bool, div *big.Rat) *Poly {
 	}
 	ts := make([]term, f.n())
 	for i := range ts {
-		m, _ := packExps(e.mo.exps(f.mono[i*e.mo.w:(i+1)*e.mo.w])[:e.nring], w)
+		m, _ := packExps(e.mo.exps(f.mono[i*e.mo.w : (i+1)*e.mo.w])[:e.nring], w)
 		c := new(big.Rat).SetInt(f.coef[i])
 		switch {
 		case monic:
@@ -102,16 +105,38 @@ func (e *engine) toPoly(f *gpoly, monic bool, div *big.Rat) *Poly {
 	return rt.poly(e.ring, w)
 }
 
-// content returns the gcd of the coefficients of f (positive).
+// content returns the gcd of the coefficients (positive). It starts from
+// the gcd of the two shortest, usually already small, and reduces every
+// other coefficient modulo the gcd so far before a gcd is needed: one
+// division of a long number by a short one each, instead of a gcd of two
+// long numbers (Lehmer's gcd on long coefficients took two thirds of the
+// time of Cyclic-6 before).
 func content(cs []*big.Int) *big.Int {
-	g := new(big.Int)
+	if len(cs) == 0 {
+		return new(big.Int)
+	}
+	a, b := 0, -1
+	for i, c := range cs {
+		if c.BitLen() < cs[a].BitLen() {
+			a, b = i, a
+		} else if i != a && (b < 0 || c.BitLen() < cs[b].BitLen()) {
+			b = i
+		}
+	}
+	g := new(big.Int).Abs(cs[a])
+	if b >= 0 {
+		g.GCD(nil, nil, g, new(big.Int).Abs(cs[b]))
+	}
+	r := new(big.Int)
 	for _, c := range cs {
-		g.GCD(nil, nil, g, c)
 		if g.IsInt64() && g.Int64() == 1 {
 			break
 		}
+		if r.Rem(c, g).Sign() != 0 {
+			g.GCD(nil, nil, g, r.Abs(r))
+		}
 	}
-	return g.Abs(g)
+	return g
 }
 
 // primitive divides f by the content of its coefficients, with a positive

@@ -140,6 +140,7 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 		if b.Options.Timeout > 0 {
 			timeout = b.Options.Timeout
 		}
+		c.Options.Timeout = timeout // the session's own deadline for long computations
 		cellStart := time.Now()
 		out, s, err := d.run(c, timeout)
 		if err != nil {

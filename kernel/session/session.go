@@ -115,6 +115,13 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 		seed = *c.Options.Seed
 	}
 	s.env.StartCell(c.Index, seed)
+	s.env.Deadline = time.Time{}
+	if c.Options.Timeout > 0 {
+		// A long computation stops itself at nine tenths of the cell's
+		// limit, so its message can say where it was (exact.ErrDeadline);
+		// the parent's timeout stays the hard limit.
+		s.env.Deadline = start.Add(c.Options.Timeout * 9 / 10)
+	}
 	s.precision = s.settings.Precision
 	if c.Options.Precision > 0 {
 		s.precision = c.Options.Precision

@@ -3,6 +3,7 @@ package values
 import (
 	"math/big"
 	"math/rand/v2"
+	"time"
 
 	"github.com/go-python/gpython/py"
 
@@ -24,6 +25,10 @@ type Env struct {
 	// Sweeping is on inside a sampled claim's f or g, where sample k may
 	// be computed by any kernel in any order.
 	Sweeping bool
+	// Deadline is when a long computation of the running cell (a Gröbner
+	// basis) stops with a message naming where it was, before the parent's
+	// timeout kills the kernel; zero for none.
+	Deadline time.Time
 
 	seed  int64  // seed in force for this cell
 	cell  int    // the cell running
@@ -43,6 +48,7 @@ func (e *Env) Install(b py.StringDict) {
 		e.rationalBuiltins,
 		e.realBuiltins,
 		e.polynomialBuiltins,
+		e.idealBuiltins,
 		e.matrixBuiltins,
 		e.simplexBuiltins,
 		e.kvectorBuiltins,

@@ -1,0 +1,145 @@
+package values
+
+// Ideals: groebner(polys, order=…), eliminate(polys, variables),
+// ideal_member(p, polys), p.reduce(G, order=…).
+
+import (
+	"github.com/go-python/gpython/py"
+
+	"assay/exact"
+	"assay/kernel/interp"
+)
+
+// GroebnerLimits are the limits of a Gröbner computation run now: the
+// cell's deadline (Env.Deadline).
+func (e *Env) GroebnerLimits() exact.GroebnerLimits {
+	return exact.GroebnerLimits{Deadline: e.Deadline}
+}
+
+// PolyList reads a list or tuple of polynomials (exact numbers lifted to
+// constants) for fn; what names the argument in messages.
+func (e *Env) PolyList(fn, what string, o py.Object) ([]*exact.Poly, error) {
+	items, err := Sequence(o, fn+": "+what)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]*exact.Poly, len(items))
+	for i, it := range items {
+		p, ok := e.Poly(it)
+		if !ok {
+			return nil, py.ExceptionNewf(py.TypeError, "%s: item %d of %s is %s%s, not a polynomial", fn, i+1, what, interp.TypeName(it), FloatHint(it))
+		}
+		out[i] = p
+	}
+	return out, nil
+}
+
+// termOrder reads order= ("grevlex" or "lex").
+func termOrder(fn string, a interp.Args) (exact.Order, error) {
+	switch name := a.Text("order", "grevlex"); name {
+	case "grevlex":
+		return exact.Grevlex, nil
+	case "lex":
+		return exact.Lex, nil
+	default:
+		return exact.Order{}, py.ExceptionNewf(py.ValueError, "%s: order=%q: want \"grevlex\" or \"lex\" (eliminate(polys, variables) uses the elimination order itself)", fn, name)
+	}
+}
+
+func (e *Env) idealBuiltins(b py.StringDict) {
+	setBuiltins(b, []builtin{
+		{"groebner", params("polys", "order="), "groebner([f1, f2, ...], order=\"grevlex\") -> the reduced Gröbner basis over Q (monic, smallest leading monomial first); order=\"lex\" for lexicographic", e.groebner},
+		{"eliminate", params("polys", "variables"), "eliminate([f1, ...], \"t\") or eliminate([f1, ...], [t, u]) -> generators of the ideal's polynomials free of those variables", e.eliminate},
+		{"ideal_member", params("p", "polys"), "ideal_member(p, [f1, f2, ...]) -> True when p = c1*f1 + c2*f2 + ... for some polynomials ci", e.idealMember},
+	})
+}
+
+func (e *Env) groebner(a interp.Args) (py.Object, error) {
+	ps, err := e.PolyList("groebner()", "the polynomials", a.Get("polys"))
+	if err != nil {
+		return nil, err
+	}
+	o, err := termOrder("groebner()", a)
+	if err != nil {
+		return nil, err
+	}
+	g, err := exact.Groebner(ps, o, e.GroebnerLimits())
+	if err != nil {
+		return nil, err
+	}
+	return e.polyListObject(g), nil
+}
+
+func (e *Env) polyListObject(ps []*exact.Poly) py.Object {
+	out := make([]py.Object, len(ps))
+	for i, p := range ps {
+		out[i] = e.PolyResult(p)
+	}
+	return py.NewListFromItems(out)
+}
+
+func (e *Env) eliminate(a interp.Args) (py.Object, error) {
+	ps, err := e.PolyList("eliminate()", "the polynomials", a.Get("polys"))
+	if err != nil {
+		return nil, err
+	}
+	vo := a.Get("variables")
+	var items []py.Object
+	switch vo.(type) {
+	case py.String, *Polynomial:
+		items = []py.Object{vo}
+	default:
+		if items, err = Sequence(vo, "eliminate(): the variables"); err != nil {
+			return nil, err
+		}
+	}
+	vars := make([]int, len(items))
+	for i, it := range items {
+		if vars[i], err = e.variableIndex("eliminate", it); err != nil {
+			return nil, err
+		}
+	}
+	g, err := exact.Eliminate(ps, vars, e.GroebnerLimits())
+	if err != nil {
+		return nil, err
+	}
+	return e.polyListObject(g), nil
+}
+
+func (e *Env) idealMember(a interp.Args) (py.Object, error) {
+	p, ok := e.Poly(a.Get("p"))
+	if !ok {
+		return nil, py.ExceptionNewf(py.TypeError, "ideal_member() needs a polynomial, got %s%s", interp.TypeName(a.Get("p")), FloatHint(a.Get("p")))
+	}
+	ps, err := e.PolyList("ideal_member()", "the polynomials", a.Get("polys"))
+	if err != nil {
+		return nil, err
+	}
+	in, err := exact.IdealMember(p, ps, e.GroebnerLimits())
+	if err != nil {
+		return nil, err
+	}
+	return py.NewBool(in), nil
+}
+
+func init() {
+	setMethods(PolynomialType, []method[*Polynomial]{
+		{"reduce", params("polys", "order="), "p.reduce([g1, g2, ...], order=\"grevlex\") -> the remainder of p divided by the gi in that order: the normal form when the gi are a Gröbner basis in it (0 exactly for members of the ideal)", (*Polynomial).reduce},
+	})
+}
+
+func (p *Polynomial) reduce(a interp.Args) (py.Object, error) {
+	ps, err := p.env.PolyList("reduce()", "the polynomials", a.Get("polys"))
+	if err != nil {
+		return nil, err
+	}
+	o, err := termOrder("reduce()", a)
+	if err != nil {
+		return nil, err
+	}
+	r, err := exact.Reduce(p.p, ps, o, p.env.GroebnerLimits())
+	if err != nil {
+		return nil, err
+	}
+	return p.env.PolyResult(r), nil
+}
