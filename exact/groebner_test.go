@@ -46,7 +46,7 @@ func sameIdeal(t *testing.T, a, b []*Poly) {
 // checkReduced checks that g is a reduced Gröbner basis in o: monic, and no
 // term of one polynomial divisible by the leading monomial of another; and
 // that every S-polynomial reduces to 0 (Buchberger's criterion).
-func checkReduced(t *testing.T, g []*Poly, o Order) {
+func checkReduced(t testing.TB, g []*Poly, o Order) {
 	t.Helper()
 	if len(g) == 0 {
 		return
@@ -106,7 +106,7 @@ func checkReduced(t *testing.T, g []*Poly, o Order) {
 // standardMonomials counts the monomials divisible by no leading monomial
 // of g (n variables), up to total degree maxDeg; for a zero-dimensional
 // ideal this is the number of its complex solutions with multiplicity.
-func standardMonomials(t *testing.T, g []*Poly, o Order, n, maxDeg int) int {
+func standardMonomials(t testing.TB, g []*Poly, o Order, n, maxDeg int) int {
 	t.Helper()
 	e, err := newEngine(g[0].ring, o, 0, GroebnerLimits{})
 	if err != nil {

@@ -1,6 +1,7 @@
 package session
 
 import (
+	"strconv"
 	"strings"
 	"testing"
 
@@ -127,3 +128,29 @@ identity("faces 0 and 2", area_sq(1, 2, 3), area_sq(0, 1, 3), given=isosceles)
 identity("faces 0 and 3", area_sq(1, 2, 3), area_sq(0, 1, 2), given=isosceles)
 identity("volume", cayley_menger(D) / 288, (A + B - C) * (A - B + C) * (-A + B + C) / 72, given=isosceles)
 `
+
+// BenchmarkIsoscelesIdentity: the volume of the isosceles tetrahedron under
+// its three hypotheses, one identity with its certificate checked, in a
+// session whose setup cell ran before. Target (issue 17): < 100 ms.
+func BenchmarkIsoscelesIdentity(b *testing.B) {
+	sess, err := New(DefaultSettings)
+	if err != nil {
+		b.Fatal(err)
+	}
+	defer sess.Close()
+	setup, _, _ := strings.Cut(isoscelesCells, "identity(\"faces 0 and 1\"")
+	if o := sess.Run(Cell{Index: 1, Line: 1, Source: setup}); o.Error != nil {
+		b.Fatal(o.Error.Message)
+	}
+	src := "identity(\"volume\", cayley_menger(D) / 288, (A + B - C) * (A - B + C) * (-A + B + C) / 72, given=isosceles)\n"
+	k := 2
+	for b.Loop() {
+		// A claim name may be used once per session: each run is a new cell
+		// with a new name.
+		o := sess.Run(Cell{Index: k, Line: 100 * k, Source: strings.Replace(src, "volume", "volume "+strconv.Itoa(k), 1)})
+		k++
+		if o.Error != nil || len(o.Claims) != 1 || o.Claims[0].Verdict != cells.Holds {
+			b.Fatalf("%+v", o)
+		}
+	}
+}
