@@ -176,10 +176,17 @@ func (u Under) check(c *cells.Claim, statement string, want *exact.Poly) error {
 	}
 	c.Certificate = cert
 	text := strings.Join(parts, " + ")
+	if text == "" {
+		text = "0"
+	}
+	hs := "h1 is the hypothesis"
+	if n := len(u.Hypotheses); n > 1 {
+		hs = fmt.Sprintf("h1, …, h%d are the hypotheses in the order given", n)
+	}
 	if len(text) <= certShown {
-		c.Note = fmt.Sprintf("certificate, checked by expansion: %s = %s, h1, h2, … the hypotheses in order", statement, text)
+		c.Note = fmt.Sprintf("certificate, checked by expansion: %s = %s, where %s", statement, text, hs)
 	} else {
-		c.Note = fmt.Sprintf("certificate, checked by expansion: %s = Σ c_i·h_i with cofactors of %s terms (written out in the JSON report)", statement, strings.Join(counts, ", "))
+		c.Note = fmt.Sprintf("certificate, checked by expansion: %s = Σ c_i·h_i with cofactors of %s terms (written out in the JSON report), where %s", statement, strings.Join(counts, ", "), hs)
 	}
 	return nil
 }

@@ -25,6 +25,11 @@ func (e *Env) PolyList(fn, what string, o py.Object) ([]*exact.Poly, error) {
 	}
 	out := make([]*exact.Poly, len(items))
 	for i, it := range items {
+		if b, ok := it.(py.Bool); ok {
+			// A comparison such as x**2 + y**2 == 1 gives a bool, which
+			// would otherwise count as the number 0 or 1.
+			return nil, py.ExceptionNewf(py.TypeError, "%s: item %d of %s is %s, not a polynomial (a comparison?): write h = 0 as the polynomial h, e.g. x**2 + y**2 - 1 for x² + y² = 1", fn, i+1, what, map[py.Bool]string{true: "True", false: "False"}[b])
+		}
 		p, ok := e.Poly(it)
 		if !ok {
 			return nil, py.ExceptionNewf(py.TypeError, "%s: item %d of %s is %s%s, not a polynomial", fn, i+1, what, interp.TypeName(it), FloatHint(it))
