@@ -424,6 +424,17 @@ func (e *engine) inputs(ps []*Poly) ([]*gpoly, error) {
 	return in, nil
 }
 
+// degreesFit checks that every total degree leaves room in the engine's
+// 16-bit fields, one more for the variable Rabinowitsch's trick adds.
+func degreesFit(ps ...*Poly) error {
+	for _, p := range ps {
+		if d := p.Degree(); d >= MaxExponent {
+			return fmt.Errorf("Gröbner basis: a polynomial of total degree %d, above %d: %w", d, MaxExponent-1, ErrExponentRange)
+		}
+	}
+	return nil
+}
+
 // Groebner returns the reduced Gröbner basis over Q of the ideal the
 // polynomials generate, in the term order o: monic, sorted by leading
 // monomial (smallest first). The zero ideal has the empty basis; the unit
@@ -431,6 +442,9 @@ func (e *engine) inputs(ps []*Poly) ([]*gpoly, error) {
 func Groebner(ps []*Poly, o Order, lim GroebnerLimits) ([]*Poly, error) {
 	if len(ps) == 0 {
 		return nil, nil
+	}
+	if err := degreesFit(ps...); err != nil {
+		return nil, err
 	}
 	e, err := newEngine(ps[0].ring, o, 0, lim)
 	if err != nil {
@@ -466,6 +480,9 @@ func (e *engine) compute(ps []*Poly) ([]*gpoly, error) {
 // Gröbner basis in o, the result does not depend on the order of by, and
 // it is 0 exactly when p lies in the ideal.
 func Reduce(p *Poly, by []*Poly, o Order, lim GroebnerLimits) (*Poly, error) {
+	if err := degreesFit(append([]*Poly{p}, by...)...); err != nil {
+		return nil, err
+	}
 	e, err := newEngine(p.ring, o, 0, lim)
 	if err != nil {
 		return nil, err

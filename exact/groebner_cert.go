@@ -4,7 +4,6 @@ package exact
 // what an identity under polynomial hypotheses needs.
 
 import (
-	"fmt"
 	"math/big"
 )
 
@@ -72,6 +71,9 @@ type Membership struct {
 // Little, O'Shea, "Ideals, Varieties, and Algorithms", ch. 4 §2 and §4).
 func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, error) {
 	r := t.ring
+	if err := degreesFit(append(append([]*Poly{t}, hyps...), nonzero...)...); err != nil {
+		return nil, err
+	}
 	e, err := newEngine(r, Grevlex, 0, lim)
 	if err != nil {
 		return nil, err
@@ -92,6 +94,9 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 	}
 	e.stage = "reducing the claim"
 	lift := func(p *Poly) ([]*Poly, *Poly, error) {
+		if err := degreesFit(p); err != nil {
+			return nil, nil, err
+		}
 		f := e.fromPoly(p)
 		f.cof = make([]*Poly, len(hyps))
 		for k := range f.cof {
@@ -256,6 +261,9 @@ func saturates(t *Poly, hyps []*Poly, d *Poly, lim GroebnerLimits) (bool, error)
 // its inputs: the hypotheses and 1 − y·c·g (c the denominator of g, which
 // does not change the ideal's zeros or the test).
 func withInverse(hyps []*Poly, g *Poly, o Order, lim GroebnerLimits) (*engine, []*gpoly, error) {
+	if err := degreesFit(g); err != nil {
+		return nil, nil, err
+	}
 	e, err := newEngine(g.ring, o, 1, lim)
 	if err != nil {
 		return nil, nil, err
@@ -275,9 +283,6 @@ func withInverse(hyps []*Poly, g *Poly, o Order, lim GroebnerLimits) (*engine, [
 			f.mono[i*w+k] += y[k]
 		}
 		f.coef[i].Neg(f.coef[i])
-	}
-	if f.deg+1 > MaxExponent {
-		return nil, nil, fmt.Errorf("Gröbner basis: total degree above %d: %w", MaxExponent, ErrExponentRange)
 	}
 	f.mono = append(f.mono, make([]uint64, w)...)
 	f.coef = append(f.coef, big.NewInt(1))

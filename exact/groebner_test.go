@@ -336,3 +336,77 @@ func TestCyclicKatsura(t *testing.T) {
 		})
 	}
 }
+
+// expands checks Σ c_i·h_i = want by plain expansion.
+func expands(t *testing.T, cofs, hyps []*Poly, want *Poly) {
+	t.Helper()
+	if len(cofs) != len(hyps) {
+		t.Fatalf("%d cofactors for %d hypotheses", len(cofs), len(hyps))
+	}
+	sum := want.Sub(want)
+	for i, c := range cofs {
+		sum = sum.Add(mustMulP(t, c, hyps[i]))
+	}
+	if !sum.Sub(want).IsZero() {
+		t.Errorf("Σ c_i·h_i = %v, want %v", sum, want)
+	}
+}
+
+// Certify against facts that need no algebra system (common practice,
+// from memory): on the unit circle (x² + y²)² − 1 = (x² + y² + 1)(x² +
+// y² − 1); x vanishes where x² does (x² ∈ ⟨x²⟩, x ∉); y vanishes where
+// xy does and x does not; x² − 1 does not vanish on the whole circle
+// (the point (0, 1)); x = 1 and x = 2 have no common point; x ≠ 0 leaves
+// nothing of x = 0. Each certificate is expanded here.
+func TestCertify(t *testing.T) {
+	r, _ := testRing(t, "x", "y", "z")
+	cases := []struct {
+		target, hyps, nonzero []string
+		kind                  MembershipKind
+		power                 int
+		remainder             string
+	}{
+		{[]string{"(x^2 + y^2)^2 - 1"}, []string{"x^2 + y^2 - 1"}, nil, InIdeal, 1, "0"},
+		{[]string{"x"}, []string{"x^2"}, nil, InRadical, 2, "x"},
+		{[]string{"x*y"}, []string{"x^3", "y^3"}, nil, InRadical, 3, "x*y"},
+		{[]string{"y"}, []string{"x*y"}, []string{"x"}, InSaturation, 1, "y"},
+		{[]string{"y"}, []string{"x^2*y"}, []string{"x"}, InSaturation, 2, "y"},
+		{[]string{"x^2 - 1"}, []string{"x^2 + y^2 - 1"}, nil, NotInRadical, 0, "-y^2"},
+		{[]string{"z"}, []string{"x - 1", "x - 2"}, nil, Inconsistent, 1, "0"},
+		{[]string{"y"}, []string{"x"}, []string{"x"}, Degenerate, 0, "y"},
+		// Rational coefficients: 3/2·(x − z) = 3/2·(x − y) + 3/4·(2y − 2z).
+		{[]string{"3/2*x - 3/2*z"}, []string{"x - y", "2*y - 2*z"}, nil, InIdeal, 1, "0"},
+	}
+	for _, c := range cases {
+		target := mustParse(t, r, c.target[0])
+		hyps := parseAll(t, r, c.hyps...)
+		nz := parseAll(t, r, c.nonzero...)
+		m, err := Certify(target, hyps, nz, GroebnerLimits{})
+		if err != nil {
+			t.Fatal(err)
+		}
+		if m.Kind != c.kind || m.Power != c.power {
+			t.Errorf("%s given %v, nonzero %v: kind %d power %d, want %d %d", c.target[0], c.hyps, c.nonzero, m.Kind, m.Power, c.kind, c.power)
+			continue
+		}
+		if c.kind != Degenerate && !m.Remainder.Sub(mustParse(t, r, c.remainder)).IsZero() {
+			t.Errorf("%s: remainder %v, want %s", c.target[0], m.Remainder, c.remainder)
+		}
+		if m.Cofactors != nil {
+			expands(t, m.Cofactors, hyps, m.Multiple)
+		}
+	}
+}
+
+// Reduce keeps rational coefficients exact: x²/3 modulo 2x − 1 is 1/12
+// (x = 1/2).
+func TestReduceRational(t *testing.T) {
+	r, _ := testRing(t, "x")
+	got, err := Reduce(mustParse(t, r, "x^2/3"), parseAll(t, r, "2*x - 1"), Grevlex, GroebnerLimits{})
+	if err != nil {
+		t.Fatal(err)
+	}
+	if !got.Sub(mustParse(t, r, "1/12")).IsZero() {
+		t.Errorf("got %v, want 1/12", got)
+	}
+}

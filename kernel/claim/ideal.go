@@ -64,34 +64,9 @@ func (u Under) Decide(c *cells.Claim) error {
 		c.Note = fmt.Sprintf("some power of %s is in the ideal of the hypotheses (Rabinowitsch's test), but none up to the power %d, so there is no certificate to check; without one nothing is claimed", u.subject(), exact.MaxCertifyPower)
 		return nil
 	}
-	want := u.Diff
-	statement := "lhs − rhs"
-	var err error
-	switch m.Kind {
-	case exact.InSaturation:
-		d, err := u.product()
-		if err != nil {
-			return err
-		}
-		if d, err = d.Pow(m.Power); err != nil {
-			return err
-		}
-		if want, err = d.Mul(u.Diff); err != nil {
-			return err
-		}
-		statement = fmt.Sprintf("%s·(lhs − rhs)", power(u.dName(), m.Power))
-	case exact.InRadical:
-		d, err := u.product()
-		if err != nil {
-			return err
-		}
-		if want, err = d.Mul(u.Diff); err != nil {
-			return err
-		}
-		if want, err = want.Pow(m.Power); err != nil {
-			return err
-		}
-		statement = power("("+u.subject()+")", m.Power)
+	want, statement, err := u.multiple()
+	if err != nil {
+		return err
 	}
 	if err = u.check(c, statement, want); err != nil {
 		return err
@@ -109,6 +84,32 @@ func (u Under) Decide(c *cells.Claim) error {
 
 // one is the constant 1 of p's ring.
 func one(p *exact.Poly) *exact.Poly { return p.Ring().Const(big.NewRat(1, 1)) }
+
+// multiple rebuilds, from lhs − rhs, the conditions and the power, the
+// polynomial the certificate must expand to, and names it.
+func (u Under) multiple() (*exact.Poly, string, error) {
+	m := u.Found
+	if m.Kind == exact.InIdeal {
+		return u.Diff, "lhs − rhs", nil
+	}
+	d, err := u.product()
+	if err != nil {
+		return nil, "", err
+	}
+	if m.Kind == exact.InSaturation { // d^j·(lhs − rhs)
+		if d, err = d.Pow(m.Power); err != nil {
+			return nil, "", err
+		}
+		want, err := d.Mul(u.Diff)
+		return want, fmt.Sprintf("%s·(lhs − rhs)", power(u.dName(), m.Power)), err
+	}
+	// InRadical: (d·(lhs − rhs))^k
+	want, err := d.Mul(u.Diff)
+	if err == nil {
+		want, err = want.Pow(m.Power)
+	}
+	return want, power("("+u.subject()+")", m.Power), err
+}
 
 // product is d, the product of the conditions (1 without any).
 func (u Under) product() (*exact.Poly, error) {

@@ -39,15 +39,20 @@ func (e *Env) PolyList(fn, what string, o py.Object) ([]*exact.Poly, error) {
 	return out, nil
 }
 
-// termOrder reads order= ("grevlex" or "lex").
-func termOrder(fn string, a interp.Args) (exact.Order, error) {
+// polysInOrder reads the list polys= and the term order order=
+// ("grevlex" or "lex").
+func (e *Env) polysInOrder(fn string, a interp.Args) ([]*exact.Poly, exact.Order, error) {
+	ps, err := e.PolyList(fn, "the polynomials", a.Get("polys"))
+	if err != nil {
+		return nil, exact.Order{}, err
+	}
 	switch name := a.Text("order", "grevlex"); name {
 	case "grevlex":
-		return exact.Grevlex, nil
+		return ps, exact.Grevlex, nil
 	case "lex":
-		return exact.Lex, nil
+		return ps, exact.Lex, nil
 	default:
-		return exact.Order{}, py.ExceptionNewf(py.ValueError, "%s: order=%q: want \"grevlex\" or \"lex\" (eliminate(polys, variables) uses the elimination order itself)", fn, name)
+		return nil, exact.Order{}, py.ExceptionNewf(py.ValueError, "%s: order=%q: want \"grevlex\" or \"lex\" (eliminate(polys, variables) uses the elimination order itself)", fn, name)
 	}
 }
 
@@ -60,11 +65,7 @@ func (e *Env) idealBuiltins(b py.StringDict) {
 }
 
 func (e *Env) groebner(a interp.Args) (py.Object, error) {
-	ps, err := e.PolyList("groebner()", "the polynomials", a.Get("polys"))
-	if err != nil {
-		return nil, err
-	}
-	o, err := termOrder("groebner()", a)
+	ps, o, err := e.polysInOrder("groebner()", a)
 	if err != nil {
 		return nil, err
 	}
@@ -134,11 +135,7 @@ func init() {
 }
 
 func (p *Polynomial) reduce(a interp.Args) (py.Object, error) {
-	ps, err := p.env.PolyList("reduce()", "the polynomials", a.Get("polys"))
-	if err != nil {
-		return nil, err
-	}
-	o, err := termOrder("reduce()", a)
+	ps, o, err := p.env.polysInOrder("reduce()", a)
 	if err != nil {
 		return nil, err
 	}
