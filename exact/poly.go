@@ -76,7 +76,8 @@ package exact
 // polygcd.go, polyresultant.go, polyeval.go (evaluation, substitution,
 // derivatives, contents), polyparse.go and polyformat.go; factoring is in
 // factor_sqfree.go (square-free parts), factor_modp.go, factor_hensel.go
-// and factor.go (univariate factorization over Q).
+// and factor.go (univariate factorization over Q); Gröbner bases in
+// groebner*.go, on monomials of their own (groebner_order.go).
 
 import (
 	"fmt"
