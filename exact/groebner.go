@@ -57,6 +57,7 @@ type engine struct {
 	mo    *monoOrder
 	lim   GroebnerLimits
 	cap   int
+	task  string // what the basis is for, as messages name it
 	stage string
 	polys []*gpoly // every polynomial that joined the basis
 	live  []bool   // still in the (minimal) basis
@@ -78,22 +79,22 @@ func newEngine(r *Ring, o Order, extra int, lim GroebnerLimits) (*engine, error)
 	if err != nil {
 		return nil, err
 	}
-	return &engine{ring: r, nring: n, mo: mo, lim: lim, cap: r.MaxTerms(), stage: "reading the input"}, nil
+	return &engine{ring: r, nring: n, mo: mo, lim: lim, cap: r.MaxTerms(), task: "Gröbner basis", stage: "reading the input"}, nil
 }
 
 // check stops the computation at the deadline or past the term cap.
 func (e *engine) check(f *gpoly) error {
 	if f != nil && f.n() > e.cap {
-		return fmt.Errorf("Gröbner basis, %s (%d polynomials in the basis so far): a polynomial of more than %d terms, the term cap (raise it with the flag --max-terms): %w",
-			e.stage, e.size(), e.cap, ErrTooManyTerms)
+		return fmt.Errorf("%s, %s (%d polynomials in the basis so far): a polynomial of more than %d terms, the term cap (raise it with the flag --max-terms): %w",
+			e.task, e.stage, e.size(), e.cap, ErrTooManyTerms)
 	}
 	if f != nil && f.deg > MaxExponent {
-		return fmt.Errorf("Gröbner basis, %s: total degree above %d: %w", e.stage, MaxExponent, ErrExponentRange)
+		return fmt.Errorf("%s, %s: total degree above %d: %w", e.task, e.stage, MaxExponent, ErrExponentRange)
 	}
 	e.steps++
 	if !e.lim.Deadline.IsZero() && e.steps%32 == 0 && time.Now().After(e.lim.Deadline) {
-		return fmt.Errorf("Gröbner basis, %s (%d polynomials in the basis so far, %d pairs left): stopped at the cell's time limit (raise it with timeout= on the cell or the flag --timeout): %w",
-			e.stage, e.size(), len(e.pairs), ErrDeadline)
+		return fmt.Errorf("%s, %s (%d polynomials in the basis so far, %d pairs left): stopped at the cell's time limit (raise it with timeout= on the cell or the flag --timeout): %w",
+			e.task, e.stage, e.size(), len(e.pairs), ErrDeadline)
 	}
 	return nil
 }

@@ -4,6 +4,7 @@ package exact
 // what an identity under polynomial hypotheses needs.
 
 import (
+	"errors"
 	"math/big"
 )
 
@@ -33,6 +34,9 @@ const (
 	// Degenerate: d vanishes wherever the hypotheses hold (some power of d
 	// lies in I), so the non-degeneracy conditions exclude every point.
 	Degenerate
+	// Unsettled: t is not in I, and the saturation or radical test
+	// stopped at a limit (Membership.Unsettled says which).
+	Unsettled
 )
 
 // MaxCertifyPower bounds the powers j and k Certify tries.
@@ -55,6 +59,9 @@ type Membership struct {
 	Remainder *Poly
 	// BasisSize is the size of that basis.
 	BasisSize int
+	// Unsettled is the message of the limit that stopped the saturation
+	// or radical test.
+	Unsettled string
 }
 
 // Certify decides whether the target t vanishes where the hypotheses
@@ -78,7 +85,7 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 	if err != nil {
 		return nil, err
 	}
-	e.track = true
+	e.track, e.task = true, "Gröbner basis of the hypotheses"
 	in, err := e.inputs(hyps)
 	if err != nil {
 		return nil, err
@@ -92,7 +99,7 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 		m.Cofactors, m.Remainder = e.cofOf(unit, unit.coef[0]), r.zero()
 		return m, nil
 	}
-	e.stage = "reducing the claim"
+	e.stage = "reducing lhs − rhs"
 	lift := func(p *Poly) ([]*Poly, *Poly, error) {
 		if err := degreesFit(p); err != nil {
 			return nil, nil, err
@@ -159,52 +166,70 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 		}
 		return 0, nil, nil, nil
 	}
+	e.stage = "searching for a power with a certificate"
+	if err := beyondIdeal(m, t, d, hyps, lim, powers); err != nil {
+		if !errors.Is(err, ErrDeadline) && !errors.Is(err, ErrTooManyTerms) {
+			return nil, err
+		}
+		// lhs − rhs is known not to be in the ideal; what a power does is
+		// left open, and the caller says why.
+		m.Kind, m.Unsettled = Unsettled, err.Error()
+	}
+	return m, nil
+}
+
+// beyondIdeal settles, for t not in I, whether d^j·t (saturation) or
+// (d·t)^k (radical) is in I, filling in m; powers searches the least
+// power with a certificate.
+func beyondIdeal(m *Membership, t, d *Poly, hyps []*Poly, lim GroebnerLimits, powers func(base, t *Poly) (int, *Poly, []*Poly, error)) error {
 	if !d.isConst() {
-		e.stage = "saturating by the non-degeneracy conditions"
-		if unit, err := rabinowitsch(hyps, d, lim); err != nil {
-			return nil, err
-		} else if unit {
-			m.Kind = Degenerate
-			return m, nil
-		}
-		sat, err := saturates(t, hyps, d, lim)
+		e, err := inverse(hyps, d, "Gröbner basis for the saturation by nonzero= (Rabinowitsch's trick)", lim)
 		if err != nil {
-			return nil, err
+			return err
 		}
-		if sat {
+		if e.constant() != nil {
+			m.Kind = Degenerate
+			return nil
+		}
+		// t is in I : d^∞, the ideal of I + ⟨1 − y·d⟩ without y, exactly
+		// when it reduces to 0 by that basis (t has no y).
+		rem, _, err := e.fullReduce(e.fromPoly(t), 0)
+		if err != nil {
+			return err
+		}
+		if rem.n() == 0 {
 			j, q, cofs, err := powers(d, t)
 			if err != nil {
-				return nil, err
+				return err
 			}
 			if cofs != nil {
 				m.Kind, m.Power, m.Multiple, m.Cofactors = InSaturation, j, q, cofs
-				return m, nil
+				return nil
 			}
 		}
 	}
 	g, err := d.Mul(t)
 	if err != nil {
-		return nil, err
+		return err
 	}
-	e.stage = "testing radical membership"
-	unit, err := rabinowitsch(hyps, g, lim)
+	e, err := inverse(hyps, g, "Gröbner basis for the radical membership test (Rabinowitsch's trick)", lim)
 	if err != nil {
-		return nil, err
+		return err
 	}
-	if !unit {
+	if e.constant() == nil {
 		m.Kind = NotInRadical
-		return m, nil
+		return nil
 	}
 	k, q, cofs, err := powers(g, nil)
 	if err != nil {
-		return nil, err
+		return err
 	}
 	if cofs == nil {
 		m.Kind = RadicalUnlifted
-		return m, nil
+		return nil
 	}
 	m.Kind, m.Power, m.Multiple, m.Cofactors = InRadical, k, q, cofs
-	return m, nil
+	return nil
 }
 
 // constant returns a basis polynomial that is a nonzero constant, or nil.
@@ -227,34 +252,16 @@ func (e *engine) cofOf(f *gpoly, c *big.Int) []*Poly {
 	return out
 }
 
-// rabinowitsch reports whether 1 lies in ⟨hyps⟩ + ⟨1 − y·g⟩, y a new
-// variable: whether g vanishes wherever the hypotheses do.
-func rabinowitsch(hyps []*Poly, g *Poly, lim GroebnerLimits) (bool, error) {
+// inverse returns the engine after computing a Gröbner basis of
+// ⟨hyps⟩ + ⟨1 − y·g⟩, y a new variable; it holds 1 exactly when g vanishes
+// wherever the hypotheses do.
+func inverse(hyps []*Poly, g *Poly, task string, lim GroebnerLimits) (*engine, error) {
 	e, in, err := withInverse(hyps, g, Grevlex, lim)
 	if err != nil {
-		return false, err
+		return nil, err
 	}
-	if err := e.run(in); err != nil {
-		return false, err
-	}
-	return e.constant() != nil, nil
-}
-
-// saturates reports whether t lies in I : d^∞, the ideal of I + ⟨1 − y·d⟩
-// without y (t has no y, so membership in the larger ideal is the test).
-func saturates(t *Poly, hyps []*Poly, d *Poly, lim GroebnerLimits) (bool, error) {
-	e, in, err := withInverse(hyps, d, Grevlex, lim)
-	if err != nil {
-		return false, err
-	}
-	if err := e.run(in); err != nil {
-		return false, err
-	}
-	rem, _, err := e.fullReduce(e.fromPoly(t), 0)
-	if err != nil {
-		return false, err
-	}
-	return rem.n() == 0, nil
+	e.task = task
+	return e, e.run(in)
 }
 
 // withInverse returns an engine with one variable y past the ring's and

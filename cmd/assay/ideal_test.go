@@ -1,6 +1,7 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"strings"
 	"testing"
@@ -14,19 +15,30 @@ func TestIdealBadInput(t *testing.T) {
 	badInput(t, "ideal-term-cap.md", 13, "polynomials in the basis so far): a polynomial of more than 20 terms, the term cap (raise it with the flag --max-terms)", "--max-terms", "20")
 }
 
-// Inconsistent hypotheses are no proof: the claim is undecided, says why,
-// and the run exits 1.
-func TestIdealInconsistentHypotheses(t *testing.T) {
-	nb := copyNotebook(t, "../../testdata/bad/ideal-inconsistent.md")
-	code, stdout, _ := assay(t, "run", nb)
-	if code != 1 || !strings.Contains(stdout, "? undecided") || !strings.Contains(stdout, ".md:8") {
-		t.Errorf("exit %d:\n%s", code, stdout)
-	}
-	report, err := os.ReadFile(strings.TrimSuffix(nb, ".md") + ".report.md")
-	if err != nil {
-		t.Fatal(err)
-	}
-	if !strings.Contains(string(report), "the hypotheses are inconsistent (1 is in their ideal)") || strings.Contains(string(report), "✔") {
-		t.Errorf("report:\n%s", report)
+// Inconsistent hypotheses are no proof, and a radical membership test
+// stopped at the term cap settles nothing: the claim is undecided, says
+// why, and the run exits 1.
+func TestIdealUndecided(t *testing.T) {
+	for _, c := range []struct {
+		file  string
+		line  int
+		want  string
+		flags []string
+	}{
+		{"ideal-inconsistent.md", 8, "the hypotheses are inconsistent (1 is in their ideal)", nil},
+		{"ideal-radical-unsettled.md", 9, "lhs − rhs is not in the ideal of the hypotheses (its normal form by their grevlex basis of 1 polynomial is x\\^8", []string{"--max-terms", "8"}},
+	} {
+		nb := copyNotebook(t, "../../testdata/bad/"+c.file)
+		code, stdout, _ := assay(t, append([]string{"run", nb}, c.flags...)...)
+		if code != 1 || !strings.Contains(stdout, "? undecided") || !strings.Contains(stdout, fmt.Sprintf(".md:%d", c.line)) {
+			t.Errorf("%s: exit %d:\n%s", c.file, code, stdout)
+		}
+		report, err := os.ReadFile(strings.TrimSuffix(nb, ".md") + ".report.md")
+		if err != nil {
+			t.Fatal(err)
+		}
+		if !strings.Contains(string(report), c.want) || strings.Contains(string(report), "✔") {
+			t.Errorf("%s: report:\n%s", c.file, report)
+		}
 	}
 }

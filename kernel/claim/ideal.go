@@ -56,8 +56,13 @@ func (u Under) Decide(c *cells.Claim) error {
 		return nil
 	case exact.NotInRadical:
 		c.Verdict, c.Residual = cells.Fails, u.Found.Remainder.String()
-		c.Note = fmt.Sprintf("no power of %s is in the ideal of the hypotheses (Rabinowitsch's test, over a Gröbner basis of %d polynomials): some complex point %s has lhs ≠ rhs. The residual is the normal form of lhs − rhs by that basis (grevlex); a real counterexample is not implied, since the point may be complex",
-			u.subject(), m.BasisSize, where)
+		c.Note = fmt.Sprintf("no power of %s is in the ideal of the hypotheses (Rabinowitsch's test, over a Gröbner basis of %s): some complex point %s has lhs ≠ rhs. The residual is the normal form of lhs − rhs by that basis (grevlex); a real counterexample is not implied, since the point may be complex",
+			u.subject(), count(m.BasisSize, "polynomial"), where)
+		return nil
+	case exact.Unsettled:
+		c.Verdict, c.Why, c.Residual = cells.Undecided, cells.OtherReason, ""
+		c.Note = fmt.Sprintf("lhs − rhs is not in the ideal of the hypotheses (its normal form by their grevlex basis of %s is %s), so the identity does not follow from them by algebra alone; whether it holds on their zero set (a power of %s in the ideal) was not settled: %s",
+			count(m.BasisSize, "polynomial"), Clip(m.Remainder.String(), 200), u.subject(), m.Unsettled)
 		return nil
 	case exact.RadicalUnlifted:
 		c.Verdict, c.Why, c.Residual = cells.Undecided, cells.OtherReason, ""
@@ -74,12 +79,24 @@ func (u Under) Decide(c *cells.Claim) error {
 	c.Residual = "0"
 	if m.Kind == exact.InIdeal {
 		c.Verdict = cells.Holds
+		where = "where the hypotheses hold"
+		if len(u.Nonzero) > 0 {
+			where += " (the conditions of nonzero= are not needed)"
+		}
 		c.Note = "lhs − rhs is in the ideal of the hypotheses: a proof that lhs = rhs " + where + "; " + c.Note
 		return nil
 	}
 	c.Verdict = cells.HoldsWhere
 	c.Note = fmt.Sprintf("%s is in the ideal of the hypotheses, lhs − rhs itself is not: a proof that lhs = rhs at every complex (so every real) point %s; %s", statement, where, c.Note)
 	return nil
+}
+
+// count is "1 polynomial", "3 polynomials".
+func count(n int, noun string) string {
+	if n == 1 {
+		return "1 " + noun
+	}
+	return fmt.Sprintf("%d %ss", n, noun)
 }
 
 // one is the constant 1 of p's ring.
