@@ -22,6 +22,7 @@ func TestIdealBuiltins(t *testing.T) {
 		{"x, y = variables(\"x y\")\nprint(ideal_member((x**2 + y**2)**2 - 1, [x**2 + y**2 - 1]), ideal_member(x**2 - 1, [x**2 + y**2 - 1]))", "True False"},
 		{"x, y = variables(\"x y\")\nprint((x**2 - 1).reduce([x**2 + y**2 - 1]), (x**3).reduce([x**2 + y**2 - 1], order=\"lex\"))", "-y^2 -x*y^2 + x"},
 		{"x, y = variables(\"x y\")\nprint(groebner([x - 1, x - 2]))", "[1]"},
+		{"t, x, y = variables(\"t x y\")\nG = groebner([x - t**2, y - t**3], order=\"elim\", first=\"t\")\nprint([g for g in G if g.degree(\"t\") == 0])", "[x^3 - y^2]"},
 	})
 }
 
@@ -29,10 +30,13 @@ func TestIdealErrors(t *testing.T) {
 	expectErrors(t, []errorCase{
 		{"x = variables(\"x\")\ngroebner([x, 0.5])", "item 2 of the polynomials is a float"},
 		{"x = variables(\"x\")\ngroebner(x)", "must be a list or tuple"},
-		{"x = variables(\"x\")\ngroebner([x], order=\"deglex\")", "want \"grevlex\" or \"lex\""},
+		{"x = variables(\"x\")\ngroebner([x], order=\"deglex\")", "want \"grevlex\", \"lex\" or \"elim\""},
+		{"x = variables(\"x\")\ngroebner([x], order=\"elim\")", "order=\"elim\" and first=[variables] go together"},
 		{"x = variables(\"x\")\neliminate([x], \"q\")", "there is no variable \"q\""},
 		{"x = variables(\"x\")\nidentity(\"i\", x, 0, given=[x, sqrt(2)])", "item 2 of the hypotheses given=[...] is a real"},
 		{"x = variables(\"x\")\nidentity(\"i\", x, 0, given=[])", "lists no hypothesis"},
+		{"x = variables(\"x\")\nidentity(\"i\", matrix([[x]]), 0, given=[x])", "compares polynomials or exact numbers; lhs is a matrix"},
+		{"x = variables(\"x\")\nidentity(\"i\", x, 0, given=[x], nonzero=[0])", "condition 1 of nonzero= is the zero polynomial"},
 		{"x = variables(\"x\")\nidentity(\"i\", x, 0, given=[x], over=lambda k: k, samples=3)", "takes no over="},
 		{"x = variables(\"x\")\nidentity(\"i\", x, 0, nonzero=[x])", "need polynomial hypotheses"},
 	})
@@ -68,6 +72,7 @@ func TestIdentityUnderHypotheses(t *testing.T) {
 		note      string
 	}{
 		{xy + `identity("circle squared", (x**2 + y**2)**2, 1, given=[x**2 + y**2 - 1])`, cells.Holds, "0", "lhs − rhs", "(x^2 + y^2 + 1)·h1"},
+		{xy + `identity("as a function", lambda: ((x**2 + y**2)**2, 1), given=[x**2 + y**2 - 1])`, cells.Holds, "0", "lhs − rhs", "(x^2 + y^2 + 1)·h1"},
 		{xy + `identity("x^2 = 1 on the circle", x**2, 1, given=[x**2 + y**2 - 1])`, cells.Fails, "-y^2", "", "some complex point"},
 		{xy + `identity("x = 0 from x^2 = 0", x, 0, given=[x**2])`, cells.HoldsWhere, "0", "(lhs − rhs)^2", "lhs − rhs itself is not"},
 		{xy + `identity("y = 0 from xy = 0, x != 0", y, 0, given=[x*y], nonzero=[x])`, cells.HoldsWhere, "0", "(x)·(lhs − rhs)", "no condition of nonzero= vanishes"},

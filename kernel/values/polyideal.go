@@ -4,6 +4,8 @@ package values
 // ideal_member(p, polys), p.reduce(G, order=…).
 
 import (
+	"strings"
+
 	"github.com/go-python/gpython/py"
 
 	"assay/exact"
@@ -39,26 +41,56 @@ func (e *Env) PolyList(fn, what string, o py.Object) ([]*exact.Poly, error) {
 	return out, nil
 }
 
-// polysInOrder reads the list polys= and the term order order=
-// ("grevlex" or "lex").
+// polysInOrder reads the list polys= and the term order: order=
+// "grevlex", "lex" or "elim" (with first=, the variables ranked first).
 func (e *Env) polysInOrder(fn string, a interp.Args) ([]*exact.Poly, exact.Order, error) {
 	ps, err := e.PolyList(fn, "the polynomials", a.Get("polys"))
 	if err != nil {
 		return nil, exact.Order{}, err
 	}
-	switch name := a.Text("order", "grevlex"); name {
+	name := a.Text("order", "grevlex")
+	if (name == "elim") != a.Has("first") {
+		return nil, exact.Order{}, py.ExceptionNewf(py.TypeError, "%s: order=\"elim\" and first=[variables] go together: the elimination order ranks every monomial with one of those variables above every monomial without", fn)
+	}
+	switch name {
 	case "grevlex":
 		return ps, exact.Grevlex, nil
 	case "lex":
 		return ps, exact.Lex, nil
+	case "elim":
+		vars, err := e.variableList(fn, a.Get("first"))
+		return ps, exact.ElimOrder(vars), err
 	default:
-		return nil, exact.Order{}, py.ExceptionNewf(py.ValueError, "%s: order=%q: want \"grevlex\" or \"lex\" (eliminate(polys, variables) uses the elimination order itself)", fn, name)
+		return nil, exact.Order{}, py.ExceptionNewf(py.ValueError, "%s: order=%q: want \"grevlex\", \"lex\" or \"elim\"", fn, name)
 	}
+}
+
+// variableList reads one variable, or a list of them, by name or as
+// themselves.
+func (e *Env) variableList(fn string, o py.Object) ([]int, error) {
+	var items []py.Object
+	switch o.(type) {
+	case py.String, *Polynomial:
+		items = []py.Object{o}
+	default:
+		var err error
+		if items, err = Sequence(o, fn+": the variables"); err != nil {
+			return nil, err
+		}
+	}
+	vars := make([]int, len(items))
+	for i, it := range items {
+		var err error
+		if vars[i], err = e.variableIndex(strings.TrimSuffix(fn, "()"), it); err != nil {
+			return nil, err
+		}
+	}
+	return vars, nil
 }
 
 func (e *Env) idealBuiltins(b py.StringDict) {
 	setBuiltins(b, []builtin{
-		{"groebner", params("polys", "order="), "groebner([f1, f2, ...], order=\"grevlex\") -> the reduced Gröbner basis over Q (monic, smallest leading monomial first); order=\"lex\" for lexicographic", e.groebner},
+		{"groebner", params("polys", "order=", "first="), "groebner([f1, f2, ...], order=\"grevlex\") -> the reduced Gröbner basis over Q (monic, smallest leading monomial first); order=\"lex\" for lexicographic, order=\"elim\", first=[t, ...] for the block order ranking t, ... first", e.groebner},
 		{"eliminate", params("polys", "variables"), "eliminate([f1, ...], \"t\") or eliminate([f1, ...], [t, u]) -> generators of the ideal's polynomials free of those variables", e.eliminate},
 		{"ideal_member", params("p", "polys"), "ideal_member(p, [f1, f2, ...]) -> True when p = c1*f1 + c2*f2 + ... for some polynomials ci", e.idealMember},
 	})
@@ -89,21 +121,9 @@ func (e *Env) eliminate(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
-	vo := a.Get("variables")
-	var items []py.Object
-	switch vo.(type) {
-	case py.String, *Polynomial:
-		items = []py.Object{vo}
-	default:
-		if items, err = Sequence(vo, "eliminate(): the variables"); err != nil {
-			return nil, err
-		}
-	}
-	vars := make([]int, len(items))
-	for i, it := range items {
-		if vars[i], err = e.variableIndex("eliminate", it); err != nil {
-			return nil, err
-		}
+	vars, err := e.variableList("eliminate()", a.Get("variables"))
+	if err != nil {
+		return nil, err
 	}
 	g, err := exact.Eliminate(ps, vars, e.GroebnerLimits())
 	if err != nil {
@@ -130,7 +150,7 @@ func (e *Env) idealMember(a interp.Args) (py.Object, error) {
 
 func init() {
 	setMethods(PolynomialType, []method[*Polynomial]{
-		{"reduce", params("polys", "order="), "p.reduce([g1, g2, ...], order=\"grevlex\") -> the remainder of p divided by the gi in that order: the normal form when the gi are a Gröbner basis in it (0 exactly for members of the ideal)", (*Polynomial).reduce},
+		{"reduce", params("polys", "order=", "first="), "p.reduce([g1, g2, ...], order=\"grevlex\") -> the remainder of p divided by the gi in that order: the normal form when the gi are a Gröbner basis in it (0 exactly for members of the ideal)", (*Polynomial).reduce},
 	})
 }
 
