@@ -167,7 +167,11 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 		return 0, nil, nil, nil
 	}
 	e.stage = "searching for a power with a certificate"
-	if err := beyondIdeal(m, t, d, hyps, lim, powers); err != nil {
+	basis := make([]*Poly, 0, m.BasisSize)
+	for _, g := range e.basis() {
+		basis = append(basis, e.toPoly(g, true, nil))
+	}
+	if err := beyondIdeal(m, t, d, basis, lim, powers); err != nil {
 		if !errors.Is(err, ErrDeadline) && !errors.Is(err, ErrTooManyTerms) {
 			return nil, err
 		}
@@ -179,11 +183,12 @@ func Certify(t *Poly, hyps, nonzero []*Poly, lim GroebnerLimits) (*Membership, e
 }
 
 // beyondIdeal settles, for t not in I, whether d^j·t (saturation) or
-// (d·t)^k (radical) is in I, filling in m; powers searches the least
-// power with a certificate.
-func beyondIdeal(m *Membership, t, d *Poly, hyps []*Poly, lim GroebnerLimits, powers func(base, t *Poly) (int, *Poly, []*Poly, error)) error {
+// (d·t)^k (radical) is in I, filling in m; basis is a minimal grevlex
+// Gröbner basis of I, and powers searches the least power with a
+// certificate.
+func beyondIdeal(m *Membership, t, d *Poly, basis []*Poly, lim GroebnerLimits, powers func(base, t *Poly) (int, *Poly, []*Poly, error)) error {
 	if !d.isConst() {
-		e, err := inverse(hyps, d, "Gröbner basis for the saturation by nonzero= (Rabinowitsch's trick)", lim)
+		e, err := inverse(basis, d, "Gröbner basis for the saturation by nonzero= (Rabinowitsch's trick)", lim)
 		if err != nil {
 			return err
 		}
@@ -212,7 +217,7 @@ func beyondIdeal(m *Membership, t, d *Poly, hyps []*Poly, lim GroebnerLimits, po
 	if err != nil {
 		return err
 	}
-	e, err := inverse(hyps, g, "Gröbner basis for the radical membership test (Rabinowitsch's trick)", lim)
+	e, err := inverse(basis, g, "Gröbner basis for the radical membership test (Rabinowitsch's trick)", lim)
 	if err != nil {
 		return err
 	}
@@ -253,15 +258,23 @@ func (e *engine) cofOf(f *gpoly, c *big.Int) []*Poly {
 }
 
 // inverse returns the engine after computing a Gröbner basis of
-// ⟨hyps⟩ + ⟨1 − y·g⟩, y a new variable; it holds 1 exactly when g vanishes
-// wherever the hypotheses do.
-func inverse(hyps []*Poly, g *Poly, task string, lim GroebnerLimits) (*engine, error) {
-	e, in, err := withInverse(hyps, g, Grevlex, lim)
+// ⟨G⟩ + ⟨1 − y·g⟩, y a new variable, where G is a minimal grevlex Gröbner
+// basis of the hypotheses; it holds 1 exactly when g vanishes wherever
+// the hypotheses do. G seeds the basis without pairs among its
+// polynomials (they all reduce to 0 already: grevlex with y last orders
+// the monomials without y as before), so only the pairs with 1 − y·g
+// and what follows are new.
+func inverse(basis []*Poly, g *Poly, task string, lim GroebnerLimits) (*engine, error) {
+	e, in, err := withInverse(basis, g, Grevlex, lim)
 	if err != nil {
 		return nil, err
 	}
 	e.task = task
-	return e, e.run(in)
+	for _, b := range in[:len(in)-1] {
+		e.polys = append(e.polys, b)
+		e.live = append(e.live, true)
+	}
+	return e, e.run(in[len(in)-1:])
 }
 
 // withInverse returns an engine with one variable y past the ring's and
