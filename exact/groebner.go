@@ -21,8 +21,8 @@ package exact
 // S-polynomials are reduced at the top only (until the leading term is
 // irreducible); the tails are reduced once, when the final basis is made
 // reduced. The measurements are in DEVELOPERS.md ("Gröbner bases") and in
-// groebner_bench_test.go: Cyclic-5 and Katsura-5 take well under their
-// targets this way, so neither a modular computation with rational
+// groebner_bench_test.go: Cyclic-5, Katsura-5 and Cyclic-6 (about 7 s)
+// take well under their targets this way, so neither a modular computation with rational
 // reconstruction (which must be checked over Q afterwards) nor F4-style
 // matrix reduction was needed for the targets.
 //
@@ -166,6 +166,7 @@ func (e *engine) fullReduce(f *gpoly, from int) (*gpoly, *big.Rat, error) {
 	f = &gpoly{mono: f.mono[from*w:], coef: f.coef[from:], sugar: f.sugar, deg: f.deg, cof: f.cof}
 	e.finish(f)
 	q := make([]uint64, w)
+	clean := 64
 	for f.n() > 0 {
 		g := e.divisor(f.lm(w), f.sev)
 		if g == nil {
@@ -184,8 +185,9 @@ func (e *engine) fullReduce(f *gpoly, from int) (*gpoly, *big.Rat, error) {
 			}
 			s.Mul(s, new(big.Rat).SetInt(cf))
 		}
-		if f.n() > 0 && f.coef[0].BitLen() > 64 {
-			// Divide f and the remainder so far by their common content.
+		if f.n() > 0 && f.coef[0].BitLen() > 2*clean {
+			// Divide f and the remainder so far by their common content,
+			// once the coefficients have grown (as in topReduce).
 			g := content(append(slices.Clip(r.coef), f.coef...))
 			if !(g.IsInt64() && g.Int64() == 1) && g.Sign() != 0 {
 				for _, c := range r.coef {
@@ -200,6 +202,7 @@ func (e *engine) fullReduce(f *gpoly, from int) (*gpoly, *big.Rat, error) {
 				}
 				s.Quo(s, new(big.Rat).SetInt(g))
 			}
+			clean = max(64, f.coef[0].BitLen())
 		}
 		if err := e.check(f); err != nil {
 			return nil, nil, err
