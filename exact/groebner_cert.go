@@ -5,7 +5,11 @@ package exact
 
 import (
 	"errors"
+	"fmt"
 	"math/big"
+	"slices"
+	"strings"
+	"time"
 )
 
 // MembershipKind says what Certify found.
@@ -62,6 +66,10 @@ type Membership struct {
 	// Unsettled is the message of the limit that stopped the saturation
 	// or radical test.
 	Unsettled string
+	// Witness, for NotInRadical, names the values put in for some
+	// variables where a point with t ≠ 0 was shown to exist ("" when the
+	// test ran on the whole system).
+	Witness string
 }
 
 // Certify decides whether the target t vanishes where the hypotheses
@@ -217,6 +225,12 @@ func beyondIdeal(m *Membership, t, d *Poly, basis []*Poly, lim GroebnerLimits, p
 	if err != nil {
 		return err
 	}
+	if w, err := refuteAtValues(basis, g, lim); err != nil || w != "" {
+		if w != "" {
+			m.Kind, m.Witness = NotInRadical, w
+		}
+		return err
+	}
 	e, err := inverse(basis, g, "Gröbner basis for the radical membership test (Rabinowitsch's trick)", lim)
 	if err != nil {
 		return err
@@ -275,6 +289,142 @@ func inverse(basis []*Poly, g *Poly, task string, lim GroebnerLimits) (*engine, 
 		e.live = append(e.live, true)
 	}
 	return e, e.run(in[len(in)-1:])
+}
+
+// refuteAtValues tries to show cheaply that g is not in the radical of I
+// (basis: its minimal grevlex Gröbner basis): it puts values in for a
+// maximal set of variables independent modulo I (no leading monomial of
+// the basis is a monomial in them alone, so I has no polynomial in them
+// alone, and the remaining system is usually zero-dimensional and small),
+// and runs Rabinowitsch's test on what is left. That is sound: a point of
+// the smaller system where g ≠ 0 is a point of V(I), with those values,
+// where g ≠ 0. It returns the values ("r1 = 2, r2 = 3") when it succeeds,
+// "" when it cannot tell (then the full test decides). Two independent
+// sets are tried, chosen greedily from the first variable and from the
+// last, each within a small share of the time (refuteBudget): which one
+// is easy depends on the problem. Descartes' circle theorem with 3 for 2
+// (8 variables) is refuted in 0.2 s with the radii r1, r2, r3 given
+// values, in 2–10 s (load permitting) with r2, x3, y4, the set picked
+// from the first variable, in minutes with y4, x4, y3 (from the last),
+// and not in 200 s without values.
+func refuteAtValues(basis []*Poly, g *Poly, lim GroebnerLimits) (string, error) {
+	r := g.ring
+	e, err := newEngine(r, Grevlex, 0, lim)
+	if err != nil {
+		return "", err
+	}
+	var leads [][]int // the variables of each leading monomial
+	var vars []int    // the variables that occur, in ring order
+	occurs := map[int]bool{}
+	for _, b := range basis {
+		exps := e.mo.exps(e.fromPoly(b).lm(e.mo.w))
+		var vs []int
+		for v, x := range exps {
+			if x > 0 {
+				vs = append(vs, v)
+			}
+		}
+		leads = append(leads, vs)
+		for _, v := range b.Vars() {
+			occurs[v] = true
+		}
+	}
+	for _, v := range g.Vars() {
+		occurs[v] = true
+	}
+	for v := 0; v < r.numVars(); v++ {
+		if occurs[v] {
+			vars = append(vars, v)
+		}
+	}
+	reversed := slices.Clone(vars)
+	slices.Reverse(reversed)
+	tried := map[string]bool{}
+	for _, order := range [][]int{vars, reversed} {
+		chosen := independent(order, leads)
+		key := fmt.Sprint(chosen)
+		if len(chosen) == 0 || tried[key] {
+			continue
+		}
+		tried[key] = true
+		w, err := refuteWith(basis, g, chosen, refuteBudget(lim))
+		if errors.Is(err, ErrDeadline) || errors.Is(err, ErrTooManyTerms) {
+			continue // too hard with these values: try the next set
+		}
+		if err != nil || w != "" {
+			return w, err
+		}
+	}
+	return "", nil
+}
+
+// independent picks greedily, in the order given, variables no leading
+// monomial lies in alone.
+func independent(order []int, leads [][]int) []int {
+	chosen := map[int]bool{}
+	for _, v := range order {
+		chosen[v] = true
+		for _, vs := range leads {
+			inside := true
+			for _, u := range vs {
+				inside = inside && chosen[u]
+			}
+			if inside {
+				delete(chosen, v)
+				break
+			}
+		}
+	}
+	out := make([]int, 0, len(chosen))
+	for v := range chosen {
+		out = append(out, v)
+	}
+	slices.Sort(out)
+	return out
+}
+
+// refuteBudget is the time one try of refuteAtValues may take: a quarter
+// of what is left before the deadline (so the full test keeps at least
+// 9/16 of it after two tries), or 20 s without one.
+func refuteBudget(lim GroebnerLimits) GroebnerLimits {
+	if lim.Deadline.IsZero() {
+		return GroebnerLimits{Deadline: time.Now().Add(20 * time.Second)}
+	}
+	return GroebnerLimits{Deadline: time.Now().Add(time.Until(lim.Deadline) / 4)}
+}
+
+// refuteWith runs Rabinowitsch's test on the basis and g with small
+// primes put in for the chosen variables; it returns the values when g
+// is shown not to vanish on what is left.
+func refuteWith(basis []*Poly, g *Poly, chosen []int, lim GroebnerLimits) (string, error) {
+	r := g.ring
+	primes := []int64{2, 3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47}
+	vals := map[int]*big.Rat{}
+	var names []string
+	for i, v := range chosen {
+		vals[v] = big.NewRat(primes[i%len(primes)]+int64(i/len(primes))*53, 1)
+		names = append(names, fmt.Sprintf("%s = %s", r.name(v), vals[v].RatString()))
+	}
+	gs := g.Eval(vals)
+	if gs.IsZero() {
+		return "", nil
+	}
+	spec := make([]*Poly, len(basis))
+	for i, b := range basis {
+		spec[i] = b.Eval(vals)
+	}
+	e, in, err := withInverse(spec, gs, Grevlex, lim)
+	if err != nil {
+		return "", err
+	}
+	e.task = "Gröbner basis for the radical membership test at chosen values (Rabinowitsch's trick)"
+	if err := e.run(in); err != nil {
+		return "", err
+	}
+	if e.constant() != nil {
+		return "", nil
+	}
+	return strings.Join(names, ", "), nil
 }
 
 // withInverse returns an engine with one variable y past the ring's and

@@ -56,8 +56,12 @@ func (u Under) Decide(c *cells.Claim) error {
 		return nil
 	case exact.NotInRadical:
 		c.Verdict, c.Residual = cells.Fails, u.Found.Remainder.String()
-		c.Note = fmt.Sprintf("no power of %s is in the ideal of the hypotheses (Rabinowitsch's test, over a Gröbner basis of %s): some complex point %s has lhs ≠ rhs. The residual is the normal form of lhs − rhs by that basis (grevlex); a real counterexample is not implied, since the point may be complex",
-			u.subject(), count(m.BasisSize, "polynomial"), where)
+		at := ""
+		if m.Witness != "" {
+			at = " (one with " + m.Witness + ": Rabinowitsch's test ran on the hypotheses with those values put in, for variables they leave free)"
+		}
+		c.Note = fmt.Sprintf("no power of %s is in the ideal of the hypotheses (Rabinowitsch's test; their grevlex Gröbner basis has %s): some complex point %s has lhs ≠ rhs%s. The residual is the normal form of lhs − rhs by that basis; a real counterexample is not implied, since the point may be complex",
+			u.subject(), count(m.BasisSize, "polynomial"), where, at)
 		return nil
 	case exact.Unsettled:
 		c.Verdict, c.Why, c.Residual = cells.Undecided, cells.OtherReason, ""

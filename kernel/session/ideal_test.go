@@ -74,6 +74,8 @@ func TestIdentityUnderHypotheses(t *testing.T) {
 		{xy + `identity("circle squared", (x**2 + y**2)**2, 1, given=[x**2 + y**2 - 1])`, cells.Holds, "0", "lhs − rhs", "(x^2 + y^2 + 1)·h1"},
 		{xy + `identity("as a function", lambda: ((x**2 + y**2)**2, 1), given=[x**2 + y**2 - 1])`, cells.Holds, "0", "lhs − rhs", "(x^2 + y^2 + 1)·h1"},
 		{xy + `identity("x^2 = 1 on the circle", x**2, 1, given=[x**2 + y**2 - 1])`, cells.Fails, "-y^2", "", "some complex point"},
+		// x + … + x⁸ is 510 ≠ 0 at x = 2, y = 1/2 on xy = 1.
+		{xy + `identity("x + ... + x^8 = 0 where xy = 1", x + x**2 + x**3 + x**4 + x**5 + x**6 + x**7 + x**8, 0, given=[x*y - 1])`, cells.Fails, "x^8 + x^7 + x^6 + x^5 + x^4 + x^3 + x^2 + x", "", "(one with x = 2: Rabinowitsch's test ran on the hypotheses with those values put in"},
 		{xy + `identity("x = 0 from x^2 = 0", x, 0, given=[x**2])`, cells.HoldsWhere, "0", "(lhs − rhs)^2", "lhs − rhs itself is not"},
 		{xy + `identity("y = 0 from xy = 0, x != 0", y, 0, given=[x*y], nonzero=[x])`, cells.HoldsWhere, "0", "(x)·(lhs − rhs)", "no condition of nonzero= vanishes"},
 		{xy + `identity("inconsistent", x, y, given=[x - 1, x - 2])`, cells.Undecided, "", "1", "the hypotheses are inconsistent (1 is in their ideal)"},
