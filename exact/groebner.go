@@ -64,7 +64,6 @@ type engine struct {
 	polys []*gpoly // every polynomial that joined the basis
 	live  []bool   // still in the (minimal) basis
 	pairs []gpair
-	steps int
 	track bool
 }
 
@@ -93,8 +92,7 @@ func (e *engine) check(f *gpoly) error {
 	if f != nil && f.deg > MaxExponent {
 		return fmt.Errorf("%s, %s: total degree above %d: %w", e.task, e.stage, MaxExponent, ErrExponentRange)
 	}
-	e.steps++
-	if !e.lim.Deadline.IsZero() && e.steps%32 == 0 && time.Now().After(e.lim.Deadline) {
+	if !e.lim.Deadline.IsZero() && time.Now().After(e.lim.Deadline) {
 		return fmt.Errorf("%s, %s (%d polynomials in the basis so far, %d pairs left): stopped at the cell's time limit (raise it with timeout= on the cell or the flag --timeout): %w",
 			e.task, e.stage, e.size(), len(e.pairs), ErrDeadline)
 	}
