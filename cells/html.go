@@ -32,7 +32,7 @@ func (m *htmlMarks) verdict(class string) string {
 }
 
 // verdictClass is the CSS class of each verdict's table cell.
-var verdictClass = map[Verdict]string{Holds: "v-holds", HoldsToDigits: "v-digits", Estimated: "v-estimated", Fails: "v-fails", Undecided: "v-undecided"}
+var verdictClass = map[Verdict]string{Holds: "v-holds", HoldsWhere: "v-holds", HoldsToDigits: "v-digits", Estimated: "v-estimated", Fails: "v-fails", Undecided: "v-undecided"}
 
 // RenderHTML returns the report as a self-contained HTML5 page: the Markdown
 // report (with header) converted by gomarkdown, raw HTML in the notebook

@@ -24,6 +24,8 @@ func VerdictLabel(c Claim) string {
 			return fmt.Sprintf("~ estimated to %d digits", c.Digits)
 		}
 		return "~ estimated"
+	case HoldsWhere:
+		return "✔ holds on the zero set"
 	case Fails:
 		return "✘ fails"
 	case Undecided:
@@ -593,8 +595,12 @@ func seconds(s float64) string { return fmt.Sprintf("%.3f s", s) }
 // countsPhrase is e.g. "3 holds, 1 holds to digits, 1 estimated, 0 fails,
 // 0 undecided".
 func countsPhrase(c map[Verdict]int) string {
-	return fmt.Sprintf("%d holds, %d holds to digits, %d estimated, %d fails, %d undecided",
-		c[Holds], c[HoldsToDigits], c[Estimated], c[Fails], c[Undecided])
+	where := ""
+	if c[HoldsWhere] > 0 { // named only where present, so other reports keep their header
+		where = fmt.Sprintf(", %d holds on the zero set", c[HoldsWhere])
+	}
+	return fmt.Sprintf("%d holds%s, %d holds to digits, %d estimated, %d fails, %d undecided",
+		c[Holds], where, c[HoldsToDigits], c[Estimated], c[Fails], c[Undecided])
 }
 
 // legend explains the verdicts among claims that say less than a proof or
@@ -612,6 +618,13 @@ func legend(claims []Claim) string {
 		limitFails = limitFails || c.Verdict == Fails && c.Kind == "limit"
 	}
 	var paras []string
+	if has[HoldsWhere] {
+		paras = append(paras, "“✔ holds on the zero set” is a proof that lhs = rhs at every complex point, so at every real "+
+			"point, where all the hypotheses vanish (and, with nonzero=, where none of those conditions vanishes); "+
+			"its certificate writes a power of lhs − rhs (or its product with a power of the conditions) as a combination "+
+			"of the hypotheses. lhs − rhs itself is not in the hypotheses' ideal: the identity does not follow from "+
+			"them by substitution alone.")
+	}
 	if has[HoldsToDigits] {
 		paras = append(paras, "“≈ holds to N digits” is evidence, not a proof: where it was checked, the two sides "+
 			"were certified to agree to N significant digits (|lhs − rhs| < 10^-N·max(|lhs|, |rhs|)), or, where "+

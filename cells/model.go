@@ -98,8 +98,14 @@ const (
 	// Estimated is an extrapolated value whose successive estimates agree
 	// to Digits digits: an estimate, not a certified bound.
 	Estimated Verdict = "estimated"
-	Fails     Verdict = "fails"     // residual certified non-zero
-	Undecided Verdict = "undecided" // not settled; Claim.Why says why
+	// HoldsWhere is a proof that lhs = rhs wherever polynomial hypotheses
+	// hold (and non-degeneracy conditions do not vanish), from a
+	// certificate that puts a power of lhs − rhs, or its product with a
+	// power of the conditions, in the hypotheses' ideal: lhs − rhs itself
+	// is not in it. Claim.Certificate holds the certificate.
+	HoldsWhere Verdict = "holds-where"
+	Fails      Verdict = "fails"     // residual certified non-zero
+	Undecided  Verdict = "undecided" // not settled; Claim.Why says why
 )
 
 // Reason says why a claim is undecided; its string values are part of the
@@ -140,6 +146,21 @@ type Claim struct {
 	Seconds   float64 `json:"seconds"`
 	// Float is the float64 companion, where one was computed.
 	Float *FloatAudit `json:"float,omitempty"`
+	// Certificate proves an identity under polynomial hypotheses, where
+	// one was found.
+	Certificate *Certificate `json:"certificate,omitempty"`
+}
+
+// Certificate is what proves an identity under polynomial hypotheses h_i:
+// Multiple = Σ Cofactors[i]·Hypotheses[i], re-checked by expansion before
+// the verdict was written, so a reader can check it with any algebra
+// system. Multiple is lhs − rhs, a power of it, or its product with a
+// power of the non-degeneracy conditions; 1 for inconsistent hypotheses.
+type Certificate struct {
+	Statement  string   `json:"statement"` // Multiple in words, e.g. "(lhs − rhs)^2"
+	Multiple   string   `json:"multiple"`  // Multiple expanded
+	Hypotheses []string `json:"hypotheses"`
+	Cofactors  []string `json:"cofactors"`
 }
 
 // FloatAudit is what float64 arithmetic said about a claim: the claim's

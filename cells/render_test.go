@@ -230,6 +230,7 @@ func TestVerdictLabel(t *testing.T) {
 		want string
 	}{
 		{Claim{Verdict: Holds}, "✔ holds"},
+		{Claim{Verdict: HoldsWhere}, "✔ holds on the zero set"},
 		{Claim{Verdict: HoldsToDigits, Digits: 40}, "≈ holds to 40 digits"},
 		{Claim{Verdict: Estimated, Digits: 12}, "~ estimated to 12 digits"},
 		{Claim{Verdict: Estimated}, "~ estimated"},
@@ -258,6 +259,7 @@ func TestExitCode(t *testing.T) {
 		{"nothing", Report{}, 0, 0},
 		{"all hold", Report{Outcomes: claims(Holds, Holds)}, 0, 0},
 		{"holds to digits", Report{Outcomes: claims(Holds, HoldsToDigits)}, 0, 1},
+		{"holds on the zero set", Report{Outcomes: claims(Holds, HoldsWhere)}, 0, 0},
 		{"estimated", Report{Outcomes: claims(Holds, Estimated)}, 0, 1},
 		{"fails", Report{Outcomes: claims(Holds, Fails)}, 1, 1},
 		{"undecided", Report{Outcomes: claims(Undecided)}, 1, 1},

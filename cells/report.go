@@ -88,6 +88,8 @@ type jsonClaim struct {
 	Line     int         `json:"line"`
 	Seconds  float64     `json:"seconds"`
 	Float    *FloatAudit `json:"float,omitempty"` // the float64 audit, where one was made
+	// Certificate proves an identity under polynomial hypotheses.
+	Certificate *Certificate `json:"certificate,omitempty"`
 }
 
 type jsonError struct {
@@ -108,7 +110,8 @@ type jsonReport struct {
 // RenderJSON returns the machine-readable summary:
 // {"notebook", "sha256", "claims": [{"name", "kind", "method", "verdict",
 // "residual", "digits", "why" (undecided only), "sample" (where one is
-// shown), "cell", "line", "seconds", "float"}], "errors": [{"cell",
+// shown), "cell", "line", "seconds", "float", "certificate" (an identity
+// under polynomial hypotheses)}], "errors": [{"cell",
 // "line", "message"}], "warnings": [{"cell", "line", "message"}], "exit"},
 // indented, ending in a newline. errors holds the notebook problems and
 // then the cell errors; warnings (absent when there are none) the
@@ -119,7 +122,7 @@ func RenderJSON(r *Report, exit int) []byte {
 		j.Notebook = r.Notebook.Path
 	}
 	for _, c := range allClaims(r) {
-		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Why, c.Sample, c.Cell, c.Line, c.Seconds, c.Float})
+		j.Claims = append(j.Claims, jsonClaim{c.Name, c.Kind, c.Method, c.Verdict, c.Residual, c.Digits, c.Why, c.Sample, c.Cell, c.Line, c.Seconds, c.Float, c.Certificate})
 	}
 	for _, e := range allErrors(r) {
 		j.Errors = append(j.Errors, jsonError{e.Cell, e.Line, message(e)})

@@ -77,7 +77,8 @@ package exact
 // derivatives, contents), polyparse.go and polyformat.go; factoring is in
 // factor_sqfree.go (square-free parts), factor_modp.go, factor_hensel.go
 // and factor.go (univariate factorization over Q), factor_multi.go and
-// factor_lift.go (several variables: evaluation and Hensel lifting).
+// factor_lift.go (several variables: evaluation and Hensel lifting); Gröbner
+// bases in groebner*.go, on monomials of their own (groebner_order.go).
 
 import (
 	"fmt"

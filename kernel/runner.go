@@ -177,7 +177,9 @@ func cellOf(b *cells.Block, opt Options) ran {
 	if b.Options.Timeout > 0 {
 		timeout = b.Options.Timeout
 	}
-	return ran{cell: session.Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}, timeout: timeout}
+	c := session.Cell{Index: b.Index, Line: b.Line, Source: b.Text, Options: b.Options}
+	c.Options.Timeout = timeout // the session's own deadline for long computations
+	return ran{cell: c, timeout: timeout}
 }
 
 // runCells runs list[from:] in d, whose kernel has run list[:from], and

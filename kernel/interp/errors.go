@@ -34,6 +34,8 @@ func Exception(err error) error {
 		typ = py.MemoryError
 	case errors.Is(err, exact.ErrDegreeCap):
 		typ = py.ArithmeticError
+	case errors.Is(err, exact.ErrDeadline):
+		typ = py.RuntimeError
 	case errors.Is(err, exact.ErrUndecided):
 		return py.ExceptionNewf(py.ArithmeticError, "%v (raise the cap with --max-precision)", err)
 	}

@@ -82,7 +82,7 @@ func (s *Session) install(b py.StringDict) {
 func (s *Session) makeClaim(kind string, line int, a interp.Args, decide claimBuiltin) (py.Object, error) {
 	start := time.Now()
 	if kind != "identity" && kind != "inequality" && a.Has("given") {
-		return nil, py.ExceptionNewf(py.TypeError, "%s() takes no given=: a hypothesis is tested on samples, and only identity and inequality have a sampled form (over=g, samples=N); a symbolic hypothesis is not supported yet", kind)
+		return nil, py.ExceptionNewf(py.TypeError, "%s() takes no given=: a hypothesis is tested on samples, and only identity and inequality have a sampled form (over=g, samples=N); polynomial hypotheses (given=[h1, h2, ...]) are taken by identity", kind)
 	}
 	c, err := s.newClaim(kind, a.Get("name"), line)
 	if err != nil {

@@ -17,14 +17,22 @@ const identityDoc = `identity(name, lhs, rhs) checks lhs == rhs: exactly for num
 and matrices, to the working precision for certified reals (digits=N sets it).
 identity(name, f) calls f() for (lhs, rhs).
 identity(name, f, over=g, samples=N) checks f(g(k)) for k = 0..N-1;
-given=h counts only the samples where h(sample) is True.`
+given=h counts only the samples where h(sample) is True.
+identity(name, lhs, rhs, given=[h1, h2, ...], nonzero=[d1, ...]) proves a polynomial
+identity where the hypotheses h_i = 0 hold (and the d_j do not vanish), with a certificate.`
 
-var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree=", "given="}
+var identityParams = []string{"name", "lhs", "rhs=", "over=", "samples=", "digits=", "companion=", "degree=", "given=", "nonzero="}
 
 func (s *Session) identity(c *cells.Claim, t claim.Target, a interp.Args) error {
 	companion, err := a.Bool("companion", true)
 	if err != nil {
 		return err
+	}
+	if symbolicHypotheses(a) {
+		return s.identityUnder(c, a)
+	}
+	if a.Has("nonzero") {
+		return py.ExceptionNewf(py.TypeError, "identity(): nonzero= states non-degeneracy conditions, which need polynomial hypotheses: given=[h1, h2, ...]")
 	}
 	h, err := hypothesis("identity", a)
 	if err != nil {
@@ -104,7 +112,7 @@ func (s *Session) record(c cells.Claim, start time.Time) py.Object {
 	s.elsewhere = 0
 	s.claimAt[c.Name] = c.Line
 	s.outcome.Claims = append(s.outcome.Claims, c)
-	return py.NewBool(c.Verdict == cells.Holds)
+	return py.NewBool(c.Verdict == cells.Holds || c.Verdict == cells.HoldsWhere)
 }
 
 // sampled decides identity(name, f, over=g, samples=N).

@@ -124,6 +124,15 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 		seed = *c.Options.Seed
 	}
 	s.env.StartCell(c.Index, seed)
+	s.env.Deadline = time.Time{}
+	if t := c.Options.Timeout; t > 0 {
+		// A long computation stops itself before the cell's limit, so its
+		// message can say where it was (exact.ErrDeadline); the parent's
+		// timeout stays the hard limit. The margin, a tenth of the limit
+		// but at least a second (half of a short limit), leaves a step of
+		// the computation time to finish on a loaded machine.
+		s.env.Deadline = start.Add(t - max(t/10, min(time.Second, t/2)))
+	}
 	s.precision = s.settings.Precision
 	if c.Options.Precision > 0 {
 		s.precision = c.Options.Precision

@@ -49,7 +49,7 @@ func hypothesis(fn string, a interp.Args) (py.Object, error) {
 		return nil, nil
 	}
 	if !a.Has("over") {
-		return nil, py.ExceptionNewf(py.TypeError, "%s(): given= states a hypothesis, which is tested on samples: it needs over=g and samples=N (a symbolic hypothesis is not supported yet)", fn)
+		return nil, py.ExceptionNewf(py.TypeError, "%s(): given= states a hypothesis, which is tested on samples: it needs over=g and samples=N (or give a list of polynomial hypotheses, given=[h1, h2, ...], for an identity proved from them)", fn)
 	}
 	if !interp.Callable(h) {
 		return nil, py.ExceptionNewf(py.TypeError, "%s(): given= must be a function of the sample returning True or False, got %s", fn, interp.TypeName(h))

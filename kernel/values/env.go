@@ -3,6 +3,7 @@ package values
 import (
 	"math/big"
 	"math/rand/v2"
+	"time"
 
 	"github.com/go-python/gpython/py"
 
@@ -31,6 +32,10 @@ type Env struct {
 	// in, so that a cell stopped by its time limit can say what was
 	// running; "" when the computation returns.
 	Stage func(string)
+	// Deadline is when a long computation of the running cell (a Gröbner
+	// basis) stops with a message naming where it was, before the parent's
+	// timeout kills the kernel; zero for none.
+	Deadline time.Time
 
 	seed  int64  // seed in force for this cell
 	cell  int    // the cell running
@@ -51,6 +56,7 @@ func (e *Env) Install(b py.StringDict) {
 		e.rationalBuiltins,
 		e.realBuiltins,
 		e.polynomialBuiltins,
+		e.idealBuiltins,
 		e.matrixBuiltins,
 		e.simplexBuiltins,
 		e.kvectorBuiltins,
