@@ -275,14 +275,18 @@ func (s *Simplex) baryReal(name string, p []*exact.Real) ([]*exact.Real, bool, e
 		lam[0] = exact.RealSub(lam[0], lam[a])
 	}
 	if len(p) > k {
-		// |p − Σ λ_i v_i|² = 0 exactly when p is in the affine hull.
+		// p is in the affine hull exactly when p = Σ λ_i v_i; each
+		// coordinate is tested on its own, linear in p, which keeps the
+		// zero bound far smaller than that of the squared distance.
 		back := s.weighted(lam, exact.RealFromInt(1))
-		sign, err := squaredDistance(back, p).Sign(s.env.Cap)
-		if err != nil {
-			return nil, false, py.ExceptionNewf(py.ArithmeticError, "%s(p): whether p is in the affine hull of the simplex is not settled: %v", name, interp.Exception(err))
-		}
-		if sign != 0 {
-			return nil, true, nil
+		for c := range p {
+			sign, err := exact.RealSub(back[c], p[c]).Sign(s.env.Cap)
+			if err != nil {
+				return nil, false, py.ExceptionNewf(py.ArithmeticError, "%s(p): whether p is in the affine hull of the simplex is not settled: %v", name, interp.Exception(err))
+			}
+			if sign != 0 {
+				return nil, true, nil
+			}
 		}
 	}
 	return lam, false, nil
