@@ -117,7 +117,18 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"simplex-algebraic-affine.md", 7, "this simplex has algebraic coordinates", nil},
 		{"point-inradius.md", 5, "inradius(): a point has no facets, so no insphere", nil},
 		{"degenerate-touch-points.md", 5, "the simplex is degenerate (zero volume)", nil},
-		{"simplex-irrational-distance.md", 6, "the squared distance between points 1 and 2 (2.5358983848622454129) is irrational", nil},
+		{"degenerate-exradius.md", 5, "exradius: the simplex is degenerate (zero volume)", nil},
+		{"degenerate-solid-angle.md", 5, "the simplex is degenerate (zero volume): solid angle: degenerate simplex", nil},
+		{"degenerate-barycentric.md", 5, "barycentric: the simplex is degenerate (zero volume)", nil},
+		{"degenerate-quality.md", 5, "ratio: the simplex is degenerate (zero volume)", nil},
+		{"degenerate-vertex-angle.md", 5, "vertex 0 coincides with vertex 1 or 2", nil},
+		{"degenerate-facet-normal.md", 5, "normal: the simplex is degenerate (zero volume)", nil},
+		{"degenerate-tangent-lengths.md", 5, "lengths: the simplex is degenerate (zero volume)", nil},
+		{"solid-angle-triangle.md", 5, "angle(i): defined for tetrahedra (3-simplices), this is a 2-simplex", nil},
+		{"simplex-index-range.md", 5, "exradius(i) needs vertex indices from 0 to 3, got i = 4", nil},
+		{"barycentric-wrong-dimension.md", 5, "barycentric(p): p has 2 coordinates, the simplex's points have 3", nil},
+		{"contains-wrong-dimension.md", 5, "contains(p): p has 4 coordinates, the simplex's points have 3", nil},
+		{"simplex-irrational-distance.md", 6, "the squared distance between points 1 and 2 (6 - 2", nil},
 	}
 	for _, c := range cases {
 		t.Run(c.file, func(t *testing.T) {

@@ -451,6 +451,9 @@ func (s *Simplex) volumeLengthRatio(interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) dihedralExtreme(name string, largest bool) (py.Object, error) {
+	if err := s.needsSolid(name, 2); err != nil {
+		return nil, err
+	}
 	lo, hi, err := s.s.DihedralExtremes()
 	if err != nil {
 		return nil, geomErr(name, err)
