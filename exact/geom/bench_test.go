@@ -53,3 +53,61 @@ func measureTet(b *testing.B, s *Simplex) {
 		b.Fatal(err)
 	}
 }
+
+// BenchmarkTetrahedraShape10000 times, per op, the exact (rational) part
+// of the rest of a tetrahedron's geometry on the 10,000 tetrahedra of
+// BenchmarkTetrahedra10000: centroid and its containment, the four
+// altitudes and facet normals, the foot ratios of the touch points, the
+// twelve face angles, the four solid-angle terms, the volume–length
+// ratio, the dihedral extremes and the longest edge. Target (issue 18,
+// with the kernel's certified parts): < 1 s per op.
+func BenchmarkTetrahedraShape10000(b *testing.B) {
+	pts := tetPoints(10000)
+	b.ResetTimer()
+	for b.Loop() {
+		for _, p := range pts {
+			s, err := FromPoints(p)
+			if err != nil {
+				b.Fatal(err)
+			}
+			shapeTet(b, s)
+		}
+	}
+}
+
+func shapeTet(b *testing.B, s *Simplex) {
+	c, err := s.Centroid()
+	if err != nil {
+		b.Fatal(err)
+	}
+	if in, err := s.Contains(c); !in || err != nil {
+		b.Fatal("centroid outside", err)
+	}
+	for i := range 4 {
+		if _, _, err := s.FacetNormal(i); err != nil {
+			b.Fatal(err)
+		}
+		if _, err := s.FootRatios(i); err != nil {
+			b.Fatal(err)
+		}
+		if _, _, _, err := s.SolidAngleTerms(i); err != nil {
+			b.Fatal(err)
+		}
+		for j := range 4 {
+			for m := j + 1; m < 4; m++ {
+				if j != i && m != i {
+					if _, _, err := s.VertexCosSq(i, j, m); err != nil {
+						b.Fatal(err)
+					}
+				}
+			}
+		}
+	}
+	if _, err := s.VolumeLengthRatioSq(); err != nil {
+		b.Fatal(err)
+	}
+	if _, _, err := s.DihedralExtremes(); err != nil {
+		b.Fatal(err)
+	}
+	s.MaxSqEdge()
+}

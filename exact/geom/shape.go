@@ -62,12 +62,36 @@ func (s *Simplex) AltitudeSq(i int) (*big.Rat, error) {
 	if err := s.checkVertex("altitude", i); err != nil {
 		return nil, err
 	}
-	f := s.FacetContentsSq()[i]
-	if f.Sign() == 0 {
-		return nil, fmt.Errorf("altitude: %w (the facet opposite vertex %d has content 0)", ErrDegenerate, i)
+	c := s.core()
+	if c.adj == nil { // k > 3 and degenerate: contents from the facets' own Gram matrices
+		if s.FacetContentsSq()[i].Sign() == 0 {
+			return nil, errFlatFacet(i)
+		}
+		return new(big.Rat), nil
 	}
-	h := new(big.Rat).Mul(s.VolumeSq(), big.NewRat(int64(s.k*s.k), 1))
-	return h.Quo(h, f), nil
+	// h_i² = k²V²/F_i² = det g/(s·A_i), A_i the facet's numerator (core.go):
+	// the factorials and powers of s cancel.
+	a := facetNumerator(c, s.k, i)
+	if a.Sign() == 0 {
+		return nil, errFlatFacet(i)
+	}
+	return ratFrac(c.det, new(big.Int).Mul(s.s, a)), nil
+}
+
+func errFlatFacet(i int) error {
+	return fmt.Errorf("altitude: %w (the facet opposite vertex %d has content 0)", ErrDegenerate, i)
+}
+
+// facetNumerator is A_ii for i >= 1 and Σ_ab A_ab for i = 0 (core.go).
+func facetNumerator(c *core, k, i int) *big.Int {
+	if i > 0 {
+		return c.adj[(i-1)*k+i-1]
+	}
+	sum := new(big.Int)
+	for _, x := range c.adj {
+		sum.Add(sum, x)
+	}
+	return sum
 }
 
 // FacetNormal returns the outward normal of the facet opposite vertex i,
@@ -81,18 +105,45 @@ func (s *Simplex) FacetNormal(i int) (normal []*big.Rat, lengthSq *big.Rat, err 
 	if s.pts == nil {
 		return nil, nil, errNoPoints("facet normal")
 	}
-	c, err := s.FootRatios(i)
-	if err != nil {
+	if s.k < 1 {
+		return nil, nil, fmt.Errorf("facet normal: a point has no facets: %w", exact.ErrShape)
+	}
+	if err := s.checkVertex("facet normal", i); err != nil {
 		return nil, nil, err
 	}
-	for _, x := range c {
-		x.Neg(x)
+	if s.IsDegenerate() {
+		return nil, nil, fmt.Errorf("facet normal: %w (squared volume 0)", ErrDegenerate)
 	}
 	h, err := s.AltitudeSq(i)
 	if err != nil {
 		return nil, nil, err
 	}
-	return s.combine(c), h, nil
+	// foot_i − v_i = −Σ_{m>=1} c_m (v_m − v_0) (the c_m sum to 0), computed
+	// on the integral edge vectors l·(v_m − v_0), s = l², over l·q_ii.
+	q := s.gradients()
+	l := new(big.Int).Sqrt(s.s)
+	den := new(big.Int).Mul(l, q[i][i])
+	p0 := make([]big.Int, s.n)
+	for c, x := range s.pts[0] {
+		setScaled(&p0[c], x, l)
+	}
+	sum := make([]big.Int, s.n)
+	var e, t big.Int
+	for m := 1; m <= s.k; m++ {
+		if q[i][m].Sign() == 0 {
+			continue
+		}
+		for c, x := range s.pts[m] {
+			setScaled(&e, x, l)
+			e.Sub(&e, &p0[c])
+			sum[c].Sub(&sum[c], t.Mul(q[i][m], &e))
+		}
+	}
+	normal = make([]*big.Rat, s.n)
+	for c := range normal {
+		normal[c] = ratFrac(&sum[c], den)
+	}
+	return normal, h, nil
 }
 
 // VertexCosSq returns the square and the sign (−1, 0, +1) of the cosine of
@@ -109,21 +160,21 @@ func (s *Simplex) VertexCosSq(i, j, m int) (cos2 *big.Rat, sign int, err error) 
 	if i == j || i == m || j == m {
 		return nil, 0, fmt.Errorf("vertex angle: the vertices must differ, got (%d, %d, %d): %w", i, j, m, exact.ErrShape)
 	}
-	dj, dm := s.SqEdge(i, j), s.SqEdge(i, m)
-	if dj.Sign() == 0 || dm.Sign() == 0 {
+	if s.sqEdgeScaled(i, j).Sign() == 0 || s.sqEdgeScaled(i, m).Sign() == 0 {
 		return nil, 0, fmt.Errorf("vertex angle: %w (vertex %d coincides with vertex %d or %d)", ErrDegenerate, i, j, m)
 	}
-	dot := s.edgeDot(i, j, m)
-	cos2 = new(big.Rat).Mul(dot, dot)
-	cos2.Quo(cos2, dj)
-	return cos2.Quo(cos2, dm), dot.Sign(), nil
+	dot := s.dotScaled(i, j, m)
+	num := new(big.Int).Mul(dot, dot)
+	den := new(big.Int).Mul(s.sqEdgeScaled(i, j), s.sqEdgeScaled(i, m))
+	return ratFrac(num, den), dot.Sign(), nil
 }
 
-// edgeDot returns (v_j − v_i)·(v_m − v_i) = (d_ij + d_im − d_jm)/2.
-func (s *Simplex) edgeDot(i, j, m int) *big.Rat {
-	z := new(big.Rat).Add(s.SqEdge(i, j), s.SqEdge(i, m))
-	z.Sub(z, s.SqEdge(j, m))
-	return z.Quo(z, big.NewRat(2, 1))
+// dotScaled returns s·(v_j − v_i)·(v_m − v_i) = g_jm − g_ij − g_im + g_ii
+// (g the scaled Gram matrix from vertex 0), an integer.
+func (s *Simplex) dotScaled(i, j, m int) *big.Int {
+	z := new(big.Int).Sub(s.gi(j, m), s.gi(i, j))
+	z.Sub(z, s.gi(i, m))
+	return z.Add(z, s.gi(i, i))
 }
 
 // SolidAngleTerms returns the rational ingredients of the solid angle Ω at
@@ -135,7 +186,9 @@ func (s *Simplex) edgeDot(i, j, m int) *big.Rat {
 //	tan(Ω/2) = |a·(b×c)| / (|a||b||c| + (a·b)|c| + (a·c)|b| + (b·c)|a|),
 //
 // tripleSq = (a·(b×c))² = 36V², sq = (|a|², |b|², |c|²) and
-// dots = (a·b, a·c, b·c). Ω = 2·atan2(numerator, denominator) takes the
+// dots = (a·b, a·c, b·c), all multiplied by one positive factor per
+// squared length (so tripleSq by its cube): the formula is homogeneous
+// of degree 0, and the integers need no reduction. Ω = 2·atan2(numerator, denominator) takes the
 // branch in (0, 2π) when the denominator is negative. It needs a
 // 3-simplex (exact.ErrShape), i in range and a non-degenerate tetrahedron
 // (ErrDegenerate).
@@ -149,23 +202,29 @@ func (s *Simplex) SolidAngleTerms(i int) (tripleSq *big.Rat, sq, dots [3]*big.Ra
 	if s.IsDegenerate() {
 		return nil, sq, dots, fmt.Errorf("solid angle: %w (squared volume 0)", ErrDegenerate)
 	}
+	// With Gram = g/s: 36V² = det Gram = det g/s³, and s·d_ij, s·(a·b)
+	// are integers.
 	o := others(3, i)
 	for a := range 3 {
-		sq[a] = s.SqEdge(i, o[a])
+		sq[a] = new(big.Rat).SetInt(s.sqEdgeScaled(i, o[a]))
 	}
-	dots[0], dots[1], dots[2] = s.edgeDot(i, o[0], o[1]), s.edgeDot(i, o[0], o[2]), s.edgeDot(i, o[1], o[2])
-	return new(big.Rat).Mul(s.VolumeSq(), big.NewRat(36, 1)), sq, dots, nil
+	dots[0] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[1]))
+	dots[1] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[2]))
+	dots[2] = new(big.Rat).SetInt(s.dotScaled(i, o[1], o[2]))
+	return new(big.Rat).SetInt(s.core().det), sq, dots, nil
 }
 
 // MaxSqEdge returns the largest squared edge length (0 for a point).
 func (s *Simplex) MaxSqEdge() *big.Rat {
-	m := new(big.Rat)
-	for _, d := range s.SqEdges() {
-		if d.Cmp(m) > 0 {
-			m.Set(d)
+	m := new(big.Int)
+	for i := 0; i <= s.k; i++ {
+		for j := i + 1; j <= s.k; j++ {
+			if d := s.sqEdgeScaled(i, j); d.Cmp(m) > 0 {
+				m = d
+			}
 		}
 	}
-	return m
+	return ratFrac(m, s.s)
 }
 
 // VolumeLengthRatioSq returns the square of the volume–length ratio
@@ -180,24 +239,26 @@ func (s *Simplex) VolumeLengthRatioSq() (*big.Rat, error) {
 	if s.k < 1 {
 		return nil, fmt.Errorf("volume-length ratio: a point has no edges: %w", exact.ErrShape)
 	}
-	mean := new(big.Rat)
-	edges := s.SqEdges()
-	for _, d := range edges {
-		mean.Add(mean, d)
+	// With V² = det g/(s^k (k!)²) and ℓ_rms² = M/(s·E), M the sum of the
+	// scaled squared edges and E their number, the square is
+	// det g·2^k·E^k/((k+1)·M^k): s and the factorials cancel.
+	M := new(big.Int)
+	for i := 0; i <= s.k; i++ {
+		for j := i + 1; j <= s.k; j++ {
+			M.Add(M, s.sqEdgeScaled(i, j))
+		}
 	}
-	if mean.Sign() == 0 {
+	if M.Sign() == 0 {
 		return nil, fmt.Errorf("volume-length ratio: %w (every edge has length 0)", ErrDegenerate)
 	}
-	mean.Quo(mean, big.NewRat(int64(len(edges)), 1))
-	f := new(big.Rat).SetInt(factorial(s.k))
-	num := new(big.Rat).Mul(s.VolumeSq(), f)
-	num.Mul(num, f)
-	num.Mul(num, new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), uint(s.k))))
-	den := new(big.Rat).SetInt64(int64(s.k + 1))
-	for range s.k {
-		den.Mul(den, mean)
-	}
-	return num.Quo(num, den), nil
+	kk := big.NewInt(int64(s.k))
+	E := big.NewInt(int64(s.k * (s.k + 1) / 2))
+	num := new(big.Int).Exp(E, kk, nil)
+	num.Mul(num, s.core().det)
+	num.Lsh(num, uint(s.k))
+	den := new(big.Int).Exp(M, kk, nil)
+	den.Mul(den, big.NewInt(int64(s.k+1)))
+	return ratFrac(num, den), nil
 }
 
 // DihedralPair is a pair of facets, named by their opposite vertices
@@ -215,34 +276,91 @@ type DihedralPair struct {
 // sign·cos² increases. It needs what DihedralCosSq needs (k >= 2, not
 // degenerate).
 func (s *Simplex) DihedralExtremes() (smallest, largest DihedralPair, err error) {
-	first := true
+	if _, _, err := s.DihedralCosSq(0, 1); err != nil { // the checks
+		return smallest, largest, err
+	}
+	// cos θ_ij = −q_ij/√(q_ii q_jj) (see DihedralCosSq); compare the keys
+	// sign·cos² = −sign(q_ij)·q_ij²/(q_ii q_jj) by cross-multiplying.
+	q := s.gradients()
+	type key struct{ num, den *big.Int }
+	keyOf := func(i, j int) key {
+		n := new(big.Int).Mul(q[i][j], q[i][j])
+		if q[i][j].Sign() > 0 {
+			n.Neg(n)
+		}
+		return key{n, new(big.Int).Mul(q[i][i], q[j][j])}
+	}
+	cmp := func(a, b key) int {
+		return new(big.Int).Mul(a.num, b.den).Cmp(new(big.Int).Mul(b.num, a.den))
+	}
+	lo, hi := [2]int{0, 1}, [2]int{0, 1}
+	kLo, kHi := keyOf(0, 1), keyOf(0, 1)
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
-			c2, sg, err := s.DihedralCosSq(i, j)
-			if err != nil {
-				return smallest, largest, err
+			kij := keyOf(i, j)
+			if cmp(kij, kLo) > 0 {
+				lo, kLo = [2]int{i, j}, kij
 			}
-			p := DihedralPair{i, j, c2, sg}
-			if first || cosKey(p).Cmp(cosKey(smallest)) > 0 {
-				smallest = p
+			if cmp(kij, kHi) < 0 {
+				hi, kHi = [2]int{i, j}, kij
 			}
-			if first || cosKey(p).Cmp(cosKey(largest)) < 0 {
-				largest = p
-			}
-			first = false
 		}
 	}
-	if first { // k < 2: let DihedralCosSq say why
-		_, _, err = s.DihedralCosSq(0, 1)
+	pair := func(ij [2]int, k key) DihedralPair {
+		c2 := ratFrac(new(big.Int).Abs(k.num), k.den)
+		return DihedralPair{ij[0], ij[1], c2, -q[ij[0]][ij[1]].Sign()}
 	}
-	return smallest, largest, err
+	return pair(lo, kLo), pair(hi, kHi), nil
 }
 
-// cosKey is sign·cos², increasing with the cosine.
-func cosKey(p DihedralPair) *big.Rat {
-	k := new(big.Rat).Set(p.Cos2)
-	if p.Sign < 0 {
-		k.Neg(k)
+// gradients returns the cached matrix core.qInts (shared: read only).
+func (s *Simplex) gradients() [][]*big.Int {
+	c := s.core()
+	c.qOnce.Do(func() { c.q = c.qInts(s.k) })
+	return c.q
+}
+
+// barycentricFull is Barycentric for a full-dimensional, non-degenerate
+// simplex, in integers: with e_b = l·(v_b − v_0) integral (s = l²) and
+// P = L·l·(p − v_0), L the lcm of p's denominators, Gram⁻¹ = s·adj(g)/det g
+// gives λ_a = Σ_b adj_ab (e_b·P) / (L·det g) for a >= 1.
+func (s *Simplex) barycentricFull(c *core, p []*big.Rat) []*big.Rat {
+	k := s.k
+	l := new(big.Int).Sqrt(s.s)
+	var lc lcmAcc
+	for _, x := range p {
+		lc.add(x)
 	}
-	return k
+	L := lc.value()
+	ll := new(big.Int).Mul(L, l)
+	P := make([]big.Int, s.n)
+	p0 := make([]big.Int, s.n)
+	var t big.Int
+	for c2, x := range s.pts[0] {
+		setScaled(&p0[c2], x, l)
+		setScaled(&P[c2], p[c2], ll)
+		P[c2].Sub(&P[c2], t.Mul(L, &p0[c2]))
+	}
+	y := make([]big.Int, k)
+	var e big.Int
+	for b := 1; b <= k; b++ {
+		for c2, x := range s.pts[b] {
+			setScaled(&e, x, l)
+			e.Sub(&e, &p0[c2])
+			y[b-1].Add(&y[b-1], t.Mul(&e, &P[c2]))
+		}
+	}
+	den := new(big.Int).Mul(L, c.det)
+	rest := new(big.Int).Set(den)
+	out := make([]*big.Rat, k+1)
+	for a := 1; a <= k; a++ {
+		num := new(big.Int)
+		for b := 0; b < k; b++ {
+			num.Add(num, t.Mul(c.adj[(a-1)*k+b], &y[b]))
+		}
+		rest.Sub(rest, num)
+		out[a] = ratFrac(num, den)
+	}
+	out[0] = ratFrac(rest, den)
+	return out
 }

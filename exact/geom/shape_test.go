@@ -87,6 +87,36 @@ func TestAltitudeAndFacetNormal(t *testing.T) {
 	eqRat(t, "corner normal 1 length²", l2, "1")
 	eqRat(t, "corner normal 1 x", n[0], "-1")
 	eqRat(t, "corner normal 1 y", n[1], "0")
+	// On a random simplex with fractions: the normal is orthogonal to the
+	// facet, has the altitude's length and points away from vertex i.
+	r := Random(3, 4, 20, 7)
+	pts, _ := r.Points()
+	for i := range 4 {
+		n, l2, err := r.FacetNormal(i)
+		if err != nil {
+			t.Fatal(err)
+		}
+		dot := func(a, b []*big.Rat) *big.Rat {
+			z := new(big.Rat)
+			for c := range a {
+				z.Add(z, new(big.Rat).Mul(a[c], new(big.Rat).Sub(b[c], pts[(i+1)%4][c])))
+			}
+			return z
+		}
+		for _, j := range others(3, i) {
+			eqRat(t, "normal · facet edge", dot(n, pts[j]), "0")
+		}
+		if dot(n, pts[i]).Sign() >= 0 {
+			t.Errorf("normal %d points toward its vertex", i)
+		}
+		nn := new(big.Rat)
+		for _, x := range n {
+			nn.Add(nn, new(big.Rat).Mul(x, x))
+		}
+		if nn.Cmp(l2) != 0 {
+			t.Errorf("normal %d: |n|² = %v, altitude² %v", i, nn, l2)
+		}
+	}
 	if _, _, err := regularTet(t).FacetNormal(0); !errors.Is(err, exact.ErrShape) {
 		t.Errorf("from distances: %v", err)
 	}
@@ -157,21 +187,65 @@ func TestQualityIngredients(t *testing.T) {
 	}
 }
 
-// At the right corner the edges are orthonormal: triple product² 1, dots 0.
+// At a right corner the edges are orthogonal: the triple product² is the
+// product of the squared lengths (the volume of a box), the dots are 0.
+// The terms share a scale, so compare ratios. On the regular tetrahedron
+// a·b = |a|²/2 (60° angles) and 36V² = 1/2 of the cube of an edge²
+// (V = 1/(6√2); handbook).
 func TestSolidAngleTerms(t *testing.T) {
-	tr, sq, dots, err := corner(t).SolidAngleTerms(0)
+	c := mustPoints(t, vec(0, 0, 0), []*big.Rat{q("1/2"), qi(0), qi(0)}, vec(0, 3, 0), []*big.Rat{qi(0), qi(0), q("5/3")})
+	tr, sq, dots, err := c.SolidAngleTerms(0)
 	if err != nil {
 		t.Fatal(err)
 	}
-	eqRat(t, "triple²", tr, "1")
+	box := new(big.Rat).Mul(sq[0], sq[1])
+	eqRat(t, "triple² / box", box.Quo(tr, box.Mul(box, sq[2])), "1")
 	for a := range 3 {
-		eqRat(t, "length²", sq[a], "1")
 		eqRat(t, "dot", dots[a], "0")
 	}
+	tr, sq, dots, _ = regularTet(t).SolidAngleTerms(2)
+	for a := range 3 {
+		eqRat(t, "regular dot / length²", new(big.Rat).Quo(dots[a], sq[a]), "1/2")
+	}
+	cube := new(big.Rat).Mul(sq[0], sq[1])
+	eqRat(t, "regular triple² / edge⁶", cube.Quo(tr, cube.Mul(cube, sq[2])), "1/2")
 	if _, _, _, err := mustPoints(t, vec(0, 0), vec(1, 0), vec(0, 1)).SolidAngleTerms(0); !errors.Is(err, exact.ErrShape) {
 		t.Errorf("triangle: %v", err)
 	}
 	if _, _, _, err := mustPoints(t, vec(0, 0, 0), vec(1, 0, 0), vec(0, 1, 0), vec(1, 1, 0)).SolidAngleTerms(0); !errors.Is(err, ErrDegenerate) {
 		t.Errorf("flat: %v", err)
+	}
+}
+
+// Barycentric coordinates by definition: p = Σ λ_i v_i with Σ λ_i = 1, on
+// random full-dimensional simplices with fractions (the integer route)
+// and in a plane of R^3 (the Gram solve).
+func TestBarycentricByDefinition(t *testing.T) {
+	for seed := range uint64(20) {
+		dim := 2 + int(seed%3)
+		s := Random(dim, seed, 30, 9)
+		p := make([]*big.Rat, dim)
+		for c := range p {
+			p[c] = big.NewRat(int64(seed)*7-int64(c)*13, int64(c)+3)
+		}
+		lam, err := s.Barycentric(p)
+		if err != nil {
+			t.Fatal(err)
+		}
+		back := s.combine(lam)
+		sum := new(big.Rat)
+		for _, l := range lam {
+			sum.Add(sum, l)
+		}
+		for c := range p {
+			if back[c].Cmp(p[c]) != 0 || sum.Cmp(qi(1)) != 0 {
+				t.Fatalf("seed %d: Σλv = %s, p = %s, Σλ = %v", seed, fmtVec(back), fmtVec(p), sum)
+			}
+		}
+	}
+	plane := mustPoints(t, vec(1, 0, 0), vec(0, 1, 0), vec(0, 0, 1))
+	lam, err := plane.Barycentric([]*big.Rat{q("1/2"), q("1/3"), q("1/6")})
+	if err != nil || lam[0].Cmp(q("1/2")) != 0 || lam[2].Cmp(q("1/6")) != 0 {
+		t.Errorf("plane: %v %v", lam, err)
 	}
 }
