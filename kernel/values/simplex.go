@@ -40,6 +40,10 @@ type Simplex struct {
 	scale []*exact.Real
 	alg   [][]*exact.Real
 	given bool // alg holds points given to simplex(), not an embedding
+
+	contentsOnce sync.Once // computes contents and contentSum
+	contents     []*exact.Real
+	contentSum   *exact.Real
 }
 
 // SimplexType is the Python type of Simplex.
@@ -594,14 +598,20 @@ func (s *Simplex) touchPoints(interp.Args) (py.Object, error) {
 	return s.feet("touch_points", F, total)
 }
 
-// facetContents returns the facet contents F_m and their sum as reals.
+// facetContents returns the facet contents F_m and their sum as reals,
+// made once per simplex (shared: callers must not change the slice), so
+// that the incentre, touch points, exspheres and radii share their nodes.
 func (s *Simplex) facetContents() ([]*exact.Real, *exact.Real) {
-	areas := s.s.FacetContentsSq()
-	F := make([]*exact.Real, len(areas))
-	for i, a := range areas {
-		F[i] = exact.RealSqrt(exact.RealFromRat(a))
-	}
-	return F, sqrtSum(areas)
+	s.contentsOnce.Do(func() {
+		areas := s.s.FacetContentsSq()
+		s.contents = make([]*exact.Real, len(areas))
+		s.contentSum = exact.RealFromInt(0)
+		for i, a := range areas {
+			s.contents[i] = exact.RealSqrt(exact.RealFromRat(a))
+			s.contentSum = exact.RealAdd(s.contentSum, s.contents[i])
+		}
+	})
+	return s.contents, s.contentSum
 }
 
 // feet returns, for the point X = Σ w_m v_m / total (Σ w_m = total), the
