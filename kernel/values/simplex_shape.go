@@ -282,7 +282,35 @@ func (s *Simplex) baryReal(name string, p []*exact.Real) ([]*exact.Real, bool, e
 		}
 		lam[0] = exact.RealSub(lam[0], lam[a])
 	}
-	if len(p) > k {
+	if len(p) > k && !s.algebraic() {
+		// Rational points: p is in the affine hull exactly when p − v_0 is
+		// orthogonal to a rational basis of the edges' orthogonal
+		// complement, one linear form in p per basis vector — the smallest
+		// expressions to decide.
+		pts, _ := s.s.Points()
+		e := exact.Zeros(k, len(p))
+		for a := 1; a <= k; a++ {
+			for c := range p {
+				e.Set(a-1, c, new(big.Rat).Sub(pts[a][c], pts[0][c]))
+			}
+		}
+		ns := e.Nullspace()
+		for r := 0; r < ns.Cols(); r++ {
+			form := exact.RealFromInt(0)
+			for c := range p {
+				if x := ns.At(c, r); x.Sign() != 0 {
+					form = exact.RealAdd(form, exact.RealMul(exact.RealFromRat(x), exact.RealSub(p[c], V[0][c])))
+				}
+			}
+			sign, err := form.Sign(s.env.Cap)
+			if err != nil {
+				return nil, false, py.ExceptionNewf(py.ArithmeticError, "%s(p): whether p is in the affine hull of the simplex is not settled: %v", name, interp.Exception(err))
+			}
+			if sign != 0 {
+				return nil, true, nil
+			}
+		}
+	} else if len(p) > k {
 		// p is in the affine hull exactly when p = Σ λ_i v_i; each
 		// coordinate is tested on its own, linear in p, which keeps the
 		// zero bound far smaller than that of the squared distance.
