@@ -224,7 +224,7 @@ func TestEveryMethodOnAlgebraicSimplices(t *testing.T) {
 		"exsphere_touch_points": "t.exsphere_touch_points(3)", "tangent_lengths": "t.tangent_lengths()",
 		"centroid": "t.centroid()", "barycentric": "t.barycentric(t.points()[1])", "contains": "t.contains(t.incenter())",
 		"facet_normal": "t.facet_normal(2)", "altitude_sq": "t.altitude_sq(1)", "altitude": "t.altitude(0)",
-		"vertex_cos": "t.vertex_cos(0, 1, 2)", "vertex_angle": "t.vertex_angle(1, 2, 3)", "solid_angle": "t.solid_angle(2)",
+		"vertex_cos": "t.vertex_cos(0, 1, 2)", "vertex_angle": "t.vertex_angle(1, 2, 3)", "solid_angle": "t.solid_angle(2)", "dihedral_angle": "t.dihedral_angle(0, 3)",
 		"radius_ratio": "t.radius_ratio()", "volume_length_ratio": "t.volume_length_ratio()",
 		"min_dihedral_angle": "t.min_dihedral_angle()", "max_dihedral_angle": "t.max_dihedral_angle()", "aspect_ratio": "t.aspect_ratio()",
 	}

@@ -34,7 +34,7 @@ func TestShapeErrors(t *testing.T) {
 	var cases []errorCase
 	for _, m := range []string{"exradius(0)", "excenter(1)", "exsphere_touch_points(2)", "tangent_lengths()", "touch_points()",
 		"barycentric([0, 0, 0])", "contains([0, 0, 0])", "facet_normal(0)", "solid_angle(0)", "radius_ratio()",
-		"aspect_ratio()", "min_dihedral_angle()", "max_dihedral_angle()"} {
+		"aspect_ratio()", "min_dihedral_angle()", "max_dihedral_angle()", "dihedral_angle(0, 1)"} {
 		cases = append(cases, errorCase{flat + "print(f." + m + ")", "degenerate"})
 	}
 	cases = append(cases, []errorCase{

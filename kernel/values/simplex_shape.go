@@ -42,6 +42,7 @@ func init() {
 		{"altitude", params("i"), "altitude(i) -> the height of vertex i over the opposite facet", (*Simplex).altitude},
 		{"vertex_cos", params("i", "j", "k"), "vertex_cos(i, j, k) -> cosine of the angle at vertex i between the edges to j and k (exact when rational)", (*Simplex).vertexCos},
 		{"vertex_angle", params("i", "j", "k"), "vertex_angle(i, j, k) -> the angle at vertex i between the edges to j and k, in radians (certified)", (*Simplex).vertexAngle},
+		{"dihedral_angle", params("i", "j"), "dihedral_angle(i, j) -> the interior dihedral angle between the facets opposite i and j, in radians (certified)", (*Simplex).dihedralAngle},
 		{"solid_angle", params("i"), "solid_angle(i) -> the solid angle of a tetrahedron at vertex i, in steradians (certified; van Oosterom-Strackee)", (*Simplex).solidAngle},
 		{"radius_ratio", nil, "radius_ratio() -> k r / R, 1 for the regular simplex", (*Simplex).radiusRatio},
 		{"volume_length_ratio", nil, "volume_length_ratio() -> V over the regular simplex's volume at the rms edge length (6 sqrt(2) V / l_rms^3 for tetrahedra)", (*Simplex).volumeLengthRatio},
@@ -439,6 +440,18 @@ func (s *Simplex) vertexAngle(a interp.Args) (py.Object, error) {
 		return nil, err
 	}
 	return s.env.Real(exact.RealAcos(c)), nil
+}
+
+func (s *Simplex) dihedralAngle(a interp.Args) (py.Object, error) {
+	i, j, err := s.vertexPair("dihedral_angle", a, true)
+	if err != nil {
+		return nil, err
+	}
+	cos2, sign, err := s.s.DihedralCosSq(i, j)
+	if err != nil {
+		return nil, geomErr("dihedral_angle", err)
+	}
+	return s.env.Real(exact.RealAcos(signedRoot(cos2, sign))), nil
 }
 
 // solidAngle: Ω = 2·atan2(|a·(b×c)|, abc + (a·b)c + (a·c)b + (b·c)a)
