@@ -64,8 +64,8 @@ func measureTet(b *testing.B, s *Simplex) {
 // altitudes and facet normals, the foot ratios of the touch points, the
 // twelve face angles, the four solid-angle terms, the volume–length
 // ratio, the dihedral extremes and the longest edge. Target (issue 18,
-// with the kernel's certified parts): < 1 s per op; measured 1.2–2.4 s on
-// a loaded machine (DEVELOPERS.md).
+// with the kernel's certified parts): < 1 s per op; measured 1.2–3.9 s on
+// a loaded machine, about 1.3 s of CPU (DEVELOPERS.md).
 func BenchmarkTetrahedraShape10000(b *testing.B) { benchTets(b, shapeTet) }
 
 func shapeTet(b *testing.B, s *Simplex) {
