@@ -691,19 +691,7 @@ func (s *Simplex) facet(a interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
-	i, j, err := s.vertexPair("dihedral_cos", a, true)
-	if err != nil {
-		return nil, err
-	}
-	cos2, sign, err := s.s.DihedralCosSq(i, j)
-	if err != nil {
-		return nil, geomErr("dihedral_cos", err)
-	}
-	c := exact.RealSqrt(exact.RealFromRat(cos2))
-	if sign < 0 {
-		c = exact.RealNeg(c)
-	}
-	return s.env.Real(c), nil
+	return s.realResult(s.dihedralCosReal("dihedral_cos", a))
 }
 
 // vertexPair reads the vertex indices i and j; distinct refuses i == j,

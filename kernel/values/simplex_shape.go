@@ -427,31 +427,46 @@ func (s *Simplex) vertexCosReal(name string, a interp.Args) (*exact.Real, error)
 }
 
 func (s *Simplex) vertexCos(a interp.Args) (py.Object, error) {
-	c, err := s.vertexCosReal("vertex_cos", a)
-	if err != nil {
-		return nil, err
-	}
-	return s.env.Real(c), nil
+	return s.realResult(s.vertexCosReal("vertex_cos", a))
 }
 
 func (s *Simplex) vertexAngle(a interp.Args) (py.Object, error) {
-	c, err := s.vertexCosReal("vertex_angle", a)
-	if err != nil {
-		return nil, err
-	}
-	return s.env.Real(exact.RealAcos(c)), nil
+	return s.angleResult(s.vertexCosReal("vertex_angle", a))
 }
 
-func (s *Simplex) dihedralAngle(a interp.Args) (py.Object, error) {
-	i, j, err := s.vertexPair("dihedral_angle", a, true)
+// dihedralCosReal is the cosine of the dihedral angle between the facets
+// opposite the vertices i and j read from a.
+func (s *Simplex) dihedralCosReal(name string, a interp.Args) (*exact.Real, error) {
+	i, j, err := s.vertexPair(name, a, true)
 	if err != nil {
 		return nil, err
 	}
 	cos2, sign, err := s.s.DihedralCosSq(i, j)
 	if err != nil {
-		return nil, geomErr("dihedral_angle", err)
+		return nil, geomErr(name, err)
 	}
-	return s.env.Real(exact.RealAcos(signedRoot(cos2, sign))), nil
+	return signedRoot(cos2, sign), nil
+}
+
+func (s *Simplex) dihedralAngle(a interp.Args) (py.Object, error) {
+	return s.angleResult(s.dihedralCosReal("dihedral_angle", a))
+}
+
+// realResult returns x as a notebook value, or err.
+func (s *Simplex) realResult(x *exact.Real, err error) (py.Object, error) {
+	if err != nil {
+		return nil, err
+	}
+	return s.env.Real(x), nil
+}
+
+// angleResult returns acos(cos), or err; cos is a cosine made exactly
+// (its square a rational at most 1), so acos cannot fail.
+func (s *Simplex) angleResult(cos *exact.Real, err error) (py.Object, error) {
+	if err != nil {
+		return nil, err
+	}
+	return s.env.Real(exact.RealAcos(cos)), nil
 }
 
 // solidAngle: Ω = 2·atan2(|a·(b×c)|, abc + (a·b)c + (a·c)b + (b·c)a)
@@ -511,7 +526,7 @@ func (s *Simplex) dihedralExtreme(name string, largest bool) (py.Object, error) 
 	if largest {
 		p = hi
 	}
-	return s.env.Real(exact.RealAcos(signedRoot(p.Cos2, p.Sign))), nil
+	return s.angleResult(signedRoot(p.Cos2, p.Sign), nil)
 }
 
 func (s *Simplex) minDihedral(interp.Args) (py.Object, error) {
