@@ -17,6 +17,11 @@ func TestShapeValues(t *testing.T) {
 		{corner + "print(c.tangent_lengths()[1:])", "[sqrt(6)/3, sqrt(6)/3, sqrt(6)/3]"},
 		{corner + "print(c.tangent_lengths()[0] ** 2 == 2 * c.inradius() ** 2)", "True"},
 		{"print(simplex([[0, 0], [4, 0], [0, 3]]).tangent_lengths())", "[1, 3, 2]"},
+		// Excircles of the right triangle (0,0), (4,0), (0,3), by hand: opposite
+		// the right angle, centre (6, 6) tangent to both axes; opposite (4, 0),
+		// centre (−2, 2), at distance 2 from x = 0, y = 0 and 3x + 4y = 12,
+		// touching them at (0, 2), (−2, 0) and (−2, 2) + (10/25)(3, 4).
+		{"t = simplex([[0, 0], [4, 0], [0, 3]])\nprint(t.excenter(0), t.excenter(1), t.exsphere_touch_points(1))", "[6, 6] [-2, 2] [[-4/5, 18/5], [0, 2], [-2, 0]]"},
 		{corner + "print(c.centroid(), c.barycentric([1, 1, 1]), c.contains([0, 0, 0]), c.contains([1, 1, 1]))", "[1/4, 1/4, 1/4] [-2, 1, 1, 1] True False"},
 		{corner + "print(c.facet_normal(0), c.facet_normal(3), c.altitude(0), c.altitude_sq(1))", "([1/3, 1/3, 1/3], 1/3) ([0, 0, -1], 1) sqrt(3)/3 1"},
 		{corner + "print(c.vertex_cos(0, 1, 2), c.vertex_cos(1, 0, 2))", "0 sqrt(2)/2"},
