@@ -19,7 +19,11 @@ func tetPoints(n int) [][][]*big.Rat {
 // tetrahedra (Random(3, seed, 1000, 100)) from their points: FromPoints,
 // then exact VolumeSq, FacetContentsSq and CircumradiusSq. Target: < 0.3 s
 // per op.
-func BenchmarkTetrahedra10000(b *testing.B) {
+func BenchmarkTetrahedra10000(b *testing.B) { benchTets(b, measureTet) }
+
+// benchTets times, per op, FromPoints and f on the tetrahedra of
+// tetPoints(10000).
+func benchTets(b *testing.B, f func(*testing.B, *Simplex)) {
 	pts := tetPoints(10000)
 	b.ResetTimer()
 	for b.Loop() {
@@ -28,7 +32,7 @@ func BenchmarkTetrahedra10000(b *testing.B) {
 			if err != nil {
 				b.Fatal(err)
 			}
-			measureTet(b, s)
+			f(b, s)
 		}
 	}
 }
@@ -52,4 +56,51 @@ func measureTet(b *testing.B, s *Simplex) {
 	if _, err := s.CircumradiusSq(); err != nil {
 		b.Fatal(err)
 	}
+}
+
+// BenchmarkTetrahedraShape10000 times, per op, the exact (rational) part
+// of the rest of a tetrahedron's geometry on the 10,000 tetrahedra of
+// BenchmarkTetrahedra10000: centroid and its containment, the four
+// altitudes and facet normals, the foot ratios of the touch points, the
+// twelve face angles, the four solid-angle terms, the volume–length
+// ratio, the dihedral extremes and the longest edge. Target (issue 18,
+// with the kernel's certified parts): < 1 s per op; measured 1.2–3.9 s on
+// a loaded machine, about 1.3 s of CPU (DEVELOPERS.md).
+func BenchmarkTetrahedraShape10000(b *testing.B) { benchTets(b, shapeTet) }
+
+func shapeTet(b *testing.B, s *Simplex) {
+	c, err := s.Centroid()
+	if err != nil {
+		b.Fatal(err)
+	}
+	if in, err := s.Contains(c); !in || err != nil {
+		b.Fatal("centroid outside", err)
+	}
+	for i := range 4 {
+		if _, _, err := s.FacetNormal(i); err != nil {
+			b.Fatal(err)
+		}
+		if _, err := s.FootRatios(i); err != nil {
+			b.Fatal(err)
+		}
+		if _, _, _, err := s.SolidAngleTerms(i); err != nil {
+			b.Fatal(err)
+		}
+		for j := range 4 {
+			for m := j + 1; m < 4; m++ {
+				if j != i && m != i {
+					if _, _, err := s.VertexCosSq(i, j, m); err != nil {
+						b.Fatal(err)
+					}
+				}
+			}
+		}
+	}
+	if _, err := s.VolumeLengthRatioSq(); err != nil {
+		b.Fatal(err)
+	}
+	if _, _, err := s.DihedralExtremes(); err != nil {
+		b.Fatal(err)
+	}
+	s.MaxSqEdge()
 }

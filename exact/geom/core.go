@@ -2,6 +2,7 @@ package geom
 
 import (
 	"math/big"
+	"sync"
 
 	"assay/exact"
 )
@@ -23,6 +24,9 @@ import (
 type core struct {
 	det *big.Int
 	adj []*big.Int // k*k, symmetric; nil when k > 3 and det == 0
+
+	qOnce sync.Once    // computes q
+	q     [][]*big.Int // qInts, cached by Simplex.gradients
 }
 
 // core returns the cached core, computing it on first use.

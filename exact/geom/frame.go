@@ -89,7 +89,7 @@ func (s *Simplex) FootRatios(i int) ([]*big.Rat, error) {
 	if c.det.Sign() == 0 {
 		return nil, fmt.Errorf("foot of a perpendicular: %w (squared volume 0)", ErrDegenerate)
 	}
-	q := c.qInts(s.k)
+	q := s.gradients()
 	out := make([]*big.Rat, s.k+1)
 	for m := range out {
 		out[m] = new(big.Rat).SetFrac(q[i][m], q[i][i])

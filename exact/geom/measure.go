@@ -227,6 +227,11 @@ func (s *Simplex) Barycentric(p []*big.Rat) ([]*big.Rat, error) {
 		}
 		return []*big.Rat{big.NewRat(1, 1)}, nil
 	}
+	if k == s.n {
+		if c := s.core(); c.det.Sign() != 0 {
+			return s.barycentricFull(c, q), nil
+		}
+	}
 	// Solve Gram·x = Eᵀ(p − v_0) with E the edge vectors.
 	e := make([][]*big.Rat, k)
 	for i := range e {
@@ -310,7 +315,7 @@ func (s *Simplex) DihedralCosSq(i, j int) (cos2 *big.Rat, sign int, err error) {
 	if c.det.Sign() == 0 {
 		return nil, 0, fmt.Errorf("dihedral angle: %w (squared volume 0)", ErrDegenerate)
 	}
-	q := c.qInts(s.k)
+	q := s.gradients()
 	qij := q[i][j]
 	num := new(big.Int).Mul(qij, qij)
 	den := new(big.Int).Mul(q[i][i], q[j][j])

@@ -220,6 +220,13 @@ func TestEveryMethodOnAlgebraicSimplices(t *testing.T) {
 		"circumcenter": "t.circumcenter()", "inradius": "t.inradius()", "incenter": "t.incenter()",
 		"insphere_touch_points": "t.insphere_touch_points()", "sq_edge": "t.sq_edge(0, 2)", "face": "t.face([0, 2]).points()",
 		"facet": "t.facet(1).points()", "dihedral_cos": "t.dihedral_cos(0, 1)",
+		"touch_points": "t.touch_points()", "exradius": "t.exradius(1)", "excenter": "t.excenter(2)",
+		"exsphere_touch_points": "t.exsphere_touch_points(3)", "tangent_lengths": "t.tangent_lengths()",
+		"centroid": "t.centroid()", "barycentric": "t.barycentric(t.points()[1])", "contains": "t.contains(t.incenter())",
+		"facet_normal": "t.facet_normal(2)", "altitude_sq": "t.altitude_sq(1)", "altitude": "t.altitude(0)",
+		"vertex_cos": "t.vertex_cos(0, 1, 2)", "vertex_angle": "t.vertex_angle(1, 2, 3)", "solid_angle": "t.solid_angle(2)", "dihedral_angle": "t.dihedral_angle(0, 3)",
+		"radius_ratio": "t.radius_ratio()", "volume_length_ratio": "t.volume_length_ratio()",
+		"min_dihedral_angle": "t.min_dihedral_angle()", "max_dihedral_angle": "t.max_dihedral_angle()", "aspect_ratio": "t.aspect_ratio()",
 	}
 	refused := map[string]string{"facet_area_vectors": "t.facet_area_vectors()"}
 	found := 0

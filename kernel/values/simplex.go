@@ -40,6 +40,10 @@ type Simplex struct {
 	scale []*exact.Real
 	alg   [][]*exact.Real
 	given bool // alg holds points given to simplex(), not an embedding
+
+	contentsOnce sync.Once // computes contents and contentSum
+	contents     []*exact.Real
+	contentSum   *exact.Real
 }
 
 // SimplexType is the Python type of Simplex.
@@ -577,41 +581,56 @@ func (s *Simplex) incenter(interp.Args) (py.Object, error) {
 		// A point, which has no facets to weigh, is its own incentre.
 		return s.env.realList(s.coords()[0]), nil
 	}
-	areas := s.s.FacetContentsSq()
-	w := make([]*exact.Real, len(areas))
-	for i, a := range areas {
-		w[i] = exact.RealSqrt(exact.RealFromRat(a))
-	}
-	return s.env.realList(s.weighted(w, sqrtSum(areas))), nil
+	F, total := s.facetContents()
+	return s.env.realList(s.weighted(F, total)), nil
 }
 
 // touchPoints: the touch point on facet i is the foot of the perpendicular
-// from the incentre, whose barycentric coordinates are F_m/ΣF, so its own
-// are (F_m − F_i·c_m)/ΣF with c from geom.Simplex.FootRatios.
+// from the incentre, whose barycentric coordinates are F_m/ΣF.
 func (s *Simplex) touchPoints(interp.Args) (py.Object, error) {
 	if s.s.Dim() < 1 {
-		return nil, py.ExceptionNewf(py.ValueError, "insphere_touch_points(): a point has no facets to touch")
+		return nil, py.ExceptionNewf(py.ValueError, "touch_points(): a point has no facets to touch")
 	}
 	if s.s.IsDegenerate() {
-		return nil, geomErr("insphere_touch_points", geom.ErrDegenerate)
+		return nil, geomErr("touch_points", geom.ErrDegenerate)
 	}
-	areas := s.s.FacetContentsSq()
-	F := make([]*exact.Real, len(areas))
-	for i, a := range areas {
-		F[i] = exact.RealSqrt(exact.RealFromRat(a))
-	}
-	total := sqrtSum(areas)
-	out := make([]py.Object, len(F))
-	for i := range F {
+	F, total := s.facetContents()
+	return s.feet("touch_points", F, total)
+}
+
+// facetContents returns the facet contents F_m and their sum as reals,
+// made once per simplex (shared: callers must not change the slice), so
+// that the incentre, touch points, exspheres and radii share their nodes.
+func (s *Simplex) facetContents() ([]*exact.Real, *exact.Real) {
+	s.contentsOnce.Do(func() {
+		areas := s.s.FacetContentsSq()
+		s.contents = make([]*exact.Real, len(areas))
+		s.contentSum = exact.RealFromInt(0)
+		for i, a := range areas {
+			s.contents[i] = exact.RealSqrt(exact.RealFromRat(a))
+			s.contentSum = exact.RealAdd(s.contentSum, s.contents[i])
+		}
+	})
+	return s.contents, s.contentSum
+}
+
+// feet returns, for the point X = Σ w_m v_m / total (Σ w_m = total), the
+// foot of the perpendicular from X to each facet's hyperplane, the i-th on
+// the facet opposite vertex i: its weights are w_m − w_i·c_m with c from
+// geom.Simplex.FootRatios. For the centre of a sphere tangent to every
+// facet's hyperplane these are the points of contact.
+func (s *Simplex) feet(name string, w []*exact.Real, total *exact.Real) (py.Object, error) {
+	out := make([]py.Object, len(w))
+	for i := range w {
 		c, err := s.s.FootRatios(i)
 		if err != nil {
-			return nil, geomErr("insphere_touch_points", err)
+			return nil, geomErr(name, err)
 		}
-		w := make([]*exact.Real, len(F))
-		for m := range w {
-			w[m] = exact.RealSub(F[m], exact.RealMul(F[i], exact.RealFromRat(c[m])))
+		wi := make([]*exact.Real, len(w))
+		for m := range wi {
+			wi[m] = exact.RealSub(w[m], exact.RealMul(w[i], exact.RealFromRat(c[m])))
 		}
-		out[i] = s.env.realList(s.weighted(w, total))
+		out[i] = s.env.realList(s.weighted(wi, total))
 	}
 	return py.NewListFromItems(out), nil
 }
@@ -672,19 +691,7 @@ func (s *Simplex) facet(a interp.Args) (py.Object, error) {
 }
 
 func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
-	i, j, err := s.vertexPair("dihedral_cos", a, true)
-	if err != nil {
-		return nil, err
-	}
-	cos2, sign, err := s.s.DihedralCosSq(i, j)
-	if err != nil {
-		return nil, geomErr("dihedral_cos", err)
-	}
-	c := exact.RealSqrt(exact.RealFromRat(cos2))
-	if sign < 0 {
-		c = exact.RealNeg(c)
-	}
-	return s.env.Real(c), nil
+	return s.realResult(s.dihedralCosReal("dihedral_cos", a))
 }
 
 // vertexPair reads the vertex indices i and j; distinct refuses i == j,
