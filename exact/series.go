@@ -77,6 +77,30 @@ func SeriesVar(order int, maxPrec uint) *Series {
 	return &Series{den: 1, val: 1, c: []*Real{RealFromInt(1)}, ord: max(order, 2), cap: maxPrec}
 }
 
+// SeriesReciprocalVar returns 1/s + O(s^order): t = 1/s, the variable of
+// an expansion as t → infinity.
+func SeriesReciprocalVar(order int, maxPrec uint) *Series {
+	return &Series{den: 1, val: -1, c: []*Real{RealFromInt(1)}, ord: max(order, 2), cap: maxPrec}
+}
+
+// Truncate returns s with the terms from t^order on dropped into the error
+// term (s itself when it is known to less).
+func (s *Series) Truncate(order int) *Series {
+	if s.Exact() || s.ord <= order*s.den {
+		return s
+	}
+	o := order * s.den
+	c := s.c
+	if s.val+len(c) > o {
+		c = c[:max(o-s.val, 0)]
+	}
+	val := s.val
+	if len(c) == 0 {
+		val = o
+	}
+	return &Series{den: s.den, val: val, c: c, ord: o, cap: s.cap}
+}
+
 // SeriesConst returns the exact constant x.
 func SeriesConst(x *Real, maxPrec uint) *Series {
 	if q, ok := x.Rat(); ok && q.Sign() == 0 {
@@ -221,8 +245,17 @@ func seriesSum(a, b *Series, op func(x, y *Real) *Real) (*Series, error) {
 	va, oa, ca := a.lift(d)
 	vb, ob, cb := b.lift(d)
 	ord := min(oa, ob)
-	val := min(va, vb)
-	end := max(va+len(ca), vb+len(cb))
+	// An operand with no known term only lowers the order.
+	val, end := ord, ord
+	if len(ca) > 0 {
+		val, end = va, va+len(ca)
+	}
+	if len(cb) > 0 {
+		val, end = min(val, vb), vb+len(cb)
+		if len(ca) > 0 {
+			end = max(end, va+len(ca))
+		}
+	}
 	if ord != seriesExact {
 		end = min(end, ord)
 	}
@@ -662,4 +695,69 @@ func coefText(c *Real, cap uint) string {
 		return "(" + t + ")"
 	}
 	return t
+}
+
+// SeriesDet is the determinant of a square matrix of series, by Laplace
+// expansion along the rows with the minors of the remaining rows kept by
+// column set (2^n·n products): no division, so no precision is lost to
+// it, and the small matrices of geometry (Gram, Cayley–Menger) stay fast.
+func SeriesDet(m [][]*Series) (*Series, error) {
+	n := len(m)
+	for _, row := range m {
+		if len(row) != n {
+			return nil, fmt.Errorf("series determinant of a non-square matrix: %w", ErrShape)
+		}
+	}
+	if n == 0 {
+		return SeriesConst(RealFromInt(1), 0), nil
+	}
+	if n > 12 {
+		return nil, fmt.Errorf("series determinant of size %d (at most 12): %w", n, ErrShape)
+	}
+	// memo[cols] is the determinant of the rows n−|cols|… on the columns in cols.
+	memo := map[uint]*Series{}
+	var minor func(row int, cols uint) (*Series, error)
+	minor = func(row int, cols uint) (*Series, error) {
+		if row == n {
+			return SeriesConst(RealFromInt(1), m[0][0].cap), nil
+		}
+		if d, ok := memo[cols]; ok {
+			return d, nil
+		}
+		var sum *Series
+		sign := 1
+		for j := 0; j < n; j++ {
+			if cols&(1<<j) == 0 {
+				continue
+			}
+			e := m[row][j]
+			if e.Exact() && len(e.c) == 0 {
+				sign = -sign
+				continue
+			}
+			sub, err := minor(row+1, cols&^(1<<j))
+			if err != nil {
+				return nil, err
+			}
+			p, err := SeriesMul(e, sub)
+			if err != nil {
+				return nil, err
+			}
+			if sign < 0 {
+				p = SeriesNeg(p)
+			}
+			sign = -sign
+			if sum == nil {
+				sum = p
+			} else if sum, err = SeriesAdd(sum, p); err != nil {
+				return nil, err
+			}
+		}
+		if sum == nil {
+			sum = SeriesConst(realZero, m[0][0].cap)
+		}
+		memo[cols] = sum
+		return sum, nil
+	}
+	return minor(0, 1<<n-1)
 }

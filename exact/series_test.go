@@ -168,4 +168,8 @@ func TestSeriesOrderTracking(t *testing.T) {
 	if got, want := p.String("t"), "t + O(t^6)"; got != want {
 		t.Errorf("(1/t)·t² prints %q, want %q", got, want)
 	}
+	// An exact 0 adds nothing and takes no order away.
+	if got, want := must(SeriesAdd(sc("0"), x)).String("t"), "t + O(t^6)"; got != want {
+		t.Errorf("0 + t prints %q, want %q", got, want)
+	}
 }

@@ -56,6 +56,7 @@ func (e *Env) Install(b py.StringDict) {
 		e.kvectorBuiltins,
 		e.boxBuiltins,
 		e.infinityBuiltins,
+		e.seriesBuiltins,
 	} {
 		install(b)
 	}
