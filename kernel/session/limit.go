@@ -174,7 +174,9 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 			return nil
 		}
 		// The note of the extrapolation says why the proof was not had.
-		defer func() { c.Note = "not proved by series expansion (" + why + "); estimated by extrapolation instead: " + c.Note }()
+		defer func() {
+			c.Note = "not proved by series expansion (" + why + "); estimated by extrapolation instead: " + c.Note
+		}()
 	}
 	// Extrapolation cancels digits: evaluate f three times more precisely than the target.
 	prec := min(3*t.Bits+64, t.Cap)
