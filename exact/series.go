@@ -372,7 +372,7 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 	}
 	if sign < 0 && q%2 == 0 {
 		lead, _ := c0.Text(8, a.cap)
-		return nil, fmt.Errorf("%s root of a series whose leading coefficient %s is negative: at t → 0⁺ the value is negative, and the even root has no real branch there: %w", ordinal(q), lead, ErrBranchPoint)
+		return nil, fmt.Errorf("%s root of a series whose leading coefficient %s is negative: the radicand is negative just past the expansion point (approached from above), which is a %w with no real branch to follow (series take the positive root of a positive leading coefficient, and the real root under odd roots)", ordinal(q), lead, ErrBranchPoint)
 	}
 	b0 := RealPowInt(RealRoot(c0, q), p)
 	if a.Exact() && len(a.c) == 1 && a.val == 0 {
