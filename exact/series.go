@@ -129,16 +129,29 @@ func (s *Series) Order() (*big.Rat, bool) {
 	return big.NewRat(int64(s.ord), int64(s.den)), true
 }
 
-// Terms returns the known coefficients and their exponents, zeros left out.
-func (s *Series) Terms() (coefs []*Real, exps []*big.Rat) {
+// Terms returns the known coefficients that are not zero and their
+// exponents. Whether a coefficient is zero is decided as for a leading
+// one (exactly, by the zero bound, or by an enclosure); an undecided one
+// is an error.
+func (s *Series) Terms() (coefs []*Real, exps []*big.Rat, err error) {
 	for i, c := range s.c {
-		if q, ok := c.Rat(); ok && q.Sign() == 0 {
+		e := big.NewRat(int64(s.val+i), int64(s.den))
+		if !isZeroRat(c) && c.exact == nil {
+			sign, err := c.Sign(s.cap)
+			if err != nil {
+				return nil, nil, fmt.Errorf("cannot decide whether the coefficient of t^%s is zero: %w", FormatRat(e), err)
+			}
+			if sign == 0 {
+				continue
+			}
+		}
+		if isZeroRat(c) {
 			continue
 		}
 		coefs = append(coefs, c)
-		exps = append(exps, big.NewRat(int64(s.val+i), int64(s.den)))
+		exps = append(exps, e)
 	}
-	return coefs, exps
+	return coefs, exps, nil
 }
 
 // lift returns s's coefficients on the exponent grid 1/d (d a multiple
@@ -235,10 +248,10 @@ func stepGcd(g, x int) int {
 }
 
 // SeriesAdd returns a + b.
-func SeriesAdd(a, b *Series) (*Series, error) { return seriesSum(a, b, RealAdd) }
+func SeriesAdd(a, b *Series) (*Series, error) { return seriesSum(a, b, addR) }
 
 // SeriesSub returns a − b.
-func SeriesSub(a, b *Series) (*Series, error) { return seriesSum(a, b, RealSub) }
+func SeriesSub(a, b *Series) (*Series, error) { return seriesSum(a, b, subR) }
 
 func seriesSum(a, b *Series, op func(x, y *Real) *Real) (*Series, error) {
 	d := lcm(a.den, b.den)
@@ -313,11 +326,11 @@ func SeriesMul(a, b *Series) (*Series, error) {
 			if isZeroRat(ca[i]) || isZeroRat(cb[k-i]) {
 				continue
 			}
-			p := RealMul(ca[i], cb[k-i])
+			p := mulR(ca[i], cb[k-i])
 			if sum == nil {
 				sum = p
 			} else {
-				sum = RealAdd(sum, p)
+				sum = addR(sum, p)
 			}
 		}
 		if sum == nil {
@@ -330,6 +343,44 @@ func SeriesMul(a, b *Series) (*Series, error) {
 }
 
 func isZeroRat(x *Real) bool { return x.exact != nil && x.exact.Sign() == 0 }
+
+func isOneRat(x *Real) bool { return x.exact != nil && x.exact.Cmp(ratOne) == 0 }
+
+var ratOne = big.NewRat(1, 1)
+
+// mulR is x·y with the products by an exact 0 or 1 folded, so that a
+// coefficient that is zero by construction stays a rational zero (sin 0·x
+// would otherwise be a Real only an enclosure could tell from 0).
+func mulR(x, y *Real) *Real {
+	switch {
+	case isZeroRat(x) || isZeroRat(y):
+		return realZero
+	case isOneRat(x):
+		return y
+	case isOneRat(y):
+		return x
+	}
+	return RealMul(x, y)
+}
+
+// addR is x + y with an exact 0 folded.
+func addR(x, y *Real) *Real {
+	switch {
+	case isZeroRat(x):
+		return y
+	case isZeroRat(y):
+		return x
+	}
+	return RealAdd(x, y)
+}
+
+// subR is x − y with an exact 0 folded.
+func subR(x, y *Real) *Real {
+	if isZeroRat(y) {
+		return x
+	}
+	return RealSub(x, y)
+}
 
 // relative is the relative precision of s: the number of terms of u in
 // c·t^v·(1 + u) that are known.
@@ -403,18 +454,18 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 			if w.Sign() == 0 {
 				continue
 			}
-			t := RealMul(RealFromRat(w), RealMul(a.c[j], b[k-j]))
+			t := mulR(RealFromRat(w), mulR(a.c[j], b[k-j]))
 			if sum == nil {
 				sum = t
 			} else {
-				sum = RealAdd(sum, t)
+				sum = addR(sum, t)
 			}
 		}
 		if sum == nil {
 			b[k] = realZero
 			continue
 		}
-		b[k] = RealMul(RealMul(sum, inv), RealFromRat(big.NewRat(1, int64(k))))
+		b[k] = mulR(mulR(sum, inv), RealFromRat(big.NewRat(1, int64(k))))
 	}
 	// On the grid 1/(den·q): the exponent v/den becomes v·p/(den·q), and
 	// step j of the relative series lands at v·p + j·q.
@@ -504,7 +555,7 @@ func SeriesExp(a *Series) (*Series, error) {
 	}
 	ec := RealExp(c0)
 	for k := range e {
-		e[k] = RealMul(ec, e[k])
+		e[k] = mulR(ec, e[k])
 	}
 	return a.fromCoefs(e)
 }
@@ -517,17 +568,17 @@ func derivSum(u, v []*Real, k int, sign int64) *Real {
 		if isZeroRat(u[j]) || isZeroRat(v[k-j]) {
 			continue
 		}
-		t := RealMul(RealFromInt(int64(j)), RealMul(u[j], v[k-j]))
+		t := mulR(RealFromInt(int64(j)), mulR(u[j], v[k-j]))
 		if sum == nil {
 			sum = t
 		} else {
-			sum = RealAdd(sum, t)
+			sum = addR(sum, t)
 		}
 	}
 	if sum == nil {
 		return realZero
 	}
-	return RealMul(sum, RealFromRat(big.NewRat(sign, int64(k))))
+	return mulR(sum, RealFromRat(big.NewRat(sign, int64(k))))
 }
 
 // SeriesLog returns log(a) for a series with a positive finite value at
@@ -556,14 +607,14 @@ func SeriesLog(a *Series) (*Series, error) {
 	inv := RealQuo(RealFromInt(1), c0)
 	w := make([]*Real, len(u))
 	for j := range u {
-		w[j] = RealMul(u[j], inv)
+		w[j] = mulR(u[j], inv)
 	}
 	l := make([]*Real, len(u))
 	l[0] = RealLog(c0)
 	for k := 1; k < len(u); k++ {
 		// With w_0 = 0 the term j = k vanishes: derivSum is Σ_{j<k} j·L_j·w_{k−j}/k.
 		l[k] = realZero
-		l[k] = RealSub(w[k], derivSum(l, w, k, 1))
+		l[k] = subR(w[k], derivSum(l, w, k, 1))
 	}
 	return a.fromCoefs(l)
 }
@@ -598,9 +649,9 @@ func seriesTrig(a *Series, fn string) (*Series, error) {
 	out := make([]*Real, len(u))
 	for k := range out {
 		if fn == "sin" {
-			out[k] = RealAdd(RealMul(sc, c[k]), RealMul(cc, s[k]))
+			out[k] = addR(mulR(sc, c[k]), mulR(cc, s[k]))
 		} else {
-			out[k] = RealSub(RealMul(cc, c[k]), RealMul(sc, s[k]))
+			out[k] = subR(mulR(cc, c[k]), mulR(sc, s[k]))
 		}
 	}
 	return a.fromCoefs(out)
@@ -614,11 +665,18 @@ func (s *Series) String(name string) string { return s.Format(name, false) }
 // Format prints s in the variable name; with flip the exponents are
 // negated (a series in s = 1/t printed in t).
 func (s *Series) Format(name string, flip bool) string {
-	var b strings.Builder
-	for i, c := range s.c {
-		if isZeroRat(c) {
-			continue
+	coefs, exps, err := s.Terms()
+	if err != nil { // print what is known, undecided zeros included
+		coefs, exps = nil, nil
+		for i, c := range s.c {
+			if !isZeroRat(c) {
+				coefs = append(coefs, c)
+				exps = append(exps, big.NewRat(int64(s.val+i), int64(s.den)))
+			}
 		}
+	}
+	var b strings.Builder
+	for i, c := range coefs {
 		coef := coefText(c, s.cap)
 		neg := strings.HasPrefix(coef, "-")
 		if neg {
@@ -632,7 +690,7 @@ func (s *Series) Format(name string, flip bool) string {
 		case b.Len() > 0:
 			b.WriteString(" + ")
 		}
-		pow := power(name, s.val+i, s.den, flip)
+		pow := power(name, exps[i], flip)
 		switch {
 		case pow == "":
 			b.WriteString(coef)
@@ -646,7 +704,7 @@ func (s *Series) Format(name string, flip bool) string {
 		if b.Len() > 0 {
 			b.WriteString(" + ")
 		}
-		pow := power(name, s.ord, s.den, flip)
+		pow := power(name, big.NewRat(int64(s.ord), int64(s.den)), flip)
 		if pow == "" {
 			pow = "1"
 		}
@@ -658,12 +716,11 @@ func (s *Series) Format(name string, flip bool) string {
 	return b.String()
 }
 
-// power prints name^(e/den), "" for exponent 0.
-func power(name string, e, den int, flip bool) string {
+// power prints name^r, "" for exponent 0.
+func power(name string, r *big.Rat, flip bool) string {
 	if flip {
-		e = -e
+		r = new(big.Rat).Neg(r)
 	}
-	r := big.NewRat(int64(e), int64(den))
 	switch {
 	case r.Sign() == 0:
 		return ""

@@ -41,7 +41,10 @@ func wantCoefs(t *testing.T, what string, s *Series, den int, order string, coef
 
 // coef is the coefficient of t^e (0 when not among the known terms).
 func (s *Series) coef(e *big.Rat) *Real {
-	coefs, exps := s.Terms()
+	coefs, exps, err := s.Terms()
+	if err != nil {
+		panic(err)
+	}
 	for i, x := range exps {
 		if x.Cmp(e) == 0 {
 			return coefs[i]

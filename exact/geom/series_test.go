@@ -37,7 +37,10 @@ func spts(t *testing.T, order int, rows ...[]string) SeriesPoints {
 // wantTerms checks a series' known non-zero terms "c@k" (c·t^k).
 func wantTerms(t *testing.T, what string, s *exact.Series, want ...[2]string) {
 	t.Helper()
-	coefs, exps := s.Terms()
+	coefs, exps, err := s.Terms()
+	if err != nil {
+		t.Fatal(err)
+	}
 	if len(coefs) != len(want) {
 		t.Fatalf("%s = %s, want %d terms", what, s.String("t"), len(want))
 	}

@@ -82,7 +82,7 @@ func SeriesLimit(c *cells.Claim, f Expansion, expect *exact.Real, expectInf bool
 	switch {
 	case !ok:
 		c.Verdict, c.Digits, c.Why = cells.Undecided, 0, cells.OtherReason
-		c.Note += fmt.Sprintf("; the stated order %s of the error is not settled: after the constant term nothing is known before the error term (raise the expansion order or drop order=)", exact.FormatRat(order))
+		c.Note += fmt.Sprintf("; the stated order %s of the error is not settled: after the constant term no coefficient is known to be non-zero before the error term (all cancel, or one is a transcendental number not told from 0)", exact.FormatRat(order))
 	case pow.Cmp(order) == 0 && growth:
 		c.Note += fmt.Sprintf("; it grows like h^−%s, the stated order, exactly", exact.FormatRat(pow))
 	case pow.Cmp(order) == 0:
@@ -95,11 +95,13 @@ func SeriesLimit(c *cells.Claim, f Expansion, expect *exact.Real, expectInf bool
 }
 
 // nextExponent is the exponent of the first non-zero term after the
-// constant one; ok is false when none is known before the error term. A
-// constant has no error: its order is reported as the error term's
-// absence, ok false.
+// constant one; ok is false when none is known before the error term, or
+// whether a coefficient is zero is not settled (a transcendental zero).
 func nextExponent(s *exact.Series) (*big.Rat, bool) {
-	_, exps := s.Terms()
+	_, exps, err := s.Terms()
+	if err != nil {
+		return nil, false
+	}
 	for _, e := range exps {
 		if e.Sign() > 0 {
 			return e, true

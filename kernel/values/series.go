@@ -268,7 +268,10 @@ func init() {
 	}, Doc: "k of the error term O(t^k) (in the printed variable), None for a constant"}
 	setMethods(SeriesType, []method[*Series]{
 		{"terms", nil, "terms() -> [(c, k), ...]: the known non-zero terms c*t^k, in order", func(s *Series, _ interp.Args) (py.Object, error) {
-			coefs, exps := s.s.Terms()
+			coefs, exps, err := s.s.Terms()
+			if err != nil {
+				return nil, err
+			}
 			out := make([]py.Object, len(coefs))
 			for i := range coefs {
 				if s.at.Flip {
