@@ -73,7 +73,11 @@ func SeriesLimit(c *cells.Claim, f Expansion, expect *exact.Real, expectInf bool
 		}
 		r.Decide(c, 0)
 		c.Method = SeriesMethod
-		c.Note = fmt.Sprintf("%s: the limit is %s; against the expected value, %s; %s", what, realText(limit, t), c.Note, seriesProof)
+		if r.Zero {
+			c.Note = fmt.Sprintf("%s: the limit is %s, exactly the expected value — a proof: %s", what, realText(limit, t), seriesProof)
+		} else {
+			c.Note = fmt.Sprintf("%s: the limit is %s; against the expected value, %s; %s", what, realText(limit, t), c.Note, seriesProof)
+		}
 	}
 	if order == nil || c.Verdict == cells.Fails {
 		return nil
@@ -138,7 +142,11 @@ func SeriesAsymptotic(c *cells.Claim, f Expansion, coef *exact.Real, k *big.Rat,
 	if c.Verdict == cells.Fails {
 		c.Residual = "leading term " + actual
 	}
-	c.Note = fmt.Sprintf("%s: the leading term is %s; its coefficient against the stated one: %s; %s", what, actual, c.Note, seriesProof)
+	if r.Zero {
+		c.Note = fmt.Sprintf("%s: the leading term is %s, exactly as stated — a proof: %s", what, actual, seriesProof)
+	} else {
+		c.Note = fmt.Sprintf("%s: the leading term is %s; its coefficient against the stated one: %s; %s", what, actual, c.Note, seriesProof)
+	}
 	return nil
 }
 
