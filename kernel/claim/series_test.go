@@ -66,7 +66,9 @@ func TestSeriesVerdicts(t *testing.T) {
 		{"sqrt ~ t^(1/2)", func(c *cells.Claim) error {
 			return SeriesAsymptotic(c, root, exact.RealFromInt(1), big.NewRat(1, 2), false, tgt)
 		}, cells.Holds, "exactly as stated"},
-		{"sqrt ~ t", func(c *cells.Claim) error { return SeriesAsymptotic(c, root, exact.RealFromInt(1), big.NewRat(1, 1), false, tgt) }, cells.Fails, "of exponent 1/2, not 1"},
+		{"sqrt ~ t", func(c *cells.Claim) error {
+			return SeriesAsymptotic(c, root, exact.RealFromInt(1), big.NewRat(1, 1), false, tgt)
+		}, cells.Fails, "of exponent 1/2, not 1"},
 		{"1/(1-cos) ~ 2 t^-2", func(c *cells.Claim) error {
 			return SeriesAsymptotic(c, blow, exact.RealFromInt(2), big.NewRat(-2, 1), false, tgt)
 		}, cells.Holds, "2·t^-2"},
