@@ -270,12 +270,7 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 }
 
 // isInfinity says whether o is the builtin infinity or float("inf").
-func isInfinity(o py.Object) bool {
-	if f, ok := o.(py.Float); ok {
-		return math.IsInf(float64(f), 1)
-	}
-	return o == py.Object(values.Infinity{})
-}
+func isInfinity(o py.Object) bool { return values.IsInfinity(o) }
 
 // checkOrder holds a limit claim to its stated order: the convergence
 // order, or the growth rate of a blow-up, estimated by each walk. Both

@@ -2,6 +2,7 @@ package values
 
 import (
 	"errors"
+	"math"
 	"math/big"
 	"strings"
 
@@ -306,7 +307,7 @@ func SeriesPointOf(fn string, toward py.Object) (a *big.Rat, inf bool, err error
 // IsInfinity says whether o is the builtin infinity or float("inf").
 func IsInfinity(o py.Object) bool {
 	if f, ok := o.(py.Float); ok {
-		return float64(f) > 0 && float64(f)*0.5 == float64(f)
+		return math.IsInf(float64(f), 1)
 	}
 	return o == py.Object(Infinity{})
 }
