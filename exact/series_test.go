@@ -2,6 +2,7 @@ package exact
 
 import (
 	"errors"
+	"fmt"
 	"math/big"
 	"testing"
 )
@@ -175,4 +176,16 @@ func TestSeriesOrderTracking(t *testing.T) {
 	if got, want := must(SeriesAdd(sc("0"), x)).String("t"), "t + O(t^6)"; got != want {
 		t.Errorf("0 + t prints %q, want %q", got, want)
 	}
+}
+
+func ExampleSeriesQuo() {
+	t := SeriesVar(8, 1024)
+	s, _ := SeriesSin(t)
+	q, _ := SeriesQuo(s, t)
+	fmt.Println(q.String("t"))
+	r, _ := SeriesPow(q, 1, 2)
+	fmt.Println(r.Truncate(5).String("t"))
+	// Output:
+	// 1 - 1/6*t^2 + 1/120*t^4 - 1/5040*t^6 + O(t^7)
+	// 1 - 1/12*t^2 + 1/1440*t^4 + O(t^5)
 }
