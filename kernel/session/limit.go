@@ -38,18 +38,14 @@ type walkSpec struct {
 
 func walkArgs(fn string, a interp.Args) (walkSpec, error) {
 	sp := walkSpec{toward: limits.ToZero, value: new(big.Rat), ratio: big.NewRat(1, 2), steps: 30}
-	switch toward := a.Get("toward"); {
-	case toward == nil:
-	case isInfinity(toward):
+	// One reading of toward= for the walks and the series route.
+	switch v, inf, err := values.SeriesPointOf(fn, a.Get("toward")); {
+	case err != nil:
+		return sp, err
+	case inf:
 		sp.toward = limits.ToInfinity
-	default:
-		v, ok := values.ExactOf(toward)
-		if !ok {
-			return sp, py.ExceptionNewf(py.TypeError, "%s(): toward must be an exact number or infinity, got %s", fn, interp.TypeName(toward))
-		}
-		if v.Sign() != 0 {
-			sp.toward, sp.value = limits.ToValue, v
-		}
+	case v.Sign() != 0:
+		sp.toward, sp.value = limits.ToValue, v
 	}
 	if a.Has("steps") {
 		n, err := a.Int("steps", 30)

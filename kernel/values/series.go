@@ -288,7 +288,8 @@ func init() {
 // MaxSeriesOrder bounds series(order=…).
 const MaxSeriesOrder = 64
 
-// SeriesPointOf reads toward= of series(), limit() and asymptotic(): 0
+// SeriesPointOf reads toward= of series(), limit(), sequence() and
+// asymptotic(), for the walks and the series alike: 0
 // (t = s, s → 0⁺), a value a (t = a + s) or infinity (t = 1/s).
 func SeriesPointOf(fn string, toward py.Object) (a *big.Rat, inf bool, err error) {
 	switch {
