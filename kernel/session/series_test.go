@@ -65,6 +65,7 @@ def sly(t):
     except TypeError:
         return 1 + t
 limit("catches", sly, toward=0, expect=1, steps=12)
+limit("looks", lambda t: 1 + t if str(t)[0] == "t" else 2, toward=0, expect=1, steps=12)
 limit("oscillates", lambda t: sin(1 / t), toward=0, steps=20)
 limit("series only", lambda t: sin(1 / t), toward=0, method="series")
 limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
@@ -88,6 +89,8 @@ limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
 		// On numbers sly is 2; on a series it would say 1 + t. The caught
 		// refusal keeps the series route out, so the claim fails, rightly.
 		{cells.Fails, "", "f asked for comparison of its argument"},
+		// So does a look at the printed form.
+		{cells.Fails, "", "f asked for the printed form of its argument"},
 		{cells.Undecided, "", "not proved by series expansion (f raised on a series: ValueError: sin of a series that tends to infinity"},
 		{cells.Undecided, "series expansion", "not decided by series expansion"},
 		// n·sin(π/n) = π − π³/(6n²) + …: the limit π (Archimedes), transcendental.

@@ -22,9 +22,10 @@ import (
 // What could make f compute something else on numbers is a branch on the
 // value of t — `if t < h:`, min, max, a conversion to a float or an int —
 // and each of those raises on a series. A function that catches such an
-// exception still leaves its mark on the run (Inspected), and the claims
-// then do not use the series. What cannot be stopped is a function that
-// asks for the type of its argument; the report names the method, "series
+// exception, or looks at the series itself (its printed form, its leading
+// term), leaves its mark on the run (Inspected), and the claims then do
+// not use the series. What cannot be stopped is a function that asks for
+// the type of its argument; the report names the method, "series
 // expansion", so a reader knows f ran on a series.
 type Series struct {
 	s   *exact.Series
@@ -77,12 +78,19 @@ func (p *SeriesPoint) describe() string {
 	return "powers of " + p.Name
 }
 
-// refuse records that f looked at the value of a series and returns the
-// error that says why it cannot.
-func (s *Series) refuse(what string) error {
+// inspect records the first thing f asked of a series beyond arithmetic:
+// its printed form or leading term tells a series from a number, so a
+// claim does not rely on a run that asked.
+func (s *Series) inspect(what string) {
 	if s.at.Inspected == "" {
 		s.at.Inspected = what
 	}
+}
+
+// refuse records that f looked at the value of a series and returns the
+// error that says why it cannot.
+func (s *Series) refuse(what string) error {
+	s.inspect(what)
 	return py.ExceptionNewf(py.TypeError, "%s of a series: a series stands for every t near the expansion point at once, so it has no single value to %s; a function expanded by series() or proved by limit() must compute one expression of t, without branching on t", what, map[bool]string{true: "compare", false: "convert"}[what == "comparison"])
 }
 
@@ -189,7 +197,10 @@ func (s *Series) M__abs__() (res py.Object, err error) {
 func (s *Series) text() string { return s.s.Format(s.at.Name, s.at.Flip) }
 
 // M__str__ prints the series, "1 - 1/6*t^2 + O(t^4)".
-func (s *Series) M__str__() (py.Object, error) { return py.String(s.text()), nil }
+func (s *Series) M__str__() (py.Object, error) {
+	s.inspect("the printed form")
+	return py.String(s.text()), nil
+}
 
 // M__repr__ prints the series.
 func (s *Series) M__repr__() (py.Object, error) { return s.M__str__() }
@@ -247,6 +258,7 @@ func (s *Series) function(name string, k int) (res py.Object, err error) {
 func init() {
 	SeriesType.Dict["leading"] = &py.Property{Fget: func(self py.Object) (py.Object, error) {
 		s := self.(*Series)
+		s.inspect("the leading term")
 		c, e, ok := s.s.Leading()
 		if !ok {
 			return nil, py.ExceptionNewf(py.ValueError, "%s has no known term: its leading term is not determined within the order (raise order=)", s.text())
@@ -258,6 +270,7 @@ func init() {
 	}, Doc: "(c, k): the leading term c*t^k (in the printed variable)"}
 	SeriesType.Dict["order"] = &py.Property{Fget: func(self py.Object) (py.Object, error) {
 		s := self.(*Series)
+		s.inspect("the order")
 		k, ok := s.s.Order()
 		if !ok {
 			return py.None, nil
@@ -269,6 +282,7 @@ func init() {
 	}, Doc: "k of the error term O(t^k) (in the printed variable), None for a constant"}
 	setMethods(SeriesType, []method[*Series]{
 		{"terms", nil, "terms() -> [(c, k), ...]: the known non-zero terms c*t^k, in order", func(s *Series, _ interp.Args) (py.Object, error) {
+			s.inspect("the terms")
 			coefs, exps, err := s.s.Terms()
 			if err != nil {
 				return nil, err
