@@ -606,7 +606,7 @@ func legend(claims []Claim) string {
 			why[c.Why] = true
 		}
 		// A limit decided by series expansion fails by proof, not by extrapolation.
-		limitFails = limitFails || c.Verdict == Fails && c.Kind == "limit" && c.Method != "series expansion"
+		limitFails = limitFails || c.Verdict == Fails && (c.Kind == "limit" || c.Kind == "asymptotic") && c.Method != "series expansion"
 	}
 	var paras []string
 	if has[HoldsToDigits] {

@@ -60,8 +60,8 @@ const asymptoticDoc = `asymptotic(name, f, toward=0, expect=(c, k))
 claims f(t) ~ c·t^k as t -> toward (from above; toward=a: (t - a)^k;
 toward=infinity: t^k with k < 0 for decay): the leading term of f's
 Puiseux expansion is exactly c·t^k. c is exact or a certified real, k a
-rational. Proved by series expansion, or undecided when f cannot be
-expanded.`
+rational. Proved by series expansion; when f cannot be expanded, c is
+estimated as the limit of f(t)/t^k by extrapolation (an estimate).`
 
 var asymptoticParams = []string{"name", "f", "toward=", "expect", "digits="}
 
@@ -85,18 +85,42 @@ func (s *Session) asymptotic(c *cells.Claim, t claim.Target, a interp.Args) erro
 	if !ok {
 		return py.ExceptionNewf(py.TypeError, "asymptotic(): the exponent k of expect=(c, k) must be an exact rational, got %s%s", interp.TypeName(items[1]), values.FloatHint(items[1]))
 	}
-	_, inf, err := values.SeriesPointOf("asymptotic", a.Get("toward"))
+	point, inf, err := values.SeriesPointOf("asymptotic", a.Get("toward"))
 	if err != nil {
 		return err
 	}
 	c.Method, c.Precision = claim.SeriesMethod, int(t.Bits)
 	x, ok, why := s.expandForClaim(f, a.Get("toward"))
-	if !ok {
-		// No sound route estimates a leading coefficient and exponent
-		// together; limit(f(t)/t^k) can estimate the coefficient.
-		c.Verdict, c.Residual, c.Why = cells.Undecided, "no expansion", cells.OtherReason
-		c.Note = "not decided: " + why + "; assay has no extrapolation for a leading term (for an estimate, state limit(name, lambda t: f(t) / t**k, …))"
-		return nil
+	if ok {
+		return claim.SeriesAsymptotic(c, x, coef, k, inf, t)
 	}
-	return claim.SeriesAsymptotic(c, x, coef, k, inf, t)
+	// f ~ c·h^k means f/h^k → c ≠ 0 (h the distance to the point, or t
+	// toward infinity): the limit's extrapolation estimates that, and
+	// says so.
+	scaled := interp.Func("f(t)/h^k", "f(t) divided by the stated power", func(args py.Tuple, _ py.StringDict) (py.Object, error) {
+		v, err := py.Call(f, args, nil)
+		if err != nil {
+			return nil, err
+		}
+		h, _ := values.ExactOf(args[0])
+		if !inf {
+			h = new(big.Rat).Sub(h, point)
+		}
+		p, q := int(k.Num().Int64()), int(k.Denom().Int64())
+		hk := exact.RealRoot(exact.RealPowInt(exact.RealFromRat(h), p), q)
+		return py.TrueDiv(v, s.env.Real(hk))
+	})
+	kw := py.StringDict{"expect": items[0], "method": py.String("extrapolation")}
+	if a.Given("toward") {
+		kw["toward"] = a.Get("toward")
+	}
+	la, err := interp.Bind("limit", py.Tuple{a.Get("name"), scaled}, kw, limitParams...)
+	if err != nil {
+		return err
+	}
+	if err := s.limit(c, t, la); err != nil {
+		return err
+	}
+	c.Note = "not proved by series expansion (" + why + "); the coefficient estimated instead as the limit of f(t)/h^" + exact.FormatRat(k) + " (h the distance to the point, t toward infinity): " + c.Note
+	return nil
 }
