@@ -60,6 +60,19 @@ const seriesExact = math.MaxInt32
 // request cannot swamp memory.
 const MaxSeriesTerms = 4096
 
+// maxSeriesDen bounds the exponent grid 1/den (roots of high index, and
+// sums of series on unrelated grids, refine it).
+const maxSeriesDen = 1 << 12
+
+// commonDen is the grid both a and b lie on, refused when too fine.
+func commonDen(a, b int) (int, error) {
+	d := lcm(a, b)
+	if d > maxSeriesDen {
+		return 0, fmt.Errorf("exponents on the grid 1/%d (finer than 1/%d): %w", d, maxSeriesDen, ErrTooManyTerms)
+	}
+	return d, nil
+}
+
 // Series is a truncated Puiseux series in t as t → 0⁺ (see the top of
 // this file). It is immutable.
 type Series struct {
@@ -254,7 +267,10 @@ func SeriesAdd(a, b *Series) (*Series, error) { return seriesSum(a, b, addR) }
 func SeriesSub(a, b *Series) (*Series, error) { return seriesSum(a, b, subR) }
 
 func seriesSum(a, b *Series, op func(x, y *Real) *Real) (*Series, error) {
-	d := lcm(a.den, b.den)
+	d, err := commonDen(a.den, b.den)
+	if err != nil {
+		return nil, err
+	}
 	va, oa, ca := a.lift(d)
 	vb, ob, cb := b.lift(d)
 	ord := min(oa, ob)
@@ -303,7 +319,10 @@ func SeriesNeg(a *Series) *Series {
 
 // SeriesMul returns a·b.
 func SeriesMul(a, b *Series) (*Series, error) {
-	d := lcm(a.den, b.den)
+	d, err := commonDen(a.den, b.den)
+	if err != nil {
+		return nil, err
+	}
 	va, oa, ca := a.lift(d)
 	vb, ob, cb := b.lift(d)
 	cap := max(a.cap, b.cap)
@@ -433,8 +452,14 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 	if a.Exact() {
 		return nil, fmt.Errorf("a power of an exact series of several terms: %w", ErrSeriesUndetermined)
 	}
-	if n > MaxSeriesTerms {
+	// When q divides v·p the result stays on a's grid; else it moves to
+	// the grid 1/(den·q), with q − 1 zeros between the relative terms.
+	onGrid := (a.val*p)%q == 0
+	if n > MaxSeriesTerms || !onGrid && (n-1)*q+1 > MaxSeriesTerms {
 		return nil, fmt.Errorf("a series of more than %d terms: %w", MaxSeriesTerms, ErrTooManyTerms)
+	}
+	if _, err := commonDen(a.den*q, 1); err != nil && !onGrid {
+		return nil, err
 	}
 	// Euler's recurrence for b = a^α (Knuth, TAOCP 2, §4.7):
 	// b_k = 1/(k·a_0) · Σ_{j=1..k} ((α+1)·j − k)·a_j·b_{k−j}.
@@ -466,6 +491,10 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 			continue
 		}
 		b[k] = mulR(mulR(sum, inv), RealFromRat(big.NewRat(1, int64(k))))
+	}
+	if onGrid {
+		val := a.val * p / q
+		return seriesNormal(a.den, val, val+n, b, a.cap)
 	}
 	// On the grid 1/(den·q): the exponent v/den becomes v·p/(den·q), and
 	// step j of the relative series lands at v·p + j·q.

@@ -115,6 +115,10 @@ func TestSeriesPuiseux(t *testing.T) {
 	if d, err := RealCmp(c1, RealQuo(RealSqrt(RealFromInt(2)), RealFromInt(4)), seriesCap); err != nil || d != 0 {
 		t.Errorf("coefficient of t in sqrt(2 + t) is %v, want sqrt(2)/4 (cmp %d, %v)", c1, d, err)
 	}
+	// A root of high index stays on the integer grid when it can:
+	// (1 + t)^(1/1000) = 1 + t/1000 + C(1/1000, 2)·t² + …, C(1/1000, 2) = −999/2000000.
+	hi := must(SeriesPow(must(SeriesAdd(sc("1"), x)), 1, 1000))
+	wantCoefs(t, "(1+t)^(1/1000)", hi, 1, "6", "1", "1/1000", "-999/2000000")
 	// Odd roots of a negative leading coefficient take the real branch:
 	// ∛(−8t³ + …) = −2t·(…).
 	m := must(SeriesMul(sc("-8"), must(SeriesMul(x, must(SeriesMul(x, x))))))
