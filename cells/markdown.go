@@ -615,7 +615,8 @@ func legend(claims []Claim) string {
 		if c.Verdict == Undecided {
 			why[c.Why] = true
 		}
-		limitFails = limitFails || c.Verdict == Fails && c.Kind == "limit"
+		// A limit decided by series expansion fails by proof, not by extrapolation.
+		limitFails = limitFails || c.Verdict == Fails && (c.Kind == "limit" || c.Kind == "asymptotic") && c.Method != "series expansion"
 	}
 	var paras []string
 	if has[HoldsWhere] {

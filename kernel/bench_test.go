@@ -87,3 +87,16 @@ func BenchmarkSimplexShapeSampled(b *testing.B) {
 		"         over=lambda k: random_simplex(3, seed=k, bound=1000, denom=100), samples=1000, companion=False)\n```\n")
 	benchNotebook(b, src, cells.Holds)
 }
+
+// BenchmarkSeriesInradius: series() of the inradius of the sliver demo's
+// squeezed tetrahedron to order 6, proved equal to its leading term by an
+// asymptotic claim, the whole notebook run in-process. Target (issue:
+// degenerations proved by series): < 50 ms.
+func BenchmarkSeriesInradius(b *testing.B) {
+	src := []byte("# bench\n\n```cell\n" +
+		"def squeezed(t):\n" +
+		"    return simplex([[x, y, t * z] for x, y, z in [[0, 0, 0], [4, 0, 1], [1, 3, 2], [3, 2, -1]]])\n" +
+		"s = series(lambda t: squeezed(t).inradius(), order=6)\n" +
+		"asymptotic(\"inradius ~ 7/6 t\", lambda t: squeezed(t).inradius(), expect=(frac(7, 6), 1))\n```\n")
+	benchNotebook(b, src, cells.Holds)
+}

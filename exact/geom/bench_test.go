@@ -2,7 +2,10 @@ package geom
 
 import (
 	"math/big"
+	"strings"
 	"testing"
+
+	"assay/exact"
 )
 
 // tetPoints returns the vertices of Random(3, seed, 1000, 100) for seeds
@@ -103,4 +106,29 @@ func shapeTet(b *testing.B, s *Simplex) {
 		b.Fatal(err)
 	}
 	s.MaxSqEdge()
+}
+
+// BenchmarkSeriesInradius: the inradius of the tetrahedron (0,0,0),
+// (4,0,t), (1,3,2t), (3,2,−t) as a series to O(t^6) (the sliver demo's
+// squeeze). Target (issue: degenerations proved by series): < 50 ms for
+// series() from a notebook, of which this is the geometry.
+func BenchmarkSeriesInradius(b *testing.B) {
+	rows := [][]string{{"0", "0", "0*t"}, {"4", "0", "1*t"}, {"1", "3", "2*t"}, {"3", "2", "-1*t"}}
+	for i := 0; i < b.N; i++ {
+		v := exact.SeriesVar(7, 4096)
+		p := make(SeriesPoints, len(rows))
+		for r, row := range rows {
+			for c, s := range row {
+				q, _ := new(big.Rat).SetString(strings.TrimSuffix(s, "*t"))
+				x := exact.SeriesConst(exact.RealFromRat(q), 4096)
+				if c == 2 {
+					x, _ = exact.SeriesMul(x, v)
+				}
+				p[r] = append(p[r], x)
+			}
+		}
+		if _, err := p.Inradius(); err != nil {
+			b.Fatal(err)
+		}
+	}
 }

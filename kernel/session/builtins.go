@@ -12,7 +12,7 @@ import (
 )
 
 // claimNames are the claim builtins, whose call sites are tagged with their line.
-var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true, "inequality": true}
+var claimNames = map[string]bool{"identity": true, "factorization": true, "limit": true, "inequality": true, "asymptotic": true}
 
 // claimBuiltin decides a claim: it fills in the record c, which is opened
 // (named, placed at its line) and filed by makeClaim. t is the precision
@@ -46,6 +46,7 @@ func (s *Session) install(b py.StringDict) {
 		"factorization": {[]string{"name", "p", "factors="}, factorizationDoc, s.factorization},
 		"limit":         {limitParams, limitDoc, s.limit},
 		"inequality":    {inequalityParams, inequalityDoc, s.inequality},
+		"asymptotic":    {asymptoticParams, asymptoticDoc, s.asymptotic},
 	}
 	at := func(name string, line func() int) *py.Method {
 		c := claims[name]

@@ -17,14 +17,16 @@ import (
 	"assay/kernel/values"
 )
 
-const limitDoc = `limit(name, f, toward=0, expect=None, steps=30, ratio=1/2, digits=None, order=None)
-evaluates f(t) along t = toward + ratio^k (or ratio^-k toward infinity) and
+const limitDoc = `limit(name, f, toward=0, expect=None, steps=30, ratio=1/2, digits=None, order=None, method=None)
+first runs f on a Puiseux series in t (method="series" alone): when f
+computes one expression of t, the limit is proved from the leading terms.
+Otherwise (or with method="extrapolation") it evaluates f(t) along t = toward + ratio^k (or ratio^-k toward infinity) and
 along a second walk at an incommensurable ratio, extrapolates the limit and
 its convergence order, and compares them with expect (a value, or infinity
 for a blow-up) and order (the h^p of the error, or of the growth). The
 result is an estimate, never a certified bound.`
 
-var limitParams = []string{"name", "f", "toward=", "expect=", "steps=", "ratio=", "digits=", "order="}
+var limitParams = []string{"name", "f", "toward=", "expect=", "steps=", "ratio=", "digits=", "order=", "method="}
 
 // walkSpec is the parameter walk shared by limit() and sequence().
 type walkSpec struct {
@@ -36,18 +38,14 @@ type walkSpec struct {
 
 func walkArgs(fn string, a interp.Args) (walkSpec, error) {
 	sp := walkSpec{toward: limits.ToZero, value: new(big.Rat), ratio: big.NewRat(1, 2), steps: 30}
-	switch toward := a.Get("toward"); {
-	case toward == nil:
-	case isInfinity(toward):
+	// One reading of toward= for the walks and the series route.
+	switch v, inf, err := values.SeriesPointOf(fn, a.Get("toward")); {
+	case err != nil:
+		return sp, err
+	case inf:
 		sp.toward = limits.ToInfinity
-	default:
-		v, ok := values.ExactOf(toward)
-		if !ok {
-			return sp, py.ExceptionNewf(py.TypeError, "%s(): toward must be an exact number or infinity, got %s", fn, interp.TypeName(toward))
-		}
-		if v.Sign() != 0 {
-			sp.toward, sp.value = limits.ToValue, v
-		}
+	case v.Sign() != 0:
+		sp.toward, sp.value = limits.ToValue, v
 	}
 	if a.Has("steps") {
 		n, err := a.Int("steps", 30)
@@ -153,6 +151,29 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		}
 		order, _ = q.Float64()
 	}
+	how := ""
+	if a.Given("method") {
+		m, ok := a.Get("method").(py.String)
+		if !ok || (m != "series" && m != "extrapolation") {
+			return py.ExceptionNewf(py.ValueError, "limit(): method must be \"series\" or \"extrapolation\" (or left out: series first, extrapolation when f cannot be expanded), got %s", interp.Str(a.Get("method")))
+		}
+		how = string(m)
+	}
+	if how != "extrapolation" {
+		ok, why, err := s.seriesLimit(c, t, a, expect, expectInf)
+		if err != nil || ok {
+			return err
+		}
+		if how == "series" {
+			c.Method, c.Verdict, c.Residual, c.Why = claim.SeriesMethod, cells.Undecided, "no expansion", cells.OtherReason
+			c.Note = "not decided by series expansion (method=\"series\"): " + why
+			return nil
+		}
+		// The note of the extrapolation says why the proof was not had.
+		defer func() {
+			c.Note = "not proved by series expansion (" + why + "); estimated by extrapolation instead: " + c.Note
+		}()
+	}
 	// Extrapolation cancels digits: evaluate f three times more precisely than the target.
 	prec := min(3*t.Bits+64, t.Cap)
 	c.Method, c.Precision = "extrapolation", int(prec)
@@ -245,12 +266,7 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 }
 
 // isInfinity says whether o is the builtin infinity or float("inf").
-func isInfinity(o py.Object) bool {
-	if f, ok := o.(py.Float); ok {
-		return math.IsInf(float64(f), 1)
-	}
-	return o == py.Object(values.Infinity{})
-}
+func isInfinity(o py.Object) bool { return values.IsInfinity(o) }
 
 // checkOrder holds a limit claim to its stated order: the convergence
 // order, or the growth rate of a blow-up, estimated by each walk. Both

@@ -467,12 +467,12 @@ func TestFloatAuditSkipsWithoutCompanion(t *testing.T) {
 // calculus text), a wrong expectation, a blow-up, no convergence, and a
 // function that raises partway.
 func TestLimitClaims(t *testing.T) {
-	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, toward=0, expect=1)
-limit("wrong", lambda t: sin(t) / t, toward=0, expect=frac(101, 100))
-limit("blow-up", lambda t: 1 / t**2, toward=0)
-limit("oscillates", lambda t: sin(1 / t), toward=0, steps=20)
-limit("raises", lambda t: sin(t) / t if t > frac(1, 2**10) else 1 / 0, toward=0, expect=1, steps=20)
-limit("near 2", lambda t: (t**2 - 4) / (t - 2), toward=2, expect=4)`)
+	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, method="extrapolation", toward=0, expect=1)
+limit("wrong", lambda t: sin(t) / t, method="extrapolation", toward=0, expect=frac(101, 100))
+limit("blow-up", lambda t: 1 / t**2, method="extrapolation", toward=0)
+limit("oscillates", lambda t: sin(1 / t), method="extrapolation", toward=0, steps=20)
+limit("raises", lambda t: sin(t) / t if t > frac(1, 2**10) else 1 / 0, method="extrapolation", toward=0, expect=1, steps=20)
+limit("near 2", lambda t: (t**2 - 4) / (t - 2), method="extrapolation", toward=2, expect=4)`)
 	o := rep.Outcomes[0]
 	if o.Error != nil {
 		t.Fatalf("cell failed: %s", o.Error.Message)
@@ -530,13 +530,13 @@ limit("log-periodic", lambda t: cos(2*pi*log(t)/log(2)), toward=0, expect=1)`)
 // 1 (from memory); 1/t² → infinity with growth order 2 (common practice).
 // A stated order far from the estimate fails, one in between is undecided.
 func TestLimitEstimatesAndOrders(t *testing.T) {
-	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, toward=0, expect=1, order=2)
-limit("e", lambda t: exp(log(1 + t) / t), toward=0, order=1)
-limit("blow-up", lambda t: 1 / t**2, toward=0, expect=infinity, order=2)
-limit("wrong order", lambda t: 1 / t**2, toward=0, expect=infinity, order=3)
-limit("order a little off", lambda t: sin(t) / t, toward=0, expect=1, order=frac(9, 4))
-limit("converges, not infinity", lambda t: sin(t) / t, toward=0, expect=infinity)
-limit("minus infinity", lambda t: -1 / t, toward=0, expect=infinity)`)
+	rep := runHere(t, `limit("sinc", lambda t: sin(t) / t, method="extrapolation", toward=0, expect=1, order=2)
+limit("e", lambda t: exp(log(1 + t) / t), method="extrapolation", toward=0, order=1)
+limit("blow-up", lambda t: 1 / t**2, method="extrapolation", toward=0, expect=infinity, order=2)
+limit("wrong order", lambda t: 1 / t**2, method="extrapolation", toward=0, expect=infinity, order=3)
+limit("order a little off", lambda t: sin(t) / t, method="extrapolation", toward=0, expect=1, order=frac(9, 4))
+limit("converges, not infinity", lambda t: sin(t) / t, method="extrapolation", toward=0, expect=infinity)
+limit("minus infinity", lambda t: -1 / t, method="extrapolation", toward=0, expect=infinity)`)
 	o := rep.Outcomes[0]
 	if o.Error != nil {
 		t.Fatalf("cell failed: %s", o.Error.Message)

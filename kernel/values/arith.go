@@ -65,7 +65,7 @@ func (e *Env) Power(a, b py.Object) (py.Object, bool, error) {
 // isNotebookValue reports whether o is one of the kernel's own value types.
 func isNotebookValue(o py.Object) bool {
 	switch o.(type) {
-	case *Rational, *Polynomial, *RationalFunction, *Matrix, *Real:
+	case *Rational, *Polynomial, *RationalFunction, *Matrix, *Real, *Series:
 		return true
 	}
 	return false

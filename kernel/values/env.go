@@ -62,6 +62,7 @@ func (e *Env) Install(b py.StringDict) {
 		e.kvectorBuiltins,
 		e.boxBuiltins,
 		e.infinityBuiltins,
+		e.seriesBuiltins,
 	} {
 		install(b)
 	}

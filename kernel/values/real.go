@@ -91,6 +91,9 @@ func (e *Env) realBuiltins(b py.StringDict) {
 }
 
 func (e *Env) unary(name string, f func(*exact.Real) *exact.Real, o py.Object) (py.Object, error) {
+	if s, ok := o.(*Series); ok {
+		return s.function(name, 0)
+	}
 	if e.Float {
 		x, err := floatArg(name, o)
 		if err != nil {
@@ -109,6 +112,13 @@ func (e *Env) unary(name string, f func(*exact.Real) *exact.Real, o py.Object) (
 }
 
 func (e *Env) root(a interp.Args) (py.Object, error) {
+	if s, ok := a.Get("x").(*Series); ok {
+		k, err := a.Int("k", 0)
+		if err != nil || k < 2 || k > MaxExponent {
+			return nil, py.ExceptionNewf(py.ValueError, "root(x, k) needs an integer k from 2 to %d, got %s", MaxExponent, interp.Str(a.Get("k")))
+		}
+		return s.function("root", int(k))
+	}
 	if e.Float {
 		f, err1 := floatArg("root", a.Get("x"))
 		k, err2 := floatArg("root", a.Get("k"))

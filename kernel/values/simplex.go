@@ -129,6 +129,12 @@ func (e *Env) simplex(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, err
 	}
+	if pts, at, ok, err := e.seriesPoints(items); ok || err != nil {
+		if err != nil {
+			return nil, err
+		}
+		return e.seriesSimplex(pts, at)
+	}
 	if pts, ok, err := e.algebraicPoints(items); ok || err != nil {
 		if err != nil {
 			return nil, err
