@@ -141,7 +141,9 @@ func exactOpcode(original func(*vm.Vm, int32) error, answer func(Arithmetic, py.
 // guardedOpcode turns a Go panic inside an instruction (an operator of a
 // value type, or the interpreter's own code, which has no guard) into an
 // exception raised at that instruction, so the notebook can catch it and
-// the report names the line it happened on.
+// the report names the line it happened on. Every exception an
+// instruction raises is counted in its sandbox (Sandbox.Raised); the frame
+// is looked up only then, so the count costs nothing on the normal path.
 func guardedOpcode(h func(*vm.Vm, int32) error) func(*vm.Vm, int32) error {
 	return func(v *vm.Vm, arg int32) (err error) {
 		defer func() {
@@ -149,6 +151,11 @@ func guardedOpcode(h func(*vm.Vm, int32) error) func(*vm.Vm, int32) error {
 				var res py.Object
 				err = nil
 				recovered(r, "the interpreter", &res, &err)
+			}
+			if err != nil {
+				if ctx, ok := frameContext(v).(*Sandbox); ok {
+					ctx.raised.n.Add(1)
+				}
 			}
 		}()
 		return h(v, arg)

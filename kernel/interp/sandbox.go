@@ -35,6 +35,7 @@ type Sandbox struct {
 	running sync.WaitGroup
 	closed  bool
 	done    chan struct{}
+	raised  raisedCount
 }
 
 // NewSandbox makes a fresh context with builtins and sys loaded and every

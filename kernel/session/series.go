@@ -32,7 +32,7 @@ func (s *Session) expandForClaim(f, toward py.Object) (claim.Expansion, bool, st
 	}
 	v := run.Value
 	if what := v.Point().Inspected; what != "" {
-		return claim.Expansion{}, false, "f asked for " + what + " of its argument, which tells a series from a number (a refusal caught inside f, or a look at the series itself), so the expansion may not be f's on numbers"
+		return claim.Expansion{}, false, "f " + what + ", which may tell a series from a number, so the expansion may not be f's on numbers"
 	}
 	printed := v.String()
 	if _, _, ok := v.Value().Leading(); !ok {

@@ -66,6 +66,19 @@ def sly(t):
         return 1 + t
 limit("catches", sly, toward=0, expect=1, steps=12)
 limit("looks", lambda t: 1 + t if str(t)[0] == "t" else 2, toward=0, expect=1, steps=12)
+limit("asks the type", lambda t: 1 + t if "series" in str(type(t)) else 2, toward=0, expect=1, steps=12)
+limit("asks an attribute", lambda t: 1 + t if hasattr(t, "leading") else 2, toward=0, expect=1, steps=12)
+def tries(t):
+    try:
+        t.leading
+        return 1 + t
+    except AttributeError:
+        return 2
+limit("catches its own error", tries, toward=0, expect=1, steps=12)
+def squeezed(t):
+    s = simplex([[0, 0, 0], [1, 0, 0], [0, 1, 0], [0, 0, t]])
+    return 1 + t if "series" in str(type(s)) else 2
+limit("asks a simplex's type", squeezed, toward=0, expect=1, steps=12)
 limit("oscillates", lambda t: sin(1 / t), toward=0, steps=20)
 limit("series only", lambda t: sin(1 / t), toward=0, method="series")
 limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
@@ -91,6 +104,14 @@ limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
 		{cells.Fails, "", "f asked for comparison of its argument"},
 		// So does a look at the printed form.
 		{cells.Fails, "", "f asked for the printed form of its argument"},
+		// And every other way to tell a series from a number: a question
+		// to type() or hasattr(), an exception caught inside f (here the
+		// AttributeError a number raises and a series does not, inverted:
+		// the series has .leading), the type of a simplex built on it.
+		{cells.Fails, "", "f asked for the type of its argument"},
+		{cells.Fails, "", "f asked for the attributes of its argument"},
+		{cells.Fails, "", "f asked for the leading term of its argument"},
+		{cells.Fails, "", "f asked for the type of a simplex with series coordinates"},
 		{cells.Undecided, "", "not proved by series expansion (f raised on a series: ValueError: sin of a series that tends to infinity"},
 		{cells.Undecided, "series expansion", "not decided by series expansion"},
 		// n·sin(π/n) = π − π³/(6n²) + …: the limit π (Archimedes), transcendental.

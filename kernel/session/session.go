@@ -82,6 +82,8 @@ func New(s Settings) (*Session, error) {
 		return nil, err
 	}
 	pyext.Install(sb.Builtins())
+	interp.WatchIntrospection(sb.Builtins().Globals)
+	env.Raised = sb.Raised
 	sess := &Session{sandbox: sb, env: env, settings: s, claimAt: map[string]int{}, coord: solo{}}
 	env.Stage = sess.stage
 	sess.install(sb.Builtins().Globals)

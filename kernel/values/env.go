@@ -36,6 +36,9 @@ type Env struct {
 	// basis) stops with a message naming where it was, before the parent's
 	// timeout kills the kernel; zero for none.
 	Deadline time.Time
+	// Raised counts the exceptions the session's code has raised so far
+	// (interp.Sandbox.Raised); nil outside a session.
+	Raised func() uint64
 
 	seed  int64  // seed in force for this cell
 	cell  int    // the cell running

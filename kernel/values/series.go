@@ -21,12 +21,13 @@ import (
 // operation on numbers, for every t close enough to the expansion point.
 // What could make f compute something else on numbers is a branch on the
 // value of t — `if t < h:`, min, max, a conversion to a float or an int —
-// and each of those raises on a series. A function that catches such an
-// exception, or looks at the series itself (its printed form, its leading
-// term), leaves its mark on the run (Inspected), and the claims then do
-// not use the series. What cannot be stopped is a function that asks for
-// the type of its argument; the report names the method, "series
-// expansion", so a reader knows f ran on a series.
+// and each of those raises on a series. A function that catches any
+// exception (interp.Sandbox.Raised counts them, whatever raised them, so
+// an attribute a number lacks is covered too), looks at the series itself
+// (its printed form, its leading term), or asks a builtin about its type,
+// attributes or identity (interp.WatchIntrospection, Series.Watched)
+// leaves its mark on the run (Inspected), and the claims then do not use
+// the series.
 type Series struct {
 	s   *exact.Series
 	env *Env
@@ -39,8 +40,10 @@ type Series struct {
 type SeriesPoint struct {
 	Name string // the variable printed: "t", "(t - 2)", or "t" with flipped exponents
 	Flip bool   // toward infinity: the series is in 1/t, printed in t
-	// Inspected is the first thing f did that a series refuses (compare
-	// it, convert it to a number), even when f caught the exception.
+	// Inspected says the first thing f did that may tell a series from a
+	// number: a refusal (compare it, convert it to a number) or any other
+	// exception caught inside f, a look at the series itself, or a question
+	// to a builtin about its type, attributes or identity; "" if none.
 	Inspected string
 }
 
@@ -78,12 +81,16 @@ func (p *SeriesPoint) describe() string {
 	return "powers of " + p.Name
 }
 
+// Watched records that f asked for the series' type, attributes or
+// identity (interp.WatchIntrospection): a number answers differently.
+func (s *Series) Watched(what string) { s.inspect(what) }
+
 // inspect records the first thing f asked of a series beyond arithmetic:
 // its printed form or leading term tells a series from a number, so a
 // claim does not rely on a run that asked.
 func (s *Series) inspect(what string) {
 	if s.at.Inspected == "" {
-		s.at.Inspected = what
+		s.at.Inspected = "asked for " + what + " of its argument"
 	}
 }
 
@@ -357,7 +364,14 @@ func (e *Env) Expand(f py.Object, a *big.Rat, inf bool, order int) (*SeriesRun, 
 		if err != nil {
 			return nil, err
 		}
+		raised := e.raisedSoFar()
 		out, err := py.Call(f, py.Tuple{v}, nil)
+		if err == nil && e.raisedSoFar() != raised && at.Inspected == "" {
+			// f caught an exception: whatever raised it may not raise on
+			// numbers (an attribute a number has, a builtin a series
+			// refuses), so f on the series may differ from f on numbers.
+			at.Inspected = "caught an exception raised inside it"
+		}
 		if err != nil {
 			if errors.Is(err, exact.ErrSeriesUndetermined) || isUndetermined(err) {
 				lastErr = err
@@ -383,6 +397,15 @@ func (e *Env) Expand(f py.Object, a *big.Rat, inf bool, order int) (*SeriesRun, 
 		return nil, lastErr
 	}
 	return &SeriesRun{Value: last, Work: 4*order + 8}, nil
+}
+
+// raisedSoFar is the session's count of raised exceptions (0 outside a
+// session, where no notebook code runs).
+func (e *Env) raisedSoFar() uint64 {
+	if e.Raised == nil {
+		return 0
+	}
+	return e.Raised()
 }
 
 // isUndetermined spots ErrSeriesUndetermined after the guard turned it

@@ -21,6 +21,14 @@ type SeriesSimplex struct {
 	at  *SeriesPoint
 }
 
+// Watched records that f asked for the simplex's type, attributes or
+// identity, which tell it from a simplex of numbers (see Series.Watched).
+func (s *SeriesSimplex) Watched(what string) {
+	if s.at != nil && s.at.Inspected == "" {
+		s.at.Inspected = "asked for " + what + " of a simplex with series coordinates"
+	}
+}
+
 // SeriesSimplexType is the Python type of SeriesSimplex.
 var SeriesSimplexType = py.NewType("series_simplex", "A simplex with series coordinates, made by simplex() inside series(f) or a limit: its volume, facet areas, inradius and circumradius expand as series.")
 
