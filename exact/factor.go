@@ -155,6 +155,15 @@ func factorSquareFreeZ(f []*big.Int) ([][]*big.Int, error) {
 	}
 	B := mignotte(f)
 	bound := new(big.Int).Lsh(B, 1)
+	var plan vhPlan
+	useLattice := len(facs) >= vanHoeijMinFactors
+	if useLattice {
+		// The lattice method needs the traces' digits too.
+		plan = planVanHoeij(f, len(facs), p)
+		if pa := new(big.Int).Exp(new(big.Int).SetUint64(p), big.NewInt(int64(plan.need)), nil); pa.Cmp(bound) > 0 {
+			bound = pa
+		}
+	}
 	steps := 0
 	for M := new(big.Int).SetUint64(p); M.Cmp(bound) <= 0; M.Mul(M, M) {
 		steps++
@@ -163,6 +172,11 @@ func factorSquareFreeZ(f []*big.Int) ([][]*big.Int, error) {
 	M := new(big.Int).SetUint64(p)
 	for i := 0; i < steps; i++ {
 		M.Mul(M, M)
+	}
+	if useLattice {
+		if out, ok := vanHoeij(f, lifted, M, p, plan); ok {
+			return out, nil
+		}
 	}
 	return recombine(f, lifted, M, p, maxSubsets)
 }
