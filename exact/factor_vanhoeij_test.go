@@ -182,24 +182,39 @@ func TestGramMinors(t *testing.T) {
 // the prime leaves too few modular factors to exercise it.
 func latticeFactors(t testing.TB, f []*big.Int) (r int, gs [][]*big.Int) {
 	t.Helper()
+	lf := liftForLattice(t, f)
+	if len(lf.lifted) < vanHoeijMinFactors {
+		t.Fatalf("only %d modular factors", len(lf.lifted))
+	}
+	gs, ok := vanHoeij(f, lf.lifted, lf.M, lf.p, lf.plan)
+	if !ok {
+		t.Fatalf("van Hoeij did not conclude on %d factors mod %d", len(lf.lifted), lf.p)
+	}
+	return len(lf.lifted), gs
+}
+
+// liftedFactors is the input of a recombination.
+type liftedFactors struct {
+	p      uint64
+	M      *big.Int
+	lifted [][]*big.Int
+	plan   vhPlan
+}
+
+// liftForLattice lifts the modular factors of f far enough for both
+// recombinations.
+func liftForLattice(t testing.TB, f []*big.Int) liftedFactors {
 	p, facs, err := choosePrime(f)
 	if err != nil {
 		t.Fatal(err)
 	}
-	if len(facs) < vanHoeijMinFactors {
-		t.Fatalf("only %d modular factors", len(facs))
-	}
 	plan := planVanHoeij(f, len(facs), p)
-	steps := 0
-	M := new(big.Int).SetUint64(p)
-	for ; M.Cmp(new(big.Int).Exp(new(big.Int).SetUint64(p), big.NewInt(int64(plan.need)), nil)) <= 0; M.Mul(M, M) {
-		steps++
+	need := new(big.Int).Exp(new(big.Int).SetUint64(p), big.NewInt(int64(plan.need)), nil)
+	if b := new(big.Int).Lsh(mignotte(f), 1); b.Cmp(need) > 0 {
+		need = b
 	}
-	gs, ok := vanHoeij(f, henselLift(f, facs, p, steps), M, p, plan)
-	if !ok {
-		t.Fatalf("van Hoeij did not conclude on %d factors mod %d", len(facs), p)
-	}
-	return len(facs), gs
+	lifted, M := liftPast(f, facs, p, need)
+	return liftedFactors{p, M, lifted, plan}
 }
 
 // sameFactors reports whether the polynomials gs are the factors want,
@@ -267,7 +282,7 @@ func TestVanHoeijProducts(t *testing.T) {
 	s16 := swinnertonDyer(t, r, []int{2, 3, 5, 7})
 	phi := cyclotomic(t, r, 60)
 	rng := rand.New(rand.NewSource(16))
-	for trial := 0; trial < 12; trial++ {
+	for trial := 0; trial < 8; trial++ {
 		var want []*Poly
 		seen := map[string]bool{}
 		add := func(g *Poly) {
@@ -332,5 +347,59 @@ func TestCyclotomicTo120(t *testing.T) {
 		if !slices.EqualFunc(got, want, (*Poly).Equal) {
 			t.Fatalf("x^%d − 1: %v, want %v", n, got, want)
 		}
+	}
+}
+
+// BenchmarkRecombine compares the subset search with the lattice on the
+// same lifted factors, to place vanHoeijMinFactors: Swinnerton-Dyer
+// polynomials (irreducible, the search's worst case) and a product of
+// two shifted S8 (reducible).
+func BenchmarkRecombine(b *testing.B) {
+	r, _ := testRing(b, "x", "y")
+	s8 := swinnertonDyer(b, r, []int{2, 3, 5})
+	cases := []*Poly{
+		s8,
+		mustMulP(b, s8, shift(b, s8, 1, 1)),
+		swinnertonDyer(b, r, []int{2, 3, 5, 7}),
+		mustMulP(b, mustMulP(b, s8, shift(b, s8, 1, 1)), shift(b, s8, 1, -1)),
+		swinnertonDyer(b, r, []int{2, 3, 5, 7, 11}),
+	}
+	for _, c := range cases {
+		f := toDense(c, 0)
+		lf := liftForLattice(b, f)
+		name := fmt.Sprintf("deg%d_r%d", c.Degree(), len(lf.lifted))
+		b.Run(name+"/subsets", func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if _, err := recombine(f, lf.lifted, lf.M, lf.p, maxSubsets); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
+		b.Run(name+"/lattice", func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if _, ok := vanHoeij(f, lf.lifted, lf.M, lf.p, lf.plan); !ok {
+					b.Fatal("no conclusion")
+				}
+			}
+		})
+	}
+}
+
+// TestVanHoeijGivesUp: with too few traces (only the first, zero for an
+// even polynomial such as a Swinnerton-Dyer one) the lattice reports no
+// conclusion instead of an answer, and Zassenhaus's search still proves
+// the polynomial irreducible.
+func TestVanHoeijGivesUp(t *testing.T) {
+	r, _ := testRing(t, "x", "y")
+	f := toDense(swinnertonDyer(t, r, []int{2, 3, 5, 7, 11}), 0)
+	lf := liftForLattice(t, f)
+	plan := lf.plan
+	plan.N = 1
+	if gs, ok := vanHoeij(f, lf.lifted, lf.M, lf.p, plan); ok {
+		t.Fatalf("concluded from one trace: %d factors", len(gs))
+	}
+	gs, err := recombine(f, lf.lifted, lf.M, lf.p, maxSubsets)
+	if err != nil || len(gs) != 1 {
+		t.Fatalf("subset search: %d factors, %v", len(gs), err)
 	}
 }

@@ -41,7 +41,11 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 	}
 	refresh := func(i int) {
 		for j, c := range b[i] {
-			bf[i][j], _ = new(big.Float).SetInt(c).Float64()
+			if c.IsInt64() {
+				bf[i][j] = float64(c.Int64())
+			} else {
+				bf[i][j], _ = new(big.Float).SetInt(c).Float64()
+			}
 		}
 	}
 	// gs recomputes row k of the Gram–Schmidt data from rows below it.
