@@ -403,3 +403,23 @@ func TestVanHoeijGivesUp(t *testing.T) {
 		t.Fatalf("subset search: %d factors, %v", len(gs), err)
 	}
 }
+
+// TestLLLGivesUp: past the swap cap, or with entries beyond float64's
+// range, the reduction reports false, and the rows still span the same
+// lattice (equal Gram determinant, by the definition of a lattice's
+// volume).
+func TestLLLGivesUp(t *testing.T) {
+	huge := new(big.Int).Lsh(big.NewInt(1), 1100)
+	for _, in := range [][][]*big.Int{
+		intRows([][]int64{{1, 1, 1}, {-1, 0, 2}, {3, 5, 6}}),
+		{{huge, big.NewInt(1)}, {big.NewInt(1), big.NewInt(0)}},
+	} {
+		out := cloneRows(in)
+		if lllReduce(out, 0) {
+			t.Fatalf("%v: reduced without a swap", in)
+		}
+		if a, b := gramMinors(in), gramMinors(out); a[len(in)].Cmp(b[len(in)]) != 0 {
+			t.Fatalf("%v: lattice changed to %v", in, out)
+		}
+	}
+}

@@ -48,6 +48,12 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 			}
 		}
 	}
+	// finite reports whether the float data of row k can be trusted to
+	// steer: entries past float64's range or a vanishing Gram–Schmidt
+	// norm end the reduction (the basis is still exact).
+	finite := func(k int) bool {
+		return bs[k] > 0 && !math.IsInf(bs[k], 0) && !math.IsNaN(bs[k])
+	}
 	// gs recomputes row k of the Gram–Schmidt data from rows below it.
 	gs := func(k int) {
 		copy(bstar[k], bf[k])
@@ -63,10 +69,16 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 		refresh(i)
 	}
 	gs(0)
+	if !finite(0) {
+		return false
+	}
 	q, t := new(big.Int), new(big.Int)
 	swaps := 0
 	for k := 1; k < n; {
 		gs(k)
+		if !finite(k) {
+			return false
+		}
 		// Size reduction, repeated while a multiplier was large: after a
 		// big subtraction the float data is recomputed from the exact row.
 		for pass := 0; pass < 10; pass++ {
@@ -75,6 +87,9 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 				r := math.Round(mu[k][j])
 				if r == 0 {
 					continue
+				}
+				if math.IsNaN(r) || math.IsInf(r, 0) {
+					return false
 				}
 				big1 = big1 || math.Abs(r) > 1<<20
 				new(big.Float).SetFloat64(r).Int(q)
@@ -88,6 +103,9 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 			}
 			refresh(k)
 			gs(k)
+			if !finite(k) {
+				return false
+			}
 			if !big1 {
 				break
 			}
@@ -100,7 +118,9 @@ func lllReduce(b [][]*big.Int, maxSwaps int) bool {
 			bf[k], bf[k-1] = bf[k-1], bf[k]
 			k = max(k-1, 1)
 			if k == 1 {
-				gs(0)
+				if gs(0); !finite(0) {
+					return false
+				}
 			}
 			continue
 		}
