@@ -20,12 +20,13 @@ package exact
 // conclusion is proved by exact bounds and trial division; if it does not
 // conclude, the subset search resumes, and past maxSubsets candidates
 // Factor gives up with ErrFactorLimit instead of running on. Measured
-// (BenchmarkRecombine, December 2026, 2-core machine): with 8 factors the
-// search takes 0.3–0.6 ms and the lattice about 3 ms; with 16 (the
-// irreducible Swinnerton-Dyer polynomial of degree 32) the search takes
-// 0.30 s and the lattice 0.04 s. Degree 64 (32 factors, about 2^31
-// candidates for the search) is proved irreducible in about 1–1.5 s, and
-// x^120 − 1 factors in about 0.4 s (BenchmarkSwinnertonDyer,
+// (BenchmarkRecombine, December 2026, 2-core machine shared with other
+// jobs, so ±50%): with 8 factors the search takes 0.1–0.5 ms and the
+// lattice 0.4–0.6 ms; with 12 (a reducible product) 1.0 ms against
+// 1.6 ms; with 16 (the irreducible Swinnerton-Dyer polynomial of degree
+// 32) 90–200 ms against 10 ms. Degree 64 (32 factors, about 2^31
+// candidates for the search) is proved irreducible in 0.3–0.6 s, and
+// x^120 − 1 factors in about 0.2 s (BenchmarkSwinnertonDyer,
 // BenchmarkFactorCyclotomic).
 
 import (
@@ -47,8 +48,9 @@ var (
 const maxSubsets = 1 << 20
 
 // quickSubsets caps the subset search tried before the lattice method:
-// about 10 ms (BenchmarkRecombine), the lattice's cost at 12 factors.
-const quickSubsets = 1 << 10
+// a few milliseconds, about the lattice's cost at 12 factors
+// (BenchmarkRecombine); 1<<8 made x^120 − 1 twice as fast as 1<<10.
+const quickSubsets = 1 << 8
 
 // primeTrials is how many suitable primes are tried before the one with
 // the fewest modular factors is kept (common practice: the count varies

@@ -164,7 +164,7 @@ func vanHoeij(f []*big.Int, lifted [][]*big.Int, M *big.Int, p uint64, plan vhPl
 		// The next batch: columns that carry information, about one
 		// per row of W.
 		var cols []int
-		for ; j0 <= plan.N && len(cols) < max(len(W), 2); j0++ {
+		for ; j0 <= plan.N && len(cols) < max(len(W)/2, 2); j0++ {
 			for i := range X {
 				if X[i][j0].Sign() != 0 {
 					cols = append(cols, j0)
