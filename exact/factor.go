@@ -25,7 +25,7 @@ package exact
 // lattice 0.4–0.6 ms; with 12 (a reducible product) 1.0 ms against
 // 1.6 ms; with 16 (the irreducible Swinnerton-Dyer polynomial of degree
 // 32) 90–200 ms against 10 ms. Degree 64 (32 factors, about 2^31
-// candidates for the search) is proved irreducible in 0.3–0.6 s, and
+// candidates for the search) is proved irreducible in 0.3–1.2 s, and
 // x^120 − 1 factors in about 0.2 s (BenchmarkSwinnertonDyer,
 // BenchmarkFactorCyclotomic).
 
