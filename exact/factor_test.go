@@ -414,22 +414,27 @@ func TestFactorConstants(t *testing.T) {
 	}
 }
 
-// BenchmarkFactorCyclotomic60 factors x^60 − 1 (twelve cyclotomic factors).
-func BenchmarkFactorCyclotomic60(b *testing.B) {
+// BenchmarkFactorCyclotomic factors x^60 − 1 (twelve cyclotomic factors)
+// and x^120 − 1 (sixteen).
+func BenchmarkFactorCyclotomic(b *testing.B) {
 	r, _ := testRing(b, "x")
-	p := mustParse(b, r, "x^60 - 1")
-	for i := 0; i < b.N; i++ {
-		if _, err := p.Factor(); err != nil {
-			b.Fatal(err)
-		}
+	for _, n := range []int{60, 120} {
+		p := mustParse(b, r, fmt.Sprintf("x^%d - 1", n))
+		b.Run(fmt.Sprint(n), func(b *testing.B) {
+			for i := 0; i < b.N; i++ {
+				if _, err := p.Factor(); err != nil {
+					b.Fatal(err)
+				}
+			}
+		})
 	}
 }
 
-// BenchmarkSwinnertonDyer proves the degree-8, 16 and 32
+// BenchmarkSwinnertonDyer proves the degree-8, 16, 32 and 64
 // Swinnerton-Dyer polynomials irreducible.
 func BenchmarkSwinnertonDyer(b *testing.B) {
 	r, _ := testRing(b, "x", "y")
-	for _, ps := range [][]int{{2, 3, 5}, {2, 3, 5, 7}, {2, 3, 5, 7, 11}} {
+	for _, ps := range [][]int{{2, 3, 5}, {2, 3, 5, 7}, {2, 3, 5, 7, 11}, {2, 3, 5, 7, 11, 13}} {
 		p := swinnertonDyer(b, r, ps)
 		b.Run(fmt.Sprint("degree", p.Degree()), func(b *testing.B) {
 			for i := 0; i < b.N; i++ {

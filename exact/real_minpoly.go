@@ -48,8 +48,8 @@ package exact
 // roots) takes 3–6 ms, almost all of it in the factorization (Hensel
 // lifting and the modular factors; the resultants take a few per cent, the
 // choice of factor less: CPU profile of BenchmarkMinimalPolynomial);
-// degree 32 about 0.13 s; degree 64 (six square roots) stops at the
-// recombination cap (ErrFactorLimit) after about 3.5 s, while degree-64
+// degree 32 about 0.13 s; degree 64 (six square roots) about 0.5 s, by
+// the lattice recombination (factor_vanhoeij.go), while degree-64
 // numbers of other kinds take 30–650 ms (⁸√2 + ⁸√3, ∜2 + ∜3 + ∜5). So a
 // degree cap, checked before each resultant: a polynomial whose degree
 // would pass it stops with ErrDegreeCap, naming the flag --max-degree. Its

@@ -85,7 +85,6 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"poly-collect-two.md", 5, "collect() takes one variable, got 2 (a, b)", nil},
 		{"factor-term-cap.md", 13, "factor() stopped while moving the evaluation point to the origin: substitute: the result would have more than 200 terms", []string{"--max-terms", "200"}},
 		{"factor-time-limit.md", 15, "stopped after 1s, its time limit, while factoring: ", nil},
-		{"factor-recombination-cap.md", 13, "undecided (van Hoeij's lattice method, which avoids this, is not implemented)", nil},
 		{"factor-not-polynomial.md", 5, "factor() needs a polynomial or an exact number, got a float", nil},
 		{"simplex-point-lengths.md", 4, "point 1 has length 3", nil},
 		{"simplex-too-many-points.md", 4, "needs at least 3 coordinates", nil},

@@ -120,7 +120,7 @@ func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
 		c.Note = fmt.Sprintf("p = %s is a constant: a unit with no irreducible factors", exact.FormatRat(unit))
 		return nil
 	}
-	how := "factors modulo a prime, Hensel lifting, and an exhaustive search over products of the modular factors, Zassenhaus"
+	how := "factors modulo a prime, Hensel lifting, and an exhaustive search over products of the modular factors, Zassenhaus, or, for many modular factors, lattice reduction, van Hoeij"
 	if len(p.Vars()) > 1 {
 		how = "content in a main variable, then for the primitive part an evaluation point that keeps its degree and square-freeness, where an irreducible image proves a factor irreducible; the image's factors lifted by multivariate Hensel lifting, Wang, and subsets of them tried when a lift fails; univariate images by " + how
 	}
