@@ -62,17 +62,25 @@ func Run(p *kernel.Prompt, cfg Config) error {
 		in = plain{bufio.NewReader(cfg.In)}
 	}
 	defer in.close()
-	// A Ctrl-C while an input runs comes as a signal (the terminal is not
-	// in raw mode then); at the prompt readline reads it as a key.
+	// On a terminal, a Ctrl-C while an input runs comes as a signal (the
+	// terminal is not in raw mode then), and stops the input; at the
+	// prompt readline reads it as a key. From a pipe it ends the command
+	// as it ends assay run (the kernels die with it).
 	sig := make(chan os.Signal, 1)
-	signal.Notify(sig, os.Interrupt)
-	defer signal.Stop(sig)
+	if cfg.Terminal {
+		signal.Notify(sig, os.Interrupt)
+		defer signal.Stop(sig)
+	}
 	for n := 1; ; {
 		src, err := read(in)
 		if errors.Is(err, errCancel) {
 			continue
 		}
 		if strings.TrimSpace(src) != "" {
+			select {
+			case <-sig: // pressed between inputs: not for this one
+			default:
+			}
 			done := make(chan struct{})
 			go func() {
 				select {
