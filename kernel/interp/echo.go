@@ -16,8 +16,9 @@ const Echo = "__echo__"
 // it is an expression, becomes __echo__(expression): the value is shown
 // as show() shows it. Line numbers are kept (the call wraps the text where
 // it stands). Source that does not parse is returned as it is, for the
-// compile to report.
-func EchoLast(src string) string {
+// compile to report. A call of one of the claims named is left alone: its
+// verdict line is what it shows.
+func EchoLast(src string, claims map[string]bool) string {
 	tree, err := parser.Parse(strings.NewReader(src+"\n"), "<input>", py.ExecMode)
 	if err != nil {
 		return src
@@ -29,6 +30,11 @@ func EchoLast(src string) string {
 	last, ok := mod.Body[len(mod.Body)-1].(*ast.ExprStmt)
 	if !ok {
 		return src
+	}
+	if call, ok := last.Value.(*ast.Call); ok {
+		if name, ok := call.Func.(*ast.Name); ok && claims[string(name.Id)] {
+			return src
+		}
 	}
 	lines := strings.Split(src, "\n")
 	at, col := last.Lineno-1, last.ColOffset // col counts bytes

@@ -5,7 +5,7 @@ import "testing"
 // The rewrite keeps the text and its lines, and wraps only a last
 // statement that is an expression (Python's grammar: an expression
 // statement; an assignment, def or loop is not one — from memory of the
-// language reference).
+// language reference). A claim's call shows its verdict line instead.
 func TestEchoLast(t *testing.T) {
 	for _, c := range []struct{ src, want string }{
 		{"1 + 2", "__echo__(1 + 2\n)"},
@@ -17,8 +17,10 @@ func TestEchoLast(t *testing.T) {
 		{"def f():\n    return 1", "def f():\n    return 1"},
 		{"for i in range(3):\n    i", "for i in range(3):\n    i"},
 		{"1 +", "1 +"}, // does not parse: left for the compile to report
+		{"identity(\"a\", 1, 1)", "identity(\"a\", 1, 1)"},
+		{"other(1)", "__echo__(other(1)\n)"},
 	} {
-		if got := EchoLast(c.src); got != c.want {
+		if got := EchoLast(c.src, map[string]bool{"identity": true}); got != c.want {
 			t.Errorf("EchoLast(%q) = %q, want %q", c.src, got, c.want)
 		}
 	}

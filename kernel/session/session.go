@@ -153,7 +153,7 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 	}()
 	src := c.Source
 	if c.Echo {
-		src = interp.EchoLast(src)
+		src = interp.EchoLast(src, claimNames)
 	}
 	code, err := interp.Compile(c.Index, c.Line, src, claimNames)
 	if err == nil {
