@@ -5,6 +5,8 @@ import (
 	"encoding/json"
 	"fmt"
 	"io"
+	"strings"
+	"unicode/utf8"
 )
 
 // Counts returns the number of claims of each verdict in the report.
@@ -156,18 +158,11 @@ func RenderCheck(w io.Writer, r *Report) {
 		fmt.Fprintf(w, "%s:%d: %s\n", path, p.Line, visible(message(p)))
 	}
 	claims := allClaims(r)
-	name := func(c Claim) string { return truncate(shown(c.Name), 56) }
-	residual := func(c Claim) string { return truncate(visible(c.Residual), 40) }
-	var nameW, resW, verdictW int
-	for _, c := range claims {
-		nameW = max(nameW, len([]rune(name(c))))
-		resW = max(resW, len([]rune(residual(c))))
-		verdictW = max(verdictW, len([]rune(VerdictLabel(c))))
-	}
+	line := claimLine(claims)
 	notRun := 0
 	for _, o := range r.Outcomes {
 		for _, c := range o.Claims {
-			fmt.Fprintf(w, "%-*s  %-*s  %-*s  %s:%d\n", verdictW, VerdictLabel(c), nameW, name(c), resW, residual(c), path, c.Line)
+			fmt.Fprintln(w, line(c, path))
 		}
 		if e := o.Error; e != nil {
 			fmt.Fprintf(w, "%s:%d: %s\n", path, e.Line, truncate(visible(message(*e)), 200))
@@ -184,6 +179,48 @@ func RenderCheck(w io.Writer, r *Report) {
 		fmt.Fprintf(w, "; %s not run", plural(notRun, "cell"))
 	}
 	fmt.Fprintln(w)
+}
+
+// claimLine formats the verdict lines of RenderCheck, with columns as
+// wide as the widest of claims: verdict, name, residual, path:line.
+func claimLine(claims []Claim) func(c Claim, path string) string {
+	name := func(c Claim) string { return truncate(shown(c.Name), 56) }
+	residual := func(c Claim) string { return truncate(visible(c.Residual), 40) }
+	var nameW, resW, verdictW int
+	for _, c := range claims {
+		nameW = max(nameW, len([]rune(name(c))))
+		resW = max(resW, len([]rune(residual(c))))
+		verdictW = max(verdictW, len([]rune(VerdictLabel(c))))
+	}
+	return func(c Claim, path string) string {
+		return fmt.Sprintf("%-*s  %-*s  %-*s  %s:%d", verdictW, VerdictLabel(c), nameW, name(c), resW, residual(c), path, c.Line)
+	}
+}
+
+// RenderInput writes what an input typed at an interactive session gave,
+// for a terminal: its printed and shown text (control characters escaped,
+// each line that starts as a verdict line does quoted), one verdict line per
+// claim as RenderCheck writes them (place is what stands for the file
+// name), and its error as "place:line: message".
+func RenderInput(w io.Writer, o Outcome, place string) {
+	if o.Output != "" {
+		for _, l := range strings.Split(strings.TrimSuffix(o.Output, "\n"), "\n") {
+			l = visible(l)
+			// A verdict line starts with its mark; text that does so is
+			// quoted (a mark further on, as in "≈ 1.414", is left alone).
+			if first, _ := utf8.DecodeRuneInString(strings.TrimSpace(l)); strings.ContainsRune(verdictMarks+"~?", first) {
+				l = "“" + l + "”"
+			}
+			fmt.Fprintln(w, l)
+		}
+	}
+	line := claimLine(o.Claims)
+	for _, c := range o.Claims {
+		fmt.Fprintln(w, line(c, place))
+	}
+	if e := o.Error; e != nil {
+		fmt.Fprintf(w, "%s:%d: %s\n", place, e.Line, visible(message(*e)))
+	}
 }
 
 // RenderWarnings writes the report's warnings (the notebook's, then the

@@ -13,6 +13,7 @@ import (
 
 // rooms are the kernel's packages, each importing only rooms after it.
 var rooms = []string{
+	"assay/kernel/repl",
 	"assay/kernel/watch",
 	"assay/kernel",
 	"assay/kernel/proto",

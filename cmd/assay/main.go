@@ -34,6 +34,7 @@ Usage:
   assay merge [flags] PART...       join the parts of a sharded run into its report
   assay run --until ID NOTEBOOK     run the cells up to the one with id=ID
   assay watch [flags] NOTEBOOK      serve the live report on loopback, re-run on save
+  assay repl [flags] [NOTEBOOK]     type cells at a prompt, after NOTEBOOK's if given
   assay kernel                      serve the JSON-lines kernel protocol (fds 3/4, else stdin/stdout)
   assay version                     print the version
 
@@ -46,8 +47,8 @@ Examples:
 
 Exit status: 0 every claim holds; 1 a claim fails or is undecided;
 2 the notebook could not be run (parse error, cell error, limit crossed).
-Run 'assay run --help', 'assay check --help', 'assay merge --help' or
-'assay watch --help' for the flags.
+Run 'assay run --help', 'assay check --help', 'assay merge --help',
+'assay watch --help' or 'assay repl --help' for the flags.
 `
 
 func main() {
@@ -70,6 +71,8 @@ func mainCode(args []string, stdout, stderr io.Writer) int {
 		return kernelCommand(args[1:], stderr)
 	case "watch":
 		return watchCommand(args[1:], stdout, stderr)
+	case "repl":
+		return replCommand(args[1:], stdout, stderr)
 	case "version", "--version":
 		fmt.Fprintf(stdout, "assay %s\n", proto.Version)
 		return 0
@@ -728,6 +731,16 @@ func summarize(stdout, stderr io.Writer, rep *cells.Report) {
 	cells.RenderCheck(stdout, rep)
 }
 
+// parseProblem is a parse error as a problem with its line (0 when the
+// error has none).
+func parseProblem(err error) cells.Problem {
+	var ce *cells.Error
+	if errors.As(err, &ce) {
+		return cells.Problem{Line: ce.Line, Message: ce.Msg}
+	}
+	return cells.Problem{Message: err.Error()}
+}
+
 // load reads and parses a notebook and runs it. A parse error still gives
 // a report (with the problem and no cells run); only an unreadable file is
 // an error.
@@ -740,16 +753,7 @@ func load(path string, opt kernel.Options) (*cells.Report, error) {
 	if err != nil {
 		rep := kernel.Run(&cells.Notebook{Path: nb.Path, Source: nb.Source, Title: nb.Title}, opt)
 		rep.Notebook = nb
-		line := 0
-		var ce *cells.Error
-		if errors.As(err, &ce) {
-			line = ce.Line
-		}
-		msg := err.Error()
-		if ce != nil {
-			msg = ce.Msg
-		}
-		rep.Problems = append(rep.Problems, cells.Problem{Line: line, Message: msg})
+		rep.Problems = append(rep.Problems, parseProblem(err))
 		for i := range rep.Outcomes {
 			rep.Outcomes[i].Status = cells.NotRun
 		}

@@ -3,6 +3,7 @@ package proto
 import (
 	"io"
 	"os"
+	"os/signal"
 	"runtime/debug"
 	"strconv"
 )
@@ -73,6 +74,11 @@ func ServeChild(in io.Reader, out io.Writer) error {
 	}
 	if ok {
 		in = readAhead(in, func() { os.Exit(0) })
+		// A terminal's Ctrl-C reaches the whole process group, this child
+		// too; its driver decides what it means (assay repl stops the
+		// input and goes on), and a driver that dies of it takes this
+		// process with it through the parent-death signal.
+		signal.Ignore(os.Interrupt)
 	}
 	return serve(in, out, maxOutput)
 }

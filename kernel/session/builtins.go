@@ -34,6 +34,7 @@ func (s *Session) install(b py.StringDict) {
 		{"setup", []string{"precision=", "seed="}, "setup(precision=256, seed=1) sets notebook defaults; command-line flags win", s.setup},
 		{"plot", plotParams, plotDoc, s.plot},
 		{"sequence", []string{"f", "toward=", "steps=", "ratio="}, "sequence(f, toward=0, steps=30, ratio=1/2) -> [(t, f(t)), ...] along the same walk limit() takes", s.sequence},
+		{interp.Echo, []string{"value", "label="}, "internal: shows an interactive input's value as show() does, None excepted", s.echo},
 	} {
 		b[f.name] = bound(f.name, f.doc, f.params, f.fn)
 	}

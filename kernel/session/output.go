@@ -110,6 +110,14 @@ func (s *Session) show(a interp.Args) (py.Object, error) {
 	return py.None, nil
 }
 
+// echo shows an interactive input's value; None is not shown.
+func (s *Session) echo(a interp.Args) (py.Object, error) {
+	if a.Get("value") == py.None {
+		return py.None, nil
+	}
+	return s.show(a)
+}
+
 func (s *Session) table(a interp.Args) (py.Object, error) {
 	rows, err := values.Sequence(a.Get("rows"), "table rows")
 	if err != nil {

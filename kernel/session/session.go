@@ -113,6 +113,9 @@ type Cell struct {
 	Line    int               `json:"line"` // notebook line of the first source line
 	Source  string            `json:"source"`
 	Options cells.CellOptions `json:"options"`
+	// Echo shows the value of the last statement when it is an expression
+	// (an input typed at assay repl), as show() shows it; None is not shown.
+	Echo bool `json:"echo,omitempty"`
 }
 
 // Run executes one cell in the session's namespace and returns its outcome.
@@ -159,7 +162,11 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 		out.Seconds = time.Since(start).Seconds()
 		s.outcome = nil
 	}()
-	code, err := interp.Compile(c.Index, c.Line, c.Source, claimNames)
+	src := c.Source
+	if c.Echo {
+		src = interp.EchoLast(src, claimNames)
+	}
+	code, err := interp.Compile(c.Index, c.Line, src, claimNames)
 	if err == nil {
 		_, err = s.sandbox.RunCode(code, s.globals, s.globals, nil)
 	}
