@@ -74,7 +74,7 @@ func RenderHTML(r *Report) []byte {
 		var part string
 		switch c.kind {
 		case segProse:
-			part = notebookCode.ReplaceAllString(toHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
+			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
 			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
 			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
@@ -118,9 +118,17 @@ func RenderHTML(r *Report) []byte {
 const ContentSecurityPolicy = "default-src 'none'; style-src 'unsafe-inline'; img-src data:"
 
 // toHTML converts one stretch of the Markdown report.
-func toHTML(md string) string {
+func toHTML(md string) string { return convert(md, false) }
+
+// proseHTML converts a stretch of the notebook's text, its maths typeset.
+func proseHTML(md string) string { return convert(md, true) }
+
+func convert(md string, maths bool) string {
 	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
 		mdparser.Autolink | mdparser.Strikethrough)
+	if maths {
+		p.RegisterInline('$', proseMath)
+	}
 	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
 		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,
 		RenderNodeHook: lineBreakHook,
@@ -153,8 +161,19 @@ func withoutHTMLBlocks(text string) string {
 }
 
 // lineBreakHook lets through the one raw HTML tag our Markdown writes, the
-// <br> that stands for a line break inside a table cell.
+// <br> that stands for a line break inside a table cell, and writes the
+// prose's maths (mathHTML).
 func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, bool) {
+	switch m := node.(type) {
+	case *ast.Math:
+		io.WriteString(w, mathHTML(string(m.Literal), false))
+		return ast.GoToNext, true
+	case *ast.MathBlock:
+		if entering {
+			io.WriteString(w, mathHTML(string(m.Literal), true))
+		}
+		return ast.SkipChildren, true
+	}
 	if s, ok := node.(*ast.HTMLSpan); ok && string(s.Literal) == "<br>" {
 		io.WriteString(w, "<br>")
 		return ast.GoToNext, true

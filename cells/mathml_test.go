@@ -1,0 +1,125 @@
+package cells
+
+import (
+	"regexp"
+	"strings"
+	"testing"
+)
+
+// The expected markup is written by hand from the W3C's MathML Core
+// (Recommendation candidate, 2023): §3.1 token elements (mi, mn, mo, mtext;
+// a letter is an <mi>, a number an <mn>, an operator an <mo>), §3.3 mfrac,
+// msqrt and mroot (radicand first, index second), §3.4 msub, msup,
+// msubsup, munder, mover, munderover (base, then script(s), sub before
+// sup), §3.5 mtable/mtr/mtd, and §3.2.3 <math display="block">.
+func TestMathMLFormulas(t *testing.T) {
+	cases := []struct {
+		tex     string
+		display bool
+		want    string
+	}{
+		{`\frac{a}{b}`, false, `<math><mfrac><mi>a</mi><mi>b</mi></mfrac></math>`},
+		{`x^{2}`, false, `<math><msup><mi>x</mi><mn>2</mn></msup></math>`},
+		{`x^23`, false, `<math><mrow><msup><mi>x</mi><mn>2</mn></msup><mn>3</mn></mrow></math>`}, // TeXbook ch. 16: one token
+		{`a_{i}^{2}`, false, `<math><msubsup><mi>a</mi><mi>i</mi><mn>2</mn></msubsup></math>`},
+		{`x_{i+1}`, false, `<math><msub><mi>x</mi><mrow><mi>i</mi><mo>+</mo><mn>1</mn></mrow></msub></math>`},
+		{`\sqrt{2}`, false, `<math><msqrt><mn>2</mn></msqrt></math>`},
+		{`\sqrt[3]{x}`, false, `<math><mroot><mi>x</mi><mn>3</mn></mroot></math>`},
+		{`\alpha + \Gamma`, false, `<math><mrow><mi>α</mi><mo>+</mo><mi mathvariant="normal">Γ</mi></mrow></math>`},
+		{`a \cdot b \times c \le d \ge e \ne f \pm g`, false,
+			`<math><mrow><mi>a</mi><mo>⋅</mo><mi>b</mi><mo>×</mo><mi>c</mi><mo>≤</mo><mi>d</mi><mo>≥</mo><mi>e</mi><mo>≠</mo><mi>f</mi><mo>±</mo><mi>g</mi></mrow></math>`},
+		{`\sum_{i=1}^{n} i`, true,
+			`<math display="block"><mrow><munderover><mo>∑</mo><mrow><mi>i</mi><mo>=</mo><mn>1</mn></mrow><mi>n</mi></munderover><mi>i</mi></mrow></math>`},
+		{`\prod_{k} a_k`, false, `<math><mrow><munder><mo>∏</mo><mi>k</mi></munder><msub><mi>a</mi><mi>k</mi></msub></mrow></math>`},
+		{`\begin{pmatrix} 1 & 2 \\ 3 & 4 \end{pmatrix}`, false,
+			`<math><mrow><mo fence="true" stretchy="true">(</mo><mtable><mtr><mtd><mn>1</mn></mtd><mtd><mn>2</mn></mtd></mtr><mtr><mtd><mn>3</mn></mtd><mtd><mn>4</mn></mtd></mtr></mtable><mo fence="true" stretchy="true">)</mo></mrow></math>`},
+		{`\begin{bmatrix} a \\ b \\ \end{bmatrix}`, false,
+			`<math><mrow><mo fence="true" stretchy="true">[</mo><mtable><mtr><mtd><mi>a</mi></mtd></mtr><mtr><mtd><mi>b</mi></mtd></mtr></mtable><mo fence="true" stretchy="true">]</mo></mrow></math>`},
+		{`\left( \frac{1}{2} \right)`, false,
+			`<math><mrow><mo fence="true" stretchy="true">(</mo><mfrac><mn>1</mn><mn>2</mn></mfrac><mo fence="true" stretchy="true">)</mo></mrow></math>`},
+		{`\text{if } x-1`, false, `<math><mrow><mtext>if </mtext><mi>x</mi><mo>−</mo><mn>1</mn></mrow></math>`},
+		{`\mathrm{vol}(S)`, false, `<math><mrow><mi mathvariant="normal">vol</mi><mo>(</mo><mi>S</mi><mo>)</mo></mrow></math>`},
+		{`3.25`, false, `<math><mn>3.25</mn></math>`},
+	}
+	for _, c := range cases {
+		got, err := MathML(c.tex, c.display)
+		if err != nil || got != c.want {
+			t.Errorf("MathML(%q) =\n%s, %v\nwant\n%s", c.tex, got, err, c.want)
+		}
+	}
+}
+
+// Formulas outside the subset are errors that name what is wrong.
+func TestMathMLRefuses(t *testing.T) {
+	for tex, want := range map[string]string{
+		`\foo`:                          `unknown command \foo`,
+		`{x`:                            "missing closing }",
+		`x}`:                            "unmatched }",
+		`x^2^3`:                         "double superscript",
+		`\frac{1}`:                      "missing argument",
+		`\left( x`:                      `missing closing \right`,
+		`\begin{cases}x\end{cases}`:     `unknown environment "cases"`,
+		`\begin{pmatrix}x\end{bmatrix}`: `ended by \end{bmatrix}`,
+		strings.Repeat("{", 100) + strings.Repeat("}", 100): "nested deeper",
+		strings.Repeat("x", 5000):                           "longer than",
+	} {
+		if got, err := MathML(tex, false); err == nil || !strings.Contains(err.Error(), want) {
+			t.Errorf("MathML(%.40q) = %q, %v; want an error with %q", tex, got, err, want)
+		}
+	}
+}
+
+// The rule for "$" in prose (the one pandoc's tex_math_dollars documents,
+// from memory): a price stays prose, code spans and "\$" are untouched.
+func TestProseMathDelimiters(t *testing.T) {
+	for md, want := range map[string]string{
+		"It costs $5 and $6.":             "<p>It costs $5 and $6.</p>\n",
+		"From $a$ to $b$.":                "<p>From <math><mi>a</mi></math> to <math><mi>b</mi></math>.</p>\n",
+		"Code `$x$` stays.":               "<p>Code <code>$x$</code> stays.</p>\n",
+		"An escaped \\$x$ stays.":         "<p>An escaped $x$ stays.</p>\n",
+		"Spaced $ x$ and $x $ stay.":      "<p>Spaced $ x$ and $x $ stay.</p>\n",
+		"Then $x$5 stays.":                "<p>Then $x$5 stays.</p>\n",
+		"Display $$x$$ here.":             "<p>Display <math display=\"block\"><mi>x</mi></math> here.</p>\n",
+		"$$\n\\frac{1}{2}\n$$":            "<p><math display=\"block\"><mfrac><mn>1</mn><mn>2</mn></mfrac></math></p>\n",
+		"```\n$x$\n```":                   "<pre><code>$x$\n</code></pre>\n",
+		"Open $x\n\ny$ no.":               "<p>Open $x</p>\n\n<p>y$ no.</p>\n",
+		"Unknown $\\foo$.":                "<p>Unknown <code class=\"tex\" title=\"not typeset: unknown command \\foo\">$\\foo$</code>.</p>\n",
+		"Escaped \\\\$x$ is maths again.": "<p>Escaped \\<math><mi>x</mi></math> is maths again.</p>\n",
+	} {
+		if got := proseHTML(md); got != want {
+			t.Errorf("proseHTML(%q) =\n%q\nwant\n%q", md, got, want)
+		}
+	}
+}
+
+// A notebook is hostile: nothing in its maths may become markup of its own.
+func TestProseMathInjection(t *testing.T) {
+	for _, md := range []string{
+		"$<script>alert(1)</script>$",
+		`$\text{</math><script>alert(1)</script>}$`,
+		`$\mathrm{"><img src=x onerror=alert(1)>}$`,
+		`$\foo{"><img src=x onerror=alert(1)>}$`,
+		`$$\begin{pmatrix}<b>&"'\end{pmatrix}$$`,
+		`$\left< x \right>$`,
+		"$a\x00b$",
+	} {
+		got := proseHTML(md)
+		for _, tag := range anyTag.FindAllStringSubmatch(got, -1) {
+			if !mathTags[tag[1]] || !safeAttrs.MatchString(tag[2]) {
+				t.Errorf("proseHTML(%q) = %q: has the tag %s", md, got, tag[0])
+			}
+		}
+	}
+}
+
+var (
+	anyTag    = regexp.MustCompile(`</?([a-zA-Z]+)([^>]*)>`)
+	safeAttrs = regexp.MustCompile(`^( (display|mathvariant|fence|stretchy|width|class|title)="[^"<>]*")*$`)
+	mathTags  = map[string]bool{}
+)
+
+func init() {
+	for _, n := range strings.Fields("p code math mi mn mo mtext mrow mfrac msqrt mroot msub msup msubsup munder mover munderover mtable mtr mtd mspace") {
+		mathTags[n] = true
+	}
+}
