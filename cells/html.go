@@ -77,7 +77,7 @@ func RenderHTML(r *Report) []byte {
 			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
 			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
+			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -186,9 +186,20 @@ var (
 	power     = regexp.MustCompile(`\^([0-9]+)`)
 )
 
-// typeset sets a formula in a table cell (a residual, say) as mathematics
-// is printed: exponents raised, products as a centred dot. Only digits are
-// moved into markup, so the escaping of the text is kept.
+// typesetMath sets a formula in a table cell of a generated region (a
+// residual, say): a polynomial as MathML (polyMathML), other text as
+// typeset does.
+func typesetMath(cell string) string {
+	code := strings.TrimSuffix(strings.TrimPrefix(cell, "<td><code>"), "</code></td>")
+	if m, ok := polyMathML(html.UnescapeString(code)); ok {
+		return `<td class="math">` + m + "</td>"
+	}
+	return typeset(cell)
+}
+
+// typeset sets a formula in a table cell as mathematics is printed:
+// exponents raised, products as a centred dot. Only digits are moved into
+// markup, so the escaping of the text is kept.
 func typeset(cell string) string {
 	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
 	return strings.ReplaceAll(cell, "*", "·")
@@ -234,6 +245,7 @@ table { border-collapse: collapse; margin: 0.75rem 0; display: block; overflow-x
 th, td { border: 1px solid #d3d3da; padding: 0.3rem 0.6rem; text-align: left; vertical-align: top; }
 th { background: #f0f0f3; }
 td code { overflow-wrap: anywhere; }
+code.tex { border-bottom: 1px dashed #b3261e; }
 td.verdict { font-weight: 600; white-space: nowrap; }
 td.v-holds { background: #e6f4e8; color: #145a20; }
 td.v-digits { background: #eaf1fb; color: #1d4e89; }
