@@ -120,14 +120,16 @@ const ContentSecurityPolicy = "default-src 'none'; style-src 'unsafe-inline'; im
 // toHTML converts one stretch of the Markdown report.
 func toHTML(md string) string { return convert(md, false) }
 
+// mdExtensions are the Markdown extensions of the HTML report.
+const mdExtensions = mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis | mdparser.Autolink | mdparser.Strikethrough
+
 // proseHTML converts a stretch of the notebook's text, its maths typeset.
 func proseHTML(md string) string { return convert(md, true) }
 
 func convert(md string, maths bool) string {
-	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
-		mdparser.Autolink | mdparser.Strikethrough)
+	p := mdparser.NewWithExtensions(mdExtensions)
 	if maths {
-		p.RegisterInline('$', proseMath)
+		p = mathParser()
 	}
 	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
 		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,

@@ -10,6 +10,7 @@ import (
 	"unicode"
 	"unicode/utf8"
 
+	"github.com/gomarkdown/markdown"
 	"github.com/gomarkdown/markdown/ast"
 	mdparser "github.com/gomarkdown/markdown/parser"
 )
@@ -642,4 +643,48 @@ func polyMathML(text string) (string, bool) {
 	}
 	m, err := MathML(tex.String(), false)
 	return m, err == nil
+}
+
+// mathWarnings names, by notebook line, each formula of a prose block that
+// the HTML report cannot typeset and shows as source. The block is read as
+// RenderHTML reads it, so the two agree on what is maths.
+func mathWarnings(b Block) []Problem {
+	doc := markdown.Parse([]byte(withoutHTMLBlocks(b.Text)), mathParser())
+	var out []Problem
+	from := 0
+	ast.WalkFunc(doc, func(n ast.Node, entering bool) ast.WalkStatus {
+		var tex string
+		display := false
+		switch m := n.(type) {
+		case *ast.Math:
+			tex = string(m.Literal)
+		case *ast.MathBlock:
+			tex, display = string(m.Literal), true
+		default:
+			return ast.GoToNext
+		}
+		if !entering {
+			return ast.GoToNext
+		}
+		// The node keeps no position: find its text after the last one.
+		at := strings.Index(b.Text[from:], tex)
+		if at >= 0 {
+			from += at
+		}
+		if _, err := MathML(tex, display); err != nil {
+			out = append(out, Problem{Line: b.Line + strings.Count(b.Text[:from], "\n"),
+				Message: "maths not typeset, shown as its source in the HTML report: " + err.Error()})
+		}
+		from += len(tex)
+		return ast.SkipChildren
+	})
+	return out
+}
+
+// mathParser is the Markdown parser of the notebook's text, with prose
+// maths.
+func mathParser() *mdparser.Parser {
+	p := mdparser.NewWithExtensions(mdExtensions)
+	p.RegisterInline('$', proseMath)
+	return p
 }

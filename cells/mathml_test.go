@@ -123,3 +123,19 @@ func init() {
 		mathTags[n] = true
 	}
 }
+
+// A formula outside the subset is a warning naming its notebook line.
+func TestProseMathWarnings(t *testing.T) {
+	src := "# m\n\nFine $x^2$.\n\nThe `$\\bad$` code is not maths,\nbut $\\frac{1}{2}$ and\n$\\foo{x}$ is.\n\n```cell\nx = 1\n```\n\n$$\n\\begin{cases}x\\end{cases}\n$$\n"
+	nb, err := Parse("m.md", []byte(src))
+	if err != nil {
+		t.Fatal(err)
+	}
+	want := []Problem{
+		{Line: 7, Message: `maths not typeset, shown as its source in the HTML report: unknown command \foo`},
+		{Line: 13, Message: `maths not typeset, shown as its source in the HTML report: unknown environment "cases"`},
+	}
+	if len(nb.Warnings) != len(want) || nb.Warnings[0] != want[0] || nb.Warnings[1] != want[1] {
+		t.Errorf("warnings %+v, want %+v", nb.Warnings, want)
+	}
+}
