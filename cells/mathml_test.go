@@ -113,7 +113,7 @@ func TestProseMathInjection(t *testing.T) {
 }
 
 var (
-	anyTag    = regexp.MustCompile(`</?([a-zA-Z]+)([^>]*)>`)
+	anyTag    = regexp.MustCompile(`</?([a-zA-Z][a-zA-Z0-9]*)([^>]*)>`)
 	safeAttrs = regexp.MustCompile(`^( (display|mathvariant|fence|stretchy|width|class|title)="[^"<>]*")*$`)
 	mathTags  = map[string]bool{}
 )
@@ -137,5 +137,40 @@ func TestProseMathWarnings(t *testing.T) {
 	}
 	if len(nb.Warnings) != len(want) || nb.Warnings[0] != want[0] || nb.Warnings[1] != want[1] {
 		t.Errorf("warnings %+v, want %+v", nb.Warnings, want)
+	}
+}
+
+// No formula makes the converter panic or write a tag or attribute outside
+// the MathML it knows.
+func FuzzProseMath(f *testing.F) {
+	for _, s := range []string{`$\frac{1}{2}$`, `$$\begin{pmatrix}1&2\\3&4\end{pmatrix}$$`, `$\sqrt[3]{x}$`,
+		`$\left( x \right)$`, `$\text{</math>}$`, `$x^{2}_{i}$`, `$\sum_{i=1}^{n}$`, "$a\\$b$"} {
+		f.Add(s)
+	}
+	f.Fuzz(func(t *testing.T, md string) {
+		got := proseHTML(md)
+		for _, tag := range anyTag.FindAllStringSubmatch(got, -1) {
+			if mathTags[tag[1]] && !safeAttrs.MatchString(tag[2]) || !mathTags[tag[1]] && !markdownTags[tag[1]] {
+				t.Errorf("proseHTML(%q) = %q: has the tag %s", md, got, tag[0])
+			}
+		}
+	})
+}
+
+// markdownTags are the tags Markdown itself writes for the fuzzer's text.
+var markdownTags = map[string]bool{}
+
+func init() {
+	for _, n := range strings.Fields("p em strong del h1 h2 h3 h4 h5 h6 ul ol li blockquote pre hr br table thead tbody tfoot tr th td a img tt sup sub dl dt dd div span input") {
+		markdownTags[n] = true
+	}
+}
+
+// BenchmarkProseMath converts a paragraph with ten formulas, as RenderHTML
+// does for the notebook's text.
+func BenchmarkProseMath(b *testing.B) {
+	md := strings.Repeat(`The sum $\sum_{i=1}^{n} i^{2} = \frac{n(n+1)(2n+1)}{6}$ and $\begin{pmatrix} a & b \\ c & d \end{pmatrix}$. `, 5)
+	for b.Loop() {
+		proseHTML(md)
 	}
 }
