@@ -201,7 +201,7 @@ func Parse(path string, src []byte) (*Notebook, error) {
 		p.flush()
 	}
 	for _, b := range nb.Blocks {
-		if b.Kind == Prose {
+		if b.Kind == Prose && strings.Contains(b.Text, "$") {
 			nb.Warnings = append(nb.Warnings, mathWarnings(b)...)
 		}
 	}
