@@ -629,7 +629,7 @@ func polyMathML(text string) (string, bool) {
 					base = m[1]
 				}
 				if m != nil && m[2] != "" {
-					base = "{" + base + "_{" + m[2] + "}}"
+					base += "_{" + m[2] + "}"
 				}
 			}
 			tex.WriteString(base)

@@ -174,3 +174,22 @@ func BenchmarkProseMath(b *testing.B) {
 		proseHTML(md)
 	}
 }
+
+// Residuals as assay prints polynomials (exact.Poly.String), typeset; the
+// markup written by hand from MathML Core §3.4 (msubsup: base, sub, sup).
+func TestPolyMathML(t *testing.T) {
+	for text, want := range map[string]string{
+		"x1^2*y - 3/4": `<math><mrow><msubsup><mi>x</mi><mn>1</mn><mn>2</mn></msubsup><mi>y</mi><mo>−</mo><mfrac><mn>3</mn><mn>4</mn></mfrac></mrow></math>`,
+		"-area + 1":    `<math><mrow><mo>−</mo><mi mathvariant="normal">area</mi><mo>+</mo><mn>1</mn></mrow></math>`,
+		"0":            `<math><mn>0</mn></math>`,
+	} {
+		if got, ok := polyMathML(text); !ok || got != want {
+			t.Errorf("polyMathML(%q) = %q, %v; want %q", text, got, ok, want)
+		}
+	}
+	for _, text := range []string{"1.5e-30", "gap 1e-3", "x^2 + …", "x +", "none: no sample met the hypothesis", "x*2", "|r| < 1e-40 relative"} {
+		if got, ok := polyMathML(text); ok {
+			t.Errorf("polyMathML(%q) = %q, want the text left alone", text, got)
+		}
+	}
+}

@@ -47,7 +47,7 @@ func (p *Poly) LaTeX() string {
 				name = LaTeXName(names[v])
 			}
 			if e > 1 {
-				name = braceBase(name) + "^{" + strconv.Itoa(e) + "}"
+				name += "^{" + strconv.Itoa(e) + "}" // x_{1}^{2}: both scripts on x
 			}
 			mono = append(mono, name)
 		}
@@ -57,15 +57,6 @@ func (p *Poly) LaTeX() string {
 		sb.WriteString(strings.Join(mono, " "))
 	}
 	return sb.String()
-}
-
-// braceBase braces a name that carries a subscript, so a power reads
-// {x_{1}}^{2} and not as a double script.
-func braceBase(name string) string {
-	if strings.Contains(name, "_") {
-		return "{" + name + "}"
-	}
-	return name
 }
 
 var (
@@ -127,7 +118,7 @@ func (f *Factorization) LaTeX() string {
 			s = `\left(` + s + `\right)` // 2 x squared is (2 x)^{2}
 		}
 		if fp.Mult > 1 {
-			s = braceBase(s) + "^{" + strconv.Itoa(fp.Mult) + "}"
+			s += "^{" + strconv.Itoa(fp.Mult) + "}"
 		}
 		parts = append(parts, s)
 	}

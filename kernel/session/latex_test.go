@@ -20,7 +20,7 @@ func TestLaTeXFromNotebook(t *testing.T) {
 		{"print(latex(sqrt(2)/2), latex(root(2, 3)), latex(-2*root(3, 3)))", `\frac{\sqrt{2}}{2} \sqrt[3]{2} -2 \sqrt[3]{3}`},
 		{"print(latex(sqrt(frac(1, 3))))", `\frac{\sqrt{3}}{3}`},
 		{"x, y = variables(\"x y\")\nprint(latex(x**2 - 2*x*y + frac(3, 4)*y - 1))", `x^{2} - 2 x y + \frac{3}{4} y - 1`},
-		{"x1, x2, alpha, area = variables(\"x1 x2 alpha area\")\nprint(latex(x1**2*x2 - alpha*area))", `{x_{1}}^{2} x_{2} - \alpha \mathrm{area}`},
+		{"x1, x2, alpha, area = variables(\"x1 x2 alpha area\")\nprint(latex(x1**2*x2 - alpha*area))", `x_{1}^{2} x_{2} - \alpha \mathrm{area}`},
 		{"x, y = variables(\"x y\")\nprint(latex((x + 1)/(x - y)))", `\frac{x + 1}{x - y}`},
 		{"x = variables(\"x\")\nprint(latex(factor(x**4 + 4)))", `\left(x^{2} - 2 x + 2\right) \left(x^{2} + 2 x + 2\right)`},
 		{"x = variables(\"x\")\nprint(latex(factor(-2*(x - 1)**2*(x + 1)*x**3)))", `-2 \left(x - 1\right)^{2} x^{3} \left(x + 1\right)`},
