@@ -228,6 +228,8 @@ func figureHTML(f Figure) string {
 	return "<figure>\n" + img + "\n<figcaption>Figure: " + html.EscapeString(f.Name) + "</figcaption>\n</figure>"
 }
 
+// pageCSS is the report's style. Maths asks for a font with an OpenType
+// MATH table by name first: without one, Chromium does not stretch fences.
 const pageCSS = `body { margin: 0; background: #fff; color: #1d1d1f; font: 16px/1.55 system-ui, -apple-system, "Segoe UI", sans-serif; }
 main { max-width: 64rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
 h1, h2, h3 { line-height: 1.25; }
@@ -248,6 +250,7 @@ th, td { border: 1px solid #d3d3da; padding: 0.3rem 0.6rem; text-align: left; ve
 th { background: #f0f0f3; }
 td code { overflow-wrap: anywhere; }
 code.tex { border-bottom: 1px dashed #b3261e; }
+math { font-family: "STIX Two Math", "Latin Modern Math", "DejaVu Math TeX Gyre", "Cambria Math", math; }
 td.verdict { font-weight: 600; white-space: nowrap; }
 td.v-holds { background: #e6f4e8; color: #145a20; }
 td.v-digits { background: #eaf1fb; color: #1d4e89; }
