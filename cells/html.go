@@ -74,10 +74,10 @@ func RenderHTML(r *Report) []byte {
 		var part string
 		switch c.kind {
 		case segProse:
-			part = notebookCode.ReplaceAllString(toHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
+			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
 			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
+			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -118,9 +118,19 @@ func RenderHTML(r *Report) []byte {
 const ContentSecurityPolicy = "default-src 'none'; style-src 'unsafe-inline'; img-src data:"
 
 // toHTML converts one stretch of the Markdown report.
-func toHTML(md string) string {
-	p := mdparser.NewWithExtensions(mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis |
-		mdparser.Autolink | mdparser.Strikethrough)
+func toHTML(md string) string { return convert(md, false) }
+
+// mdExtensions are the Markdown extensions of the HTML report.
+const mdExtensions = mdparser.Tables | mdparser.FencedCode | mdparser.NoIntraEmphasis | mdparser.Autolink | mdparser.Strikethrough
+
+// proseHTML converts a stretch of the notebook's text, its maths typeset.
+func proseHTML(md string) string { return convert(md, true) }
+
+func convert(md string, maths bool) string {
+	p := mdparser.NewWithExtensions(mdExtensions)
+	if maths {
+		p = mathParser()
+	}
 	rd := mdhtml.NewRenderer(mdhtml.RendererOptions{
 		Flags:          mdhtml.SkipHTML | mdhtml.Safelink | mdhtml.NofollowLinks | mdhtml.NoreferrerLinks,
 		RenderNodeHook: lineBreakHook,
@@ -153,8 +163,19 @@ func withoutHTMLBlocks(text string) string {
 }
 
 // lineBreakHook lets through the one raw HTML tag our Markdown writes, the
-// <br> that stands for a line break inside a table cell.
+// <br> that stands for a line break inside a table cell, and writes the
+// prose's maths (mathHTML).
 func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, bool) {
+	switch m := node.(type) {
+	case *ast.Math:
+		io.WriteString(w, mathHTML(string(m.Literal), false))
+		return ast.GoToNext, true
+	case *ast.MathBlock:
+		if entering {
+			io.WriteString(w, mathHTML(string(m.Literal), true))
+		}
+		return ast.SkipChildren, true
+	}
 	if s, ok := node.(*ast.HTMLSpan); ok && string(s.Literal) == "<br>" {
 		io.WriteString(w, "<br>")
 		return ast.GoToNext, true
@@ -167,9 +188,20 @@ var (
 	power     = regexp.MustCompile(`\^([0-9]+)`)
 )
 
-// typeset sets a formula in a table cell (a residual, say) as mathematics
-// is printed: exponents raised, products as a centred dot. Only digits are
-// moved into markup, so the escaping of the text is kept.
+// typesetMath sets a formula in a table cell of a generated region (a
+// residual, say): a polynomial as MathML (polyMathML), other text as
+// typeset does.
+func typesetMath(cell string) string {
+	code := strings.TrimSuffix(strings.TrimPrefix(cell, "<td><code>"), "</code></td>")
+	if m, ok := polyMathML(html.UnescapeString(code)); ok {
+		return `<td class="math">` + m + "</td>"
+	}
+	return typeset(cell)
+}
+
+// typeset sets a formula in a table cell as mathematics is printed:
+// exponents raised, products as a centred dot. Only digits are moved into
+// markup, so the escaping of the text is kept.
 func typeset(cell string) string {
 	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
 	return strings.ReplaceAll(cell, "*", "·")
@@ -196,6 +228,8 @@ func figureHTML(f Figure) string {
 	return "<figure>\n" + img + "\n<figcaption>Figure: " + html.EscapeString(f.Name) + "</figcaption>\n</figure>"
 }
 
+// pageCSS is the report's style. Maths asks for a font with an OpenType
+// MATH table by name first: without one, Chromium does not stretch fences.
 const pageCSS = `body { margin: 0; background: #fff; color: #1d1d1f; font: 16px/1.55 system-ui, -apple-system, "Segoe UI", sans-serif; }
 main { max-width: 64rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
 h1, h2, h3 { line-height: 1.25; }
@@ -215,6 +249,8 @@ table { border-collapse: collapse; margin: 0.75rem 0; display: block; overflow-x
 th, td { border: 1px solid #d3d3da; padding: 0.3rem 0.6rem; text-align: left; vertical-align: top; }
 th { background: #f0f0f3; }
 td code { overflow-wrap: anywhere; }
+code.tex { border-bottom: 1px dashed #b3261e; }
+math { font-family: "STIX Two Math", "Latin Modern Math", "DejaVu Math TeX Gyre", "Cambria Math", math; }
 td.verdict { font-weight: 600; white-space: nowrap; }
 td.v-holds { background: #e6f4e8; color: #145a20; }
 td.v-digits { background: #eaf1fb; color: #1d4e89; }

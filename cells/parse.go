@@ -200,6 +200,11 @@ func Parse(path string, src []byte) (*Notebook, error) {
 	if err == nil {
 		p.flush()
 	}
+	for _, b := range nb.Blocks {
+		if b.Kind == Prose && strings.Contains(b.Text, "$") {
+			nb.Warnings = append(nb.Warnings, mathWarnings(b)...)
+		}
+	}
 	return nb, err
 }
 

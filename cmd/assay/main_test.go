@@ -86,6 +86,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"factor-term-cap.md", 13, "factor() stopped while moving the evaluation point to the origin: substitute: the result would have more than 200 terms", []string{"--max-terms", "200"}},
 		{"factor-time-limit.md", 15, "stopped after 1s, its time limit, while factoring: ", nil},
 		{"factor-not-polynomial.md", 5, "factor() needs a polynomial or an exact number, got a float", nil},
+		{"latex-float.md", 5, "latex() takes an exact value (integer, rational, real, polynomial, rational function, matrix, factorization), not float", nil},
 		{"simplex-point-lengths.md", 4, "point 1 has length 3", nil},
 		{"simplex-too-many-points.md", 4, "needs at least 3 coordinates", nil},
 		{"distance-not-symmetric.md", 5, "symmetric", nil},

@@ -192,3 +192,17 @@ func TestNoteInARegionIsKept(t *testing.T) {
 	wants(t, "the Markdown report", md, "My derivation: 1/3 + 1/6 = 2/6 + 1/6 = 3/6 = 1/2.", "- line 8: "+warning)
 	wants(t, "the HTML report", html, "My derivation: 1/3 + 1/6 = 2/6 + 1/6 = 3/6 = 1/2.")
 }
+
+// Prose maths outside the typeset subset is shown as its source in the
+// HTML report, with a warning naming its line; the run's status is the
+// claims'.
+func TestMathsNotTypesetIsNamed(t *testing.T) {
+	code, term, md, html := badRun(t, "maths-not-typeset.md")
+	if code != 0 {
+		t.Errorf("exit %d, want 0: warnings do not fail a run\n%s", code, term)
+	}
+	wants(t, "the terminal output", term, `:5: warning: maths not typeset, shown as its source in the HTML report: unknown environment "cases"`)
+	wants(t, "the Markdown report", md, "- line 5: ", `The cases $\begin{cases}`)
+	wants(t, "the HTML report", html, "<math><mfrac><mn>1</mn><mn>2</mn></mfrac></math>", "a price of $5 is prose",
+		`<code class="tex" title="not typeset: unknown environment &#34;cases&#34;">$\begin{cases} 1 &amp; x &gt; 0 \end{cases}$</code>`)
+}

@@ -29,12 +29,13 @@ func (s *Session) install(b py.StringDict) {
 		doc    string
 		fn     func(interp.Args) (py.Object, error)
 	}{
-		{"show", []string{"value", "label="}, "show(value, label=None) puts a value in the report", s.show},
+		{"show", []string{"value", "label=", "latex="}, "show(value, label=None, latex=False) puts a value in the report, as LaTeX with latex=True", s.show},
+		{"latex", []string{"value"}, "latex(value) -> the LaTeX of an exact value, as a string", latex},
 		{"table", []string{"rows", "header="}, "table(rows, header=None) puts a table in the report", s.table},
 		{"setup", []string{"precision=", "seed="}, "setup(precision=256, seed=1) sets notebook defaults; command-line flags win", s.setup},
 		{"plot", plotParams, plotDoc, s.plot},
 		{"sequence", []string{"f", "toward=", "steps=", "ratio="}, "sequence(f, toward=0, steps=30, ratio=1/2) -> [(t, f(t)), ...] along the same walk limit() takes", s.sequence},
-		{interp.Echo, []string{"value", "label="}, "internal: shows an interactive input's value as show() does, None excepted", s.echo},
+		{interp.Echo, []string{"value", "label=", "latex="}, "internal: shows an interactive input's value as show() does, None excepted", s.echo},
 	} {
 		b[f.name] = bound(f.name, f.doc, f.params, f.fn)
 	}

@@ -92,7 +92,15 @@ func (s *Session) print(args py.Tuple, kw py.StringDict) (py.Object, error) {
 
 func (s *Session) show(a interp.Args) (py.Object, error) {
 	text := interp.Str(a.Get("value"))
-	if x, ok := a.Get("value").(*values.Real); ok {
+	asLaTeX, err := a.Bool("latex", false)
+	if err != nil {
+		return nil, err
+	}
+	if asLaTeX {
+		if text, err = values.LaTeX(a.Get("value")); err != nil {
+			return nil, err
+		}
+	} else if x, ok := a.Get("value").(*values.Real); ok {
 		var err error
 		if text, err = x.Show(); err != nil {
 			return nil, err
@@ -156,4 +164,9 @@ func (s *Session) table(a interp.Args) (py.Object, error) {
 		s.outcome.Tables = append(s.outcome.Tables, t)
 	}
 	return py.None, nil
+}
+
+func latex(a interp.Args) (py.Object, error) {
+	s, err := values.LaTeX(a.Get("value"))
+	return py.String(s), err
 }
