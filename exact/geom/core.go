@@ -27,6 +27,10 @@ type core struct {
 
 	qOnce sync.Once    // computes q
 	q     [][]*big.Int // qInts, cached by Simplex.gradients
+
+	ptsOnce sync.Once    // computes l and lp
+	l       *big.Int     // √s, a multiple of every coordinate's denominator
+	lp      [][]*big.Int // l·v_i, integral, cached by Simplex.scaledPoints
 }
 
 // core returns the cached core, computing it on first use.
@@ -111,4 +115,21 @@ func (c *core) qInts(k int) [][]*big.Int {
 		}
 	}
 	return q
+}
+
+// scaledPoints returns l = √s and the integral points l·v_i, computed
+// once per simplex (shared: read only). It needs a simplex from points.
+func (s *Simplex) scaledPoints() (l *big.Int, lp [][]*big.Int) {
+	c := s.core()
+	c.ptsOnce.Do(func() {
+		c.l = new(big.Int).Sqrt(s.s)
+		c.lp = make([][]*big.Int, len(s.pts))
+		for i, p := range s.pts {
+			c.lp[i] = make([]*big.Int, len(p))
+			for j, x := range p {
+				c.lp[i][j] = scaleToInt(x, c.l)
+			}
+		}
+	})
+	return c.l, c.lp
 }
