@@ -176,13 +176,14 @@ func (s *Simplex) VertexCosSq(i, j, m int) (cos2 *big.Rat, sign int, err error) 
 	if i == j || i == m || j == m {
 		return nil, 0, fmt.Errorf("vertex angle: the vertices must differ, got (%d, %d, %d): %w", i, j, m, exact.ErrShape)
 	}
-	dj, dm := s.sqEdgeScaled(i, j), s.sqEdgeScaled(i, m)
+	d := s.scaledEdges()
+	dj, dm := d[i][j], d[i][m]
 	if dj.Sign() == 0 || dm.Sign() == 0 {
 		return nil, 0, fmt.Errorf("vertex angle: %w (vertex %d coincides with vertex %d or %d)", ErrDegenerate, i, j, m)
 	}
 	dot := s.dotScaled(i, j, m)
 	num := new(big.Int).Mul(dot, dot)
-	den := dj.Mul(dj, dm)
+	den := new(big.Int).Mul(dj, dm)
 	return ratFrac(num, den), dot.Sign(), nil
 }
 
@@ -222,8 +223,9 @@ func (s *Simplex) SolidAngleTerms(i int) (tripleSq *big.Rat, sq, dots [3]*big.Ra
 	// With Gram = g/s: 36V² = det Gram = det g/s³, and s·d_ij, s·(a·b)
 	// are integers.
 	o := others(3, i)
+	d := s.scaledEdges()
 	for a := range 3 {
-		sq[a] = new(big.Rat).SetInt(s.sqEdgeScaled(i, o[a]))
+		sq[a] = new(big.Rat).SetInt(d[i][o[a]])
 	}
 	dots[0] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[1]))
 	dots[1] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[2]))
@@ -234,9 +236,10 @@ func (s *Simplex) SolidAngleTerms(i int) (tripleSq *big.Rat, sq, dots [3]*big.Ra
 // MaxSqEdge returns the largest squared edge length (0 for a point).
 func (s *Simplex) MaxSqEdge() *big.Rat {
 	m := new(big.Int)
+	e := s.scaledEdges()
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
-			if d := s.sqEdgeScaled(i, j); d.Cmp(m) > 0 {
+			if d := e[i][j]; d.Cmp(m) > 0 {
 				m = d
 			}
 		}
@@ -260,9 +263,10 @@ func (s *Simplex) VolumeLengthRatioSq() (*big.Rat, error) {
 	// scaled squared edges and E their number, the square is
 	// det g·2^k·E^k/((k+1)·M^k): s and the factorials cancel.
 	M := new(big.Int)
+	e := s.scaledEdges()
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
-			M.Add(M, s.sqEdgeScaled(i, j))
+			M.Add(M, e[i][j])
 		}
 	}
 	if M.Sign() == 0 {
@@ -307,13 +311,18 @@ func (s *Simplex) DihedralExtremes() (smallest, largest DihedralPair, err error)
 		}
 		return key{n, new(big.Int).Mul(q[i][i], q[j][j])}
 	}
+	var x, y big.Int // scratch: the keys' denominators are positive
 	cmp := func(a, b key) int {
-		return new(big.Int).Mul(a.num, b.den).Cmp(new(big.Int).Mul(b.num, a.den))
+		return x.Mul(a.num, b.den).Cmp(y.Mul(b.num, a.den))
 	}
 	lo, hi := [2]int{0, 1}, [2]int{0, 1}
-	kLo, kHi := keyOf(0, 1), keyOf(0, 1)
+	kLo := keyOf(0, 1)
+	kHi := kLo // keys are not modified
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
+			if i == 0 && j == 1 {
+				continue
+			}
 			kij := keyOf(i, j)
 			if cmp(kij, kLo) > 0 {
 				lo, kLo = [2]int{i, j}, kij

@@ -233,3 +233,32 @@ func TestShapeAgainstPlainRationals(t *testing.T) {
 		}
 	}
 }
+
+// TestShapeConcurrent uses one simplex from several goroutines: the
+// per-simplex caches are built once and only read after (run with -race
+// to check; without it, the results must still agree with a fresh copy).
+func TestShapeConcurrent(t *testing.T) {
+	s := Random(3, 7, 1000, 100)
+	pts, _ := s.Points()
+	fresh, err := FromPoints(pts)
+	if err != nil {
+		t.Fatal(err)
+	}
+	want, _, _ := fresh.FacetNormal(2)
+	done := make(chan []*big.Rat)
+	for range 4 {
+		go func() {
+			s.Centroid()
+			s.MaxSqEdge()
+			s.VertexCosSq(0, 1, 2)
+			n, _, _ := s.FacetNormal(2)
+			done <- n
+		}()
+	}
+	for range 4 {
+		n := <-done
+		for c := range n {
+			sameRat(t, "concurrent facet normal", n[c], want[c])
+		}
+	}
+}
