@@ -67,8 +67,9 @@ func measureTet(b *testing.B, s *Simplex) {
 // altitudes and facet normals, the foot ratios of the touch points, the
 // twelve face angles, the four solid-angle terms, the volume–length
 // ratio, the dihedral extremes and the longest edge. Target (issue 18,
-// with the kernel's certified parts): < 1 s per op; measured 1.2–3.9 s on
-// a loaded machine, about 1.3 s of CPU (DEVELOPERS.md).
+// with the kernel's certified parts): < 1 s per op; measured 0.87–1.23 s
+// per op, against 1.11–1.63 s before the integer paths and caches of
+// shape.go, run alternately on a shared 2-core machine (DEVELOPERS.md).
 func BenchmarkTetrahedraShape10000(b *testing.B) { benchTets(b, shapeTet) }
 
 func shapeTet(b *testing.B, s *Simplex) {

@@ -27,6 +27,7 @@ type core struct {
 
 	qOnce sync.Once    // computes q
 	q     [][]*big.Int // qInts, cached by Simplex.gradients
+
 }
 
 // core returns the cached core, computing it on first use.
@@ -111,4 +112,52 @@ func (c *core) qInts(k int) [][]*big.Int {
 		}
 	}
 	return q
+}
+
+// scaledPoints returns l = √s and the integral points l·v_i, computed
+// once per simplex (shared: read only). It needs a simplex from points.
+func (s *Simplex) scaledPoints() (l *big.Int, lp [][]*big.Int) {
+	c := &s.cache
+	c.ptsOnce.Do(func() {
+		c.l = new(big.Int).Sqrt(s.s)
+		c.lp = make([][]*big.Int, len(s.pts))
+		for i, p := range s.pts {
+			c.lp[i] = make([]*big.Int, len(p))
+			for j, x := range p {
+				c.lp[i][j] = scaleToInt(x, c.l)
+			}
+		}
+	})
+	return c.l, c.lp
+}
+
+// scaledEdges returns the (k+1) x (k+1) matrix of sqEdgeScaled, computed
+// once per simplex (shared: read only).
+func (s *Simplex) scaledEdges() [][]*big.Int {
+	c := &s.cache
+	c.edgeOnce.Do(func() {
+		c.edges = make([][]*big.Int, s.k+1)
+		for i := range c.edges {
+			c.edges[i] = make([]*big.Int, s.k+1)
+			for j := range c.edges[i] {
+				if j < i {
+					c.edges[i][j] = c.edges[j][i]
+				} else {
+					c.edges[i][j] = s.sqEdgeScaled(i, j)
+				}
+			}
+		}
+	})
+	return c.edges
+}
+
+// shapeCache holds integers several methods of shape.go share, each
+// computed once per simplex behind its own sync.Once (read only after).
+type shapeCache struct {
+	edgeOnce sync.Once    // computes edges
+	edges    [][]*big.Int // s·|v_i − v_j|², by Simplex.scaledEdges
+
+	ptsOnce sync.Once    // computes l and lp
+	l       *big.Int     // √s, a multiple of every coordinate's denominator
+	lp      [][]*big.Int // l·v_i, integral, by Simplex.scaledPoints
 }

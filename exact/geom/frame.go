@@ -92,7 +92,11 @@ func (s *Simplex) FootRatios(i int) ([]*big.Rat, error) {
 	q := s.gradients()
 	out := make([]*big.Rat, s.k+1)
 	for m := range out {
-		out[m] = new(big.Rat).SetFrac(q[i][m], q[i][i])
+		if m == i {
+			out[m] = big.NewRat(1, 1)
+			continue
+		}
+		out[m] = ratFrac(q[i][m], q[i][i])
 	}
 	return out, nil
 }

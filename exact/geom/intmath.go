@@ -148,5 +148,21 @@ func factorial(m int) *big.Int {
 
 // ratFrac returns num/den as a new big.Rat (den != 0).
 func ratFrac(num, den *big.Int) *big.Rat {
-	return new(big.Rat).SetFrac(num, den)
+	// Divide by the gcd straight into the result's numerator and
+	// denominator (references once the Rat is set, per the big.Rat
+	// docs), saving SetFrac's copies of num and den.
+	if den.Sign() == 0 {
+		panic("geom: ratFrac: zero denominator")
+	}
+	var g big.Int
+	g.GCD(nil, nil, num, den)
+	r := new(big.Rat).SetInt64(1)
+	n, d := r.Num(), r.Denom()
+	n.Quo(num, &g)
+	d.Quo(den, &g)
+	if d.Sign() < 0 {
+		n.Neg(n)
+		d.Neg(d)
+	}
+	return r
 }

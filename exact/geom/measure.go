@@ -299,27 +299,35 @@ func fmtVec(v []*big.Rat) string {
 // It needs k >= 2 and valid distinct indices (exact.ErrShape) and a
 // non-degenerate simplex (ErrDegenerate).
 func (s *Simplex) DihedralCosSq(i, j int) (cos2 *big.Rat, sign int, err error) {
-	if s.k < 2 {
-		return nil, 0, fmt.Errorf("dihedral angle: a %d-simplex has no dihedral angles (k >= 2 needed): %w", s.k, exact.ErrShape)
-	}
-	if err := s.checkVertex("dihedral angle", i); err != nil {
+	if err := s.checkDihedral(i, j); err != nil {
 		return nil, 0, err
-	}
-	if err := s.checkVertex("dihedral angle", j); err != nil {
-		return nil, 0, err
-	}
-	if i == j {
-		return nil, 0, fmt.Errorf("dihedral angle: the facets must differ, got i = j = %d: %w", i, exact.ErrShape)
-	}
-	c := s.core()
-	if c.det.Sign() == 0 {
-		return nil, 0, fmt.Errorf("dihedral angle: %w (squared volume 0)", ErrDegenerate)
 	}
 	q := s.gradients()
 	qij := q[i][j]
 	num := new(big.Int).Mul(qij, qij)
 	den := new(big.Int).Mul(q[i][i], q[j][j])
 	return ratFrac(num, den), -qij.Sign(), nil
+}
+
+// checkDihedral returns DihedralCosSq's error for facets i, j, if any.
+func (s *Simplex) checkDihedral(i, j int) error {
+	if s.k < 2 {
+		return fmt.Errorf("dihedral angle: a %d-simplex has no dihedral angles (k >= 2 needed): %w", s.k, exact.ErrShape)
+	}
+	if err := s.checkVertex("dihedral angle", i); err != nil {
+		return err
+	}
+	if err := s.checkVertex("dihedral angle", j); err != nil {
+		return err
+	}
+	if i == j {
+		return fmt.Errorf("dihedral angle: the facets must differ, got i = j = %d: %w", i, exact.ErrShape)
+	}
+	c := s.core()
+	if c.det.Sign() == 0 {
+		return fmt.Errorf("dihedral angle: %w (squared volume 0)", ErrDegenerate)
+	}
+	return nil
 }
 
 // Affine returns the image of the simplex under x ↦ A x + t, applied to

@@ -21,11 +21,20 @@ func (s *Simplex) Centroid() ([]*big.Rat, error) {
 	if s.pts == nil {
 		return nil, errNoPoints("centroid")
 	}
-	w := make([]*big.Rat, s.k+1)
-	for i := range w {
-		w[i] = big.NewRat(1, int64(s.k+1))
+	// Σ_i l·v_i is integral (l = √s, a multiple of every denominator):
+	// one reduction per coordinate instead of a rational sum.
+	l, lp := s.scaledPoints()
+	den := new(big.Int).Mul(l, big.NewInt(int64(s.k+1)))
+	out := make([]*big.Rat, s.n)
+	var sum big.Int
+	for c := range out {
+		sum.SetInt64(0)
+		for _, p := range lp {
+			sum.Add(&sum, p[c])
+		}
+		out[c] = ratFrac(&sum, den)
 	}
-	return s.combine(w), nil
+	return out, nil
 }
 
 // Contains reports whether p lies in the closed simplex: in its affine
@@ -35,6 +44,18 @@ func (s *Simplex) Centroid() ([]*big.Rat, error) {
 // Barycentric needs: a simplex from points, not degenerate, and p of the
 // points' length.
 func (s *Simplex) Contains(p []*big.Rat) (bool, error) {
+	if s.pts != nil && len(p) == s.n && s.k == s.n && s.k > 0 {
+		if c := s.core(); c.det.Sign() != 0 {
+			// Only the signs matter: λ_a = nums[a]/den, no reduction.
+			nums, den := s.barycentricInts(c, p)
+			for _, x := range nums {
+				if x.Sign() != 0 && x.Sign() != den.Sign() {
+					return false, nil
+				}
+			}
+			return true, nil
+		}
+	}
 	lam, err := s.Barycentric(p)
 	if errors.Is(err, ErrNotInAffineHull) {
 		return false, nil
@@ -121,21 +142,16 @@ func (s *Simplex) FacetNormal(i int) (normal []*big.Rat, lengthSq *big.Rat, err 
 	// foot_i − v_i = −Σ_{m>=1} c_m (v_m − v_0) (the c_m sum to 0), computed
 	// on the integral edge vectors l·(v_m − v_0), s = l², over l·q_ii.
 	q := s.gradients()
-	l := new(big.Int).Sqrt(s.s)
+	l, lp := s.scaledPoints()
 	den := new(big.Int).Mul(l, q[i][i])
-	p0 := make([]big.Int, s.n)
-	for c, x := range s.pts[0] {
-		setScaled(&p0[c], x, l)
-	}
 	sum := make([]big.Int, s.n)
 	var e, t big.Int
 	for m := 1; m <= s.k; m++ {
 		if q[i][m].Sign() == 0 {
 			continue
 		}
-		for c, x := range s.pts[m] {
-			setScaled(&e, x, l)
-			e.Sub(&e, &p0[c])
+		for c, x := range lp[m] {
+			e.Sub(x, lp[0][c])
 			sum[c].Sub(&sum[c], t.Mul(q[i][m], &e))
 		}
 	}
@@ -160,12 +176,14 @@ func (s *Simplex) VertexCosSq(i, j, m int) (cos2 *big.Rat, sign int, err error) 
 	if i == j || i == m || j == m {
 		return nil, 0, fmt.Errorf("vertex angle: the vertices must differ, got (%d, %d, %d): %w", i, j, m, exact.ErrShape)
 	}
-	if s.sqEdgeScaled(i, j).Sign() == 0 || s.sqEdgeScaled(i, m).Sign() == 0 {
+	d := s.scaledEdges()
+	dj, dm := d[i][j], d[i][m]
+	if dj.Sign() == 0 || dm.Sign() == 0 {
 		return nil, 0, fmt.Errorf("vertex angle: %w (vertex %d coincides with vertex %d or %d)", ErrDegenerate, i, j, m)
 	}
 	dot := s.dotScaled(i, j, m)
 	num := new(big.Int).Mul(dot, dot)
-	den := new(big.Int).Mul(s.sqEdgeScaled(i, j), s.sqEdgeScaled(i, m))
+	den := new(big.Int).Mul(dj, dm)
 	return ratFrac(num, den), dot.Sign(), nil
 }
 
@@ -205,8 +223,9 @@ func (s *Simplex) SolidAngleTerms(i int) (tripleSq *big.Rat, sq, dots [3]*big.Ra
 	// With Gram = g/s: 36V² = det Gram = det g/s³, and s·d_ij, s·(a·b)
 	// are integers.
 	o := others(3, i)
+	d := s.scaledEdges()
 	for a := range 3 {
-		sq[a] = new(big.Rat).SetInt(s.sqEdgeScaled(i, o[a]))
+		sq[a] = new(big.Rat).SetInt(d[i][o[a]])
 	}
 	dots[0] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[1]))
 	dots[1] = new(big.Rat).SetInt(s.dotScaled(i, o[0], o[2]))
@@ -217,9 +236,10 @@ func (s *Simplex) SolidAngleTerms(i int) (tripleSq *big.Rat, sq, dots [3]*big.Ra
 // MaxSqEdge returns the largest squared edge length (0 for a point).
 func (s *Simplex) MaxSqEdge() *big.Rat {
 	m := new(big.Int)
+	e := s.scaledEdges()
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
-			if d := s.sqEdgeScaled(i, j); d.Cmp(m) > 0 {
+			if d := e[i][j]; d.Cmp(m) > 0 {
 				m = d
 			}
 		}
@@ -243,9 +263,10 @@ func (s *Simplex) VolumeLengthRatioSq() (*big.Rat, error) {
 	// scaled squared edges and E their number, the square is
 	// det g·2^k·E^k/((k+1)·M^k): s and the factorials cancel.
 	M := new(big.Int)
+	e := s.scaledEdges()
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
-			M.Add(M, s.sqEdgeScaled(i, j))
+			M.Add(M, e[i][j])
 		}
 	}
 	if M.Sign() == 0 {
@@ -276,7 +297,7 @@ type DihedralPair struct {
 // sign·cos² increases. It needs what DihedralCosSq needs (k >= 2, not
 // degenerate).
 func (s *Simplex) DihedralExtremes() (smallest, largest DihedralPair, err error) {
-	if _, _, err := s.DihedralCosSq(0, 1); err != nil { // the checks
+	if err := s.checkDihedral(0, 1); err != nil {
 		return smallest, largest, err
 	}
 	// cos θ_ij = −q_ij/√(q_ii q_jj) (see DihedralCosSq); compare the keys
@@ -290,13 +311,18 @@ func (s *Simplex) DihedralExtremes() (smallest, largest DihedralPair, err error)
 		}
 		return key{n, new(big.Int).Mul(q[i][i], q[j][j])}
 	}
+	var x, y big.Int // scratch: the keys' denominators are positive
 	cmp := func(a, b key) int {
-		return new(big.Int).Mul(a.num, b.den).Cmp(new(big.Int).Mul(b.num, a.den))
+		return x.Mul(a.num, b.den).Cmp(y.Mul(b.num, a.den))
 	}
 	lo, hi := [2]int{0, 1}, [2]int{0, 1}
-	kLo, kHi := keyOf(0, 1), keyOf(0, 1)
+	kLo := keyOf(0, 1)
+	kHi := kLo // keys are not modified
 	for i := 0; i <= s.k; i++ {
 		for j := i + 1; j <= s.k; j++ {
+			if i == 0 && j == 1 {
+				continue
+			}
 			kij := keyOf(i, j)
 			if cmp(kij, kLo) > 0 {
 				lo, kLo = [2]int{i, j}, kij
@@ -325,8 +351,19 @@ func (s *Simplex) gradients() [][]*big.Int {
 // P = L·l·(p − v_0), L the lcm of p's denominators, Gram⁻¹ = s·adj(g)/det g
 // gives λ_a = Σ_b adj_ab (e_b·P) / (L·det g) for a >= 1.
 func (s *Simplex) barycentricFull(c *core, p []*big.Rat) []*big.Rat {
+	nums, den := s.barycentricInts(c, p)
+	out := make([]*big.Rat, len(nums))
+	for a, x := range nums {
+		out[a] = ratFrac(x, den)
+	}
+	return out
+}
+
+// barycentricInts returns the numerators of barycentricFull's λ_0..λ_k
+// and their common denominator L·det g, unreduced; a nil p[c] reads as 0.
+func (s *Simplex) barycentricInts(c *core, p []*big.Rat) (nums []*big.Int, den *big.Int) {
 	k := s.k
-	l := new(big.Int).Sqrt(s.s)
+	l, lp := s.scaledPoints()
 	var lc lcmAcc
 	for _, x := range p {
 		lc.add(x)
@@ -334,33 +371,29 @@ func (s *Simplex) barycentricFull(c *core, p []*big.Rat) []*big.Rat {
 	L := lc.value()
 	ll := new(big.Int).Mul(L, l)
 	P := make([]big.Int, s.n)
-	p0 := make([]big.Int, s.n)
 	var t big.Int
-	for c2, x := range s.pts[0] {
-		setScaled(&p0[c2], x, l)
+	for c2, x := range lp[0] {
 		setScaled(&P[c2], p[c2], ll)
-		P[c2].Sub(&P[c2], t.Mul(L, &p0[c2]))
+		P[c2].Sub(&P[c2], t.Mul(L, x))
 	}
 	y := make([]big.Int, k)
 	var e big.Int
 	for b := 1; b <= k; b++ {
-		for c2, x := range s.pts[b] {
-			setScaled(&e, x, l)
-			e.Sub(&e, &p0[c2])
+		for c2, x := range lp[b] {
+			e.Sub(x, lp[0][c2])
 			y[b-1].Add(&y[b-1], t.Mul(&e, &P[c2]))
 		}
 	}
-	den := new(big.Int).Mul(L, c.det)
-	rest := new(big.Int).Set(den)
-	out := make([]*big.Rat, k+1)
+	den = new(big.Int).Mul(L, c.det)
+	nums = make([]*big.Int, k+1)
+	nums[0] = new(big.Int).Set(den)
 	for a := 1; a <= k; a++ {
 		num := new(big.Int)
 		for b := 0; b < k; b++ {
 			num.Add(num, t.Mul(c.adj[(a-1)*k+b], &y[b]))
 		}
-		rest.Sub(rest, num)
-		out[a] = ratFrac(num, den)
+		nums[0].Sub(nums[0], num)
+		nums[a] = num
 	}
-	out[0] = ratFrac(rest, den)
-	return out
+	return nums, den
 }

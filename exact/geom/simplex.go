@@ -27,6 +27,8 @@ type Simplex struct {
 
 	once sync.Once // computes c
 	c    *core
+
+	cache shapeCache // integers shared by the methods of shape.go
 }
 
 // FromPoints returns the simplex with the given vertices, copied. There
