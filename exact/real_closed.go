@@ -147,6 +147,9 @@ func (c *closer) build(x *Real) cform {
 	if x.op == opFail {
 		return cform{tooLong: true}
 	}
+	if x.op == opAlgRoot {
+		return cform{text: x.ar.text(), prec: precAtom}
+	}
 	a := c.form(x.x)
 	if a.tooLong {
 		return a
