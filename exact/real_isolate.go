@@ -38,8 +38,9 @@ import (
 type algRoot struct {
 	p        []*big.Int
 	lo0, hi0 *big.Rat // the isolating interval as found, for printing
-	lo, hi   *big.Rat // the current interval, under the node's mutex
-	sLo      int      // the sign of p on (lo, α)
+	lc, hc   *big.Int // the current interval (lc/2^k, hc/2^k), under the node's mutex
+	k        uint
+	sLo      int // the sign of p on (lo, α)
 }
 
 // isoRoot is one isolated root: the exact rational when exact, otherwise
@@ -205,28 +206,109 @@ func realAlgRoot(p []*big.Int, lo, hi *big.Rat) *Real {
 	for i := range p {
 		c[i] = new(big.Int).Set(p[i])
 	}
-	return &Real{op: opAlgRoot, ar: &algRoot{p: c, lo0: lo, hi0: hi, lo: lo, hi: hi, sLo: s}}
+	// The endpoints are dyadic (isolation bisects from powers of 2); a
+	// common power-of-2 denominator keeps bisection free of gcds.
+	k := uint(max(lo.Denom().BitLen(), hi.Denom().BitLen()) - 1)
+	scale := func(r *big.Rat) *big.Int {
+		n := new(big.Int).Lsh(r.Num(), k)
+		return n.Quo(n, r.Denom())
+	}
+	return &Real{op: opAlgRoot, ar: &algRoot{p: c, lo0: lo, hi0: hi, lc: scale(lo), hc: scale(hi), k: k, sLo: s}}
+}
+
+// signAtDyadic returns the sign of p(m/2^k): Σ a_i·m^i·2^(k(n−i)).
+func signAtDyadic(p []*big.Int, m *big.Int, k uint) int {
+	n := len(p) - 1
+	v := new(big.Int).Set(p[n])
+	t := new(big.Int)
+	for i := n - 1; i >= 0; i-- {
+		v.Mul(v, m)
+		v.Add(v, t.Lsh(p[i], k*uint(n-i)))
+	}
+	return v.Sign()
 }
 
 // refine bisects the interval until it is at most 2^-p wide (called under
 // the node's mutex) and returns it, rounded outward to precision p.
 func (a *algRoot) refine(p uint) ival {
-	eps := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Lsh(big.NewInt(1), p))
-	w := new(big.Rat)
-	half := big.NewRat(1, 2)
-	for w.Sub(a.hi, a.lo).Cmp(eps) > 0 {
-		m := new(big.Rat).Add(a.lo, a.hi)
-		m.Mul(m, half)
-		switch s := signAt(a.p, m); {
-		case s == 0: // cannot happen for an irrational root; exact if it does
-			a.lo, a.hi = m, m
-		case s == a.sLo:
-			a.lo = m
-		default:
-			a.hi = m
+	if p > 128 {
+		a.bisect(64)
+		a.newton(p)
+	}
+	a.bisect(p)
+	den := new(big.Int).Lsh(big.NewInt(1), a.k)
+	return ival{fDown(p).SetRat(new(big.Rat).SetFrac(a.lc, den)), fUp(p).SetRat(new(big.Rat).SetFrac(a.hc, den))}
+}
+
+// newton tries to narrow the interval to width 2^-(p+1) at once: Newton's
+// iteration in floating point from the midpoint, doubling the precision,
+// gives a guess c/2^K; the interval ((c−1)/2^K, (c+1)/2^K) is kept only
+// when it lies inside the current one and p changes sign across it in the
+// known direction, checked exactly: then it holds a root (intermediate
+// values), and that root is α, the only one in the isolating interval.
+// Otherwise nothing changes and bisection does the work.
+func (a *algRoot) newton(p uint) {
+	K := p + 1
+	if a.k >= K {
+		return
+	}
+	prec := uint(64)
+	x := new(big.Float).SetPrec(prec).SetInt(new(big.Int).Add(a.lc, a.hc))
+	x.SetMantExp(x, -int(a.k)-1)
+	d := derivative(a.p)
+	horner := func(c []*big.Int, x *big.Float) *big.Float {
+		v := new(big.Float).SetPrec(x.Prec()).SetInt(c[len(c)-1])
+		for i := len(c) - 2; i >= 0; i-- {
+			v.Mul(v, x)
+			v.Add(v, new(big.Float).SetPrec(x.Prec()).SetInt(c[i]))
+		}
+		return v
+	}
+	for {
+		prec = min(2*prec, K+64)
+		x.SetPrec(prec)
+		for range 2 {
+			fd := horner(d, x)
+			if fd.Sign() == 0 {
+				return
+			}
+			x.Sub(x, new(big.Float).SetPrec(prec).Quo(horner(a.p, x), fd))
+		}
+		if prec == K+64 {
+			break
 		}
 	}
-	return ival{fDown(p).SetRat(a.lo), fUp(p).SetRat(a.hi)}
+	c, _ := new(big.Float).SetMantExp(x, int(K)).Int(nil)
+	lo, hi := new(big.Int).Sub(c, big.NewInt(1)), new(big.Int).Add(c, big.NewInt(1))
+	sh := K - a.k
+	if lo.Cmp(new(big.Int).Lsh(a.lc, sh)) < 0 || hi.Cmp(new(big.Int).Lsh(a.hc, sh)) > 0 {
+		return
+	}
+	if signAtDyadic(a.p, lo, K) != a.sLo || signAtDyadic(a.p, hi, K) != -a.sLo {
+		return
+	}
+	a.lc, a.hc, a.k = lo, hi, K
+}
+
+// bisect halves the interval until it is at most 2^-p wide.
+func (a *algRoot) bisect(p uint) {
+	w := new(big.Int)
+	// The width (hc − lc)/2^k is at most 2^-p once k ≥ p and hc − lc ≤ 2^(k−p).
+	for a.k < p || w.Sub(a.hc, a.lc).Cmp(new(big.Int).Lsh(big.NewInt(1), a.k-p)) > 0 {
+		a.lc.Lsh(a.lc, 1)
+		a.hc.Lsh(a.hc, 1)
+		a.k++
+		m := new(big.Int).Add(a.lc, a.hc)
+		m.Rsh(m, 1)
+		switch s := signAtDyadic(a.p, m, a.k); {
+		case s == 0: // cannot happen for an irrational root; exact if it does
+			a.lc, a.hc = m, new(big.Int).Set(m)
+		case s == a.sLo:
+			a.lc = m
+		default:
+			a.hc = m
+		}
+	}
 }
 
 // algRootInfo is the BFMSS bookkeeping of a root of p (real_algebraic.go):
@@ -315,8 +397,12 @@ func RealRoots(p *Poly, maxPrec uint) ([]*Real, error) {
 	var out []*Real
 	for _, f := range parts {
 		a := toDense(f.PrimitivePart(), v)
-		if len(a) == 2 {
+		switch len(a) {
+		case 2:
 			out = append(out, RealFromRat(new(big.Rat).SetFrac(new(big.Int).Neg(a[0]), a[1])))
+			continue
+		case 3:
+			out = append(out, quadraticRoots(a)...)
 			continue
 		}
 		for _, r := range isolateRealRoots(a) {
@@ -339,4 +425,24 @@ func RealRoots(p *Poly, maxPrec uint) ([]*Real, error) {
 		return nil, fmt.Errorf("ordering the roots: %w", cmpErr)
 	}
 	return out, nil
+}
+
+// quadraticRoots returns the real roots of the irreducible c + b·t + a·t²
+// (a > 0, as factors come) by the quadratic formula, (−b ∓ √(b² − 4ac))/(2a),
+// smaller first: radicals print in closed form and need no interval.
+func quadraticRoots(p []*big.Int) []*Real {
+	c, b, a := p[0], p[1], p[2]
+	d := new(big.Int).Mul(b, b)
+	d.Sub(d, new(big.Int).Mul(big.NewInt(4), new(big.Int).Mul(a, c)))
+	if d.Sign() < 0 {
+		return nil
+	}
+	sq := RealSqrt(RealFromRat(new(big.Rat).SetInt(d)))
+	mb := RealFromRat(new(big.Rat).SetInt(new(big.Int).Neg(b)))
+	den := RealFromRat(new(big.Rat).SetInt(new(big.Int).Lsh(a, 1)))
+	lo, hi := RealQuo(RealSub(mb, sq), den), RealQuo(RealAdd(mb, sq), den)
+	if a.Sign() < 0 {
+		lo, hi = hi, lo
+	}
+	return []*Real{lo, hi}
 }

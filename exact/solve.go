@@ -124,7 +124,7 @@ func Solve(polys []*Poly, lim GroebnerLimits, maxPrec uint) (*Solutions, error) 
 			return out, out.fromShape(ps, f, gs, z, shift, maxPrec)
 		}
 		if try >= 8 {
-			return nil, fmt.Errorf("solve: no separating coordinate found in %d random tries (the change of coordinates below the shape lemma): %w", try, ErrUndecided)
+			return nil, fmt.Errorf("solve: no separating coordinate found in %d random tries of the change of coordinates (a fault in assay, or very bad luck)", try)
 		}
 		if !radical {
 			if sys, err = radicalOf(sys, vars, lim); err != nil {
@@ -275,7 +275,7 @@ func countStandard(leads [][]int, n int) (int, error) {
 }
 
 // shapeOf recognizes a lex basis ⟨f(z), x_i − g_i(z)⟩: it returns f and,
-// for each other variable, −g_i's negative h_i = (x_i − g_i) − x_i.
+// for each other variable x_i, g_i.
 func shapeOf(lex []*Poly, vars []int, z int) (*Poly, map[int]*Poly, bool) {
 	if len(lex) != len(vars) {
 		return nil, nil, false
@@ -301,7 +301,7 @@ func shapeOf(lex []*Poly, vars []int, z int) (*Poly, map[int]*Poly, bool) {
 		found := false
 		for _, v := range vars {
 			if v != z && p.DegreeIn(v) == 1 {
-				h := p.Sub(p.ring.varPoly(v))
+				h := p.ring.varPoly(v).Sub(p)
 				if only(h) && hs[v] == nil {
 					hs[v], found = h, true
 				}
@@ -356,9 +356,9 @@ func squareFreePart(p *Poly) (*Poly, error) {
 	return out, nil
 }
 
-// fromShape fills in the real points from f(z) = 0, x_i = −h_i(z), undoes
+// fromShape fills in the real points from f(z) = 0, x_i = g_i(z), undoes
 // the change of coordinates and checks every point in every input.
-func (s *Solutions) fromShape(ps []*Poly, f *Poly, hs map[int]*Poly, z int, shift map[int]int64, maxPrec uint) error {
+func (s *Solutions) fromShape(ps []*Poly, f *Poly, gs map[int]*Poly, z int, shift map[int]int64, maxPrec uint) error {
 	sf, err := squareFreePart(f)
 	if err != nil {
 		return err
@@ -370,12 +370,10 @@ func (s *Solutions) fromShape(ps []*Poly, f *Poly, hs map[int]*Poly, z int, shif
 	}
 	for _, r := range roots {
 		at := map[int]*Real{z: r}
-		for v, h := range hs {
-			hv, err := h.EvalReal(map[int]*Real{z: r})
-			if err != nil {
+		for v, g := range gs {
+			if at[v], err = g.EvalReal(map[int]*Real{z: r}); err != nil {
 				return err
 			}
-			at[v] = RealNeg(hv)
 		}
 		for v, c := range shift {
 			at[z] = RealSub(at[z], RealMul(RealFromInt(c), at[v]))
