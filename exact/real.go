@@ -67,7 +67,8 @@ const (
 	opAtan2
 	opAcos
 	opPi
-	opFail // certified failure known at construction
+	opFail    // certified failure known at construction
+	opAlgRoot // the root of an integer polynomial in an isolating interval (real_isolate.go)
 )
 
 // Real is a certified real number: an immutable expression over rationals
@@ -80,6 +81,7 @@ type Real struct {
 	k     int
 	exact *big.Rat // the exact value, when known to be rational
 	fail  error    // for opFail
+	ar    *algRoot // for opAlgRoot
 
 	algOnce sync.Once // guards alg
 	alg     algInfo   // zero-bound bookkeeping (real_algebraic.go)

@@ -30,6 +30,18 @@ package exact
 //
 // (the root's numerator is the k-th root of U·L^(k−1), an algebraic integer
 // equal to the root times L, so it lies in K and the denominator stays L).
+//
+// A root α of an integer polynomial p = a_n·t^n + … + a_0 in an isolating
+// interval (real_isolate.go) is a leaf of its own kind, with
+//
+//	root α of p                  u = |a_n| + max_{i<n} |a_i|,  l = |a_n|
+//
+// U = a_n·α is an algebraic integer (it is a root of the monic integer
+// polynomial a_n^(n−1)·p(t/a_n)), and L = a_n. Every embedding σ of K sends
+// α to a root of p, real or complex, and Cauchy's bound puts every root
+// below 1 + max|a_i/a_n| in modulus, so |σ(U)| ≤ |a_n| + max|a_i| = u.
+// Adjoining α to K multiplies its degree by at most deg p, so the node
+// multiplies D by deg p.
 // K has degree at most D, the product of the indices of the distinct root
 // nodes (each root node's value is a k-th root of an element of the field
 // below it). A non-zero U has degree d ≤ D and a non-zero integer norm,
@@ -106,6 +118,8 @@ func (x *Real) computeAlg() algInfo {
 		return algInfo{ok: true, lu: int64(x.exact.Num().BitLen()), ll: int64(x.exact.Denom().BitLen())}
 	}
 	switch x.op {
+	case opAlgRoot:
+		return algRootInfo(x.ar.p)
 	case opNeg, opPow, opRoot:
 		a := x.x.algebraic()
 		if !a.ok {
@@ -147,7 +161,8 @@ func (x *Real) computeAlg() algInfo {
 }
 
 // degreeBound is D: the product of the indices of the distinct root nodes
-// below x (saturated), a bound on the degree of the field they generate.
+// below x and the degrees of the root-of-polynomial leaves (saturated), a
+// bound on the degree of the field they generate.
 // A k-th root of a rational r adds nothing when an earlier k-th root of a
 // rational s is already counted and r/s is a rational's k-th power: then
 // r^(1/k) = t·s^(1/k) lies in the field already (sqrt(8) = 2·sqrt(2), and
@@ -179,6 +194,9 @@ func (x *Real) degreeBound() int64 {
 		seen[n] = true
 		if n.op == opRoot && (n.x.exact == nil || !inField(n.k, n.x.exact)) {
 			d = satMul(d, int64(n.k))
+		}
+		if n.op == opAlgRoot {
+			d = satMul(d, int64(len(n.ar.p)-1))
 		}
 		walk(n.x)
 		walk(n.y)

@@ -83,7 +83,9 @@ type cform struct {
 
 // ClosedForm returns x as an expression in the cell language that is
 // exactly equal to it, when x is algebraic (built from rationals by
-// + − × ÷, integer powers and roots) and the expression is short: at most
+// + − × ÷, integer powers, roots and roots of polynomials — the last
+// printed "[root of p in (a, b)]", which is not cell code: see
+// ClosedFormIsCode) and the expression is short: at most
 // maxLen characters, and no integer in it longer than 12 digits. What is
 // simplified, and why the form is exact, is at the top of real_closed.go.
 // Ask it only of an x that has a value (an enclosure exists): a form is
@@ -146,6 +148,9 @@ func (c *closer) build(x *Real) cform {
 	}
 	if x.op == opFail {
 		return cform{tooLong: true}
+	}
+	if x.op == opAlgRoot {
+		return cform{text: x.ar.text(), prec: precAtom}
 	}
 	a := c.form(x.x)
 	if a.tooLong {

@@ -80,6 +80,8 @@ func (x *Real) compute(p uint) (ival, error) {
 	switch x.op {
 	case opPi:
 		return piIval(p), nil
+	case opAlgRoot:
+		return x.ar.refine(p), nil
 	}
 	a, err := x.x.eval(p)
 	if err != nil {

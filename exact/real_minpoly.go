@@ -130,6 +130,12 @@ func (m *minpoly) compute(x *Real) (*Poly, error) {
 	switch x.op {
 	case opFail:
 		return nil, x.fail
+	case opAlgRoot:
+		// p vanishes at x; pick keeps its irreducible factor that does.
+		if err := m.check(len(x.ar.p) - 1); err != nil {
+			return nil, err
+		}
+		return m.pick(x, x.ar.p)
 	case opNeg:
 		p, err := m.of(x.x)
 		if err != nil {

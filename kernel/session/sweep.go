@@ -272,7 +272,7 @@ func code(o py.Object) (string, bool) {
 		}
 		text := interp.Str(v)
 		form, ok := x.ClosedForm(exact.ClosedFormMaxLen)
-		return text, ok && form == text
+		return text, ok && form == text && exact.ClosedFormIsCode(form)
 	case *py.List, py.Tuple:
 		items, _ := interp.Items(v)
 		parts := make([]string, len(items))

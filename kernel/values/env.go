@@ -60,6 +60,7 @@ func (e *Env) Install(b py.StringDict) {
 		e.realBuiltins,
 		e.polynomialBuiltins,
 		e.idealBuiltins,
+		e.solveBuiltins,
 		e.matrixBuiltins,
 		e.simplexBuiltins,
 		e.kvectorBuiltins,

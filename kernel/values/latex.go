@@ -41,13 +41,14 @@ func LaTeX(x py.Object) (string, error) {
 }
 
 // LaTeX is r's closed form in LaTeX when it has a short one (exactly
-// equal), else its certified digits as str prints them.
+// equal) in radicals, else its certified digits as str prints them (a
+// root named by its isolating interval included).
 func (r *Real) LaTeX() (string, error) {
 	text, err := r.x.Text(printedDigits, min(r.env.Cap, 8192))
 	if err != nil {
 		return "", err
 	}
-	if form, ok := r.closedForm(); ok {
+	if form, ok := r.closedForm(); ok && exact.ClosedFormIsCode(form) {
 		return exact.ClosedFormLaTeX(form)
 	}
 	return exact.LaTeXDigits(text), nil
