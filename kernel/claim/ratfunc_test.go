@@ -107,3 +107,37 @@ func TestResidualLaTeXForms(t *testing.T) {
 		t.Errorf("list residual %q, %q", l.Text, l.TeX)
 	}
 }
+
+// When the difference in lowest terms cannot be made (here its
+// denominator, the product of two 5-term sums, passes a cap of 20 terms
+// that the cross product, 10 terms, stays under), the claim still fails,
+// and the residual shown is the cross product, named as such.
+func TestCrossResidualWhenTheDifferenceIsCapped(t *testing.T) {
+	r := exact.NewRing()
+	r.SetMaxTerms(20)
+	sum := func(s string) *exact.Poly {
+		p, err := r.Parse(s)
+		if err != nil {
+			t.Fatal(err)
+		}
+		return p
+	}
+	lhs, err := exact.NewRatFunc(sum("1"), sum("a + b + c + d + e"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	rhs, err := exact.NewRatFunc(sum("1"), sum("f + g + h + i + j"))
+	if err != nil {
+		t.Fatal(err)
+	}
+	res, err := OfRatFuncs(lhs, rhs)
+	if err != nil {
+		t.Fatal(err)
+	}
+	var c cells.Claim
+	res.Decide(&c, 0)
+	if c.Verdict != cells.Fails || !strings.HasPrefix(c.Residual, "lhs.num·rhs.den − rhs.num·lhs.den = ") ||
+		!strings.HasPrefix(c.ResidualTeX, `\text{lhs.num·rhs.den − rhs.num·lhs.den} = `) || strings.Contains(c.Note, "lowest terms, and") {
+		t.Errorf("%s %q %q, note %q", c.Verdict, c.Residual, c.ResidualTeX, c.Note)
+	}
+}

@@ -107,13 +107,16 @@ func OfRatFuncs(lhs, rhs *exact.RatFunc) (Residual, error) {
 	}
 	d, err := lhs.Sub(rhs)
 	if err != nil {
-		r.Text = "lhs.num·rhs.den − rhs.num·lhs.den = " + r.Text
-		r.TeX = `\text{lhs.num·rhs.den − rhs.num·lhs.den} = ` + r.TeX
+		r.Text = crossProduct + " = " + r.Text
+		r.TeX = `\text{` + crossProduct + `} = ` + r.TeX
 		return r, nil
 	}
 	r.Text, r.TeX = ratFuncPreview(d)
 	return r, nil
 }
+
+// crossProduct names the polynomial cross-multiplication compares.
+const crossProduct = "lhs.num·rhs.den − rhs.num·lhs.den"
 
 // ratFuncPreview prints a rational function as RatFunc.String does, and in
 // LaTeX as one \frac, each part previewed when long.
@@ -522,7 +525,10 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits=" + beyondCap(r.ZeroBits)
 	case r.Symbolic && r.Cross:
 		c.Verdict, c.Method = cells.Fails, CrossMethod
-		c.Note = "lhs.num·rhs.den − rhs.num·lhs.den is a non-zero polynomial: the sides are different rational functions; the residual shown is lhs − rhs in lowest terms, and the sides differ wherever its numerator and their denominators are non-zero"
+		c.Note = crossProduct + " is a non-zero polynomial: the sides are different rational functions; the residual shown is lhs − rhs in lowest terms, and the sides differ wherever its numerator and their denominators are non-zero"
+		if strings.HasPrefix(r.Text, crossProduct) {
+			c.Note = crossProduct + " (the residual shown; lhs − rhs in lowest terms was not made, past a cap) is a non-zero polynomial: the sides are different rational functions, so they differ wherever that polynomial and their denominators are non-zero"
+		}
 	case r.Symbolic:
 		c.Verdict, c.Method = cells.Fails, PolyMethod
 		c.Note = "the expanded difference is a non-zero polynomial"
