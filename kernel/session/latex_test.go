@@ -67,8 +67,8 @@ func TestLaTeXDigitsAndRefusals(t *testing.T) {
 // residual as the difference in lowest terms, one fraction (1/(x − 1) −
 // 1/(x + 1) = 2/(x² − 1), by hand), Greek variable names as Greek letters
 // (α² − θ − α·α = −θ), entries of matrix differences with their label,
-// and a factorization's remainder (x² − 1 − (x − 1)(x + 2) = −x + 1, by
-// hand). The expected MathML is written by hand from the W3C's MathML
+// a factorization's remainder (x² − 1 − (x − 1)(x + 2) = −x + 1, by
+// hand), and an inequality's exact slack (1/2 − 1/4 = 1/4). The expected MathML is written by hand from the W3C's MathML
 // Core (2023): §3.1 tokens (a Greek letter is a one-character <mi>, drawn
 // italic by math-auto), §3.3.2 mfrac, §3.4 msup, §3.5 mtable.
 func TestResidualsTypesetFromNotebook(t *testing.T) {
@@ -77,7 +77,8 @@ func TestResidualsTypesetFromNotebook(t *testing.T) {
 		"identity(\"greek\", alpha**2 - theta, alpha * alpha)\n"+
 		"identity(\"entry\", matrix([[x, 1 / (x - 1)]]), matrix([[x, 1 / (x + 1)]]))\n"+
 		"identity(\"rationals\", matrix([[1, 2], [3, 4]]), matrix([[1, 2], [3, frac(9, 2)]]))\n"+
-		"factorization(\"factors\", x**2 - 1, [x - 1, x + 2])")
+		"factorization(\"factors\", x**2 - 1, [x - 1, x + 2])\n"+
+		"inequality(\"slack\", frac(1, 4), frac(1, 2))")
 	page := string(cells.RenderHTML(rep))
 	frac := `<mfrac><mn>2</mn><mrow><msup><mi>x</mi><mn>2</mn></msup><mo>−</mo><mn>1</mn></mrow></mfrac>`
 	for _, want := range []string{
@@ -86,6 +87,7 @@ func TestResidualsTypesetFromNotebook(t *testing.T) {
 		`<td class="math"><math><mrow><mtext>entry [0, 1] of the difference:</mtext><mspace width="0.2778em"></mspace>` + frac + `</mrow></math></td>`,
 		`<mtd><mrow><mo>−</mo><mfrac><mn>1</mn><mn>2</mn></mfrac></mrow></mtd>`,
 		`<td class="math"><math><mrow><mo>−</mo><mi>x</mi><mo>+</mo><mn>1</mn></mrow></math></td>`,
+		`<td class="math"><math><mrow><mtext>slack</mtext><mspace width="0.2778em"></mspace><mfrac><mn>1</mn><mn>4</mn></mfrac></mrow></math></td>`,
 	} {
 		if !strings.Contains(page, want) {
 			t.Errorf("the report lacks %s", want)
