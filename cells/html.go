@@ -22,6 +22,7 @@ import (
 type htmlMarks struct {
 	nonce   string
 	figures []Figure
+	maths   []string // typeset residuals, as MathML
 }
 
 func (m *htmlMarks) token(kind string) string { return "assay" + m.nonce + kind }
@@ -63,6 +64,9 @@ func RenderHTML(r *Report) []byte {
 	for i, f := range marks.figures {
 		repl = append(repl, para("figure"+strconv.Itoa(i)), figureHTML(f))
 	}
+	for i, m := range marks.maths {
+		repl = append(repl, "<td>"+marks.token("math"+strconv.Itoa(i))+"</td>", `<td class="math">`+m+"</td>")
+	}
 	tokens := strings.NewReplacer(repl...)
 
 	var body strings.Builder
@@ -77,7 +81,7 @@ func RenderHTML(r *Report) []byte {
 			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
 			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
+			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -185,19 +189,8 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 
 var (
 	tableCode = regexp.MustCompile(`<td><code>[^<]*</code></td>`)
-	power     = regexp.MustCompile(`\^([0-9]+)`)
+	power     = regexp.MustCompile(`\^([-−]?[0-9]+(?:/[0-9]+)?)`) // x^2, h^−2, t^1/2 as printed
 )
-
-// typesetMath sets a formula in a table cell of a generated region (a
-// residual, say): a polynomial as MathML (polyMathML), other text as
-// typeset does.
-func typesetMath(cell string) string {
-	code := strings.TrimSuffix(strings.TrimPrefix(cell, "<td><code>"), "</code></td>")
-	if m, ok := polyMathML(html.UnescapeString(code)); ok {
-		return `<td class="math">` + m + "</td>"
-	}
-	return typeset(cell)
-}
 
 // typeset sets a formula in a table cell as mathematics is printed:
 // exponents raised, products as a centred dot. Only digits are moved into
@@ -230,6 +223,9 @@ func figureHTML(f Figure) string {
 
 // pageCSS is the report's style. Maths asks for a font with an OpenType
 // MATH table by name first: without one, Chromium does not stretch fences.
+// A typeset residual's cell does not wrap: Chromium sizes the column as if
+// an <mtext> label could break, which it never does, and the formula
+// would spill into the next cell.
 const pageCSS = `body { margin: 0; background: #fff; color: #1d1d1f; font: 16px/1.55 system-ui, -apple-system, "Segoe UI", sans-serif; }
 main { max-width: 64rem; margin: 0 auto; padding: 1.5rem 1.25rem 4rem; }
 h1, h2, h3 { line-height: 1.25; }
@@ -250,6 +246,7 @@ th, td { border: 1px solid #d3d3da; padding: 0.3rem 0.6rem; text-align: left; ve
 th { background: #f0f0f3; }
 td code { overflow-wrap: anywhere; }
 code.tex { border-bottom: 1px dashed #b3261e; }
+td.math { white-space: nowrap; }
 math { font-family: "STIX Two Math", "Latin Modern Math", "DejaVu Math TeX Gyre", "Cambria Math", math; }
 td.verdict { font-weight: 600; white-space: nowrap; }
 td.v-holds { background: #e6f4e8; color: #145a20; }

@@ -273,6 +273,29 @@ func (w *mdWriter) verdict(c Claim) string {
 	return label
 }
 
+// residual is a claim's residual for its table cell: its text as code, cut
+// to limit runes when limit > 0; in the HTML variant, when the claim
+// carries the residual's LaTeX and the text is not cut, a placeholder for
+// its MathML instead (RenderHTML puts it in; LaTeX outside the subset
+// keeps the text).
+func (w *mdWriter) residual(c Claim, limit int) string {
+	text := visible(c.Residual)
+	if limit > 0 {
+		cut := truncate(text, limit)
+		if cut != strings.Join(strings.Fields(text), " ") {
+			return codeSpan(cut)
+		}
+		text = cut
+	}
+	if w.marks != nil && c.ResidualTeX != "" {
+		if m, err := MathML(c.ResidualTeX, false); err == nil {
+			w.marks.maths = append(w.marks.maths, m)
+			return w.marks.token("math" + strconv.Itoa(len(w.marks.maths)-1))
+		}
+	}
+	return codeSpan(text)
+}
+
 // headerContent is the summary at the top of a report.
 func (w *mdWriter) headerContent() string {
 	r := w.r
@@ -318,7 +341,7 @@ func (w *mdWriter) headerContent() string {
 		var rows [][]string
 		for i, c := range claims {
 			rows = append(rows, []string{strconv.Itoa(i + 1), mdText(c.Name), mdInline(visible(c.Kind)), mdInline(visible(c.Method)),
-				codeSpan(truncate(visible(c.Residual), 60)), w.verdict(c), fmt.Sprintf("cell %d, line %d", c.Cell, c.Line)})
+				w.residual(c, 60), w.verdict(c), fmt.Sprintf("cell %d, line %d", c.Cell, c.Line)})
 		}
 		paras = append(paras, "**Claims**\n\n"+mdTable([]string{"#", "claim", "kind", "method", "residual", "verdict", "where"}, rows))
 	}
@@ -370,7 +393,7 @@ func (w *mdWriter) cellContent(b Block, o *Outcome) string {
 		for i, c := range o.Claims {
 			n := w.first[o.Cell] + i
 			rows = append(rows, []string{strconv.Itoa(n), mdText(c.Name), mdInline(visible(c.Kind)), mdInline(visible(c.Method)),
-				codeSpan(visible(c.Residual)), w.verdict(c)})
+				w.residual(c, 0), w.verdict(c)})
 			if s := claimDetails(n, c); s != "" {
 				notes = append(notes, s)
 			}

@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"html"
-	"regexp"
 	"strings"
 	"unicode"
 	"unicode/utf8"
@@ -579,70 +578,6 @@ func mathHTML(tex string, display bool) string {
 	}
 	return `<code class="tex" title="not typeset: ` + html.EscapeString(err.Error()) + `">` +
 		html.EscapeString(delim+tex+delim) + "</code>"
-}
-
-var (
-	polyTerm = regexp.MustCompile(`^(?:[0-9]+(?:/[0-9]+)?|[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)(?:\*[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)*$`)
-	polyName = regexp.MustCompile(`^([A-Za-z]+?)_?([0-9]*)$`)
-)
-
-// polyMathML typesets a polynomial as assay prints one ("2*a^2*b - 3/4*c
-// + 1": terms joined by " + " and " - ", a coefficient, then names with
-// powers, joined by "*"); ok is false for any other text, which is then
-// left as it is.
-func polyMathML(text string) (string, bool) {
-	text = strings.TrimSpace(text)
-	var tex strings.Builder
-	if rest, neg := strings.CutPrefix(text, "-"); neg {
-		tex.WriteString("-")
-		text = rest
-	}
-	terms := strings.FieldsFunc(text, func(r rune) bool { return r == ' ' })
-	for i, t := range terms {
-		if i%2 == 1 {
-			if t != "+" && t != "-" {
-				return "", false
-			}
-			tex.WriteString(" " + t + " ")
-			continue
-		}
-		if !polyTerm.MatchString(t) {
-			return "", false
-		}
-		for j, f := range strings.Split(t, "*") {
-			if j > 0 {
-				tex.WriteString(" ")
-			}
-			base, exp, _ := strings.Cut(f, "^")
-			switch n, d, frac := strings.Cut(base, "/"); {
-			case frac:
-				base = `\frac{` + n + "}{" + d + "}"
-			case base[0] >= '0' && base[0] <= '9':
-			default:
-				m := polyName.FindStringSubmatch(base)
-				switch {
-				case m == nil:
-					base = `\mathrm{` + base + "}"
-				case len(m[1]) > 1:
-					base = `\mathrm{` + m[1] + "}"
-				default:
-					base = m[1]
-				}
-				if m != nil && m[2] != "" {
-					base += "_{" + m[2] + "}"
-				}
-			}
-			tex.WriteString(base)
-			if exp != "" {
-				tex.WriteString("^{" + exp + "}")
-			}
-		}
-	}
-	if len(terms)%2 == 0 {
-		return "", false
-	}
-	m, err := MathML(tex.String(), false)
-	return m, err == nil
 }
 
 // mathWarnings names, by notebook line, each formula of a prose block that

@@ -175,21 +175,47 @@ func BenchmarkProseMath(b *testing.B) {
 	}
 }
 
-// Residuals as assay prints polynomials (exact.Poly.String), typeset; the
-// markup written by hand from MathML Core §3.4 (msubsup: base, sub, sup).
-func TestPolyMathML(t *testing.T) {
-	for text, want := range map[string]string{
-		"x1^2*y - 3/4": `<math><mrow><msubsup><mi>x</mi><mn>1</mn><mn>2</mn></msubsup><mi>y</mi><mo>−</mo><mfrac><mn>3</mn><mn>4</mn></mfrac></mrow></math>`,
-		"-area + 1":    `<math><mrow><mo>−</mo><mi mathvariant="normal">area</mi><mo>+</mo><mn>1</mn></mrow></math>`,
-		"0":            `<math><mn>0</mn></math>`,
-	} {
-		if got, ok := polyMathML(text); !ok || got != want {
-			t.Errorf("polyMathML(%q) = %q, %v; want %q", text, got, ok, want)
-		}
+// Residuals reach the report with their LaTeX (written by the kernel from
+// exact values, exact/latex.go) and are typeset in the tables of the HTML
+// report. The expected markup is written by hand from the W3C's MathML
+// Core (2023): §3.1 tokens (a lower-case Greek letter is an <mi> of one
+// character, drawn italic by the math-auto transform of §3.1.1, like any
+// single-letter identifier; a word of text an <mtext>), §3.3.2 mfrac
+// (numerator, then denominator), §3.4 msup, §3.5 mtable, and §3.2.5 mspace
+// for \; (5/18 em, TeXbook ch. 18). − is U+2212 MINUS SIGN. The Markdown
+// report keeps the plain text.
+func TestResidualsTypeset(t *testing.T) {
+	cases := []struct{ text, tex, want string }{
+		// A rational function: lhs − rhs in lowest terms, one fraction.
+		{"-2/(x + 1)", `-\frac{2}{x + 1}`,
+			`<math><mrow><mo>−</mo><mfrac><mn>2</mn><mrow><mi>x</mi><mo>+</mo><mn>1</mn></mrow></mfrac></mrow></math>`},
+		// Greek names as Greek letters, not upright words.
+		{"alpha^2 - theta", `\alpha^{2} - \theta`,
+			`<math><mrow><msup><mi>α</mi><mn>2</mn></msup><mo>−</mo><mi>θ</mi></mrow></math>`},
+		// A matrix difference, labelled.
+		{"difference [[0, 0], [0, -1]]", `\text{difference}\; \begin{pmatrix} 0 & 0 \\ 0 & -1 \end{pmatrix}`,
+			`<math><mrow><mtext>difference</mtext><mspace width="0.2778em"></mspace><mrow><mo fence="true" stretchy="true">(</mo>` +
+				`<mtable><mtr><mtd><mn>0</mn></mtd><mtd><mn>0</mn></mtd></mtr><mtr><mtd><mn>0</mn></mtd><mtd><mrow><mo>−</mo><mn>1</mn></mrow></mtd></mtr></mtable>` +
+				`<mo fence="true" stretchy="true">)</mo></mrow></mrow></math>`},
+		// An entry of a difference of rational-function matrices.
+		{"entry [0, 1] of the difference: 2/(x^2 - 1)", `\text{entry [0, 1] of the difference:}\; \frac{2}{x^{2} - 1}`,
+			`<math><mrow><mtext>entry [0, 1] of the difference:</mtext><mspace width="0.2778em"></mspace>` +
+				`<mfrac><mn>2</mn><mrow><msup><mi>x</mi><mn>2</mn></msup><mo>−</mo><mn>1</mn></mrow></mfrac></mrow></math>`},
+		// A long polynomial's preview.
+		{"x^9 + … (10 terms in all)", `x^{9} + \cdots\; \text{(10 terms in all)}`,
+			`<math><mrow><msup><mi>x</mi><mn>9</mn></msup><mo>+</mo><mo>⋯</mo><mspace width="0.2778em"></mspace><mtext>(10 terms in all)</mtext></mrow></math>`},
 	}
-	for _, text := range []string{"1.5e-30", "gap 1e-3", "x^2 + …", "x +", "none: no sample met the hypothesis", "x*2", "|r| < 1e-40 relative"} {
-		if got, ok := polyMathML(text); ok {
-			t.Errorf("polyMathML(%q) = %q, want the text left alone", text, got)
+	for _, c := range cases {
+		nb, _ := Parse("p.md", []byte("# p\n\n```cell\nx\n```\n"))
+		r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
+			{Name: "r", Kind: "identity", Verdict: Fails, Residual: c.text, ResidualTeX: c.tex, Cell: 1, Line: 4},
+		}}}}
+		page := string(RenderHTML(r))
+		if n := strings.Count(page, `<td class="math">`+c.want+"</td>"); n != 2 {
+			t.Errorf("%q typeset %d times (want 2: index and cell), page:\n%s", c.tex, n, page)
+		}
+		if !strings.Contains(string(RenderMarkdown(r, true)), "`"+c.text+"`") {
+			t.Errorf("%q: the Markdown report must keep the plain text", c.text)
 		}
 	}
 }

@@ -129,12 +129,15 @@ type Claim struct {
 	Kind     string  `json:"kind"`   // identity, factorization, inequality, limit
 	Method   string  `json:"method"` // how it was decided, e.g. "exact rational arithmetic"
 	Verdict  Verdict `json:"verdict"`
-	Digits   int     `json:"digits,omitempty"`  // for holds-to-digits
-	Residual string  `json:"residual"`          // printed residual (exact where exact)
-	Note     string  `json:"note,omitempty"`    // what the verdict means, in words
-	Samples  int     `json:"samples,omitempty"` // number of configurations checked
-	Seed     int64   `json:"seed"`              // seed in force
-	Worst    string  `json:"worst,omitempty"`   // the sample with the largest residual
+	Digits   int     `json:"digits,omitempty"` // for holds-to-digits
+	Residual string  `json:"residual"`         // printed residual (exact where exact)
+	// ResidualTeX is the residual in LaTeX, typeset in the HTML report
+	// ("" when it has no typeset form: the text is shown).
+	ResidualTeX string `json:"residual_tex,omitempty"`
+	Note        string `json:"note,omitempty"`    // what the verdict means, in words
+	Samples     int    `json:"samples,omitempty"` // number of configurations checked
+	Seed        int64  `json:"seed"`              // seed in force
+	Worst       string `json:"worst,omitempty"`   // the sample with the largest residual
 	// Sample is the worst sample or the counterexample as cell code that
 	// rebuilds it when pasted into a cell.
 	Sample string `json:"sample,omitempty"`

@@ -57,7 +57,7 @@ func sampleReport(t *testing.T, src []byte) *Report {
 		Outcomes: []Outcome{
 			{Cell: 1, Status: Ran, Output: "s = 6\n", Seconds: 0.012, Claims: []Claim{{
 				Name: "heron", Kind: "identity", Method: "exact rational arithmetic", Verdict: Holds,
-				Residual: "0", Note: "Both sides are equal as rational functions of a, b, c: this is a proof.",
+				Residual: "0", ResidualTeX: "0", Note: "Both sides are equal as rational functions of a, b, c: this is a proof.",
 				Cell: 1, Line: 10, Seed: 1, Seconds: 0.004,
 			}}},
 			{Cell: 2, Status: Ran, Seconds: 0.25,
@@ -70,7 +70,7 @@ func sampleReport(t *testing.T, src []byte) *Report {
 							LHS: &SideAudit{Loss: Loss{"1.10e-16", 0.9}, Input: &Loss{"5.00e-17", 0.6}, Formula: &Loss{"6.00e-17", 0.7}},
 							RHS: &SideAudit{Loss: Loss{"0.00e+00", 0}, Input: &Loss{"0.00e+00", 0}, Formula: &Loss{"0.00e+00", 0}}}},
 					{Name: "bad", Kind: "identity", Method: "exact rational arithmetic", Verdict: Fails,
-						Residual: "2*b", Worst: "a=1, b=3", Samples: 20, Seed: 7, Cell: 2, Line: 18, Seconds: 0.01},
+						Residual: "2*b", ResidualTeX: "2 b", Worst: "a=1, b=3", Samples: 20, Seed: 7, Cell: 2, Line: 18, Seconds: 0.01},
 					{Name: "slow", Kind: "inequality", Method: "certified intervals", Verdict: Undecided,
 						Residual: strings.Repeat("0.0000000000", 8) + " ± 1e-80", Precision: 4096, Cell: 2, Line: 19, Seconds: 0.12, Why: PrecisionCap},
 					{Name: "sinc", Kind: "limit", Method: "Richardson", Verdict: Estimated, Digits: 25,
@@ -409,26 +409,39 @@ func TestProblemMessageLine(t *testing.T) {
 	}
 }
 
+// A residual is typeset from the LaTeX the kernel sent with it; text alone
+// (older part files, residuals with no typeset form), text cut short in
+// the index, or LaTeX outside the typeset subset keeps the plain setting:
+// exponents raised, products as a centred dot.
 func TestHTMLTypesetsFormulasInTables(t *testing.T) {
 	nb, _ := Parse("p.md", []byte("# p\n\n```cell\nx\n```\n"))
-	r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{
-		{Name: "poly", Kind: "identity", Verdict: Fails, Residual: "2*a^2*b - c^10 + 1/2", Cell: 1, Line: 4},
-	}}}}
-	// The MathML is written by hand from MathML Core (W3C, 2023): §3.1
-	// tokens, §3.3 mfrac, §3.4 msup; − is U+2212 MINUS SIGN.
-	page := string(RenderHTML(r))
-	if !strings.Contains(page, `<td class="math"><math><mrow><mn>2</mn><msup><mi>a</mi><mn>2</mn></msup><mi>b</mi><mo>−</mo>`+
-		`<msup><mi>c</mi><mn>10</mn></msup><mo>+</mo><mfrac><mn>1</mn><mn>2</mn></mfrac></mrow></math></td>`) {
+	claim := Claim{Name: "poly", Kind: "identity", Verdict: Fails, Residual: "2*a^2*b - c^10 + 1/2", Cell: 1, Line: 4}
+	r := &Report{Notebook: nb, Outcomes: []Outcome{{Cell: 1, Status: Ran, Claims: []Claim{claim}}}}
+	plain := "<td><code>2·a<sup>2</sup>·b - c<sup>10</sup> + 1/2</code></td>"
+	if page := string(RenderHTML(r)); strings.Count(page, plain) != 2 || strings.Contains(page, "<math") {
+		t.Errorf("a residual without LaTeX is not set as plain text:\n%s", page)
+	}
+	// MathML Core (W3C, 2023): §3.1 tokens, §3.3.2 mfrac, §3.4 msup.
+	r.Outcomes[0].Claims[0].ResidualTeX = `2 a^{2} b - c^{10} + \frac{1}{2}`
+	typeset := `<td class="math"><math><mrow><mn>2</mn><msup><mi>a</mi><mn>2</mn></msup><mi>b</mi><mo>−</mo>` +
+		`<msup><mi>c</mi><mn>10</mn></msup><mo>+</mo><mfrac><mn>1</mn><mn>2</mn></mfrac></mrow></math></td>`
+	if page := string(RenderHTML(r)); strings.Count(page, typeset) != 2 {
 		t.Errorf("residual not typeset:\n%s", page)
 	}
-	if !strings.Contains(string(RenderMarkdown(r, true)), "`2*a^2*b - c^10 + 1/2`") {
-		t.Errorf("the Markdown report must keep the plain text")
+	long := strings.Repeat("a + ", 20) + "1"
+	r.Outcomes[0].Claims[0].Residual, r.Outcomes[0].Claims[0].ResidualTeX = long, long
+	page := string(RenderHTML(r))
+	if !strings.Contains(page, "<td><code>"+truncate(long, 60)+"</code></td>") || strings.Count(page, `<td class="math">`) != 1 {
+		t.Errorf("a residual cut short in the index must stay text, and be typeset in its cell:\n%s", page)
 	}
-	// Text that is not a whole polynomial (cut short, say) keeps the
-	// plain setting: exponents raised, products as a centred dot.
-	r.Outcomes[0].Claims[0].Residual = "2*a^2*b - c^10 + …"
-	if page := string(RenderHTML(r)); !strings.Contains(page, "<code>2·a<sup>2</sup>·b - c<sup>10</sup> + …</code>") {
-		t.Errorf("cut residual not typeset:\n%s", page)
+	r.Outcomes[0].Claims[0].Residual, r.Outcomes[0].Claims[0].ResidualTeX = "x^2", `\unknown{x}`
+	if page := string(RenderHTML(r)); strings.Count(page, "<td><code>x<sup>2</sup></code></td>") != 2 {
+		t.Errorf("LaTeX outside the subset must leave the text:\n%s", page)
+	}
+	// A series claim's growth, with a signed fractional exponent.
+	r.Outcomes[0].Claims[0].Residual, r.Outcomes[0].Claims[0].ResidualTeX = "grows like h^−1/2", ""
+	if page := string(RenderHTML(r)); strings.Count(page, "<td><code>grows like h<sup>−1/2</sup></code></td>") != 2 {
+		t.Errorf("a negative or fractional exponent is not raised whole:\n%s", page)
 	}
 }
 

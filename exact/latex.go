@@ -27,13 +27,20 @@ func LaTeXRat(r *big.Rat) string {
 }
 
 // LaTeX is p in LaTeX, in the order String uses: "2 a^{2} b - \frac{3}{4} c + 1".
-func (p *Poly) LaTeX() string {
+func (p *Poly) LaTeX() string { return p.LaTeXTerms(p.Len()) }
+
+// LaTeXTerms is the LaTeX of p's first n terms in the order String uses
+// (all of p when n ≥ p.Len()), for a preview of a long polynomial.
+func (p *Poly) LaTeXTerms(n int) string {
 	if p.IsZero() {
 		return "0"
 	}
 	names := p.ring.Names()
 	var sb strings.Builder
 	for i, t := range p.Terms() {
+		if i == n {
+			break
+		}
 		c := new(big.Rat).Set(t.Coef)
 		writeSign(&sb, i, c.Sign() < 0)
 		c.Abs(c)
@@ -336,10 +343,58 @@ func (c *cfParser) bad(err error) error {
 	return fmt.Errorf("closed form %q: cannot read at %d", c.src, c.pos)
 }
 
-// LaTeXDigits turns a printed decimal (Real.Text: "1.4142135623",
-// "1.5e-40", "4 (within 1e-30)") into LaTeX: "1.5 \cdot 10^{-40}",
+// LaTeXText is x as Text(n, maxPrec) prints it, in LaTeX, written so that
+// no digit passes for more than it is:
+//
+//   - an exact decimal as it is: "0.5", "10^{-40}";
+//   - a rounded value with its proved bound spelled out:
+//     "4 \; (\text{within } 10^{-30})";
+//   - certified digits, truncated toward zero, followed by \ldots, always
+//     with a decimal point (scientific when the digits reach the units
+//     place): "1.4142135623\ldots", "-2.7182818\ldots \cdot 10^{-5}",
+//     "1.2345\ldots \cdot 10^{25}". |x| then lies between the digits
+//     written and the same digits with the last raised by one.
+//
+// Its errors are Text's.
+func (x *Real) LaTeXText(n int, maxPrec uint) (string, error) {
+	n = max(n, 1)
+	text, err := x.Text(n, maxPrec)
+	if err != nil {
+		return "", err
+	}
+	// Text's cases, told apart: only Digits' truncation lacks a mark.
+	exact := x.exact != nil
+	if exact {
+		_, exact = shortDecimal(x.exact, n)
+	}
+	if exact || text == "0" || strings.Contains(text, " (within ") {
+		return decimalLaTeX(text), nil
+	}
+	m, e, sci := strings.Cut(text, "e")
+	if !sci && !strings.Contains(m, ".") {
+		// "123450000" has no point to put the dots after, and its
+		// trailing zeros may stand for digits not computed: scientific.
+		sign, d := "", m
+		if strings.HasPrefix(m, "-") {
+			sign, d = "-", m[1:]
+		}
+		e = strconv.Itoa(len(d) - 1)
+		m = sign + d[:1]
+		if rest := d[1:min(n, len(d))]; rest != "" {
+			m += "." + rest
+		}
+	}
+	out := m + `\ldots`
+	if e = strings.TrimPrefix(e, "+"); e != "" && e != "0" {
+		out += ` \cdot 10^{` + e + "}"
+	}
+	return out, nil
+}
+
+// decimalLaTeX turns a decimal Text printed exactly or with its bound
+// ("1.5e-40", "4 (within 1e-30)") into LaTeX: "1.5 \cdot 10^{-40}",
 // "4 \; (\text{within } 10^{-30})".
-func LaTeXDigits(text string) string {
+func decimalLaTeX(text string) string {
 	num, within, ok := strings.Cut(text, " (within ")
 	out := sciLaTeX(num)
 	if ok {

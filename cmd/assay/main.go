@@ -634,7 +634,10 @@ func mergeReportPath(parts []string) (string, error) {
 	return filepath.Join(dir, stem+".report.md"), nil
 }
 
-// untilIndex is the index of the cell with the option id=id.
+// untilIndex is the index of the cell with the option id=id. An id no
+// cell has is a mistake on the command line, not in the notebook: it is
+// refused before anything runs, and no report is written, so the last one
+// stays as it was.
 func untilIndex(path, id string) (int, error) {
 	src, err := readNotebook(path)
 	if err != nil {
@@ -653,10 +656,11 @@ func untilIndex(path, id string) (int, error) {
 			ids = append(ids, fmt.Sprintf("%s (line %d)", b.Options.ID, b.FenceLine))
 		}
 	}
+	const nothing = "; nothing was run and no report was written"
 	if len(ids) == 0 {
-		return 0, fmt.Errorf("--until %s: no cell of %s has an id; give the cell the option id=%s (e.g. a fence line ```cell id=%s)", id, path, id, id)
+		return 0, fmt.Errorf("--until %s: no cell of %s has an id; give the cell the option id=%s (e.g. a fence line ```cell id=%s)%s", id, path, id, id, nothing)
 	}
-	return 0, fmt.Errorf("--until %s: no cell of %s has id=%s; the ids are %s", id, path, id, strings.Join(ids, ", "))
+	return 0, fmt.Errorf("--until %s: no cell of %s has id=%s; the ids are %s%s", id, path, id, strings.Join(ids, ", "), nothing)
 }
 
 // readNotebook reads a notebook file, with a message that names it.

@@ -60,6 +60,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"unknown-option.md", 3, "unknown cell option \"colour\"", nil},
 		{"not-utf8.md", 3, "not valid UTF-8", nil},
 		{"syntax-error.md", 5, "SyntaxError", nil},
+		{"syntax-unclosed-bracket.md", 8, "SyntaxError: '(' is never closed (column 9); the parser stopped at line 9: invalid syntax", nil},
 		{"name-error.md", 5, "NameError: name 'y' is not defined", nil},
 		{"division-by-zero.md", 5, "ZeroDivisionError: division by zero: 3/4 / 0", nil},
 		{"det-not-square.md", 5, "2x3", nil},

@@ -2,6 +2,7 @@ package main
 
 import (
 	"bufio"
+	"bytes"
 	"io"
 	"net/http"
 	"os"
@@ -135,9 +136,24 @@ func TestRunUntil(t *testing.T) {
 	if code, _, _ := assay(t, "run", "--until", "c", nb); code != 1 {
 		t.Errorf("--until c: exit %d, want 1 (a claim fails)", code)
 	}
-	code, _, stderr = assay(t, "run", "--until", "volumes", copyNotebook(t, "../../testdata/bad/until-unknown-id.md"))
-	if code != 2 || !strings.Contains(stderr, "no cell of") || !strings.Contains(stderr, "has id=volumes; the ids are setup (line 6), thirds (line 10)") {
-		t.Errorf("unknown id: exit %d, %q", code, stderr)
+	// An unknown id is a mistake on the command line: one message naming
+	// the notebook and its ids with their lines, before anything runs;
+	// exit 2, and the report of an earlier run is left as it was.
+	bad := copyNotebook(t, "../../testdata/bad/until-unknown-id.md")
+	if code, _, stderr := assay(t, "run", bad); code != 0 {
+		t.Fatalf("the notebook itself: exit %d, %s", code, stderr)
+	}
+	earlier, err := os.ReadFile(strings.TrimSuffix(bad, ".md") + ".report.md")
+	if err != nil {
+		t.Fatal(err)
+	}
+	code, stdout, stderr = assay(t, "run", "--until", "volumes", bad)
+	want := "assay run: --until volumes: no cell of " + bad + " has id=volumes; the ids are setup (line 6), thirds (line 10); nothing was run and no report was written\n"
+	if code != 2 || stderr != want || stdout != "" {
+		t.Errorf("unknown id: exit %d, stdout %q, stderr %q; want %q", code, stdout, stderr, want)
+	}
+	if now, _ := os.ReadFile(strings.TrimSuffix(bad, ".md") + ".report.md"); !bytes.Equal(now, earlier) {
+		t.Error("a refused --until changed the earlier report")
 	}
 	if code, _, stderr = assay(t, "run", "--until", "b", "--in-place", nb); code != 2 || !strings.Contains(stderr, "--until") {
 		t.Errorf("--until with --in-place: exit %d, %q", code, stderr)

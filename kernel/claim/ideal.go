@@ -55,7 +55,8 @@ func (u Under) Decide(c *cells.Claim) error {
 		c.Note = "the conditions of nonzero= vanish wherever the hypotheses hold (a power of their product is in the hypotheses' ideal): no point is left, so nothing is proved"
 		return nil
 	case exact.NotInRadical:
-		c.Verdict, c.Residual = cells.Fails, u.Found.Remainder.String()
+		c.Verdict = cells.Fails
+		Residual{Text: u.Found.Remainder.String(), TeX: u.Found.Remainder.LaTeX()}.Record(c)
 		at := ""
 		if m.Witness != "" {
 			at = " (one with " + m.Witness + ": Rabinowitsch's test ran on the hypotheses with those values put in, for variables they leave free)"
@@ -80,7 +81,7 @@ func (u Under) Decide(c *cells.Claim) error {
 	if err = u.check(c, statement, want); err != nil {
 		return err
 	}
-	c.Residual = "0"
+	Zero().Record(c)
 	if m.Kind == exact.InIdeal {
 		c.Verdict = cells.Holds
 		where = "where the hypotheses hold"

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math/big"
 	"strings"
+	"unicode"
 
 	"assay/cells"
 	"assay/exact"
@@ -42,12 +43,14 @@ func BitsForDigits(n int64) uint { return uint(float64(n)/log10of2) + 1 }
 // Residual is lhs − rhs, measured exactly or certified.
 type Residual struct {
 	Text     string   // printed residual
+	TeX      string   // the residual in LaTeX, for the HTML report ("" when it has no typeset form)
 	Size     *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
 	Zero     bool     // exactly zero
 	Symbolic bool     // a polynomial difference: zero proves the identity for all values
 	Real     bool     // decided by interval arithmetic
-	// Cross qualifies Symbolic: the sides are rational functions and the
-	// polynomial is lhs.num·rhs.den − rhs.num·lhs.den.
+	// Cross qualifies Symbolic: the sides are rational functions, decided
+	// by the polynomial lhs.num·rhs.den − rhs.num·lhs.den (Size counts its
+	// terms); Text shows lhs − rhs in lowest terms.
 	Cross bool
 	// Certified is, for a real residual enclosing 0, the N of the bound
 	// |residual| < 10^-N·max(|lhs|, |rhs|): N significant digits agree.
@@ -67,7 +70,7 @@ type Residual struct {
 
 // Exact is the residual of an exact rational difference.
 func Exact(d *big.Rat) Residual {
-	return Residual{Text: exact.FormatRat(d), Size: new(big.Rat).Abs(d), Zero: d.Sign() == 0}
+	return Residual{Text: exact.FormatRat(d), TeX: exact.LaTeXRat(d), Size: new(big.Rat).Abs(d), Zero: d.Sign() == 0}
 }
 
 // Zero is the residual of sides that agree exactly.
@@ -75,12 +78,19 @@ func Zero() Residual { return Exact(new(big.Rat)) }
 
 // OfPoly is the residual of an expanded polynomial difference.
 func OfPoly(d *exact.Poly) Residual {
-	return Residual{Text: Preview(d), Size: big.NewRat(int64(d.Len()), 1), Zero: d.IsZero(), Symbolic: true}
+	return Residual{Text: Preview(d), TeX: PreviewTeX(d), Size: big.NewRat(int64(d.Len()), 1), Zero: d.IsZero(), Symbolic: true}
 }
+
+// Record writes the residual into the claim: its text, and its LaTeX for
+// the HTML report.
+func (r Residual) Record(c *cells.Claim) { c.Residual, c.ResidualTeX = r.Text, r.TeX }
 
 // OfRatFuncs is the residual of two rational functions compared by
 // cross-multiplication: lhs.num·rhs.den − rhs.num·lhs.den, which is the
 // zero polynomial exactly when the sides are equal rational functions.
+// When it is not, the residual shown is lhs − rhs in lowest terms (far
+// shorter, as a rule, than the cross product), or, should that
+// subtraction fail (a cap), the cross product, labelled as such.
 func OfRatFuncs(lhs, rhs *exact.RatFunc) (Residual, error) {
 	x, err := lhs.Num().Mul(rhs.Den())
 	if err != nil {
@@ -92,7 +102,41 @@ func OfRatFuncs(lhs, rhs *exact.RatFunc) (Residual, error) {
 	}
 	r := OfPoly(x.Sub(y))
 	r.Cross = true
+	if r.Zero {
+		return r, nil
+	}
+	d, err := lhs.Sub(rhs)
+	if err != nil {
+		r.Text = crossProduct + " = " + r.Text
+		r.TeX = `\text{` + crossProduct + `} = ` + r.TeX
+		return r, nil
+	}
+	r.Text, r.TeX = ratFuncPreview(d)
 	return r, nil
+}
+
+// crossProduct names the polynomial cross-multiplication compares.
+const crossProduct = "lhs.num·rhs.den − rhs.num·lhs.den"
+
+// ratFuncPreview prints a rational function as RatFunc.String does, and in
+// LaTeX as one \frac, each part previewed when long.
+func ratFuncPreview(f *exact.RatFunc) (text, tex string) {
+	if f.IsPoly() {
+		return Preview(f.Num()), PreviewTeX(f.Num())
+	}
+	part := func(p *exact.Poly) string {
+		s := Preview(p)
+		if strings.ContainsFunc(s, func(r rune) bool { return !(unicode.IsLetter(r) || unicode.IsDigit(r) || r == '_') }) {
+			return "(" + s + ")"
+		}
+		return s
+	}
+	num, sign := f.Num(), ""
+	if strings.HasPrefix(Preview(num), "-") {
+		// The sign outside, as for rationals: -2/(x + 1), not (-2)/(x + 1).
+		num, sign = num.Neg(), "-"
+	}
+	return sign + part(num) + "/" + part(f.Den()), sign + `\frac{` + PreviewTeX(num) + "}{" + PreviewTeX(f.Den()) + "}"
 }
 
 // closeness is what refining lhs − rhs against the sides showed.
@@ -211,7 +255,7 @@ func OfReal(lhs, rhs *exact.Real, t Target) (Residual, error) {
 	case err != nil:
 		return Residual{}, err
 	case decided && sign == 0:
-		return Residual{Text: "0", Size: new(big.Rat), Zero: true, Algebraic: true, ZeroBits: bound}, nil
+		return Residual{Text: "0", TeX: "0", Size: new(big.Rat), Zero: true, Algebraic: true, ZeroBits: bound}, nil
 	case decided:
 		// The sign's refinement left its best enclosure cached on d.
 		iv, err := d.EncloseCoarse(t.Bits + 32)
@@ -308,14 +352,15 @@ func OfMatrices(a, b *exact.Matrix) (Residual, error) {
 			}
 		}
 	}
-	text := "0"
-	if size.Sign() != 0 {
+	text, tex := "0", "0"
+	switch {
+	case size.Sign() != 0 && d.Rows()*d.Cols() > 16:
+		text, tex = labelled("largest entry of the difference", exact.FormatRat(size), exact.LaTeXRat(size))
+	case size.Sign() != 0:
 		text = "difference " + d.String()
-		if d.Rows()*d.Cols() > 16 {
-			text = "largest entry of the difference: " + exact.FormatRat(size)
-		}
+		tex = `\text{difference}\; ` + exact.LaTeXMatrix(d.Rows(), d.Cols(), func(i, j int) string { return exact.LaTeXRat(d.At(i, j)) })
 	}
-	return Residual{Text: text, Size: size, Zero: size.Sign() == 0}, nil
+	return Residual{Text: text, TeX: tex, Size: size, Zero: size.Sign() == 0}, nil
 }
 
 // OfPolyMatrices compares two polynomial matrices entry by entry; the
@@ -346,12 +391,22 @@ func firstEntry(rows, cols int, entry func(i, j int) (Residual, error)) (Residua
 		for j := 0; j < cols; j++ {
 			r, err := entry(i, j)
 			if err != nil || !r.Zero {
-				r.Text = fmt.Sprintf("entry [%d, %d] of the difference: %s", i, j, r.Text)
+				r.Text, r.TeX = labelled(fmt.Sprintf("entry [%d, %d] of the difference", i, j), r.Text, r.TeX)
 				return r, err
 			}
 		}
 	}
-	return Residual{Text: "0", Size: new(big.Rat), Zero: true, Symbolic: true}, nil
+	return Residual{Text: "0", TeX: "0", Size: new(big.Rat), Zero: true, Symbolic: true}, nil
+}
+
+// labelled puts a label before a residual's text and its LaTeX (left ""
+// when the residual has none).
+func labelled(label, text, tex string) (string, string) {
+	if tex != "" {
+		// Braced, so a leading minus is a sign, not an operator after the label.
+		tex = `\text{` + label + `:}\; {` + tex + "}"
+	}
+	return label + ": " + text, tex
 }
 
 // Worst combines the residuals of entries: any failure wins, then
@@ -376,11 +431,11 @@ func Worst(rs []Residual) Residual {
 // labelled with its entry; "0" when every entry is zero.
 func Entries(rs []Residual) Residual {
 	for i := range rs {
-		rs[i].Text = fmt.Sprintf("entry %d: %s", i, rs[i].Text)
+		rs[i].Text, rs[i].TeX = labelled(fmt.Sprintf("entry %d", i), rs[i].Text, rs[i].TeX)
 	}
 	w := Worst(append(rs, Zero()))
 	if w.Zero {
-		w.Text = "0"
+		w.Text, w.TeX = "0", "0"
 	}
 	return w
 }
@@ -470,7 +525,10 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		c.Note = "the enclosure of the residual still contains 0 at the precision cap but is wider than the target: raise --max-precision or lower digits=" + beyondCap(r.ZeroBits)
 	case r.Symbolic && r.Cross:
 		c.Verdict, c.Method = cells.Fails, CrossMethod
-		c.Note = "lhs.num·rhs.den − rhs.num·lhs.den (the residual shown) is a non-zero polynomial: the sides are different rational functions, so they differ wherever that polynomial and the denominators are non-zero"
+		c.Note = crossProduct + " is a non-zero polynomial: the sides are different rational functions; the residual shown is lhs − rhs in lowest terms, and the sides differ wherever its numerator and their denominators are non-zero"
+		if strings.HasPrefix(r.Text, crossProduct) {
+			c.Note = crossProduct + " (the residual shown; lhs − rhs in lowest terms was not made, past a cap) is a non-zero polynomial: the sides are different rational functions, so they differ wherever that polynomial and their denominators are non-zero"
+		}
 	case r.Symbolic:
 		c.Verdict, c.Method = cells.Fails, PolyMethod
 		c.Note = "the expanded difference is a non-zero polynomial"
@@ -484,7 +542,7 @@ func (r Residual) Decide(c *cells.Claim, samples int) {
 		c.Verdict = cells.Fails
 		c.Note = "exact non-zero residual"
 	}
-	c.Residual = r.Text
+	r.Record(c)
 }
 
 // beyondCap says, for an algebraic residual that was only bounded, that
@@ -496,9 +554,13 @@ func beyondCap(bits int64) string {
 	return fmt.Sprintf("; the residual is algebraic, but proving it zero needs its enclosure below 2^-%d (its BFMSS zero bound), which the precision cap did not reach: raise --max-precision above %d bits to decide it exactly", bits, bits)
 }
 
+// previewShown is how many terms a preview of a long polynomial shows;
+// one of at most previewShown+2 terms is shown whole.
+const previewShown = 6
+
 // Preview prints a polynomial, or its first terms and the count when long.
 func Preview(p *exact.Poly) string {
-	const shown = 6
+	const shown = previewShown
 	s := p.String()
 	if p.Len() <= shown+2 {
 		return s
@@ -513,6 +575,15 @@ func Preview(p *exact.Poly) string {
 		}
 	}
 	return s
+}
+
+// PreviewTeX is Preview in LaTeX: the polynomial, or its first terms, a
+// \cdots and the count when long.
+func PreviewTeX(p *exact.Poly) string {
+	if p.Len() <= previewShown+2 {
+		return p.LaTeX()
+	}
+	return p.LaTeXTerms(previewShown) + ` + \cdots\; \text{(` + fmt.Sprint(p.Len()) + ` terms in all)}`
 }
 
 // Clip shortens s to at most n runes.

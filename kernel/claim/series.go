@@ -140,7 +140,7 @@ func SeriesAsymptotic(c *cells.Claim, f Expansion, coef *exact.Real, k *big.Rat,
 	r.Decide(c, 0)
 	c.Method = SeriesMethod
 	if c.Verdict == cells.Fails {
-		c.Residual = "leading term " + actual
+		c.Residual, c.ResidualTeX = "leading term "+actual, ""
 	}
 	if r.Zero {
 		c.Note = fmt.Sprintf("%s: the leading term is %s, exactly as stated — a proof: %s", what, actual, seriesProof)

@@ -187,8 +187,11 @@ func JudgeInequality(c *cells.Claim, it *InequalityTally, found *SearchTally, sa
 	}
 	fromSearch := searched && w.Sample != ""
 	c.Residual = "slack " + w.Text
+	if q, ok := new(big.Rat).SetString(w.Lo); ok && w.Exact && exact.FormatRat(q) == w.Text {
+		c.ResidualTeX = `\text{slack}\; ` + exact.LaTeXRat(q)
+	}
 	if w.Verdict == cells.Undecided {
-		c.Residual = w.Text // a bound, which names the slack itself
+		c.Residual, c.ResidualTeX = w.Text, "" // a bound, which names the slack itself
 	}
 	switch {
 	case w.Algebraic && w.Exact:

@@ -75,6 +75,7 @@ type IdentityTally struct {
 type SampleResidual struct {
 	K         int64  `json:"k"`
 	Text      string `json:"text"`
+	TeX       string `json:"tex,omitempty"`
 	Size      string `json:"size"` // exact rational
 	Zero      bool   `json:"zero,omitempty"`
 	Symbolic  bool   `json:"symbolic,omitempty"`
@@ -284,7 +285,7 @@ func (t *IdentityTally) AddAudit(k int64, audit cells.FloatAudit) {
 }
 
 func sampleResidual(k int64, r Residual) *SampleResidual {
-	return &SampleResidual{K: k, Text: r.Text, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic, Cross: r.Cross,
+	return &SampleResidual{K: k, Text: r.Text, TeX: r.TeX, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic, Cross: r.Cross,
 		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided, Algebraic: r.Algebraic, ZeroBits: r.ZeroBits}
 }
 
@@ -294,7 +295,7 @@ func (s *SampleResidual) Residual() Residual {
 	if !ok {
 		size = new(big.Rat)
 	}
-	return Residual{Text: s.Text, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Cross: s.Cross, Real: s.Real,
+	return Residual{Text: s.Text, TeX: s.TeX, Size: size, Zero: s.Zero, Symbolic: s.Symbolic, Cross: s.Cross, Real: s.Real,
 		Certified: s.Certified, NearZero: s.NearZero, Undecided: s.Undecided, Algebraic: s.Algebraic, ZeroBits: s.ZeroBits}
 }
 

@@ -95,6 +95,9 @@ func ExceptionText(e *py.Exception) string {
 		if off, ok := e.Dict["offset"].(py.Int); ok && off > 0 {
 			text += fmt.Sprintf(" (column %d)", int(off))
 		}
+		if note, ok := e.Dict["note"].(py.String); ok {
+			text += "; " + string(note)
+		}
 	}
 	if text == "" {
 		return name

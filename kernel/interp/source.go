@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"sort"
 	"strings"
+	"unicode/utf8"
 
 	"github.com/go-python/gpython/ast"
 	"github.com/go-python/gpython/parser"
@@ -32,7 +33,7 @@ func Compile(cell, line int, src string, claims map[string]bool) (*py.Code, erro
 	}
 	tree, err := parser.Parse(bytes.NewBufferString(padded), cellFile(cell), py.ExecMode)
 	if err != nil {
-		return nil, err
+		return nil, neverClosed(err, padded)
 	}
 	type site struct {
 		line, col int
@@ -66,4 +67,88 @@ func Compile(cell, line int, src string, claims map[string]bool) (*py.Code, erro
 		padded = strings.Join(lines, "\n")
 	}
 	return py.Compile(padded, cellFile(cell), py.ExecMode, 0, true)
+}
+
+// neverClosed points a syntax error at its likely cause when the source
+// leaves a bracket open to its end, as Python's own tokenizer does ("'('
+// was never closed"): the parser stops only at the next line that cannot
+// continue the statement, one that is usually correct itself. The error
+// then names the bracket's line and column, and says where the parser
+// stopped (ExceptionText adds the note).
+func neverClosed(err error, src string) error {
+	e, ok := err.(*py.Exception)
+	if !ok || e.Base.Name != "SyntaxError" {
+		return err
+	}
+	open, line, col, ok := unclosedBracket(src)
+	if !ok {
+		return err
+	}
+	stopped := ExceptionMessage(e)
+	if l, ok := e.Dict["lineno"].(py.Int); ok && l > 0 {
+		stopped = fmt.Sprintf("the parser stopped at line %d: %s", int(l), stopped)
+	}
+	e.Args = py.Tuple{py.String(fmt.Sprintf("'%c' is never closed", open))}
+	e.Dict["lineno"], e.Dict["offset"], e.Dict["note"] = py.Int(line), py.Int(col), py.String(stopped)
+	return e
+}
+
+// unclosedBracket finds the innermost bracket that src opens and never
+// closes, skipping comments and string literals: the bracket and its line
+// and column (1-based, in characters). ok is false when every bracket
+// closes, a closing one does not match, or a string is left open (the
+// parser's own message is then the clue).
+func unclosedBracket(src string) (open rune, line, col int, ok bool) {
+	type bracket struct {
+		c         rune
+		line, col int
+	}
+	closes := map[byte]rune{')': '(', ']': '[', '}': '{'}
+	var stack []bracket
+	line, start := 1, 0
+	for i := 0; i < len(src); i++ {
+		switch c := src[i]; c {
+		case '\n':
+			line, start = line+1, i+1
+		case '#':
+			for i+1 < len(src) && src[i+1] != '\n' {
+				i++
+			}
+		case '\'', '"':
+			q := src[i : i+1]
+			if strings.HasPrefix(src[i:], q+q+q) {
+				q += q + q
+			}
+			j := i + len(q)
+			for ; j < len(src) && !strings.HasPrefix(src[j:], q); j++ {
+				switch {
+				case src[j] == '\\' && j+1 < len(src):
+					j++ // an escaped character, a quote or a line end among them
+					if src[j] == '\n' {
+						line, start = line+1, j+1
+					}
+				case src[j] == '\n' && len(q) == 1:
+					return 0, 0, 0, false
+				case src[j] == '\n':
+					line, start = line+1, j+1
+				}
+			}
+			if j >= len(src) {
+				return 0, 0, 0, false
+			}
+			i = j + len(q) - 1
+		case '(', '[', '{':
+			stack = append(stack, bracket{rune(c), line, utf8.RuneCountInString(src[start:i]) + 1})
+		case ')', ']', '}':
+			if len(stack) == 0 || stack[len(stack)-1].c != closes[c] {
+				return 0, 0, 0, false
+			}
+			stack = stack[:len(stack)-1]
+		}
+	}
+	if len(stack) == 0 {
+		return 0, 0, 0, false
+	}
+	b := stack[len(stack)-1]
+	return b.c, b.line, b.col, true
 }

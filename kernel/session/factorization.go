@@ -50,7 +50,7 @@ func (s *Session) factorization(c *cells.Claim, t claim.Target, a interp.Args) e
 		return err
 	}
 	c.Method = claim.PolyMethod
-	c.Residual = claim.Preview(diff)
+	claim.OfPoly(diff).Record(c)
 	if diff.IsZero() {
 		c.Verdict = cells.Holds
 		c.Note = fmt.Sprintf("p = u · (product of the factors) with u = %s exactly (%s): a proof of the factorization", exact.FormatRat(unit), factors)
@@ -111,7 +111,7 @@ func (s *Session) foundFactorization(c *cells.Claim, p *exact.Poly) error {
 		return err
 	}
 	c.Method = claim.PolyMethod
-	c.Residual = claim.Preview(diff)
+	claim.OfPoly(diff).Record(c)
 	if !diff.IsZero() { // cannot happen: the factors are checked by exact division
 		return fmt.Errorf("factorization(): internal error: the factors found do not multiply back to p")
 	}

@@ -46,15 +46,54 @@ func TestLaTeXIsTypeset(t *testing.T) {
 	}
 }
 
-// A certified-digits real (no short closed form: π) and bad arguments.
+// A certified-digits real (no short closed form: π, e) is written with
+// its truncated digits marked by \ldots, in latex() and in show(latex=True)
+// alike (π: OEIS A000796, e: A001113, from memory), and bad arguments.
 func TestLaTeXDigitsAndRefusals(t *testing.T) {
-	rep := runHere(t, "print(latex(pi))")
-	if got := strings.TrimSpace(output(t, rep, 1)); !strings.HasPrefix(got, "3.14159265358979323") { // π, A000796
-		t.Errorf("latex(pi) = %q", got)
-	}
+	expectPrints(t, []printCase{
+		{"print(latex(pi))", `3.1415926535897932384\ldots`},
+		{"show(exp(1), latex=True)", `2.7182818284590452353\ldots`},
+		{"show(-exp(-20), label=\"t\", latex=True)", `t = -2.0611536224385578279\ldots \cdot 10^{-9}`},
+	})
 	expectErrors(t, []errorCase{
 		{"latex(1.5)", "latex() takes an exact value"},
 		{"latex([1, 2])", "not list"},
 		{"latex(True)", "not bool"},
 	})
+}
+
+// Residuals carry their LaTeX, written by exact's one naming rule, to the
+// HTML report, where they are typeset: a rational-function identity's
+// residual as the difference in lowest terms, one fraction (1/(x − 1) −
+// 1/(x + 1) = 2/(x² − 1), by hand), Greek variable names as Greek letters
+// (α² − θ − α·α = −θ), entries of matrix differences with their label,
+// a factorization's remainder (x² − 1 − (x − 1)(x + 2) = −x + 1, by
+// hand), and an inequality's exact slack (1/2 − 1/4 = 1/4). The expected MathML is written by hand from the W3C's MathML
+// Core (2023): §3.1 tokens (a Greek letter is a one-character <mi>, drawn
+// italic by math-auto), §3.3.2 mfrac, §3.4 msup, §3.5 mtable.
+func TestResidualsTypesetFromNotebook(t *testing.T) {
+	rep := runHere(t, "x, alpha, theta = variables(\"x alpha theta\")\n"+
+		"identity(\"fraction\", 1 / (x - 1), 1 / (x + 1))\n"+
+		"identity(\"greek\", alpha**2 - theta, alpha * alpha)\n"+
+		"identity(\"entry\", matrix([[x, 1 / (x - 1)]]), matrix([[x, 1 / (x + 1)]]))\n"+
+		"identity(\"rationals\", matrix([[1, 2], [3, 4]]), matrix([[1, 2], [3, frac(9, 2)]]))\n"+
+		"factorization(\"factors\", x**2 - 1, [x - 1, x + 2])\n"+
+		"inequality(\"slack\", frac(1, 4), frac(1, 2))")
+	page := string(cells.RenderHTML(rep))
+	frac := `<mfrac><mn>2</mn><mrow><msup><mi>x</mi><mn>2</mn></msup><mo>−</mo><mn>1</mn></mrow></mfrac>`
+	for _, want := range []string{
+		`<td class="math"><math>` + frac + `</math></td>`,
+		`<td class="math"><math><mrow><mo>−</mo><mi>θ</mi></mrow></math></td>`,
+		`<td class="math"><math><mrow><mtext>entry [0, 1] of the difference:</mtext><mspace width="0.2778em"></mspace>` + frac + `</mrow></math></td>`,
+		`<mtd><mrow><mo>−</mo><mfrac><mn>1</mn><mn>2</mn></mfrac></mrow></mtd>`,
+		`<td class="math"><math><mrow><mo>−</mo><mi>x</mi><mo>+</mo><mn>1</mn></mrow></math></td>`,
+		`<td class="math"><math><mrow><mtext>slack</mtext><mspace width="0.2778em"></mspace><mfrac><mn>1</mn><mn>4</mn></mfrac></mrow></math></td>`,
+	} {
+		if !strings.Contains(page, want) {
+			t.Errorf("the report lacks %s", want)
+		}
+	}
+	if strings.Contains(page, ">theta<") || strings.Contains(page, ">alpha<") {
+		t.Error("a Greek name is typeset as a word")
+	}
 }

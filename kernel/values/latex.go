@@ -41,17 +41,18 @@ func LaTeX(x py.Object) (string, error) {
 }
 
 // LaTeX is r's closed form in LaTeX when it has a short one (exactly
-// equal) in radicals, else its certified digits as str prints them (a
-// root named by its isolating interval included).
+// equal) in radicals, else the digits str prints (a root named by its
+// isolating interval included), truncated ones marked by \ldots
+// (exact.Real.LaTeXText).
 func (r *Real) LaTeX() (string, error) {
-	text, err := r.x.Text(printedDigits, min(r.env.Cap, 8192))
+	digits, err := r.x.LaTeXText(printedDigits, min(r.env.Cap, 8192))
 	if err != nil {
 		return "", err
 	}
 	if form, ok := r.closedForm(); ok && exact.ClosedFormIsCode(form) {
 		return exact.ClosedFormLaTeX(form)
 	}
-	return exact.LaTeXDigits(text), nil
+	return digits, nil
 }
 
 // LaTeX is the matrix as a pmatrix.

@@ -456,13 +456,20 @@ main.stale { opacity: 0.55; }
 main.stale::before { content: "stale: from the last run without errors"; display: block; font-weight: 600; color: #8f1d1d; }
 `
 
+// noReportYet begins what the page shows before the first run ends.
+const noReportYet = "No report yet: the first run has not finished for "
+
 // page is the page as served now: the report shown, with the status line,
 // its style and the update script, under the page's policy. Called with
 // s.mu held.
 func (s *Server) page() string {
 	p := s.shown
 	if p == "" {
+		// Before the first run ends there is no report: an empty one would
+		// read as a finished run with no claims, seed 0 and 0 bits.
 		p = string(cells.RenderHTML(&cells.Report{Notebook: &cells.Notebook{Path: s.path, Title: s.path}}))
+		_, inside := parts(p)
+		p = strings.Replace(p, "<main>\n"+inside, "<main>\n<p>"+html.EscapeString(noReportYet+s.path)+".</p>\n", 1)
 	}
 	mainTag := "<main>"
 	if s.state.Stale {

@@ -325,3 +325,18 @@ func TestStatusSaysWhatRuns(t *testing.T) {
 		t.Errorf("status lines:\n%s", texts)
 	}
 }
+
+// Before the first run ends the page says there is no report yet, rather
+// than show an empty one that reads as a finished run (no claims, seed 0,
+// 0 bits), and keeps its status line and update script.
+func TestPageBeforeTheFirstRun(t *testing.T) {
+	s := New("nb.md", kernel.Options{}, nil)
+	s.mu.Lock()
+	page := s.page()
+	s.mu.Unlock()
+	if !strings.Contains(page, "<main>\n<p>No report yet: the first run has not finished for nb.md.</p>\n</main>") ||
+		strings.Contains(page, "seed: 0") || strings.Contains(page, "claims: 0") ||
+		!strings.Contains(page, `role="status">starting the first run</div>`) || !strings.Contains(page, "<script>"+updateScript+"</script>") {
+		t.Errorf("page before the first run:\n%s", page)
+	}
+}
