@@ -60,6 +60,27 @@ func ballMulInt(x ball, k int64) ball {
 	return ball{new(big.Int).Mul(x.m, kb), x.e, fUp(64).Mul(x.r, radUp(kb))}
 }
 
+// ballMul returns x·y: the exact product of the midpoints, and the radius
+// |X|·RY + |Y|·RX + RX·RY.
+func ballMul(x, y ball) ball {
+	r := fUp(64).Mul(radUp(x.m), y.r)
+	r = fUp(64).Add(r, fUp(64).Mul(radUp(y.m), x.r))
+	r = fUp(64).Add(r, fUp(64).Mul(x.r, y.r))
+	return ball{mulInt(new(big.Int), x.m, y.m), x.e + y.e, r}
+}
+
+// ballTrunc returns x with its midpoint cut to about bits bits: with
+// m′ = ⌊m/2^s⌋, m − m′·2^s lies in [0, 2^s), so the radius in the new
+// unit 2^(e+s) grows by one.
+func ballTrunc(x ball, bits int) ball {
+	s := x.m.BitLen() - bits
+	if s <= 0 {
+		return x
+	}
+	r := fUp(64).Add(new(big.Float).SetMantExp(x.r, -s), fOne)
+	return ball{new(big.Int).Rsh(x.m, uint(s)), x.e + s, r}
+}
+
 // ballQuo returns a ball at unit 2^-w containing every quotient of a value
 // of x by a value of y; ok is false when y's ball may contain 0.
 //

@@ -19,7 +19,8 @@ import (
 // combine as T = T₁·Q₂ + P₁·T₂, Q = Q₁·Q₂, P = P₁·P₂, all exact
 // (Haible and Papanikolaou, "Fast multiprecision evaluation of series of
 // rational numbers", 1998). P of the whole range is computed only when
-// needP is set: the sums alone do not use it.
+// needP is set: the sums alone do not use it. Merges overwrite their
+// operands, so each leaf must return fresh integers.
 func binSplit(a, b int64, leaf func(k int64) (p, q, t *big.Int), needP bool) (p, q, t *big.Int) {
 	if b-a == 1 {
 		return leaf(a)
@@ -42,14 +43,14 @@ var ln2Cache struct {
 	w uint
 }
 
-// ln2Compute returns L with L ≤ ln2·2^w < L + 2, from ln2Machin at unit
+// ln2Compute returns L with L ≤ ln2·2^w < L + 2, from ln2Zuniga at unit
 // 2^-(w+g): with B = ⌊r⌋ + 1 > r, L = ⌊(m − B)/2^g⌋ is a lower bound,
 // and ln2·2^w ≤ (m + B)/2^g < H + 1 for H = ⌊(m + B)/2^g⌋; H ≤ L + 1
 // (checked; more guard bits otherwise) gives ln2·2^w < L + 2.
 func ln2Compute(w uint) *big.Int {
 	for g := 8; ; g += 8 {
-		b := ln2Machin(int(w) + g)
-		sh := uint(-b.e - int(w)) // g plus ln2Machin's guard bits
+		b := ln2Zuniga(int(w) + g)
+		sh := uint(-b.e - int(w)) // g plus the series' guard bits
 		r, _ := b.r.Int(nil)
 		r.Add(r, big.NewInt(1))
 		l := new(big.Int).Sub(b.m, r)
@@ -60,6 +61,41 @@ func ln2Compute(w uint) *big.Int {
 			return l
 		}
 	}
+}
+
+// ln2Zuniga returns a ball at unit 2^-(w+4) containing ln 2 by the series
+// of J. Zuniga (2024, posted on MathOverflow, question 463436, "Are these
+// fast convergent series for log 2, log 3 and log 5 already known?"):
+//
+//	ln 2 = ½·Σ_{n≥1} (1794n − 297)/(n(2n−1)) · c_n,
+//	c_n = Π_{j=1}^{n} j(2j−1)/(216·(6j−5)(6j−1)),
+//
+// 11.9 bits a term. The n(2n−1) cancels against c_n's last factor, so the
+// sum is Σ_n a_n·Π_{j≤n} p_j/q_j with a_n = 1794n − 297, p_1 = 1,
+// p_j = (j−1)(2j−3), q_j = 216(6j−5)(6j−1): binSplit with t_n = a_n·p_n.
+// The terms are positive and each is below 1/1000 of the one before
+// (a_(n+1)/a_n ≤ 3291/1497 < 2.2 and p_(n+1)/q_(n+1) = n(2n−1)/(216(6n+1)(6n+5))
+// < 1/3888), so the tail after N terms is below 2·term_(N+1), computed
+// from the exact P and Q of the split. TestLn2Routes checks the result
+// against the Machin-type formula (ln2Machin) and 2·atanh(1/3).
+func ln2Zuniga(w int) ball {
+	v := w + 4
+	n := int64(v+16)*1000/11920 + 2 // log2(3888) > 11.92
+	leaf := func(j int64) (p, q, t *big.Int) {
+		p = big.NewInt(1)
+		if j > 1 {
+			p.SetInt64((j - 1) * (2*j - 3))
+		}
+		q = big.NewInt(216 * (6*j - 5) * (6*j - 1))
+		return p, q, new(big.Int).Mul(p, big.NewInt(1794*j-297))
+	}
+	pp, q, t := binSplit(1, n+1, leaf, true)
+	// term_(N+1) = a_(N+1)·P·p_(N+1)/(Q·q_(N+1)); the tail of ½·Σ is at
+	// most term_(N+1).
+	_, qn, tn := leaf(n + 1)
+	tail := quoUp(64, fUp(64).Mul(radUp(pp), radUp(tn)), fDown(64).Mul(radDown(q), radDown(qn)))
+	s, _ := ballQuo(ball{t, 0, new(big.Float)}, ball{q.Lsh(q, 1), 0, new(big.Float)}, v)
+	return s.addRadAbs(tail)
 }
 
 // ln2Fixed returns L with L ≤ ln2·2^w < L + 2, from a shared cache. From
@@ -91,23 +127,6 @@ func ln2Ball(w uint) ball {
 	l := ln2Fixed(w)
 	m := new(big.Int).Lsh(l, 1)
 	return ball{m.Add(m, big.NewInt(2)), -int(w) - 1, big.NewFloat(2)}
-}
-
-// ln2Machin returns a ball at unit 2^-(w+5) containing
-//
-//	ln 2 = 18·atanh(1/26) − 2·atanh(1/4801) + 8·atanh(1/8749),
-//
-// a Machin-type formula (listed among the series for ln 2, e.g. in the
-// "Natural logarithm of 2" entry of Wikipedia). It is exact: with
-// atanh(1/n) = ½·log((n+1)/(n−1)) the right side is
-// log((27/25)^9·(2400/2401)·(4375/4374)^4), and that product is 2
-// (TestLn2MachinIdentity multiplies it out). The three series gain 9.4,
-// 24.5 and 26.2 bits a term, against 3.2 for ln 2 = 2·atanh(1/3).
-func ln2Machin(w int) ball {
-	v := w + 5
-	s := ballMulInt(atanRatBall(big.NewInt(1), big.NewInt(26), v, true), 18)
-	s = ballAdd(s, ballMulInt(atanRatBall(big.NewInt(1), big.NewInt(4801), v, true), -2))
-	return ballAdd(s, ballMulInt(atanRatBall(big.NewInt(1), big.NewInt(8749), v, true), 8))
 }
 
 // Chudnovsky: 1/π = 12 Σ_k (-1)^k (6k)! (A + Bk) / ((3k)! (k!)^3 C^(3k+3/2)),
@@ -157,8 +176,9 @@ func chudLeaf(k int64) (p, q, t *big.Int) {
 //
 // With T/Q the first N terms (binSplit), S = (T + εQ)/Q for some |ε| ≤ τ,
 // so π = 426880·√10005·Q/(T + εQ): one quotient of two balls, the
-// numerator from R = ⌊√(10005·4^w)⌋ (√10005·2^(w+1) lies in
-// [2R, 2R + 2]) and the denominator T ± τQ.
+// numerator the product of 426880·Q cut to w + 64 bits and
+// √10005·2^(w+1) ∈ [2R, 2R + 2], R = ⌊√(10005·4^w)⌋, and the denominator
+// T ± τQ.
 func piChudnovsky(p uint) ival {
 	w := int(p) + 16
 	n := int64(w+100)/chudLog2D + 1
@@ -167,8 +187,8 @@ func piChudnovsky(p uint) ival {
 	tail.SetMantExp(tail, -int(chudLog2D*n))
 	r := isqrt(new(big.Int).Lsh(big.NewInt(10005), 2*uint(w)))
 	r.Lsh(r, 1).Add(r, big.NewInt(1))
-	c := new(big.Int).Mul(q, big.NewInt(426880))
-	num := ball{mulInt(r, r, c), -w - 1, radUp(c)}
+	c := ballTrunc(ball{new(big.Int).Mul(q, big.NewInt(426880)), 0, new(big.Float)}, w+64)
+	num := ballMul(ball{r, -w - 1, big.NewFloat(1)}, c)
 	den := ball{t, 0, fUp(64).Mul(tail, radUp(q))}
 	v, ok := ballQuo(num, den, w)
 	if !ok { // T is about 1.4·10^7·Q: far from 0
