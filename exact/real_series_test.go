@@ -253,3 +253,41 @@ func ln2Machin(w int) ball {
 	s = ballAdd(s, ballMulInt(atanRatBall(big.NewInt(1), big.NewInt(4801), v, true), -2))
 	return ballAdd(s, ballMulInt(atanRatBall(big.NewInt(1), big.NewInt(8749), v, true), 8))
 }
+
+// TestFloatTruncPair compares floatTruncPair with decimalTrunc of each end
+// (floatTrunc), on random narrow and wide pairs and on pairs around powers
+// of ten, where the decimal exponent estimate is checked.
+func TestFloatTruncPair(t *testing.T) {
+	rng := rand.New(rand.NewSource(7))
+	check := func(a, b *big.Float, n int) {
+		t.Helper()
+		t1, e1 := floatTrunc(a, n)
+		t2, e2 := floatTrunc(b, n)
+		got, e, same := floatTruncPair(a, b, n)
+		if got.Cmp(t1) != 0 || e != e1 || same != (e1 == e2 && t1.Cmp(t2) == 0) {
+			t.Errorf("floatTruncPair(%s, %s, %d) = %s, %d, %v; want %s, %d, %v", a.Text('g', 30), b.Text('g', 30), n, got, e, same, t1, e1, e1 == e2 && t1.Cmp(t2) == 0)
+		}
+	}
+	for i := 0; i < 300; i++ {
+		prec := uint(64 + rng.Intn(2000))
+		n := 1 + rng.Intn(int(float64(prec)*0.3))
+		a := new(big.Float).SetPrec(prec).SetFloat64(rng.Float64() + 0.01)
+		a.SetMantExp(a, rng.Intn(400)-200)
+		// Fill the low bits too.
+		a.Add(a, new(big.Float).SetMantExp(big.NewFloat(rng.Float64()), a.MantExp(nil)-60))
+		d := new(big.Float).SetMantExp(big.NewFloat(rng.Float64()), a.MantExp(nil)-rng.Intn(int(prec)))
+		b := new(big.Float).SetPrec(prec).Add(a, d)
+		check(a, b, n)
+	}
+	for _, k := range []int{0, 1, 5, 30, -3, -40} {
+		p10 := new(big.Float).SetPrec(400).SetRat(new(big.Rat).SetFrac(rtPow10(max(k, 0)), rtPow10(max(-k, 0))))
+		eps := new(big.Float).SetMantExp(big.NewFloat(1), p10.MantExp(nil)-300)
+		below := new(big.Float).SetPrec(400).Sub(p10, eps)
+		above := new(big.Float).SetPrec(400).Add(p10, eps)
+		for _, n := range []int{1, 10, 60, 89} {
+			check(below, p10, n)
+			check(below, above, n)
+			check(p10, above, n)
+		}
+	}
+}
