@@ -59,8 +59,9 @@ func (x *Real) Digits(n int, maxPrec uint) (string, error) {
 		if neg {
 			a, b = new(big.Float).Neg(v.hi), new(big.Float).Neg(v.lo)
 		}
-		t1, e1, same := floatTruncPair(a, b, n)
-		if !same {
+		t1, e1 := floatTrunc(a, n)
+		t2, e2 := floatTrunc(b, n)
+		if e1 != e2 || t1.Cmp(t2) != 0 {
 			return false
 		}
 		out = formatSignificant(neg, t1, e1, n)
@@ -78,44 +79,6 @@ func floatTrunc(f *big.Float, n int) (*big.Int, int) {
 	prec := int(f.Prec())
 	m, _ := new(big.Float).SetMantExp(f, prec-e).Int(nil) // exact: f has prec bits
 	return decimalTrunc(m, e-prec, big.NewInt(1), n)
-}
-
-// floatTruncPair returns decimalTrunc of a and whether b has the same
-// truncation, for Floats 0 < a ≤ b. Over a common binary unit 2^s, with
-// k = n − 1 − e decimals kept, t = ⌊A·10^k·2^s⌋, and b keeps it iff
-// (B − A)·10^k < (t + 1)·2^-s − A·10^k: one long product and one power
-// of 10 instead of two each, since B − A is short for a narrow enclosure.
-// The decimal exponent e comes from a's leading 128 bits and is checked
-// (10^(n−1) ≤ t < 10^n); anything unusual takes decimalTrunc twice.
-func floatTruncPair(a, b *big.Float, n int) (*big.Int, int, bool) {
-	s := min(a.MantExp(nil)-int(a.Prec()), b.MantExp(nil)-int(b.Prec()))
-	A, _ := new(big.Float).SetMantExp(a, -s).Int(nil) // exact: s is at or below both last bits
-	B, _ := new(big.Float).SetMantExp(b, -s).Int(nil)
-	one := big.NewInt(1)
-	_, e := floatTrunc(new(big.Float).SetPrec(128).Set(a), 30)
-	k := n - 1 - e
-	if s < 0 && k >= 0 {
-		ten := big.NewInt(10)
-		pk := new(big.Int).Exp(ten, big.NewInt(int64(k)), nil)
-		x := mulInt(new(big.Int), A, pk)
-		t := new(big.Int).Rsh(x, uint(-s))
-		low := new(big.Int) // 10^(n−1) = 10^(k+e)
-		if e >= 0 {
-			low.Mul(pk, new(big.Int).Exp(ten, big.NewInt(int64(e)), nil))
-		} else {
-			low.Quo(pk, new(big.Int).Exp(ten, big.NewInt(int64(-e)), nil))
-		}
-		if t.Cmp(low) >= 0 && t.Cmp(low.Mul(low, ten)) < 0 {
-			room := new(big.Int).Add(t, one)
-			room.Lsh(room, uint(-s))
-			room.Sub(room, x)
-			d := new(big.Int).Sub(B, A)
-			return t, e, mulInt(d, d, pk).Cmp(room) < 0
-		}
-	}
-	t, e := decimalTrunc(A, s, one, n)
-	t2, e2 := decimalTrunc(B, s, one, n)
-	return t, e, e2 == e && t2.Cmp(t) == 0
 }
 
 // log2Int approximates log2(x) for x > 0.
