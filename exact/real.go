@@ -10,9 +10,10 @@ package exact
 // takes its operands' enclosures and computes an interval containing every
 // value of the operation on them, rounding every lower endpoint toward −∞
 // and every upper endpoint toward +∞ (real_interval.go). Roots come from
-// exact integer roots (real_root.go); π and exp of a rational from
-// binary-split series with exact tail bounds (real_const.go); sin, cos,
-// atan, acos and atan2 from Taylor series in interval arithmetic with
+// exact integer roots (real_root.go); π, ln 2, and exp, log, sin, cos and
+// atan of short rationals from binary-split series with exact tail bounds,
+// as midpoint–radius balls (real_const.go, real_ball.go); sin, cos, atan,
+// acos and atan2 otherwise from Taylor series in interval arithmetic with
 // alternating-series tail bounds (real_trig.go); exp and log in general
 // from series in exact fixed-point integer arithmetic with proved bounds:
 // ln 2 by binary splitting, exp by reduction modulo ln 2, halving and

@@ -97,3 +97,31 @@ func BenchmarkRealExp4096(b *testing.B) { benchExpLog(b, 4096, false) }
 func BenchmarkRealLog256(b *testing.B)  { benchExpLog(b, 256, true) }
 func BenchmarkRealLog1024(b *testing.B) { benchExpLog(b, 1024, true) }
 func BenchmarkRealLog4096(b *testing.B) { benchExpLog(b, 4096, true) }
+
+// Issue 20: 100,000 certified digits, compared with the reference program
+// (digits NAME 100000); the figures are at the top of real_const.go.
+func benchDigits100k(b *testing.B, mk func() *Real) {
+	for i := 0; i < b.N; i++ {
+		rtResetPiCache()
+		ln2Cache.Lock()
+		ln2Cache.l, ln2Cache.w = nil, 0
+		ln2Cache.Unlock()
+		if _, err := mk().Digits(100000, 1<<21); err != nil {
+			b.Fatal(err)
+		}
+	}
+}
+
+func BenchmarkRealDigitsPi_100000(b *testing.B) { benchDigits100k(b, Pi) }
+func BenchmarkRealDigitsE_100000(b *testing.B) {
+	benchDigits100k(b, func() *Real { return RealExp(RealFromInt(1)) })
+}
+func BenchmarkRealDigitsLog2_100000(b *testing.B) {
+	benchDigits100k(b, func() *Real { return RealLog(RealFromInt(2)) })
+}
+func BenchmarkRealDigitsSin1_100000(b *testing.B) {
+	benchDigits100k(b, func() *Real { return RealSin(RealFromInt(1)) })
+}
+func BenchmarkRealDigitsExp1_3_100000(b *testing.B) {
+	benchDigits100k(b, func() *Real { return RealExp(RealFromRat(big.NewRat(1, 3))) })
+}

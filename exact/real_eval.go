@@ -153,6 +153,9 @@ func (x *Real) compute(p uint) (ival, error) {
 		}
 		return ivExp(a, p)
 	case opLog:
+		if r := x.x.exact; r != nil && r.Sign() > 0 && ratSeriesOK(r, math.Inf(1)) {
+			return logRatIval(r, p), nil
+		}
 		switch {
 		case a.hi.Sign() <= 0:
 			return ival{}, fmt.Errorf("log of a non-positive number: %w", ErrDomain)
@@ -161,12 +164,18 @@ func (x *Real) compute(p uint) (ival, error) {
 		}
 		return ivLog(a, p), nil
 	case opSin, opCos:
+		if r := x.x.exact; r != nil && r.Sign() != 0 && ratSeriesOK(r, 8) {
+			return sinCosRatIval(r, p, x.op == opCos), nil
+		}
 		s, c, err := ivSinCos(a, p)
 		if x.op == opSin {
 			return s, err
 		}
 		return c, err
 	case opAtan:
+		if r := x.x.exact; r != nil && r.Sign() != 0 && atanRatOK(r) {
+			return atanRatIval(r, p), nil
+		}
 		return ivRound(ivAtan(a, p+8), p), nil
 	case opAcos:
 		m1 := big.NewFloat(-1)

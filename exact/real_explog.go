@@ -7,8 +7,8 @@ package exact
 // arithmetic is exact and every shift or division below says which way it
 // rounds, so each bound is a statement about integers.
 //
-//   - ln 2 = 2·atanh(1/3), its series summed exactly by binary splitting
-//     with a tail bound (ln2Fixed, real_const.go).
+//   - ln 2 by Zuniga's series, summed exactly by binary splitting with a
+//     tail bound (ln2Fixed, real_const.go).
 //   - exp x = 2^k·exp r with k = round(x/ln 2), |r| ≤ ln2/2 + ε, and
 //     exp r = exp(r/2^s)^(2^s), exp(r/2^s) by its Taylor series with a
 //     bound on the truncations and the tail (expFixed). The factor 2^k is
