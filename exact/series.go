@@ -134,6 +134,17 @@ func (s *Series) Leading() (c *Real, exp *big.Rat, ok bool) {
 	return s.c[0], big.NewRat(int64(s.val), int64(s.den)), true
 }
 
+// LeadingSign returns the sign of the leading coefficient, which is the
+// sign of the series' value near the expansion point; ok is false when
+// no term is known within the order.
+func (s *Series) LeadingSign() (sign int, ok bool, err error) {
+	if len(s.c) == 0 {
+		return 0, false, nil
+	}
+	sign, err = s.c[0].Sign(s.cap)
+	return sign, err == nil, err
+}
+
 // Order returns k of the error term O(t^k); ok is false for a constant.
 func (s *Series) Order() (*big.Rat, bool) {
 	if s.Exact() {

@@ -82,15 +82,7 @@ limit("asks a simplex's type", squeezed, toward=0, expect=1, steps=12)
 limit("oscillates", lambda t: sin(1 / t), toward=0, steps=20)
 limit("series only", lambda t: sin(1 / t), toward=0, method="series")
 limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
-	o := rep.Outcomes[0]
-	if o.Error != nil {
-		t.Fatalf("cell failed: %s", o.Error.Message)
-	}
-	want := []struct {
-		verdict cells.Verdict
-		method  string
-		note    string
-	}{
+	checkClaims(t, rep.Outcomes[0], []claimWant{
 		{cells.Holds, "series expansion", "1 - 1/6*t^2 + 1/120*t^4 + O(t^6): the limit is 1"},
 		{cells.Fails, "series expansion", "the limit is 1"},
 		// exp(1) against the expansion's exp(1): transcendental, so certified digits.
@@ -116,6 +108,25 @@ limit("archimedes", lambda n: n * sin(pi / n), toward=infinity, expect=pi)`)
 		{cells.Undecided, "series expansion", "not decided by series expansion"},
 		// n·sin(π/n) = π − π³/(6n²) + …: the limit π (Archimedes), transcendental.
 		{cells.HoldsToDigits, "series expansion", "the limit is 3.14159265"},
+	})
+}
+
+// claimWant is a claim's expected verdict, method ("" for any) and a
+// part of its note.
+type claimWant struct {
+	verdict cells.Verdict
+	method  string
+	note    string
+}
+
+// checkClaims checks a cell's claims, in order, against want.
+func checkClaims(t *testing.T, o cells.Outcome, want []claimWant) {
+	t.Helper()
+	if o.Error != nil {
+		t.Fatalf("cell failed: %s", o.Error.Message)
+	}
+	if len(o.Claims) != len(want) {
+		t.Fatalf("%d claims, want %d", len(o.Claims), len(want))
 	}
 	for i, c := range o.Claims {
 		w := want[i]
