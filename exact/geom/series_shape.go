@@ -304,9 +304,9 @@ func wrap(op string, err error) error {
 	return fmt.Errorf("%s: %w", op, err)
 }
 
-// combine is Σ_m w_m v_m / total, coordinate by coordinate, as
-// v_0 + Σ_{m≥1} w_m e_m / total when Σ w_m = total (sumOne), which keeps
-// the constant part of v_0 out of the division.
+// combine is Σ_m w_m v_m / total for weights summing to total, computed
+// coordinate by coordinate as v_0 + Σ_{m≥1} w_m e_m / total (w_0 is not
+// read), which keeps v_0 out of the division.
 func (s *SeriesShape) combine(o *ops, w []*exact.Series, total *exact.Series) []*exact.Series {
 	out := make([]*exact.Series, len(s.p[0]))
 	for c := range out {
@@ -333,7 +333,7 @@ func (s *SeriesShape) Circumcenter() ([]*exact.Series, error) {
 	}
 	var o ops
 	w := make([]*exact.Series, s.k+1)
-	w[0] = sconst(0) // unused by combine
+	w[0] = sconst(0) // not read by combine
 	for a := 1; a <= s.k; a++ {
 		z := sconst(0)
 		for b := range s.k {

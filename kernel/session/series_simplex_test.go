@@ -16,8 +16,9 @@ import (
 // (1, 1, 1), whose coordinates at t = 1 are exact. A flattening
 // tetrahedron with apex (2, 1, t) over the base (0,0,0), (1,0,0),
 // (0,1,0) has R² = t⁻² + 3/2 + t²/4 (derived in the same file), so
-// R ~ 1/t. The needle's inradius/t → 1/(2 + √2) is checked by
-// extrapolation in TestAsymptoticClaims.
+// R ~ 1/t. The sliver's r ~ (7/6)·t, its radius ratio's and circumcentre
+// height's leading coefficients are checked by the extrapolation route
+// too (the needle's inradius in TestAsymptoticClaims).
 func TestSeriesSimplexClaims(t *testing.T) {
 	rep := runHere(t, `def squeezed(t):
     return simplex([[x, y, t * z] for x, y, z in [[0, 0, 0], [4, 0, 1], [1, 3, 2], [3, 2, -1]]])
@@ -30,9 +31,12 @@ limit("radius ratio against r and R", lambda t: squeezed(t).radius_ratio() * sqr
 limit("barycentric of a squeezed point", lambda t: squeezed(t).barycentric([1, 1, t])[2], toward=0, expect=squeezed(1).barycentric([1, 1, 1])[2])
 asymptotic("flattening circumradius", lambda t: sqrt(apex(t).circumradius_sq()), expect=(1, -1))
 limit("radius ratio by extrapolation", lambda t: squeezed(t).radius_ratio() / t**2, toward=0, expect=frac(245, 36), method="extrapolation")
+limit("inradius / t by extrapolation", lambda t: squeezed(t).inradius() / t, toward=0, expect=frac(7, 6), method="extrapolation")
+limit("circumcentre height * t by extrapolation", lambda t: squeezed(t).circumcenter()[2] * t, toward=0, expect=frac(18, 35), method="extrapolation")
 limit("vertex angle falls back", lambda t: squeezed(t).vertex_angle(0, 1, 2), toward=0, expect=acos(sqrt(frac(1, 10))), steps=16)
 limit("contains falls back", lambda t: 1 if squeezed(t).contains([1, 1, 0]) else 0, toward=0, expect=1, steps=12)`)
-	checkClaims(t, rep.Outcomes[0], []claimWant{
+	o := rep.Outcomes[0]
+	checkClaims(t, o, []claimWant{
 		{cells.Holds, "series expansion", "18/35*t^(-1)"},
 		{cells.Holds, "series expansion", "the limit is 131/70"},
 		{cells.Holds, "series expansion", "245/36*t^2"},
@@ -40,9 +44,16 @@ limit("contains falls back", lambda t: 1 if squeezed(t).contains([1, 1, 0]) else
 		{cells.Holds, "series expansion", ""},
 		{cells.Holds, "series expansion", "t^(-1)"},
 		{cells.Estimated, "", ""},
+		{cells.Estimated, "", ""},
+		{cells.Estimated, "", ""},
 		{cells.Estimated, "", "vertex_angle() is transcendental in the coordinates"},
 		{cells.Estimated, "", "contains() is not available for a simplex with series coordinates"},
 	})
+	for _, c := range o.Claims[6:9] {
+		if c.Digits < 10 {
+			t.Errorf("%s: %d digits by extrapolation (%s)", c.Name, c.Digits, c.Note)
+		}
+	}
 }
 
 // Every result of a series simplex is what the simplex of numbers gives,
