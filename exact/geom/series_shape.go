@@ -17,9 +17,10 @@ package geom
 // quantity rooted here (squared contents, squared lengths) is positive
 // near the expansion point when the simplex is not degenerate there.
 //
-// Angles (acos, atan2) are transcendental and are not here; neither is a
-// decision such as containment, whose answer may change with t at no
-// order a truncated series reaches.
+// Angles are transcendental and are not here (the kernel takes
+// exact.SeriesAcos of the cosines); neither is a decision such as
+// containment, whose answer may change with t at no order a truncated
+// series reaches.
 //
 // Measured (go test -bench Series ./exact/geom, 2 cores shared by up to
 // 8 sessions, load average 15, December 2026): the squeezed tetrahedron

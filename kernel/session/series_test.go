@@ -26,6 +26,9 @@ func TestSeriesFromNotebook(t *testing.T) {
 print(s.leading, s.order, s.terms()[1])`, "(sqrt(2), 0) 2 (sqrt(2)/4, 1)"},
 		{`print(series(lambda t: sqrt(t + t**2), order=2))`, "t^(1/2) + 1/2*t^(3/2) + O(t^2)"},
 		{`print(series(lambda t: abs(-t) + frac(1, 2) * t))`, "3/2*t + O(t^6)"},
+		// arccos t = π/2 − arcsin t, arcsin t = t + t³/6 + 3t⁵/40 + …
+		// (A&S 4.4.40, from memory)
+		{`print(series(lambda t: acos(t), order=6))`, "1.57079632679 - t - 1/6*t^3 - 3/40*t^5 + O(t^6)"},
 	})
 	expectErrors(t, []errorCase{
 		{`series(lambda t: exp(1 / t))`, "essential singularity"},
@@ -42,7 +45,9 @@ print(s.leading, s.order, s.terms()[1])`, "(sqrt(2), 0) 2 (sqrt(2)/4, 1)"},
 		{`x = variables("x")
 series(lambda t: t + x)`, "unsupported operand"},
 		{`series(lambda t: t, order=65)`, "order must be an integer from 1 to 64"},
-		{`series(lambda t: acos(t))`, "acos() of a series is not supported"},
+		{`series(lambda t: acos(1 - t**2))`, "acos has a branch point at ±1"},
+		{`series(lambda t: acos(2 + t))`, "outside [−1, 1]"},
+		{`series(lambda t: atan2(t, 1))`, "atan2() needs exact numbers or reals"},
 		{`series(lambda t: t * 0.5)`, "cannot be mixed with a float64"},
 		{`series(lambda t: 2 ** t)`, "exp(t * log(x))"},
 		{`series(3)`, "needs a function of t"},

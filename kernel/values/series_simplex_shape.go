@@ -16,34 +16,22 @@ import (
 // the same name (a point is a list of series, facet_normal a pair), so
 // that f computes on series what it computes on numbers.
 
-// seriesTranscendental names the simplex methods that need acos or atan2
-// of the coordinates, and seriesDecisions those that decide a sign or an
-// equality; series simplices refuse both (refuseSimplexOnly).
-var (
-	seriesTranscendental = map[string]string{
-		"vertex_angle":       "vertex_cos(i, j, k)",
-		"dihedral_angle":     "dihedral_cos(i, j)",
-		"min_dihedral_angle": "dihedral_cos(i, j)",
-		"max_dihedral_angle": "dihedral_cos(i, j)",
-		"solid_angle":        "",
-	}
-	seriesDecisions = map[string]string{
-		"contains":      "whether p is inside is a sign decision on each barycentric coordinate, and a coordinate that tends to 0 may change sign at an order no truncated series reaches; use barycentric(p), whose coordinates expand",
-		"is_degenerate": "whether the volume is exactly zero is an equality no truncated series can prove; use volume_sq(), whose leading term is known when it is not",
-	}
-)
+// seriesUnexpanded says why a series simplex lacks a simplex method:
+// atan2 has no series here, choosing the extreme of several angles is a
+// comparison, and the decisions (a sign, an equality) may change with t
+// at no order a truncated series reaches. refuseSimplexOnly raises these.
+var seriesUnexpanded = map[string]string{
+	"solid_angle":        "it is an atan2 of the coordinates, transcendental, and series expand acos but not atan2; vertex_angle(i, j, k) and dihedral_angle(i, j) expand",
+	"min_dihedral_angle": "it picks the smallest of the dihedral angles, a comparison between them; dihedral_angle(i, j) expands for each pair",
+	"max_dihedral_angle": "it picks the largest of the dihedral angles, a comparison between them; dihedral_angle(i, j) expands for each pair",
+	"contains":           "whether p is inside is a sign decision on each barycentric coordinate, and a coordinate that tends to 0 may change sign at an order no truncated series reaches; use barycentric(p), whose coordinates expand",
+	"is_degenerate":      "whether the volume is exactly zero is an equality no truncated series can prove; use volume_sq(), whose leading term is known when it is not",
+}
 
 // seriesRefusal is the message of a simplex method a series simplex does
 // not have.
 func seriesRefusal(name string) string {
-	if alt, ok := seriesTranscendental[name]; ok {
-		msg := fmt.Sprintf("%s() is transcendental in the coordinates (an acos or atan2 of them), and a simplex with series coordinates expands only the measures algebraic in them", name)
-		if alt != "" {
-			msg += "; " + alt + " is algebraic and expands, and a limit of the cosine gives the angle's limit"
-		}
-		return msg
-	}
-	if why, ok := seriesDecisions[name]; ok {
+	if why, ok := seriesUnexpanded[name]; ok {
 		return fmt.Sprintf("%s() is not available for a simplex with series coordinates: %s", name, why)
 	}
 	return fmt.Sprintf("%s() is not available for a simplex with series coordinates (its result is not a number or a point, which series simplices give)", name)
@@ -231,6 +219,20 @@ func init() {
 			}
 			return s.measure("vertex_cos", func(x sh) (*exact.Series, error) { return x.VertexCos(idx[0], idx[1], idx[2]) })
 		}},
+		{"vertex_angle", params("i", "j", "k"), "vertex_angle(i, j, k) -> acos of vertex_cos(i, j, k), a series while the cosine's value at the point is inside (-1, 1)", func(s *SeriesSimplex, a interp.Args) (py.Object, error) {
+			idx, err := vertexIndices("vertex_angle", a, len(s.p), "i", "j", "k")
+			if err != nil {
+				return nil, err
+			}
+			return s.measure("vertex_angle", func(x sh) (*exact.Series, error) { return acosOf(x.VertexCos(idx[0], idx[1], idx[2])) })
+		}},
+		{"dihedral_angle", params("i", "j"), "dihedral_angle(i, j) -> acos of dihedral_cos(i, j), a series while the cosine's value at the point is inside (-1, 1)", func(s *SeriesSimplex, a interp.Args) (py.Object, error) {
+			idx, err := vertexIndices("dihedral_angle", a, len(s.p), "i", "j")
+			if err != nil {
+				return nil, err
+			}
+			return s.measure("dihedral_angle", func(x sh) (*exact.Series, error) { return acosOf(x.DihedralCos(idx[0], idx[1])) })
+		}},
 		{"dihedral_cos", params("i", "j"), "dihedral_cos(i, j) -> cosine of the dihedral angle between the facets opposite i and j, a series", func(s *SeriesSimplex, a interp.Args) (py.Object, error) {
 			idx, err := vertexIndices("dihedral_cos", a, len(s.p), "i", "j")
 			if err != nil {
@@ -272,4 +274,13 @@ func init() {
 			return s.face("facet", idx)
 		}},
 	})
+}
+
+// acosOf is acos of a cosine (exact.SeriesAcos: refused where the
+// cosine tends to ±1, a branch point of acos).
+func acosOf(cos *exact.Series, err error) (*exact.Series, error) {
+	if err != nil {
+		return nil, err
+	}
+	return exact.SeriesAcos(cos)
 }
