@@ -15,8 +15,8 @@ package exact
 //     (1 + u)^α is too, and the result is known to O(t^(α·v + ord − v)).
 //     Dividing by a series with positive valuation v therefore loses v
 //     orders: sin(t)/t is known to one order less than sin(t);
-//   - exp, log, sin and cos of a series with a finite value at 0 keep its
-//     absolute order.
+//   - exp, log, sin, cos and acos of a series with a finite value at 0
+//     keep its absolute order.
 //
 // Only constants are exact (no error term); the variable itself is
 // t + O(t^order), a true statement that lets products and quotients
@@ -132,6 +132,17 @@ func (s *Series) Leading() (c *Real, exp *big.Rat, ok bool) {
 		return nil, nil, false
 	}
 	return s.c[0], big.NewRat(int64(s.val), int64(s.den)), true
+}
+
+// LeadingSign returns the sign of the leading coefficient, which is the
+// sign of the series' value near the expansion point; ok is false when
+// no term is known within the order.
+func (s *Series) LeadingSign() (sign int, ok bool, err error) {
+	if len(s.c) == 0 {
+		return 0, false, nil
+	}
+	sign, err = s.c[0].Sign(s.cap)
+	return sign, err == nil, err
 }
 
 // Order returns k of the error term O(t^k); ok is false for a constant.
@@ -461,37 +472,7 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 	if _, err := commonDen(a.den*q, 1); err != nil && !onGrid {
 		return nil, err
 	}
-	// Euler's recurrence for b = a^α (Knuth, TAOCP 2, §4.7):
-	// b_k = 1/(k·a_0) · Σ_{j=1..k} ((α+1)·j − k)·a_j·b_{k−j}.
-	alpha := big.NewRat(int64(p), int64(q))
-	inv := RealQuo(RealFromInt(1), c0)
-	b := make([]*Real, n)
-	b[0] = b0
-	for k := 1; k < n; k++ {
-		var sum *Real
-		for j := 1; j <= k && j < len(a.c); j++ {
-			if isZeroRat(a.c[j]) {
-				continue
-			}
-			w := new(big.Rat).Add(alpha, big.NewRat(1, 1))
-			w.Mul(w, big.NewRat(int64(j), 1))
-			w.Sub(w, big.NewRat(int64(k), 1))
-			if w.Sign() == 0 {
-				continue
-			}
-			t := mulR(RealFromRat(w), mulR(a.c[j], b[k-j]))
-			if sum == nil {
-				sum = t
-			} else {
-				sum = addR(sum, t)
-			}
-		}
-		if sum == nil {
-			b[k] = realZero
-			continue
-		}
-		b[k] = mulR(mulR(sum, inv), RealFromRat(big.NewRat(1, int64(k))))
-	}
+	b := eulerPower(a.c, big.NewRat(int64(p), int64(q)), b0, n)
 	if onGrid {
 		val := a.val * p / q
 		return seriesNormal(a.den, val, val+n, b, a.cap)
@@ -508,6 +489,42 @@ func SeriesPow(a *Series, p, q int) (*Series, error) {
 		c[k*q] = x
 	}
 	return seriesNormal(den, val, val+n*q, c, a.cap)
+}
+
+// eulerPower returns the first n coefficients of b = a^α, a power series
+// with a_0 ≠ 0 (coefficients past len(a) are 0) and b_0 = a_0^α given, by
+// Euler's recurrence (Knuth, TAOCP 2, §4.7):
+// b_k = 1/(k·a_0) · Σ_{j=1..k} ((α+1)·j − k)·a_j·b_{k−j}.
+func eulerPower(a []*Real, alpha *big.Rat, b0 *Real, n int) []*Real {
+	inv := RealQuo(RealFromInt(1), a[0])
+	b := make([]*Real, n)
+	b[0] = b0
+	for k := 1; k < n; k++ {
+		var sum *Real
+		for j := 1; j <= k && j < len(a); j++ {
+			if isZeroRat(a[j]) {
+				continue
+			}
+			w := new(big.Rat).Add(alpha, big.NewRat(1, 1))
+			w.Mul(w, big.NewRat(int64(j), 1))
+			w.Sub(w, big.NewRat(int64(k), 1))
+			if w.Sign() == 0 {
+				continue
+			}
+			t := mulR(RealFromRat(w), mulR(a[j], b[k-j]))
+			if sum == nil {
+				sum = t
+			} else {
+				sum = addR(sum, t)
+			}
+		}
+		if sum == nil {
+			b[k] = realZero
+			continue
+		}
+		b[k] = mulR(mulR(sum, inv), RealFromRat(big.NewRat(1, int64(k))))
+	}
+	return b
 }
 
 func ordinal(q int) string {
@@ -684,6 +701,54 @@ func seriesTrig(a *Series, fn string) (*Series, error) {
 		}
 	}
 	return a.fromCoefs(out)
+}
+
+// SeriesAcos returns acos(a) for a series whose value c0 at 0 lies in
+// (−1, 1), where acos is analytic. At ±1 acos has a branch point
+// (acos(1 − x) ~ √(2x)) and beyond it no real value: both are refused.
+func SeriesAcos(a *Series) (*Series, error) {
+	c0, u, err := a.split("acos")
+	if err != nil {
+		return nil, err
+	}
+	// h_0 = 1 − c0² must be positive.
+	h0 := subR(RealFromInt(1), mulR(c0, c0))
+	sign, err := h0.Sign(a.cap)
+	if err != nil {
+		return nil, err
+	}
+	if sign <= 0 {
+		lead, _ := c0.Text(8, a.cap)
+		if sign == 0 {
+			return nil, fmt.Errorf("acos of a series whose value at the expansion point is %s: acos has a %w at ±1 (acos(1 − x) ~ √(2x), acos(−1 + x) ~ π − √(2x)), which this expansion does not follow", lead, ErrBranchPoint)
+		}
+		return nil, fmt.Errorf("acos of a series whose value at the expansion point is %s, outside [−1, 1]: %w", lead, ErrDomain)
+	}
+	if a.Exact() {
+		return SeriesConst(RealAcos(c0), a.cap), nil
+	}
+	// y = acos(c0 + u): y' = −u'·g with g = h^(−1/2), h = 1 − (c0 + u)²,
+	// so k·y_k = −Σ_{j=1..k} j·u_j·g_{k−j}; g by Euler's recurrence
+	// (eulerPower) on h_k = −2c0·u_k − Σ_{j=1..k−1} u_j·u_{k−j}.
+	n := len(u)
+	h := make([]*Real, n)
+	h[0] = h0
+	for k := 1; k < n; k++ {
+		x := mulR(RealFromInt(-2), mulR(c0, u[k]))
+		for j := 1; j < k; j++ {
+			if !isZeroRat(u[j]) && !isZeroRat(u[k-j]) {
+				x = subR(x, mulR(u[j], u[k-j]))
+			}
+		}
+		h[k] = x
+	}
+	g := eulerPower(h, big.NewRat(-1, 2), RealQuo(RealFromInt(1), RealSqrt(h0)), n)
+	y := make([]*Real, n)
+	y[0] = RealAcos(c0)
+	for k := 1; k < n; k++ {
+		y[k] = derivSum(u, g, k, -1)
+	}
+	return a.fromCoefs(y)
 }
 
 // String prints s in the variable name, e.g. "1 - 1/6*t^2 + O(t^4)":

@@ -100,3 +100,17 @@ func BenchmarkSeriesInradius(b *testing.B) {
 		"asymptotic(\"inradius ~ 7/6 t\", lambda t: squeezed(t).inradius(), expect=(frac(7, 6), 1))\n```\n")
 	benchNotebook(b, src, cells.Holds)
 }
+
+// BenchmarkSeriesCircumcenter: the sliver demo's claim on a new series
+// measure — the circumcentre running off as (18/35)/t — and series() of
+// a touch point and of the radius ratio, the whole notebook run in-process (figures at the top of
+// exact/geom/series_shape.go).
+func BenchmarkSeriesCircumcenter(b *testing.B) {
+	src := []byte("# bench\n\n```cell\n" +
+		"def squeezed(t):\n" +
+		"    return simplex([[x, y, t * z] for x, y, z in [[0, 0, 0], [4, 0, 1], [1, 3, 2], [3, 2, -1]]])\n" +
+		"s = series(lambda t: squeezed(t).touch_points()[3][2], order=6)\n" +
+		"asymptotic(\"circumcentre height\", lambda t: squeezed(t).circumcenter()[2], expect=(frac(18, 35), -1))\n" +
+		"r = series(lambda t: squeezed(t).radius_ratio(), order=6)\n```\n")
+	benchNotebook(b, src, cells.Holds)
+}

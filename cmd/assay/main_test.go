@@ -124,6 +124,8 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"series-essential-singularity.md", 6, "exp of a series that tends to infinity", nil},
 		{"series-branch-point.md", 6, "square root of a series whose leading coefficient -1 is negative", nil},
 		{"series-compare.md", 6, "TypeError: comparison of a series", nil},
+		{"series-simplex-transcendental.md", 8, "it is an atan2 of the coordinates, transcendental", nil},
+		{"series-simplex-contains.md", 8, "contains() is not available for a simplex with series coordinates", nil},
 		{"series-order-range.md", 4, "series(): order must be an integer from 1 to 64, got 0", nil},
 		{"sweep-generator-raises.md", 7, "the sample generator raised at sample 3: IndexError", nil},
 		{"sweep-wrong-shape.md", 4, "f(sample 0) must return a pair (lhs, rhs), got a tuple", nil},

@@ -7,8 +7,6 @@ package geom
 // division per measure are taken, so the series' error terms stay small.
 
 import (
-	"fmt"
-
 	"assay/exact"
 )
 
@@ -74,47 +72,39 @@ func (p SeriesPoints) VolumeSq() (*exact.Series, error) {
 	if err := p.check(); err != nil {
 		return nil, err
 	}
-	k := len(p) - 1
-	g := make([][]*exact.Series, k)
-	for i := range g {
-		g[i] = make([]*exact.Series, k)
-	}
-	edge := make([][]*exact.Series, k)
-	for i := range k {
-		edge[i] = make([]*exact.Series, len(p[0]))
-		for c := range p[0] {
-			var err error
-			if edge[i][c], err = exact.SeriesSub(p[i+1][c], p[0][c]); err != nil {
-				return nil, err
-			}
-		}
-	}
-	for i := range k {
-		for j := i; j < k; j++ {
-			var dot *exact.Series
-			for c := range edge[i] {
-				x, err := exact.SeriesMul(edge[i][c], edge[j][c])
-				if err != nil {
-					return nil, err
-				}
-				if dot == nil {
-					dot = x
-				} else if dot, err = exact.SeriesAdd(dot, x); err != nil {
-					return nil, err
-				}
-			}
-			g[i][j], g[j][i] = dot, dot
-		}
+	var o ops
+	_, g := gramOf(&o, p)
+	if o.err != nil {
+		return nil, o.err
 	}
 	det, err := exact.SeriesDet(g)
 	if err != nil {
 		return nil, err
 	}
-	f := int64(1)
-	for i := 2; i <= k; i++ {
-		f *= int64(i)
+	return o.quo(det, sconst(factorialSq(len(p)-1))), o.err
+}
+
+// gramOf returns the edges e_a = v_a − v_0 and their Gram matrix.
+func gramOf(o *ops, p SeriesPoints) (edges, gram [][]*exact.Series) {
+	k := len(p) - 1
+	edges = make([][]*exact.Series, k)
+	for a := range k {
+		edges[a] = make([]*exact.Series, len(p[0]))
+		for c := range p[0] {
+			edges[a][c] = o.sub(p[a+1][c], p[0][c])
+		}
 	}
-	return exact.SeriesQuo(det, exact.SeriesConst(exact.RealFromInt(f*f), 0))
+	gram = make([][]*exact.Series, k)
+	for a := range gram {
+		gram[a] = make([]*exact.Series, k)
+	}
+	for a := range k {
+		for b := a; b < k; b++ {
+			gram[a][b] = o.dot(edges[a], edges[b])
+			gram[b][a] = gram[a][b]
+		}
+	}
+	return edges, gram
 }
 
 // FacetContentsSq lists the squared (k−1)-volumes of the facets, facet i
@@ -138,72 +128,42 @@ func (p SeriesPoints) FacetContentsSq() ([]*exact.Series, error) {
 
 // Inradius is k·V / Σ F_i, V the volume and F_i the facet contents
 // (square roots taken on the branch of exact.SeriesPow: positive leading
-// coefficients, as volumes have).
+// coefficients, as volumes have); see SeriesShape.Inradius.
 func (p SeriesPoints) Inradius() (*exact.Series, error) {
-	v2, err := p.VolumeSq()
+	s, err := p.Shape()
 	if err != nil {
 		return nil, err
 	}
-	v, err := exact.SeriesPow(v2, 1, 2)
-	if err != nil {
-		return nil, fmt.Errorf("inradius: the volume: %w", err)
-	}
-	fs, err := p.FacetContentsSq()
-	if err != nil {
-		return nil, err
-	}
-	var sum *exact.Series
-	for _, f2 := range fs {
-		f, err := exact.SeriesPow(f2, 1, 2)
-		if err != nil {
-			return nil, fmt.Errorf("inradius: a facet's content: %w", err)
-		}
-		if sum == nil {
-			sum = f
-		} else if sum, err = exact.SeriesAdd(sum, f); err != nil {
-			return nil, err
-		}
-	}
-	kv, err := exact.SeriesMul(exact.SeriesConst(exact.RealFromInt(int64(len(p)-1)), 0), v)
-	if err != nil {
-		return nil, err
-	}
-	return exact.SeriesQuo(kv, sum)
+	return s.Inradius()
 }
 
-// CircumradiusSq is R² = −det(D) / (2·det(CM)), D the squared distances
-// and CM the Cayley–Menger matrix (D bordered by a row and column of ones
-// and a zero corner). From the circumcentre's barycentric coordinates,
-// which solve CM·(λ0, λ) = (1, 0…); checked on the equilateral and right
-// triangles and the regular tetrahedron (R² = 1/3, c²/4, 3/8 for unit
-// edges and legs).
+// CircumradiusSq is R², checked on the equilateral and right triangles
+// and the regular tetrahedron (R² = 1/3, c²/4, 3/8 for unit edges and
+// legs); see SeriesShape.CircumradiusSq.
 func (p SeriesPoints) CircumradiusSq() (*exact.Series, error) {
+	s, err := p.Shape()
+	if err != nil {
+		return nil, err
+	}
+	return s.CircumradiusSq()
+}
+
+// CayleyMenger is the determinant of the squared distances bordered by a
+// row and column of ones and a zero corner.
+func (p SeriesPoints) CayleyMenger() (*exact.Series, error) {
 	d, err := p.SqDistances()
 	if err != nil {
 		return nil, err
 	}
 	n := len(d)
-	one := exact.SeriesConst(exact.RealFromInt(1), 0)
 	cm := make([][]*exact.Series, n+1)
 	cm[0] = make([]*exact.Series, n+1)
-	cm[0][0] = exact.SeriesConst(exact.RealFromInt(0), 0)
+	cm[0][0] = sconst(0)
 	for j := 1; j <= n; j++ {
-		cm[0][j] = one
+		cm[0][j] = sconst(1)
 	}
 	for i := range n {
-		cm[i+1] = append([]*exact.Series{one}, d[i]...)
+		cm[i+1] = append([]*exact.Series{sconst(1)}, d[i]...)
 	}
-	dd, err := exact.SeriesDet(d)
-	if err != nil {
-		return nil, err
-	}
-	dcm, err := exact.SeriesDet(cm)
-	if err != nil {
-		return nil, err
-	}
-	den, err := exact.SeriesMul(exact.SeriesConst(exact.RealFromInt(-2), 0), dcm)
-	if err != nil {
-		return nil, err
-	}
-	return exact.SeriesQuo(dd, den)
+	return exact.SeriesDet(cm)
 }

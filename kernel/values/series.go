@@ -17,7 +17,7 @@ import (
 //
 // Why a series expansion proves something about f on numbers: f is run
 // once, on the series. Every operation a series supports (+ − × ÷, powers,
-// roots, exp, log, sin, cos, abs) computes the expansion of the same
+// roots, exp, log, sin, cos, acos, abs) computes the expansion of the same
 // operation on numbers, for every t close enough to the expansion point.
 // What could make f compute something else on numbers is a branch on the
 // value of t — `if t < h:`, min, max, a conversion to a float or an int —
@@ -242,7 +242,7 @@ func (s *Series) M__eq__(py.Object) (py.Object, error) { return nil, s.refuse("c
 // M__ne__ refuses.
 func (s *Series) M__ne__(py.Object) (py.Object, error) { return nil, s.refuse("comparison") }
 
-// seriesFunction applies a builtin (sqrt, root, exp, log, sin, cos) to a series.
+// seriesFunction applies a builtin (sqrt, root, exp, log, sin, cos, acos) to a series.
 func (s *Series) function(name string, k int) (res py.Object, err error) {
 	defer interp.Recover(name, &res, &err)
 	switch name {
@@ -258,8 +258,10 @@ func (s *Series) function(name string, k int) (res py.Object, err error) {
 		return s.result(exact.SeriesSin(s.s))
 	case "cos":
 		return s.result(exact.SeriesCos(s.s))
+	case "acos":
+		return s.result(exact.SeriesAcos(s.s))
 	}
-	return nil, py.ExceptionNewf(py.TypeError, "%s() of a series is not supported (series support + - * / **, sqrt, root, exp, log, sin, cos and abs)", name)
+	return nil, py.ExceptionNewf(py.TypeError, "%s() of a series is not supported (series support + - * / **, sqrt, root, exp, log, sin, cos, acos and abs)", name)
 }
 
 func init() {

@@ -19,6 +19,10 @@ type SeriesSimplex struct {
 	p   geom.SeriesPoints
 	env *Env
 	at  *SeriesPoint
+
+	shapeOnce sync.Once // makes shp: what the measures share
+	shp       *geom.SeriesShape
+	shpErr    error
 }
 
 // Watched records that f asked for the simplex's type, attributes or
@@ -30,7 +34,7 @@ func (s *SeriesSimplex) Watched(what string) {
 }
 
 // SeriesSimplexType is the Python type of SeriesSimplex.
-var SeriesSimplexType = py.NewType("series_simplex", "A simplex with series coordinates, made by simplex() inside series(f) or a limit: its volume, facet areas, inradius and circumradius expand as series.")
+var SeriesSimplexType = py.NewType("series_simplex", "A simplex with series coordinates, made by simplex() inside series(f) or a limit: every measure algebraic in the coordinates (volume, facet areas, radii, centres, touch points, normals, cosines, quality ratios) expands as a series.")
 
 // Type returns SeriesSimplexType.
 func (s *SeriesSimplex) Type() *py.Type { return SeriesSimplexType }
@@ -82,16 +86,17 @@ func (e *Env) seriesSimplex(pts geom.SeriesPoints, at *SeriesPoint) (py.Object, 
 }
 
 // refuseSimplexOnly gives series simplices, for every simplex method they
-// lack, a refusal that names what they have: a function using it is not
-// expanded, and a limit falls back to extrapolation.
+// lack, a refusal that says why (seriesRefusal): a function using it is
+// not expanded, and a limit falls back to extrapolation.
 func refuseSimplexOnly() {
 	var table []method[*SeriesSimplex]
 	for name := range SimplexType.Dict {
 		if _, ok := SeriesSimplexType.Dict[name]; ok || strings.HasPrefix(name, "__") {
 			continue
 		}
+		msg := seriesRefusal(name)
 		table = append(table, method[*SeriesSimplex]{name, params("*args", "**kwargs"), name + "() is not available on series coordinates", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) {
-			return nil, py.ExceptionNewf(py.TypeError, "%s() is not available for a simplex with series coordinates (these have sq_edges, sq_edge, volume_sq, volume, facet_areas_sq, inradius, circumradius_sq, dim)", name)
+			return nil, py.ExceptionNewf(py.TypeError, "%s", msg)
 		}})
 	}
 	setMethods(SeriesSimplexType, table)
@@ -117,17 +122,16 @@ func (s *SeriesSimplex) list(xs []*exact.Series, err error) (py.Object, error) {
 
 func init() {
 	setMethods(SeriesSimplexType, []method[*SeriesSimplex]{
-		{"volume_sq", nil, "volume_sq() -> the squared volume, a series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) { return s.one(s.p.VolumeSq()) }},
 		{"volume", nil, "volume() -> the volume, a series (the square root of volume_sq with a positive leading coefficient)", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) {
-			v2, err := s.p.VolumeSq()
-			if err != nil {
-				return s.one(nil, err)
-			}
-			return s.one(exact.SeriesPow(v2, 1, 2))
+			return s.measure("volume", func(x *geom.SeriesShape) (*exact.Series, error) {
+				v2, err := x.VolumeSq()
+				if err != nil {
+					return nil, err
+				}
+				return exact.SeriesPow(v2, 1, 2)
+			})
 		}},
 		{"facet_areas_sq", nil, "facet_areas_sq() -> the squared facet contents, facet i opposite vertex i, as series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) { return s.list(s.p.FacetContentsSq()) }},
-		{"inradius", nil, "inradius() -> dim·V / (sum of facet contents), a series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) { return s.one(s.p.Inradius()) }},
-		{"circumradius_sq", nil, "circumradius_sq() -> the squared circumradius, -det(D) / (2 det(CM)), a series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) { return s.one(s.p.CircumradiusSq()) }},
 		{"dim", nil, "dim()", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) { return py.Int(len(s.p) - 1), nil }},
 		{"sq_edges", nil, "sq_edges() -> squared edge lengths in the order (0,1), (0,2), …, as series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) {
 			d, err := s.p.SqDistances()

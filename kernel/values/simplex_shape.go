@@ -54,7 +54,13 @@ func init() {
 
 // vertexArgs reads vertex indices by name, each in range, all distinct.
 func (s *Simplex) vertexArgs(name string, a interp.Args, names ...string) ([]int, error) {
-	n := int64(s.s.Vertices())
+	return vertexIndices(name, a, s.s.Vertices(), names...)
+}
+
+// vertexIndices reads vertex indices by name, each from 0 to vertices−1,
+// all distinct.
+func vertexIndices(name string, a interp.Args, vertices int, names ...string) ([]int, error) {
+	n := int64(vertices)
 	out := make([]int, len(names))
 	sig := fmt.Sprintf("%s(%s)", name, joinNames(names))
 	for x, nm := range names {
