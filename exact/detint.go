@@ -36,8 +36,9 @@ import (
 )
 
 // DetInts returns the determinant of the square integer matrix a, given by
-// its rows, exactly; the determinant of the 0x0 matrix is 1. It returns
-// ErrNotSquare if a row's length differs from the number of rows.
+// its rows (not modified; entries may be shared), exactly; the determinant
+// of the 0x0 matrix is 1. It returns ErrNotSquare if a row's length
+// differs from the number of rows.
 func DetInts(a [][]*big.Int) (*big.Int, error) {
 	n := len(a)
 	for i, r := range a {
@@ -64,17 +65,42 @@ func DetInts(a [][]*big.Int) (*big.Int, error) {
 	return z, nil
 }
 
-// detIntsBig is DetInts for entries beyond a word: Det on the same matrix.
+// detIntsBig is DetInts for entries beyond a word: Bareiss on copies
+// below modularMinSize, as Det does, else Det on the same matrix. The
+// copies share one block of words, each entry with room for the largest
+// minor (n times the widest entry), so that the elimination allocates
+// almost nothing.
 func detIntsBig(a [][]*big.Int) *big.Int {
 	n := len(a)
+	if n < modularMinSize {
+		width := 0
+		for _, r := range a {
+			for _, x := range r {
+				width = max(width, len(x.Bits()))
+			}
+		}
+		room := n*width + 1
+		words := make([]big.Word, n*n*room)
+		ints := make([]big.Int, n*n)
+		ptrs := make([]*big.Int, n*n)
+		rows := make([][]*big.Int, n)
+		for i, r := range a {
+			rows[i] = ptrs[i*n : (i+1)*n]
+			for j, x := range r {
+				k := i*n + j
+				z := ints[k].SetBits(words[k*room : k*room : (k+1)*room])
+				rows[i][j] = z.Set(x)
+			}
+		}
+		return bareissDet(rows)
+	}
 	m := Zeros(n, n)
 	for i, r := range a {
 		for j, x := range r {
 			m.at(i, j).SetInt(x)
 		}
 	}
-	d, _ := m.Det()
-	return d.Num() // an integer matrix has an integer determinant
+	return m.detModular(clearAuto).Num() // an integer matrix has an integer determinant
 }
 
 // wordRows appends to a the rows of m, each multiplied by the least
