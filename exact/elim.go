@@ -52,7 +52,7 @@ func fractionFree(a [][]*big.Int) (pivots []int, sign int) {
 	}
 	r, c := len(a), len(a[0])
 	prev := big.NewInt(1)
-	t := new(big.Int)
+	var t, u, rem big.Int
 	k := 0
 	for col := 0; col < c && k < r; col++ {
 		p := k
@@ -67,18 +67,32 @@ func fractionFree(a [][]*big.Int) (pivots []int, sign int) {
 			sign = -sign
 		}
 		piv := a[k][col]
+		// Unit pivots are common (a bordered matrix such as Cayley–
+		// Menger's starts with two): skip multiplying and dividing by 1.
+		pivOne, prevOne := isUnit(piv), isUnit(prev)
+		// a_ij = (a_ij piv − a_i,col a_kj) / prev, through t and u: math/big
+		// allocates afresh when a product or quotient overwrites an
+		// operand, and reuses the storage otherwise.
 		for i := k + 1; i < r; i++ {
 			ai := a[i]
+			f := ai[col]
 			for j := col + 1; j < c; j++ {
-				ai[j].Mul(ai[j], piv)
-				if ai[col].Sign() != 0 && a[k][j].Sign() != 0 {
-					ai[j].Sub(ai[j], t.Mul(ai[col], a[k][j]))
+				x := ai[j]
+				if pivOne {
+					t.Set(x)
+				} else {
+					t.Mul(x, piv)
 				}
-				if k > 0 {
-					ai[j].Quo(ai[j], prev)
+				if f.Sign() != 0 && a[k][j].Sign() != 0 {
+					t.Sub(&t, u.Mul(f, a[k][j]))
+				}
+				if prevOne {
+					x.Set(&t)
+				} else {
+					x.QuoRem(&t, prev, &rem)
 				}
 			}
-			ai[col].SetInt64(0)
+			f.SetInt64(0)
 		}
 		prev = piv
 		pivots = append(pivots, col)
@@ -86,6 +100,9 @@ func fractionFree(a [][]*big.Int) (pivots []int, sign int) {
 	}
 	return pivots, sign
 }
+
+// isUnit reports whether x = 1.
+func isUnit(x *big.Int) bool { return x.IsInt64() && x.Int64() == 1 }
 
 // Rank returns the rank of m (0 for an empty or zero matrix).
 func (m *Matrix) Rank() int {

@@ -6,6 +6,8 @@ import (
 	"os/exec"
 	"path/filepath"
 	"testing"
+
+	"assay/internal/cputime"
 )
 
 // buildAssay builds the assay binary into a temporary folder.
@@ -95,10 +97,16 @@ func checkWorkers(b *testing.B, src string) {
 	}
 	for _, w := range []int{1, 2} {
 		b.Run(fmt.Sprintf("workers=%d", w), func(b *testing.B) {
+			cpu0, ok := cputime.Children()
 			for i := 0; i < b.N; i++ {
 				if out, err := exec.Command(bin, "check", "--workers", fmt.Sprint(w), nb).CombinedOutput(); err != nil {
 					b.Fatalf("check: %v\n%s", err, out)
 				}
+			}
+			if cpu1, _ := cputime.Children(); ok {
+				// The processor time of assay and its kernels: on a shared
+				// machine, what the run costs.
+				b.ReportMetric(float64(cpu1-cpu0)/1e6/float64(b.N), "cpu-ms/op")
 			}
 		})
 	}

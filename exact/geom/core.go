@@ -51,14 +51,17 @@ func (s *Simplex) computeCore() *core {
 		return &core{det: det, adj: []*big.Int{new(big.Int).Set(c), nb, nb, new(big.Int).Set(a)}}
 	case 3:
 		a, b, c, d, e, f := g[0], g[1], g[2], g[4], g[5], g[8]
+		ints := make([]big.Int, 7) // the six minors and det in one block
+		var t big.Int
 		m2 := func(w, x, y, z *big.Int) *big.Int { // wx − yz
-			r := new(big.Int).Mul(w, x)
-			return r.Sub(r, new(big.Int).Mul(y, z))
+			r := &ints[0]
+			ints = ints[1:]
+			r.Mul(w, x)
+			return r.Sub(r, t.Mul(y, z))
 		}
 		a00, a11, a22 := m2(d, f, e, e), m2(a, f, c, c), m2(a, d, b, b)
 		a01, a02, a12 := m2(c, e, b, f), m2(b, e, c, d), m2(b, c, a, e)
-		det := new(big.Int).Mul(a, a00)
-		var t big.Int
+		det := ints[0].Mul(a, a00)
 		det.Add(det, t.Mul(b, a01))
 		det.Add(det, t.Mul(c, a02))
 		return &core{det: det, adj: []*big.Int{a00, a01, a02, a01, a11, a12, a02, a12, a22}}

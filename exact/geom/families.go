@@ -21,18 +21,37 @@ func Random(dim int, seed uint64, bound, denom int64) *Simplex {
 	span := uint64(bound)*2 + 1 // bound <= MaxInt64, so no overflow
 	for {
 		pts := make([][]*big.Rat, dim+1)
+		rats := make([]big.Rat, (dim+1)*dim)
 		for i := range pts {
 			pts[i] = make([]*big.Rat, dim)
 			for c := range pts[i] {
 				p := int64(rng.Uint64N(span) - uint64(bound))
 				q := 1 + rng.Int64N(denom)
-				pts[i][c] = big.NewRat(p, q)
+				pts[i][c] = setFrac64(&rats[i*dim+c], p, q)
 			}
 		}
 		if s := fromOwnedPoints(pts); !s.IsDegenerate() {
 			return s
 		}
 	}
+}
+
+// setFrac64 sets z to p/q (q > 0), reduced by a word gcd: big.NewRat
+// would reduce it again in math/big, the larger part of drawing a point.
+func setFrac64(z *big.Rat, p, q int64) *big.Rat {
+	a, b := p, q
+	if a < 0 {
+		a = -a // |p| <= bound <= MaxInt64
+	}
+	for b != 0 {
+		a, b = b, a%b
+	}
+	if a > 1 {
+		p, q = p/a, q/a
+	}
+	z.SetInt64(p) // the denominator is now a word 1, which Denom hands out
+	z.Denom().SetInt64(q)
+	return z
 }
 
 // The four families below (Sliver, Cap, Needle, WedgeTetrahedron — the

@@ -137,3 +137,16 @@ func TestRandomReproducible(t *testing.T) {
 		t.Error("Random(0)")
 	}
 }
+
+// setFrac64 against math/big's own reduction (big.NewRat), signs and
+// zero included.
+func TestSetFrac64(t *testing.T) {
+	for p := int64(-60); p <= 60; p++ {
+		for q := int64(1); q <= 60; q++ {
+			var z big.Rat
+			if got, want := setFrac64(&z, p, q), big.NewRat(p, q); got.Cmp(want) != 0 || got.Denom().Cmp(want.Denom()) != 0 {
+				t.Fatalf("setFrac64(%d, %d) = %s, want %s", p, q, got.RatString(), want.RatString())
+			}
+		}
+	}
+}

@@ -284,8 +284,8 @@ func (s *Simplex) checkVertex(op string, i int) error {
 // sqEdgeScaled returns s.s·|v_i − v_j|² as an integer.
 func (s *Simplex) sqEdgeScaled(i, j int) *big.Int {
 	z := new(big.Int).Add(s.gi(i, i), s.gi(j, j))
-	t := new(big.Int).Lsh(s.gi(i, j), 1)
-	return z.Sub(z, t)
+	gij := s.gi(i, j)
+	return z.Sub(z.Sub(z, gij), gij) // no temporary for 2 g_ij
 }
 
 // SqEdge returns the squared distance between vertices i and j (0-based).
@@ -362,11 +362,34 @@ func borderedCM(d *exact.Matrix) *exact.Matrix {
 // CayleyMengerMatrix, computed from that matrix. It equals
 // (−1)^(k+1) 2^k (k!)² VolumeSq().
 func (s *Simplex) CayleyMenger() *big.Rat {
-	d, err := s.CayleyMengerMatrix().Det()
+	if s.d != nil {
+		d, err := s.CayleyMengerMatrix().Det()
+		if err != nil {
+			panic("geom: " + err.Error()) // square by construction
+		}
+		return d
+	}
+	// The same matrix with the integers s·d_ij in place of d_ij: rows
+	// 1..k+1 times s and column 0 over s, so its determinant is s^k times
+	// the Cayley–Menger determinant. It saves reducing the k(k+1)/2
+	// fractions d_ij and clearing their denominators again in Det.
+	e := s.scaledEdges()
+	n := s.k + 2
+	ptrs := make([]*big.Int, n*n)
+	rows := make([][]*big.Int, n)
+	for i := range rows {
+		rows[i] = ptrs[i*n : (i+1)*n]
+		if i > 0 {
+			rows[0][i], rows[i][0] = bigOne, bigOne
+			copy(rows[i][1:], e[i-1])
+		}
+	}
+	rows[0][0] = zeroInt
+	d, err := exact.DetInts(rows)
 	if err != nil {
 		panic("geom: " + err.Error()) // square by construction
 	}
-	return d
+	return ratFrac(d, new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil))
 }
 
 // CayleyMengerDet returns the determinant of the Cayley–Menger matrix

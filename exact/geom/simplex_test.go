@@ -44,10 +44,15 @@ func TestRegularSimplexVolume(t *testing.T) {
 }
 
 // checkCMRoute checks VolumeSq = (−1)^(k+1) CM / (2^k (k!)²) with CM the
-// determinant of the bordered matrix (computed by exact.Matrix.Det).
+// determinant of the bordered matrix, as CayleyMenger computes it (from
+// the scaled integer matrix for points) and as exact.Matrix.Det does on
+// the rational matrix.
 func checkCMRoute(t *testing.T, s *Simplex) {
 	t.Helper()
 	cm := s.CayleyMenger()
+	if byDet, err := s.CayleyMengerMatrix().Det(); err != nil || byDet.Cmp(cm) != 0 {
+		t.Errorf("CayleyMenger %s, det of CayleyMengerMatrix %v (%v)", cm.RatString(), byDet, err)
+	}
 	got := new(big.Rat).Mul(cm, cmFactor(s.Dim()))
 	ratEq(t, "CM route V²", got, s.VolumeSq())
 	g, err := s.Gram().Det()

@@ -1,5 +1,30 @@
 package session
 
+// Sampled claims. What a sample costs, measured on the exact identity of
+// BenchmarkExactSampledIdentity (volume from coordinates against the
+// Cayley–Menger volume on 10,000 random rational tetrahedra, the notebook
+// run in-process on one CPU; processor time, cpu-ms/op, three alternating
+// rounds on the shared 2-core machine at load 13–19, where every figure,
+// the reference's too, runs about twice its quiet value):
+//
+//	before (GOGC=100)                         50–58 µs a sample
+//	after, GOGC=100                           28–32 µs
+//	after, GOGC=400 (the kernel's default)    22–25 µs (0.43–0.50 of before)
+//	assay check --workers 1, whole run        before 80–93 µs, after 36–46 µs
+//	reference, /tmp/peer-bin/tet (FLINT)      15–19 µs (its process, reading included)
+//
+// What the profile showed and what was cut: the Cayley–Menger determinant
+// (46% of the time) reduced ten fractions d_ij and cleared their
+// denominators again in Det, then ran Bareiss on fresh big.Ints; it now
+// takes the integer matrix of s·d_ij (exact.DetInts, copies in one block
+// of words, no allocation per step, unit pivots skipped). Drawing the
+// random simplex (20%) reduced each coordinate in math/big; it now takes
+// a word gcd. The collector (a third of the time) now runs at GOGC=400
+// (kernel/proto.KernelGCPercent gives that measurement). Left: the
+// simplex's Gram matrix and core (fromOwnedPoints, computeCore) and the
+// final reductions (ratFrac) in math/big, ~45%; the interpreter calls,
+// value conversion and the tally, ~30%.
+
 import (
 	"fmt"
 	"math"
