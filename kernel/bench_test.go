@@ -4,7 +4,7 @@ import (
 	"testing"
 
 	"assay/cells"
-	"assay/internal/cputime"
+	"assay/kernel/cputime"
 	"assay/kernel/session"
 )
 

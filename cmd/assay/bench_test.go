@@ -7,7 +7,7 @@ import (
 	"path/filepath"
 	"testing"
 
-	"assay/internal/cputime"
+	"assay/kernel/cputime"
 )
 
 // buildAssay builds the assay binary into a temporary folder.
