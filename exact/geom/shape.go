@@ -29,18 +29,22 @@ import (
 // dihedral cosines, the volume–length ratio). The values and their
 // lowest terms are as before (TestShapeAgainstPlainRationals,
 // TestRatFracLowestTerms). Measured on the shared 2-core machine under
-// load 14–21 (December 2026), where wall times were 3–8 times the quiet
-// ones and too noisy to compare: the previous geom package and this one
-// in one test binary, alternating on chunks of 250 tetrahedra, best of 5
-// per chunk, summed over the 10,000: new/old time 0.60–0.75 (four
-// runs); the benchmark binaries built from main and from this change,
-// run alternately six times each (one op plus the setup): process CPU
-// time 1.56–1.74 s before, 1.31–1.46 s after; allocations per op 10.3
-// million (489 MB) before, 7.6 million (334 MB) after. Quiet runs of main
-// measured 0.88–1.03 s per op; by the ratio the op now takes some
-// 0.55–0.75 s. From a notebook (kernel BenchmarkSimplexShapeSampled,
-// 1,000 tetrahedra × 45 results, alternated the same way): process CPU
-// KERNEL — the geometry's exact part is a small share there.
+// load 14–21 (December 2026), where wall times were 3–6 times the quiet
+// ones and jumped by 2x between runs:
+//   - the previous geom package and this one in one test binary,
+//     alternating on chunks of 250 tetrahedra, best of 5 per chunk,
+//     summed over the 10,000: new/old time 0.60–0.75 (four runs);
+//   - benchmark binaries built from main and from this change, run
+//     alternately: CPU per op (3-op runs minus 1-op runs) 0.93 s before,
+//     0.65 s after; process CPU of eleven 1-op runs each 1.56–1.74 s
+//     before, 1.30–1.46 s after; best wall per op 3.52 s before, 2.78 s
+//     after; allocations per op 10.3 million (489 MB) before, 7.6
+//     million (334 MB) after. Quiet runs of main measured 0.88–1.03 s per
+//     op; by the ratios the op now takes some 0.55–0.75 s;
+//   - from a notebook (kernel BenchmarkSimplexShapeSampled, 1,000
+//     tetrahedra × 45 results; its geometry's exact part is a small
+//     share), nine 1-op runs each alternated: process CPU 1.17–1.56 s
+//     before, 1.04–1.42 s after; best wall 2.59 s before, 2.01 s after.
 
 // Centroid returns (1/(k+1)) Σ v_i. It needs a simplex built from points
 // (else exact.ErrShape).
