@@ -302,11 +302,8 @@ func (s *Simplex) DihedralCosSq(i, j int) (cos2 *big.Rat, sign int, err error) {
 	if err := s.checkDihedral(i, j); err != nil {
 		return nil, 0, err
 	}
-	q := s.gradients()
-	qij := q[i][j]
-	num := new(big.Int).Mul(qij, qij)
-	den := new(big.Int).Mul(q[i][i], q[j][j])
-	return ratFrac(num, den), -qij.Sign(), nil
+	cos2, sign = dihedralCos(s.gradients(), i, j)
+	return cos2, sign, nil
 }
 
 // checkDihedral returns DihedralCosSq's error for facets i, j, if any.

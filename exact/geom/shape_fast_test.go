@@ -8,7 +8,8 @@ import (
 )
 
 // The methods of shape.go compute on the scaled integer Gram matrix, its
-// adjugate and l·v_i, and reduce each result once. This test checks them
+// adjugate and l·v_i, and reduce each result once (ratFrac, or ratProd a
+// factor at a time, on the binary gcd and exact division of intmath.go). This test checks them
 // against the textbook vector formulas evaluated directly in big.Rat
 // (cross products, dot products, orthogonal projection; from memory) on
 // a few hundred random tetrahedra, some with coordinates far beyond a
@@ -198,6 +199,32 @@ func TestShapeAgainstPlainRationals(t *testing.T) {
 			t.Fatal(err)
 		}
 		sameRat(t, "volume-length ratio²", gv, vlr)
+		// The measures of measure.go reduce through the same ratFrac:
+		// V² = (triple product)²/36, F_i² = |cross|²/4, and R² from the
+		// circumcentre x solving 2(v_m − v_0)·x = |v_m|² − |v_0|².
+		sameRat(t, "VolumeSq", s.VolumeSq(), v2)
+		for i, f := range s.FacetContentsSq() {
+			o := others(3, i)
+			n := plainCross(sub(v[o[1]], v[o[0]]), sub(v[o[2]], v[o[0]]))
+			sameRat(t, "FacetContentsSq", f, new(big.Rat).Quo(dot(n, n), big.NewRat(4, 1)))
+		}
+		m, rhs := exact.Zeros(3, 3), exact.Zeros(3, 1)
+		for r := range 3 {
+			for c := range 3 {
+				m.Set(r, c, new(big.Rat).Mul(big.NewRat(2, 1), new(big.Rat).Sub(v[r+1][c], v[0][c])))
+			}
+			rhs.Set(r, 0, new(big.Rat).Sub(dot(v[r+1], v[r+1]), dot(v[0], v[0])))
+		}
+		x, err := m.Solve(rhs)
+		if err != nil {
+			t.Fatal(err)
+		}
+		cc := []*big.Rat{x.At(0, 0), x.At(1, 0), x.At(2, 0)}
+		r2, err := s.CircumradiusSq()
+		if err != nil {
+			t.Fatal(err)
+		}
+		sameRat(t, "CircumradiusSq", r2, dot(sub(cc, v[0]), sub(cc, v[0])))
 		type pk struct {
 			i, j int
 			c2   *big.Rat
@@ -210,6 +237,11 @@ func TestShapeAgainstPlainRationals(t *testing.T) {
 				d := dot(normals[i], normals[j]) // cos θ = −u_i·u_j/(|u_i||u_j|)
 				c2 := new(big.Rat).Quo(new(big.Rat).Mul(d, d), new(big.Rat).Mul(dot(normals[i], normals[i]), dot(normals[j], normals[j])))
 				p := &pk{i, j, c2, -d.Sign(), new(big.Rat).Mul(c2, big.NewRat(int64(-d.Sign()), 1))}
+				gc2, gsign, err := s.DihedralCosSq(i, j)
+				if err != nil || gsign != p.sign {
+					t.Fatalf("DihedralCosSq(%d, %d) sign %d, want %d (%v)", i, j, gsign, p.sign, err)
+				}
+				sameRat(t, "DihedralCosSq", gc2, c2)
 				if lo == nil || p.key.Cmp(lo.key) > 0 {
 					lo = p
 				}
