@@ -60,12 +60,12 @@ func BenchmarkMulAlgorithms(b *testing.B) {
 	jobs = append(jobs, job{"cm20000xlinear", p, l})
 	l2 := mustMulP(b, l, l)
 	jobs = append(jobs, job{"cm20000xquadratic", p, l2})
-	names := map[int]string{algoDense: "dense", algoHash: "hash", algoHeap: "heap", algoSplit: "split", algoAuto: "auto"}
+	names := map[int]string{algoPlanes: "planes", algoDense: "dense", algoHash: "hash", algoHeap: "heap", algoSplit: "split", algoAuto: "auto"}
 	// Forced dense accumulation over a sparse box is pathological (measured
 	// 27 s for sparseRandom, 51 s and 678 s for the cm jobs): not run.
 	noDense := map[string]bool{"sparseRandom": true, "cm20000xlinear": true, "cm20000xquadratic": true}
 	for _, j := range jobs {
-		for _, algo := range []int{algoAuto, algoDense, algoHash, algoHeap, algoSplit} {
+		for _, algo := range []int{algoAuto, algoDense, algoPlanes, algoHash, algoHeap, algoSplit} {
 			if algo == algoSplit && j.p.Len()*j.q.Len() > 1e7 || algo == algoDense && noDense[j.name] {
 				continue
 			}

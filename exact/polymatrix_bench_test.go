@@ -133,6 +133,7 @@ func BenchmarkPolyDetMethods(b *testing.B) {
 	}{
 		{"auto", pmDetAuto},
 		{"laplace", pmDetLaplace},
+		{"laplacePoly", pmDetLaplacePoly},
 		{"bareiss", pmDetBareiss},
 	}
 	for _, sh := range pmShapes(b) {

@@ -70,9 +70,10 @@ func (m *PolyMatrix) Det() (*Poly, error) {
 
 // Determinant methods, for det and the tests and benchmarks.
 const (
-	pmDetAuto    = iota
-	pmDetLaplace // memoised Laplace expansion
-	pmDetBareiss // Bareiss elimination with DivExact
+	pmDetAuto        = iota
+	pmDetLaplace     // memoised Laplace expansion, on packed monomials where it can
+	pmDetLaplacePoly // memoised Laplace expansion in *Poly arithmetic
+	pmDetBareiss     // Bareiss elimination with DivExact
 )
 
 // pmLaplaceMaxMinors bounds the number of minors Det lets the Laplace
@@ -102,10 +103,15 @@ func (m *PolyMatrix) det(method int) (*Poly, error) {
 		m, need, ok = m.laplacePlan(limit)
 	}
 	if method == pmDetBareiss || !ok {
-		if method == pmDetLaplace {
+		if method == pmDetLaplace || method == pmDetLaplacePoly {
 			return nil, fmt.Errorf("matrix too large for Laplace expansion: %w", ErrShape)
 		}
 		return m.detBareiss()
+	}
+	if method != pmDetLaplacePoly {
+		if l, ok := m.packedLayout(); ok {
+			return m.detLaplacePacked(l, need)
+		}
 	}
 	return m.detLaplace(need)
 }
@@ -164,7 +170,7 @@ func (m *PolyMatrix) detLaplace(need [][]uint64) (*Poly, error) {
 		for _, p := range prev {
 			work += p.Len()
 		}
-		err := pmParallel(len(masks), work*len(masks) >= pmParallelWork, func() func(k int) error {
+		err := pmParallel(len(masks), work*len(masks) >= pmParallelWork, func(int) func(k int) error {
 			var plus, minus []*Poly
 			return func(k int) error {
 				s := masks[k]
@@ -226,13 +232,17 @@ func (m *PolyMatrix) detLaplace(need [][]uint64) (*Poly, error) {
 	return prev[1<<n-1], nil
 }
 
-// pmParallel runs task(k) for k = 0..n-1, on all cores if parallel is
-// set. newTask is called once per goroutine (for scratch space). It
-// returns the first error; after an error no new task starts.
-func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
+// pmWorkers is the number of goroutines pmParallel uses at most.
+func pmWorkers() int { return runtime.GOMAXPROCS(0) }
+
+// pmParallel runs task(k) for k = 0..n-1, on up to pmWorkers() goroutines
+// if parallel is set. newTask is called once per goroutine with its index
+// (for scratch space kept by the caller). It returns the first error;
+// after an error no new task starts.
+func pmParallel(n int, parallel bool, newTask func(id int) func(k int) error) error {
 	workers := 1
 	if parallel && n > 1 {
-		workers = min(runtime.GOMAXPROCS(0), n)
+		workers = min(pmWorkers(), n)
 	}
 	var (
 		next     atomic.Int64
@@ -241,8 +251,8 @@ func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
 		once     sync.Once
 		wg       sync.WaitGroup
 	)
-	run := func() {
-		task := newTask()
+	run := func(id int) {
+		task := newTask(id)
 		for !failed.Load() {
 			k := int(next.Add(1) - 1)
 			if k >= n {
@@ -259,10 +269,10 @@ func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			run()
+			run(w)
 		}()
 	}
-	run()
+	run(0)
 	wg.Wait()
 	return firstErr
 }
@@ -375,6 +385,13 @@ func pmNeededMinors(n int, zero func(i, j int) bool, limit int) ([][]uint64, boo
 	need := make([][]uint64, n)
 	need[0] = []uint64{1<<n - 1}
 	total := 1
+	// Sets seen: a bitmap over all sets for small n (the map was a tenth
+	// of a 6-simplex determinant), else a map per level. The levels' sets
+	// differ in size, so one bitmap serves them all.
+	var dense []uint64
+	if n <= 16 {
+		dense = make([]uint64, (1<<n+63)/64)
+	}
 	for r := 0; r+1 < n; r++ {
 		seen := make(map[uint64]bool)
 		for _, s := range need[r] {
@@ -383,7 +400,12 @@ func pmNeededMinors(n int, zero func(i, j int) bool, limit int) ([][]uint64, boo
 					continue
 				}
 				t := s &^ (1 << j)
-				if !seen[t] {
+				if dense != nil {
+					if dense[t/64]&(1<<(t%64)) == 0 {
+						dense[t/64] |= 1 << (t % 64)
+						need[r+1] = append(need[r+1], t)
+					}
+				} else if !seen[t] {
 					seen[t] = true
 					need[r+1] = append(need[r+1], t)
 				}

@@ -34,6 +34,7 @@ const (
 	algoHash
 	algoHeap
 	algoSplit
+	algoPlanes // dense by planes (polymul_planes.go), else algoDense
 )
 
 // Mul returns p*q. It fails with ErrTooManyTerms if the product would have
@@ -99,14 +100,22 @@ func mulPoly(p, q *Poly, op string) (*Poly, error) {
 	mode := coefMode(p, q)
 	if algo == algoAuto {
 		algo = mulAlgorithm(kp, kq, k.size, mode)
+		if algo == algoDense {
+			algo = algoPlanes
+		}
 	}
-	if mode == modeBig && (algo == algoDense || algo == algoHash) {
+	if mode == modeBig && (algo == algoDense || algo == algoHash || algo == algoPlanes) {
 		algo = algoHeap
 	}
 	var err error
 	switch algo {
 	case algoSplit:
 		return mulSplit(p, q, limit, op)
+	case algoPlanes:
+		var done bool
+		if done, err = mulPlanes(kp, p.num, kq, q.num, out, mode == mode128); !done {
+			err = mulDense(kp, p.num, kq, q.num, out, mode == mode128)
+		}
 	case algoDense:
 		err = mulDense(kp, p.num, kq, q.num, out, mode == mode128)
 	case algoHash:

@@ -29,7 +29,7 @@ func TestMulStrategiesAgree(t *testing.T) {
 			q = q.Neg().Add(p) // cancellations
 		}
 		want := naiveMul(r, p, q)
-		for _, algo := range []int{algoAuto, algoDense, algoHash, algoHeap, algoSplit} {
+		for _, algo := range []int{algoAuto, algoDense, algoPlanes, algoHash, algoHeap, algoSplit} {
 			withAlgo(algo, func() {
 				got := mustMulP(t, p, q)
 				checkCanonical(t, got)
@@ -53,7 +53,7 @@ func TestMulCoefficientModes(t *testing.T) {
 		"123456789012345678901234567890*x - 1/7*y + 2",
 	} {
 		p := mustParse(t, r, s)
-		for _, algo := range []int{algoAuto, algoDense, algoHash, algoHeap, algoSplit} {
+		for _, algo := range []int{algoAuto, algoDense, algoPlanes, algoHash, algoHeap, algoSplit} {
 			withAlgo(algo, func() {
 				for _, q := range []*Poly{p, p.Neg(), mustParse(t, r, "x+y+1")} {
 					got := mustMulP(t, p, q)
