@@ -1,8 +1,38 @@
 package exact
 
-// How PolyMatrix.Det chooses its method. BenchmarkPolyDetMethods measures
-// the two that are implemented (go test -bench PolyDetMethods -run XXX
-// ./exact/; 2 shared cores, so +-20%). Milliseconds per determinant:
+// How PolyMatrix.Det chooses its method.
+//
+// Symbolic Cayley–Menger determinants against the reference program
+// (../shared/peers/cm.c: FLINT's fmpz_mpoly, the same memoised Laplace
+// expansion), BenchmarkCayleyMenger, alternating with it in one run on 2
+// cores shared with other sessions (load 16-24: every figure is several
+// times its idle value, FLINT's 7-simplex 49 ms against 7.3 ms idle;
+// compare within the run). Milliseconds, best over 5 rounds (of 10-20
+// determinants for assay, of 5 for FLINT); allocation per determinant:
+//
+//	                     before            after             FLINT   after/FLINT
+//	6-simplex, 1 core      4.6 (9.4 MB)    0.49 (0.47 MB)     1.08       0.46
+//	           2 cores     7.3             0.52 (0.47 MB)
+//	7-simplex, 1 core    106   (89 MB)     5.9  (3.9 MB)     49          0.12
+//	           2 cores    55               3.9  (3.9-4.6 MB)
+//
+// Round by round the 7-simplex took 0.06-0.15 of FLINT's time and the
+// 6-simplex 0.07-0.6. The results are 0.45 MB and 3.8 MB (terms of 8
+// words and a coefficient), so allocation went from 20-23 times the
+// result to 1.03-1.2 times.
+// "before" was the Laplace expansion in *Poly arithmetic
+// (detLaplace, kept for rational and wide entries): every minor was built
+// by Mul (a fresh slice per product), pmSum and Sub, on 8-word monomials,
+// and the garbage made two cores slower than one. The packed expansion
+// (polymatrix_laplace.go) keeps a monomial in one word, merges each minor
+// in one k-way pass and keeps minors in per-worker arenas reused every
+// other level and, through a sync.Pool, from one determinant to the next:
+// the garbage is avoided rather than the collector tuned (GOGC untouched).
+//
+// BenchmarkPolyDetMethods measures the methods on more shapes (go test
+// -bench PolyDetMethods -run XXX ./exact/; 2 shared cores, so +-20%; these
+// figures are from before the packed expansion, which changes the Laplace
+// column for integer entries). Milliseconds per determinant:
 //
 //	shape (terms of the result)             auto   Laplace   Bareiss
 //	Cayley–Menger  4-simplex (130)          0.15      0.15      0.88
@@ -26,16 +56,20 @@ package exact
 // variables. Evaluation at points and interpolation was not tried: the
 // 6-simplex determinant has 6202 terms, so sparse interpolation needs
 // thousands of rational determinants before solving for the coefficients.
-// (An earlier version also had a Laplace expansion on its own packed
-// monomials; once the polynomial arithmetic of poly*.go got fast it no
-// longer won anywhere that mattered, and it repeated that arithmetic.)
+// (An earlier version had a Laplace expansion on packed monomials of its
+// own that stopped paying once poly*.go got fast; the present one differs
+// in what it measured to matter: one word a monomial, exact field widths
+// from degree bounds, one merge per minor, no garbage.)
 //
 // So Det:
 //   - uses Bareiss elimination from order pmBareissMinOrder (6) on when the
 //     entries use fewer variables than the matrix has rows;
 //   - otherwise expands by Laplace when at most pmLaplaceMaxMinors (16384)
 //     minors are needed, on the matrix or its transpose, whichever needs
-//     fewer, and falls back to Bareiss elimination beyond that.
+//     fewer, and falls back to Bareiss elimination beyond that;
+//   - expands on packed monomials (detLaplacePacked) when the entries are
+//     integer polynomials and the degree and coefficient bounds fit a word
+//     (packedLayout), else in *Poly arithmetic (detLaplace).
 
 import (
 	"fmt"

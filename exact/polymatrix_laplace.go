@@ -28,6 +28,8 @@ package exact
 // pairs in per-worker arenas reused every other level, so a determinant
 // allocates its arenas (about twice the largest level) and its result, and
 // two cores share a level with no shared writes and little garbage.
+// Figures, against FLINT's fmpz_mpoly, are at the top of
+// polymatrix_det.go.
 
 import (
 	"math/big"
