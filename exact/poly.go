@@ -54,7 +54,8 @@ package exact
 //
 // "dense" adds into a dense array over the key range, 2^15 keys at a time
 // from the top (rows of the product advance a cursor each); "hash" is open
-// addressing on the keys followed by a sort; "heap" is Johnson's merge
+// addressing on the keys followed by a sort (now by key ranges of about
+// 2^20 products, in 128-bit slots: mulHashRanges); "heap" is Johnson's merge
 // with one heap entry per started row (Monagan and Pearce); "merge" (mulSplit)
 // adds the shifted copies p*q_j in a balanced tree. So Mul uses dense when
 // the key box is at most twice the number of term products, the merge when
