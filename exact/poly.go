@@ -54,14 +54,18 @@ package exact
 //
 // "dense" adds into a dense array over the key range, 2^15 keys at a time
 // from the top (rows of the product advance a cursor each); "hash" is open
-// addressing on the keys followed by a sort; "heap" is Johnson's merge
+// addressing on the keys followed by a sort (now by key ranges of about
+// 2^20 products, in 128-bit slots: mulHashRanges); "heap" is Johnson's merge
 // with one heap entry per started row (Monagan and Pearce); "merge" (mulSplit)
 // adds the shifted copies p*q_j in a balanced tree. So Mul uses dense when
 // the key box is at most twice the number of term products, the merge when
 // the shorter factor has at most 128 terms, the hash table when a sample
 // of 64 rows shows at least 1.5 products per distinct monomial, and the
 // heap otherwise (always the heap or the merge for big coefficients).
-// Fateman's benchmark, f = (1+x+y+z+t)^20, f*(f+1), runs in about 0.22 s.
+// Fateman's benchmark, f = (1+x+y+z+t)^20, f*(f+1), ran in about 0.22 s so;
+// dense products now accumulate by planes instead (polymul_planes.go, with
+// its figures against FLINT; "dense" above is the chunked mulDense, kept
+// for the division's layout and as a fallback).
 //
 // Exact division (polydiv.go) uses the same keys: a dense long division
 // chunk by chunk when the dividend's box is small (Fateman's product
@@ -71,7 +75,8 @@ package exact
 // The code by concern: ring.go (variables, term cap), monomial.go (packed
 // monomials), polybuild.go (collecting terms, lowest terms), int128.go
 // (word arithmetic for coefficients), polyarith.go (sums and scaling),
-// polykron.go (Kronecker keys, the key heap), polymul.go, polypow.go,
+// polykron.go (Kronecker keys, the key heap), polymul.go and
+// polymul_planes.go (dense products by planes), polypow.go,
 // polydiv.go (exact division), polyrem.go (division with remainder),
 // polygcd.go, polyresultant.go, polyeval.go (evaluation, substitution,
 // derivatives, contents), polyparse.go and polyformat.go; factoring is in

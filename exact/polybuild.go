@@ -5,6 +5,7 @@ package exact
 import (
 	"math"
 	"math/big"
+	"math/bits"
 )
 
 var bigOne = big.NewInt(1)
@@ -23,6 +24,10 @@ type polyBuilder struct {
 	mono []uint64
 	num  []int64
 	bnum []*big.Int
+	// ints and words are slabs for the 128-bit coefficients of push128:
+	// a dense product's big coefficients cost no allocation each.
+	ints  []big.Int
+	words []big.Word
 }
 
 func newBuilder(w int) *polyBuilder { return &polyBuilder{w: w} }
@@ -82,7 +87,32 @@ func (b *polyBuilder) push128(m []uint64, hi, lo uint64) {
 		b.pushSmall(m, int64(lo))
 		return
 	}
-	b.pushBigOwned(m, set128(new(big.Int), hi, lo))
+	b.pushBigOwned(m, b.newInt128(hi, lo))
+}
+
+// int128Slab is the number of big.Ints polyBuilder allocates at a time.
+const int128Slab = 1024
+
+// newInt128 returns a new big.Int of value hi:lo (signed), from the slabs.
+func (b *polyBuilder) newInt128(hi, lo uint64) *big.Int {
+	if bits.UintSize != 64 {
+		return set128(new(big.Int), hi, lo)
+	}
+	neg := int64(hi) < 0
+	if neg {
+		hi, lo = neg128(hi, lo)
+	}
+	if len(b.ints) == 0 {
+		b.ints, b.words = make([]big.Int, int128Slab), make([]big.Word, 2*int128Slab)
+	}
+	z, w := &b.ints[0], b.words[:2:2]
+	b.ints, b.words = b.ints[1:], b.words[2:]
+	w[0], w[1] = big.Word(lo), big.Word(hi)
+	z.SetBits(w)
+	if neg {
+		z.Neg(z)
+	}
+	return z
 }
 
 // poly returns the polynomial of the collected terms over the denominator

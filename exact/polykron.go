@@ -170,29 +170,35 @@ func (h *keyHeap) push(e heapEnt) {
 func (h *keyHeap) pop() heapEnt {
 	s := *h
 	top := s[0]
-	last := s[len(s)-1]
+	s[0] = s[len(s)-1]
 	s = s[:len(s)-1]
-	n := len(s)
-	k := 0
+	s.siftDown(0)
+	*h = s
+	return top
+}
+
+// siftDown moves entry k down to its place (after its key decreased).
+func (h keyHeap) siftDown(k int) {
+	n := len(h)
+	if k >= n {
+		return
+	}
+	e := h[k]
 	for {
 		c := 2*k + 1
 		if c >= n {
 			break
 		}
-		if c+1 < n && s[c+1].key > s[c].key {
+		if c+1 < n && h[c+1].key > h[c].key {
 			c++
 		}
-		if last.key >= s[c].key {
+		if e.key >= h[c].key {
 			break
 		}
-		s[k] = s[c]
+		h[k] = h[c]
 		k = c
 	}
-	if n > 0 {
-		s[k] = last
-	}
-	*h = s
-	return top
+	h[k] = e
 }
 
 // popKey pops the entries with the given key, which must be the top one,

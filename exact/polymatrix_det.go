@@ -1,8 +1,38 @@
 package exact
 
-// How PolyMatrix.Det chooses its method. BenchmarkPolyDetMethods measures
-// the two that are implemented (go test -bench PolyDetMethods -run XXX
-// ./exact/; 2 shared cores, so +-20%). Milliseconds per determinant:
+// How PolyMatrix.Det chooses its method.
+//
+// Symbolic Cayley–Menger determinants against the reference program
+// (../shared/peers/cm.c: FLINT's fmpz_mpoly, the same memoised Laplace
+// expansion), BenchmarkCayleyMenger, alternating with it in one run on 2
+// cores shared with other sessions (load 16-24: every figure is several
+// times its idle value, FLINT's 7-simplex 49 ms against 7.3 ms idle;
+// compare within the run). Milliseconds, best over 5 rounds (of 10-20
+// determinants for assay, of 5 for FLINT); allocation per determinant:
+//
+//	                     before            after             FLINT   after/FLINT
+//	6-simplex, 1 core      4.6 (9.4 MB)    0.49 (0.47 MB)     1.08       0.46
+//	           2 cores     7.3             0.52 (0.47 MB)
+//	7-simplex, 1 core    106   (89 MB)     5.9  (3.9 MB)     49          0.12
+//	           2 cores    55               3.9  (3.9-4.6 MB)
+//
+// Round by round the 7-simplex took 0.06-0.15 of FLINT's time and the
+// 6-simplex 0.07-0.6. The results are 0.45 MB and 3.8 MB (terms of 8
+// words and a coefficient), so allocation went from 20-23 times the
+// result to 1.03-1.2 times.
+// "before" was the Laplace expansion in *Poly arithmetic
+// (detLaplace, kept for rational and wide entries): every minor was built
+// by Mul (a fresh slice per product), pmSum and Sub, on 8-word monomials,
+// and the garbage made two cores slower than one. The packed expansion
+// (polymatrix_laplace.go) keeps a monomial in one word, merges each minor
+// in one k-way pass and keeps minors in per-worker arenas reused every
+// other level and, through a sync.Pool, from one determinant to the next:
+// the garbage is avoided rather than the collector tuned (GOGC untouched).
+//
+// BenchmarkPolyDetMethods measures the methods on more shapes (go test
+// -bench PolyDetMethods -run XXX ./exact/; 2 shared cores, so +-20%; these
+// figures are from before the packed expansion, which changes the Laplace
+// column for integer entries). Milliseconds per determinant:
 //
 //	shape (terms of the result)             auto   Laplace   Bareiss
 //	Cayley–Menger  4-simplex (130)          0.15      0.15      0.88
@@ -26,16 +56,20 @@ package exact
 // variables. Evaluation at points and interpolation was not tried: the
 // 6-simplex determinant has 6202 terms, so sparse interpolation needs
 // thousands of rational determinants before solving for the coefficients.
-// (An earlier version also had a Laplace expansion on its own packed
-// monomials; once the polynomial arithmetic of poly*.go got fast it no
-// longer won anywhere that mattered, and it repeated that arithmetic.)
+// (An earlier version had a Laplace expansion on packed monomials of its
+// own that stopped paying once poly*.go got fast; the present one differs
+// in what it measured to matter: one word a monomial, exact field widths
+// from degree bounds, one merge per minor, no garbage.)
 //
 // So Det:
 //   - uses Bareiss elimination from order pmBareissMinOrder (6) on when the
 //     entries use fewer variables than the matrix has rows;
 //   - otherwise expands by Laplace when at most pmLaplaceMaxMinors (16384)
 //     minors are needed, on the matrix or its transpose, whichever needs
-//     fewer, and falls back to Bareiss elimination beyond that.
+//     fewer, and falls back to Bareiss elimination beyond that;
+//   - expands on packed monomials (detLaplacePacked) when the entries are
+//     integer polynomials and the degree and coefficient bounds fit a word
+//     (packedLayout), else in *Poly arithmetic (detLaplace).
 
 import (
 	"fmt"
@@ -70,9 +104,10 @@ func (m *PolyMatrix) Det() (*Poly, error) {
 
 // Determinant methods, for det and the tests and benchmarks.
 const (
-	pmDetAuto    = iota
-	pmDetLaplace // memoised Laplace expansion
-	pmDetBareiss // Bareiss elimination with DivExact
+	pmDetAuto        = iota
+	pmDetLaplace     // memoised Laplace expansion, on packed monomials where it can
+	pmDetLaplacePoly // memoised Laplace expansion in *Poly arithmetic
+	pmDetBareiss     // Bareiss elimination with DivExact
 )
 
 // pmLaplaceMaxMinors bounds the number of minors Det lets the Laplace
@@ -102,10 +137,15 @@ func (m *PolyMatrix) det(method int) (*Poly, error) {
 		m, need, ok = m.laplacePlan(limit)
 	}
 	if method == pmDetBareiss || !ok {
-		if method == pmDetLaplace {
+		if method == pmDetLaplace || method == pmDetLaplacePoly {
 			return nil, fmt.Errorf("matrix too large for Laplace expansion: %w", ErrShape)
 		}
 		return m.detBareiss()
+	}
+	if method != pmDetLaplacePoly {
+		if l, ok := m.packedLayout(); ok {
+			return m.detLaplacePacked(l, need)
+		}
 	}
 	return m.detLaplace(need)
 }
@@ -164,7 +204,7 @@ func (m *PolyMatrix) detLaplace(need [][]uint64) (*Poly, error) {
 		for _, p := range prev {
 			work += p.Len()
 		}
-		err := pmParallel(len(masks), work*len(masks) >= pmParallelWork, func() func(k int) error {
+		err := pmParallel(len(masks), work*len(masks) >= pmParallelWork, func(int) func(k int) error {
 			var plus, minus []*Poly
 			return func(k int) error {
 				s := masks[k]
@@ -226,13 +266,17 @@ func (m *PolyMatrix) detLaplace(need [][]uint64) (*Poly, error) {
 	return prev[1<<n-1], nil
 }
 
-// pmParallel runs task(k) for k = 0..n-1, on all cores if parallel is
-// set. newTask is called once per goroutine (for scratch space). It
-// returns the first error; after an error no new task starts.
-func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
+// pmWorkers is the number of goroutines pmParallel uses at most.
+func pmWorkers() int { return runtime.GOMAXPROCS(0) }
+
+// pmParallel runs task(k) for k = 0..n-1, on up to pmWorkers() goroutines
+// if parallel is set. newTask is called once per goroutine with its index
+// (for scratch space kept by the caller). It returns the first error;
+// after an error no new task starts.
+func pmParallel(n int, parallel bool, newTask func(id int) func(k int) error) error {
 	workers := 1
 	if parallel && n > 1 {
-		workers = min(runtime.GOMAXPROCS(0), n)
+		workers = min(pmWorkers(), n)
 	}
 	var (
 		next     atomic.Int64
@@ -241,8 +285,8 @@ func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
 		once     sync.Once
 		wg       sync.WaitGroup
 	)
-	run := func() {
-		task := newTask()
+	run := func(id int) {
+		task := newTask(id)
 		for !failed.Load() {
 			k := int(next.Add(1) - 1)
 			if k >= n {
@@ -259,10 +303,10 @@ func pmParallel(n int, parallel bool, newTask func() func(k int) error) error {
 		wg.Add(1)
 		go func() {
 			defer wg.Done()
-			run()
+			run(w)
 		}()
 	}
-	run()
+	run(0)
 	wg.Wait()
 	return firstErr
 }
@@ -375,6 +419,13 @@ func pmNeededMinors(n int, zero func(i, j int) bool, limit int) ([][]uint64, boo
 	need := make([][]uint64, n)
 	need[0] = []uint64{1<<n - 1}
 	total := 1
+	// Sets seen: a bitmap over all sets for small n (the map was a tenth
+	// of a 6-simplex determinant), else a map per level. The levels' sets
+	// differ in size, so one bitmap serves them all.
+	var dense []uint64
+	if n <= 16 {
+		dense = make([]uint64, (1<<n+63)/64)
+	}
 	for r := 0; r+1 < n; r++ {
 		seen := make(map[uint64]bool)
 		for _, s := range need[r] {
@@ -383,7 +434,12 @@ func pmNeededMinors(n int, zero func(i, j int) bool, limit int) ([][]uint64, boo
 					continue
 				}
 				t := s &^ (1 << j)
-				if !seen[t] {
+				if dense != nil {
+					if dense[t/64]&(1<<(t%64)) == 0 {
+						dense[t/64] |= 1 << (t % 64)
+						need[r+1] = append(need[r+1], t)
+					}
+				} else if !seen[t] {
 					seen[t] = true
 					need[r+1] = append(need[r+1], t)
 				}

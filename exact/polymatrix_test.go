@@ -58,7 +58,7 @@ func pmDetAll(tb testing.TB, m *PolyMatrix, maxBareiss int) *Poly {
 	if m.Rows() < 2 {
 		return d
 	}
-	methods := []int{pmDetLaplace}
+	methods := []int{pmDetLaplace, pmDetLaplacePoly}
 	if m.Rows() <= maxBareiss {
 		methods = append(methods, pmDetBareiss)
 	}
@@ -500,7 +500,7 @@ func TestPolyDetErrors(t *testing.T) {
 	}
 	m := pmMatrix(t, capped, rows...)
 	capped.SetMaxTerms(5)
-	for _, meth := range []int{pmDetAuto, pmDetLaplace, pmDetBareiss} {
+	for _, meth := range []int{pmDetAuto, pmDetLaplace, pmDetLaplacePoly, pmDetBareiss} {
 		_, err := m.det(meth)
 		if !errors.Is(err, ErrTooManyTerms) {
 			t.Fatalf("method %d with cap 5: err = %v, want ErrTooManyTerms", meth, err)

@@ -29,7 +29,7 @@ func TestMulStrategiesAgree(t *testing.T) {
 			q = q.Neg().Add(p) // cancellations
 		}
 		want := naiveMul(r, p, q)
-		for _, algo := range []int{algoAuto, algoDense, algoHash, algoHeap, algoSplit} {
+		for _, algo := range []int{algoAuto, algoDense, algoPlanes, algoHash, algoHeap, algoSplit} {
 			withAlgo(algo, func() {
 				got := mustMulP(t, p, q)
 				checkCanonical(t, got)
@@ -53,7 +53,7 @@ func TestMulCoefficientModes(t *testing.T) {
 		"123456789012345678901234567890*x - 1/7*y + 2",
 	} {
 		p := mustParse(t, r, s)
-		for _, algo := range []int{algoAuto, algoDense, algoHash, algoHeap, algoSplit} {
+		for _, algo := range []int{algoAuto, algoDense, algoPlanes, algoHash, algoHeap, algoSplit} {
 			withAlgo(algo, func() {
 				for _, q := range []*Poly{p, p.Neg(), mustParse(t, r, "x+y+1")} {
 					got := mustMulP(t, p, q)
@@ -100,5 +100,31 @@ func TestTermCap(t *testing.T) {
 	r.SetMaxTerms(0)
 	if r.MaxTerms() != DefaultMaxTerms {
 		t.Errorf("MaxTerms after reset = %d", r.MaxTerms())
+	}
+}
+
+// TestMulHashRanges forces the hash accumulation to cut tiny products into
+// many key ranges (down to ranges of a few products, some empty) and
+// compares with the naive big.Rat product.
+func TestMulHashRanges(t *testing.T) {
+	saved := hashRangeWork
+	defer func() { hashRangeWork = saved }()
+	rng := rand.New(rand.NewSource(11))
+	r, _ := testRing(t, "a", "b", "c", "d")
+	for trial := 0; trial < 200; trial++ {
+		hashRangeWork = 1 + rng.Intn(40)
+		p := randPoly(rng, r, 1+rng.Intn(4), 1+rng.Intn(20), rng.Intn(5), rng.Intn(4))
+		q := randPoly(rng, r, 1+rng.Intn(4), 1+rng.Intn(20), rng.Intn(5), rng.Intn(4))
+		if trial%5 == 0 {
+			q = q.Neg().Add(p) // cancellations
+		}
+		want := naiveMul(r, p, q)
+		withAlgo(algoHash, func() {
+			got := mustMulP(t, p, q)
+			checkCanonical(t, got)
+			if !got.Equal(want) {
+				t.Fatalf("ranges of %d products: (%v) * (%v)\n got %v\nwant %v", hashRangeWork, p, q, got, want)
+			}
+		})
 	}
 }
