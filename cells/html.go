@@ -74,10 +74,10 @@ func RenderHTML(r *Report) []byte {
 		var part string
 		switch c.kind {
 		case segProse:
-			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
-			part = tableCode.ReplaceAllStringFunc(part, typeset)
+			part = notebookCode().ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
+			part = tableCode().ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
+			part = tableCode().ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -141,7 +141,7 @@ func convert(md string, maths bool) string {
 // notebookCode is a code block of the notebook's text whose info string
 // would style it as a cell or as a cell's output: it is shown as plain
 // code, since Parse reads it as neither.
-var notebookCode = regexp.MustCompile(`<pre><code class="language-(cell|output)">`)
+var notebookCode = lazyRegexp(`<pre><code class="language-(cell|output)">`)
 
 // withoutHTMLBlocks blanks the lines of the HTML blocks that CommonMark
 // finds at the top level of the notebook's text (the HTML report drops raw
@@ -184,8 +184,8 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 }
 
 var (
-	tableCode = regexp.MustCompile(`<td><code>[^<]*</code></td>`)
-	power     = regexp.MustCompile(`\^([0-9]+)`)
+	tableCode = lazyRegexp(`<td><code>[^<]*</code></td>`)
+	power     = lazyRegexp(`\^([0-9]+)`)
 )
 
 // typesetMath sets a formula in a table cell of a generated region (a
@@ -203,13 +203,13 @@ func typesetMath(cell string) string {
 // exponents raised, products as a centred dot. Only digits are moved into
 // markup, so the escaping of the text is kept.
 func typeset(cell string) string {
-	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
+	cell = power().ReplaceAllString(cell, "<sup>$1</sup>")
 	return strings.ReplaceAll(cell, "*", "·")
 }
 
 var (
-	xmlProlog = regexp.MustCompile(`^(?s)\s*(<\?xml.*?\?>\s*)?(<!DOCTYPE[^>]*>\s*)?`)
-	svgUnsafe = regexp.MustCompile(`(?i)<script|<foreignobject|<iframe|<object|<embed|javascript:|@import|` +
+	xmlProlog = lazyRegexp(`^(?s)\s*(<\?xml.*?\?>\s*)?(<!DOCTYPE[^>]*>\s*)?`)
+	svgUnsafe = lazyRegexp(`(?i)<script|<foreignobject|<iframe|<object|<embed|javascript:|@import|` +
 		`\bon[a-z]+\s*=|(href|src)\s*=\s*["']?\s*(https?:|//)|url\(\s*["']?\s*(https?:|//)`)
 )
 
@@ -217,9 +217,9 @@ var (
 // (scripts, event handlers, outside links) as an image, where SVG cannot run
 // anything.
 func figureHTML(f Figure) string {
-	svg := xmlProlog.ReplaceAllString(f.SVG, "")
+	svg := xmlProlog().ReplaceAllString(f.SVG, "")
 	var img string
-	if strings.HasPrefix(svg, "<svg") && !svgUnsafe.MatchString(svg) {
+	if strings.HasPrefix(svg, "<svg") && !svgUnsafe().MatchString(svg) {
 		img = svg
 	} else {
 		img = `<img alt="` + html.EscapeString(f.Name) + `" src="data:image/svg+xml;base64,` +
