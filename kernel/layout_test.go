@@ -23,6 +23,7 @@ var rooms = []string{
 	"assay/kernel/interp/pyext",
 	"assay/kernel/interp",
 	"assay/kernel/figure",
+	"assay/kernel/spawn",
 }
 
 // projectImports lists the project packages a directory's non-test Go

@@ -19,6 +19,7 @@ import (
 	"time"
 
 	"assay/cells"
+	"assay/cmd/assay/early"
 	"assay/kernel"
 	"assay/kernel/claim"
 	"assay/kernel/proto"
@@ -127,7 +128,7 @@ func (l *limits) options(s session.Settings, stderr io.Writer) (kernel.Options, 
 		return kernel.Options{}, fmt.Errorf("cannot find the assay executable to start a kernel: %w", err)
 	}
 	opt := kernel.Options{Settings: s, Timeout: l.timeout, MaxMemory: int64(l.maxMemory), MaxOutput: int64(l.maxOutput), KeepGoing: l.keep,
-		Command: []string{exe, "kernel"}, Workers: l.workers}
+		Command: early.Command(exe), Workers: l.workers}
 	if isTerminal(stderr) {
 		opt.Progress = stderr
 	}
