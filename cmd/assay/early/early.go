@@ -16,9 +16,15 @@
 //	after, built CGO_ENABLED=0     43.3 / 45.7 / 48.8 ms
 //	floor: two hello-world Go processes, parent and child: 12.8 / 15.0 / 15.7 ms
 //
-// CPU time is unchanged (70–72 ms min): the gain is the overlap, which
-// needs an idle core; on the saturated machine at normal priority old and
-// new are within noise (±30%). One process doing nothing but start
+// BenchmarkCheckOneCell, mean of 30, three alternating runs, same
+// priority: 60.8–67.7 ms before, 46.7–53.2 ms after. CPU time is unchanged
+// (70–72 ms min): the gain is the overlap, which needs an idle core; at
+// normal priority on the saturated machine (load 20) both took 245–293 ms,
+// within noise. Where the time goes now (perf trace): the kernel starts
+// 7 ms into the driver's start and is the critical path: its start request
+// waits ~8 ms for it; the driver waits ~3 ms more for its exit. Warming the
+// JSON codecs or the interpreter's patch check during those waits measured
+// no gain, so neither is done. One process doing nothing but start
 // (`assay version`) costs 25.6 ms against 6.3 ms for a hello-world Go
 // binary: ~900 page faults (a hello world takes 210) at ~20 µs each on
 // this VM, of which the package initialisers took ~600 before this change,
