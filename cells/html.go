@@ -185,7 +185,7 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 
 var (
 	tableCode = lazyRegexp(`<td><code>[^<]*</code></td>`)
-	power     = lazyRegexp(`\^([0-9]+)`)
+	power     = regexp.MustCompile(`\^([0-9]+)`)
 )
 
 // typesetMath sets a formula in a table cell of a generated region (a
@@ -203,7 +203,7 @@ func typesetMath(cell string) string {
 // exponents raised, products as a centred dot. Only digits are moved into
 // markup, so the escaping of the text is kept.
 func typeset(cell string) string {
-	cell = power().ReplaceAllString(cell, "<sup>$1</sup>")
+	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
 	return strings.ReplaceAll(cell, "*", "·")
 }
 

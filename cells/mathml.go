@@ -5,6 +5,7 @@ import (
 	"errors"
 	"fmt"
 	"html"
+	"regexp"
 	"strings"
 	"unicode"
 	"unicode/utf8"
@@ -581,8 +582,8 @@ func mathHTML(tex string, display bool) string {
 }
 
 var (
-	polyTerm = lazyRegexp(`^(?:[0-9]+(?:/[0-9]+)?|[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)(?:\*[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)*$`)
-	polyName = lazyRegexp(`^([A-Za-z]+?)_?([0-9]*)$`)
+	polyTerm = regexp.MustCompile(`^(?:[0-9]+(?:/[0-9]+)?|[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)(?:\*[A-Za-z][A-Za-z0-9_]*(?:\^[0-9]+)?)*$`)
+	polyName = regexp.MustCompile(`^([A-Za-z]+?)_?([0-9]*)$`)
 )
 
 // polyMathML typesets a polynomial as assay prints one ("2*a^2*b - 3/4*c
@@ -605,7 +606,7 @@ func polyMathML(text string) (string, bool) {
 			tex.WriteString(" " + t + " ")
 			continue
 		}
-		if !polyTerm().MatchString(t) {
+		if !polyTerm.MatchString(t) {
 			return "", false
 		}
 		for j, f := range strings.Split(t, "*") {
@@ -618,7 +619,7 @@ func polyMathML(text string) (string, bool) {
 				base = `\frac{` + n + "}{" + d + "}"
 			case base[0] >= '0' && base[0] <= '9':
 			default:
-				m := polyName().FindStringSubmatch(base)
+				m := polyName.FindStringSubmatch(base)
 				switch {
 				case m == nil:
 					base = `\mathrm{` + base + "}"
