@@ -75,9 +75,9 @@ func RenderHTML(r *Report) []byte {
 		switch c.kind {
 		case segProse:
 			part = notebookCode().ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
-			part = tableCode().ReplaceAllStringFunc(part, typeset)
+			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode().ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
+			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typesetMath)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -184,7 +184,7 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 }
 
 var (
-	tableCode = lazyRegexp(`<td><code>[^<]*</code></td>`)
+	tableCode = regexp.MustCompile(`<td><code>[^<]*</code></td>`)
 	power     = regexp.MustCompile(`\^([0-9]+)`)
 )
 
