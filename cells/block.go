@@ -2,7 +2,6 @@ package cells
 
 import (
 	"html"
-	"regexp"
 	"strings"
 	"unicode/utf8"
 )
@@ -347,11 +346,11 @@ func atxLevel(t string) int {
 }
 
 var (
-	htmlRaw       = regexp.MustCompile(`(?i)^<(pre|script|style|textarea)([ \t>]|$)`)
-	htmlRawEnd    = regexp.MustCompile(`(?i)</(pre|script|style|textarea)>`)
-	htmlBlockTags = regexp.MustCompile(`(?i)^</?(address|article|aside|base|basefont|blockquote|body|caption|center|col|colgroup|dd|details|dialog|dir|div|dl|dt|fieldset|figcaption|figure|footer|form|frame|frameset|h1|h2|h3|h4|h5|h6|head|header|hr|html|iframe|legend|li|link|main|menu|menuitem|nav|noframes|ol|optgroup|option|p|param|search|section|summary|table|tbody|td|tfoot|th|thead|title|tr|track|ul)([ \t>]|/>|$)`)
-	htmlTagLine   = regexp.MustCompile(`^(<[A-Za-z][A-Za-z0-9-]*([ \t]+[A-Za-z_:][A-Za-z0-9_.:-]*([ \t]*=[ \t]*([^ \t\r\n"'=<>` + "`" + `]+|'[^']*'|"[^"]*"))?)*[ \t]*/?>|</[A-Za-z][A-Za-z0-9-]*[ \t]*>)[ \t]*$`)
-	htmlLetter    = regexp.MustCompile(`^<![A-Za-z]`)
+	htmlRaw       = lazyRegexp(`(?i)^<(pre|script|style|textarea)([ \t>]|$)`)
+	htmlRawEnd    = lazyRegexp(`(?i)</(pre|script|style|textarea)>`)
+	htmlBlockTags = lazyRegexp(`(?i)^</?(address|article|aside|base|basefont|blockquote|body|caption|center|col|colgroup|dd|details|dialog|dir|div|dl|dt|fieldset|figcaption|figure|footer|form|frame|frameset|h1|h2|h3|h4|h5|h6|head|header|hr|html|iframe|legend|li|link|main|menu|menuitem|nav|noframes|ol|optgroup|option|p|param|search|section|summary|table|tbody|td|tfoot|th|thead|title|tr|track|ul)([ \t>]|/>|$)`)
+	htmlTagLine   = lazyRegexp(`^(<[A-Za-z][A-Za-z0-9-]*([ \t]+[A-Za-z_:][A-Za-z0-9_.:-]*([ \t]*=[ \t]*([^ \t\r\n"'=<>` + "`" + `]+|'[^']*'|"[^"]*"))?)*[ \t]*/?>|</[A-Za-z][A-Za-z0-9-]*[ \t]*>)[ \t]*$`)
+	htmlLetter    = lazyRegexp(`^<![A-Za-z]`)
 )
 
 // htmlStart is the start condition (1 to 7) of an HTML block that line t
@@ -363,19 +362,19 @@ func htmlStart(t string) int {
 		return 0
 	}
 	switch {
-	case htmlRaw.MatchString(t):
+	case htmlRaw().MatchString(t):
 		return 1
 	case strings.HasPrefix(t, "<!--"):
 		return 2
 	case strings.HasPrefix(t, "<?"):
 		return 3
-	case htmlLetter.MatchString(t):
+	case htmlLetter().MatchString(t):
 		return 4
 	case strings.HasPrefix(t, "<![CDATA["):
 		return 5
-	case htmlBlockTags.MatchString(t):
+	case htmlBlockTags().MatchString(t):
 		return 6
-	case htmlTagLine.MatchString(t):
+	case htmlTagLine().MatchString(t):
 		// The spec leaves out pre, script, style and textarea, but its
 		// reference parsers (cmark, commonmark.js) do not for a closing
 		// tag such as </pre>, and what readers show is the rule here.
@@ -389,7 +388,7 @@ func htmlStart(t string) int {
 func htmlEnds(k int, s string) bool {
 	switch k {
 	case 1:
-		return htmlRawEnd.MatchString(s)
+		return htmlRawEnd().MatchString(s)
 	case 2:
 		return strings.Contains(s, "-->")
 	case 3:
@@ -413,7 +412,7 @@ func infoWord(info string) string {
 	return w[0]
 }
 
-var entityRef = regexp.MustCompile(`&(#[0-9]{1,7}|#[xX][0-9a-fA-F]{1,6}|[A-Za-z][A-Za-z0-9]{1,31});`)
+var entityRef = lazyRegexp(`&(#[0-9]{1,7}|#[xX][0-9a-fA-F]{1,6}|[A-Za-z][A-Za-z0-9]{1,31});`)
 
 // unescapeInfo resolves backslash escapes of ASCII punctuation and entity
 // references in an info string (spec 2.4, 2.5).
@@ -429,7 +428,7 @@ func unescapeInfo(s string) string {
 			continue
 		}
 		if s[i] == '&' {
-			if m := entityRef.FindString(s[i:]); m != "" && strings.HasPrefix(s[i:], m) {
+			if m := entityRef().FindString(s[i:]); m != "" && strings.HasPrefix(s[i:], m) {
 				if r := html.UnescapeString(m); r != m {
 					b.WriteString(r)
 					i += len(m) - 1

@@ -78,7 +78,7 @@ func RenderHTML(r *Report) []byte {
 		var part string
 		switch c.kind {
 		case segProse:
-			part = notebookCode.ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
+			part = notebookCode().ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
 			part = tableCode.ReplaceAllStringFunc(part, typeset)
 		case segRegion:
 			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
@@ -145,7 +145,7 @@ func convert(md string, maths bool) string {
 // notebookCode is a code block of the notebook's text whose info string
 // would style it as a cell or as a cell's output: it is shown as plain
 // code, since Parse reads it as neither.
-var notebookCode = regexp.MustCompile(`<pre><code class="language-(cell|output)">`)
+var notebookCode = lazyRegexp(`<pre><code class="language-(cell|output)">`)
 
 // withoutHTMLBlocks blanks the lines of the HTML blocks that CommonMark
 // finds at the top level of the notebook's text (the HTML report drops raw
@@ -201,8 +201,8 @@ func typeset(cell string) string {
 }
 
 var (
-	xmlProlog = regexp.MustCompile(`^(?s)\s*(<\?xml.*?\?>\s*)?(<!DOCTYPE[^>]*>\s*)?`)
-	svgUnsafe = regexp.MustCompile(`(?i)<script|<foreignobject|<iframe|<object|<embed|javascript:|@import|` +
+	xmlProlog = lazyRegexp(`^(?s)\s*(<\?xml.*?\?>\s*)?(<!DOCTYPE[^>]*>\s*)?`)
+	svgUnsafe = lazyRegexp(`(?i)<script|<foreignobject|<iframe|<object|<embed|javascript:|@import|` +
 		`\bon[a-z]+\s*=|(href|src)\s*=\s*["']?\s*(https?:|//)|url\(\s*["']?\s*(https?:|//)`)
 )
 
@@ -210,9 +210,9 @@ var (
 // (scripts, event handlers, outside links) as an image, where SVG cannot run
 // anything.
 func figureHTML(f Figure) string {
-	svg := xmlProlog.ReplaceAllString(f.SVG, "")
+	svg := xmlProlog().ReplaceAllString(f.SVG, "")
 	var img string
-	if strings.HasPrefix(svg, "<svg") && !svgUnsafe.MatchString(svg) {
+	if strings.HasPrefix(svg, "<svg") && !svgUnsafe().MatchString(svg) {
 		img = svg
 	} else {
 		img = `<img alt="` + html.EscapeString(f.Name) + `" src="data:image/svg+xml;base64,` +

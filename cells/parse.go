@@ -3,7 +3,6 @@ package cells
 import (
 	"fmt"
 	"path/filepath"
-	"regexp"
 	"sort"
 	"strconv"
 	"strings"
@@ -35,7 +34,7 @@ const (
 // knownOptions lists the cell option keys, sorted, for error messages.
 var knownOptions = []string{"id", "precision", "seed", "timeout"}
 
-var idPattern = regexp.MustCompile(`^[A-Za-z0-9_-]+$`)
+var idPattern = lazyRegexp(`^[A-Za-z0-9_-]+$`)
 
 // line is one notebook line.
 type line struct {
@@ -103,11 +102,11 @@ func (f fence) closes(s string) bool {
 	return len(t)-len(rest) >= f.n && strings.Trim(rest, " \t") == ""
 }
 
-var headingPattern = regexp.MustCompile(`^ {0,3}#[ \t]+(.*)$`)
+var headingPattern = lazyRegexp(`^ {0,3}#[ \t]+(.*)$`)
 
 // headingText returns the text of a level-1 ATX heading line, or "".
 func headingText(s string) string {
-	m := headingPattern.FindStringSubmatch(strings.TrimPrefix(s, "\ufeff"))
+	m := headingPattern().FindStringSubmatch(strings.TrimPrefix(s, "\ufeff"))
 	if m == nil {
 		return ""
 	}
@@ -467,7 +466,7 @@ func (p *parser) options(info string) (CellOptions, error) {
 			}
 			o.Seed = &n
 		case "id":
-			if !idPattern.MatchString(val) {
+			if !idPattern().MatchString(val) {
 				return o, fmt.Errorf("cell option id=%s: an id is made of letters, digits, _ and - only", val)
 			}
 			if prev, dup := p.ids[val]; dup {

@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"html"
 	"io"
-	"regexp"
 	"strings"
 	"unicode/utf8"
 )
@@ -56,11 +55,11 @@ func openMarker(lines []string) string {
 
 // timeFigure is a time a report states, such as "0.012 s": masked in the
 // hash, so that a rerun which changes only times keeps its markers.
-var timeFigure = regexp.MustCompile(`[0-9]+\.[0-9]+ s\b`)
+var timeFigure = lazyRegexp(`[0-9]+\.[0-9]+ s\b`)
 
 // MaskTimes replaces each time a report states ("0.012 s") with "T s":
 // what is left changes only when the findings do.
-func MaskTimes(s string) string { return timeFigure.ReplaceAllString(s, "T s") }
+func MaskTimes(s string) string { return timeFigure().ReplaceAllString(s, "T s") }
 
 // runPrefix starts the header line that states the run identifier.
 const runPrefix = "- run: "
@@ -93,7 +92,7 @@ func runText(id string) string {
 	return b.String()
 }
 
-var runMeta = regexp.MustCompile(`<meta name="assay-run" content="([^"<>]*)">`)
+var runMeta = lazyRegexp(`<meta name="assay-run" content="([^"<>]*)">`)
 
 // RunID reads back the run identifier (Report.Run, as runText keeps it)
 // that RenderMarkdown states in a report's header and RenderHTML in a
@@ -106,7 +105,7 @@ var runMeta = regexp.MustCompile(`<meta name="assay-run" content="([^"<>]*)">`)
 func RunID(data []byte) string {
 	s := string(data)
 	if strings.HasPrefix(strings.TrimSpace(s), "<!DOCTYPE html>") {
-		if m := runMeta.FindStringSubmatch(s); m != nil {
+		if m := runMeta().FindStringSubmatch(s); m != nil {
 			return runText(html.UnescapeString(m[1]))
 		}
 		return ""

@@ -12,6 +12,7 @@ import (
 	"regexp"
 	"strconv"
 	"strings"
+	"sync"
 )
 
 // LaTeXRat is r in LaTeX: "3", "-\frac{1}{2}" (the sign outside).
@@ -67,7 +68,7 @@ func (p *Poly) LaTeXTerms(n int) string {
 }
 
 var (
-	nameIndexed = regexp.MustCompile(`^([A-Za-z]+?)_?([0-9]+)$`)
+	nameIndexed = sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(`^([A-Za-z]+?)_?([0-9]+)$`) }) // at first use: not every process's start
 	greekNames  = map[string]bool{}
 )
 
@@ -80,7 +81,7 @@ func init() {
 // LaTeXName is a variable's name in LaTeX: "x", "x_{1}" for x1 or x_1,
 // "\alpha" for alpha, "\mathrm{area}" for a longer name.
 func LaTeXName(name string) string {
-	if m := nameIndexed.FindStringSubmatch(name); m != nil && (len(m[1]) == 1 || greekNames[m[1]]) {
+	if m := nameIndexed().FindStringSubmatch(name); m != nil && (len(m[1]) == 1 || greekNames[m[1]]) {
 		return LaTeXName(m[1]) + "_{" + m[2] + "}"
 	}
 	switch {

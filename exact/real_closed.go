@@ -35,6 +35,7 @@ import (
 	"sort"
 	"strconv"
 	"strings"
+	"sync"
 )
 
 // ClosedFormMaxLen is the longest closed form String-like printing uses;
@@ -470,7 +471,7 @@ func radReduce(m *big.Int, k int) (*big.Int, *big.Int, int) {
 		if r, ok := exactIntRoot(m, k); ok {
 			return c.Mul(c, r), big.NewInt(1), 1
 		}
-		for _, p := range closedPrimes {
+		for _, p := range closedPrimes() {
 			pk := new(big.Int).Exp(big.NewInt(int64(p)), big.NewInt(int64(k)), nil)
 			if pk.Cmp(m) > 0 {
 				break
@@ -511,8 +512,9 @@ func exactIntRoot(m *big.Int, k int) (*big.Int, bool) {
 }
 
 // closedPrimes are the primes below 1000, whose powers radReduce takes
-// out of a radicand; made once, before any goroutine can ask.
-var closedPrimes = func() []int {
+// out of a radicand; made at the first call (at package initialisation,
+// the sieve under it cost every process 1 ms at start).
+var closedPrimes = sync.OnceValue(func() []int {
 	out := []int{2}
 	for _, p := range smallPrimes() {
 		if p >= 1000 {
@@ -521,7 +523,7 @@ var closedPrimes = func() []int {
 		out = append(out, int(p))
 	}
 	return out
-}()
+})
 
 // root is the real k-th root of a radSum of one term (a rational or
 // c·m^(1/j)): |c|^(1/k)·m^(1/(jk)), negative for an odd root of a negative c.

@@ -24,6 +24,7 @@ var rooms = []string{
 	"assay/kernel/interp",
 	"assay/kernel/figure",
 	"assay/kernel/cputime",
+	"assay/kernel/spawn",
 }
 
 // projectImports lists the project packages a directory's non-test Go

@@ -19,6 +19,7 @@ import (
 	"time"
 
 	"assay/cells"
+	"assay/cmd/assay/early"
 	"assay/kernel"
 	"assay/kernel/claim"
 	"assay/kernel/proto"
@@ -127,7 +128,7 @@ func (l *limits) options(s session.Settings, stderr io.Writer) (kernel.Options, 
 		return kernel.Options{}, fmt.Errorf("cannot find the assay executable to start a kernel: %w", err)
 	}
 	opt := kernel.Options{Settings: s, Timeout: l.timeout, MaxMemory: int64(l.maxMemory), MaxOutput: int64(l.maxOutput), KeepGoing: l.keep,
-		Command: []string{exe, "kernel"}, Workers: l.workers}
+		Command: early.Command(exe), Workers: l.workers}
 	if isTerminal(stderr) {
 		opt.Progress = stderr
 	}
@@ -613,8 +614,9 @@ Flags:
 	return writeReport("assay merge", rep, mdPath, report.writesHTML(), strict, inputs, stdout, stderr)
 }
 
-// partSuffix ends the name of a part file as assay run --shard makes it.
-var partSuffix = regexp.MustCompile(`\.part-[0-9]+-of-[0-9]+\.json$`)
+// partSuffix ends the name of a part file as assay run --shard makes it
+// (compiled when used: every start of the binary would pay for it).
+const partSuffix = `\.part-[0-9]+-of-[0-9]+\.json$`
 
 // mergeReportPath is where merge writes without -o: beside the part files,
 // named after them (x.part-1-of-8.json gives x.report.md). A path read from
@@ -627,7 +629,7 @@ func mergeReportPath(parts []string) (string, error) {
 		}
 	}
 	base := filepath.Base(parts[0])
-	stem := partSuffix.ReplaceAllString(base, "")
+	stem := regexp.MustCompile(partSuffix).ReplaceAllString(base, "")
 	if stem == base {
 		stem = strings.TrimSuffix(base, filepath.Ext(base))
 	}

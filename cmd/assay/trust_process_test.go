@@ -200,14 +200,25 @@ func TestParentOfAKernel(t *testing.T) {
 
 // childOf finds a child process of pid (Linux /proc), or 0.
 func childOf(pid int) int {
+	if c := childrenOf(pid); len(c) > 0 {
+		return c[0]
+	}
+	return 0
+}
+
+// childrenOf lists the child processes of pid that have not ended (Linux
+// /proc).
+func childrenOf(pid int) []int {
+	var out []int
 	stats, _ := filepath.Glob("/proc/[0-9]*/stat")
 	for _, f := range stats {
 		if ppid, _ := statField(f, 1); ppid == strconv.Itoa(pid) {
-			n, _ := strconv.Atoi(filepath.Base(filepath.Dir(f)))
-			return n
+			if n, _ := strconv.Atoi(filepath.Base(filepath.Dir(f))); alive(n) {
+				out = append(out, n)
+			}
 		}
 	}
-	return 0
+	return out
 }
 
 // alive says pid is a process that has not ended (a zombie has).

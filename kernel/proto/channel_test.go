@@ -203,7 +203,7 @@ func TestServeCapsOutput(t *testing.T) {
 		`{"op":"run","cell":{"cell":3,"line":15,"source":"print('small')"}}`,
 	}, "\n") + "\n"
 	var out strings.Builder
-	if err := serve(strings.NewReader(in), &out, 100<<10); err != nil {
+	if err := serve(strings.NewReader(in), &out, 100<<10, nil); err != nil {
 		t.Fatal(err)
 	}
 	var replies []Reply

@@ -2,19 +2,7 @@
 
 package proto
 
-import (
-	"os"
-	"os/exec"
-	"syscall"
-)
-
-// attach passes the protocol channel to the child as file descriptors 3
-// (requests) and 4 (replies). Its standard input and output stay the null
-// device: nothing it writes there is read.
-func attach(cmd *exec.Cmd, requests, replies *os.File) {
-	cmd.ExtraFiles = []*os.File{requests, replies}
-	cmd.Env = append(cmd.Env, ChannelEnv+"=3,4")
-}
+import "syscall"
 
 // prepare marks a channel descriptor close-on-exec, and non-blocking so
 // that its reads wait in the runtime's poller rather than hold a thread:

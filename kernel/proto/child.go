@@ -4,13 +4,18 @@ import (
 	"io"
 	"os"
 	"os/signal"
+	"runtime"
 	"runtime/debug"
 	"strconv"
+
+	"assay/kernel/spawn"
 )
 
 // The child-process contract: how a driver passes a kernel its protocol
-// channel, what it sets in the kernel's environment, and the limits the
-// kernel puts on itself.
+// channel, what it may set in the kernel's environment, and the limits the
+// kernel puts on itself. Start passes the limits in the start request
+// (Request.Limits), which wins over the environment: a kernel it takes was
+// started before the limits were known (spawn.Early).
 const (
 	// ChannelEnv names the protocol channel, "IN,OUT": the file
 	// descriptors the kernel reads requests from and writes replies to.
@@ -19,7 +24,7 @@ const (
 	// ServeChild is given (standard input and output). Without ChannelEnv
 	// the kernel serves on those too (a driver such as an editor), but
 	// does not take their end for its driver's death.
-	ChannelEnv = "ASSAY_KERNEL_CHANNEL"
+	ChannelEnv = spawn.ChannelEnv
 	// MemoryEnv carries the memory cap in bytes; the kernel sets it as its
 	// soft Go memory limit, and the driver kills it above the cap.
 	MemoryEnv = "ASSAY_MAX_MEMORY"
@@ -27,7 +32,8 @@ const (
 	// reply may take (see DefaultMaxOutput).
 	OutputEnv = "ASSAY_MAX_OUTPUT"
 	// ThreadsEnv is the Go runtime's own variable: a worker that shares the
-	// cores with others is told how many it may use.
+	// cores with others is told how many it may use (and again in its
+	// start request, for a kernel started before that was known).
 	ThreadsEnv = "GOMAXPROCS"
 	// MaxStack bounds the kernel's stack, so a runaway recursion ends the
 	// cell in a second rather than after growing a gigabyte of stack.
@@ -73,12 +79,7 @@ const KernelGCPercent = 400
 // process at once, even in the middle of a cell: the driver has gone.
 func ServeChild(in io.Reader, out io.Writer) error {
 	if v, err := strconv.ParseInt(os.Getenv(MemoryEnv), 10, 64); err == nil && v > 0 {
-		// Soft, below the hard cap the parent enforces, so that the
-		// collector works harder before the cap rather than at it.
-		debug.SetMemoryLimit(v - v/4)
-		if _, set := os.LookupEnv("GOGC"); !set {
-			debug.SetGCPercent(KernelGCPercent)
-		}
+		collectBelow(v)
 	}
 	debug.SetMaxStack(MaxStack)
 	maxOutput := int64(DefaultMaxOutput)
@@ -106,7 +107,29 @@ func ServeChild(in io.Reader, out io.Writer) error {
 		// process with it through the parent-death signal.
 		signal.Ignore(os.Interrupt)
 	}
-	return serve(in, out, maxOutput)
+	return serve(in, out, maxOutput, func(l Limits) int64 {
+		if l.MaxMemory > 0 {
+			collectBelow(l.MaxMemory)
+		}
+		if l.Procs > 0 && l.Procs != runtime.GOMAXPROCS(0) {
+			runtime.GOMAXPROCS(l.Procs) // stops the world: ~1 ms at start
+		}
+		if l.MaxOutput > 0 {
+			return l.MaxOutput
+		}
+		return maxOutput
+	})
+}
+
+// collectBelow sets the collector for a kernel whose hard memory cap (the
+// parent enforces it) is limit bytes: a soft limit at three quarters of
+// it, so that the collector works harder before the cap rather than at
+// it, and GOGC at KernelGCPercent unless the environment sets one.
+func collectBelow(limit int64) {
+	debug.SetMemoryLimit(limit - limit/4)
+	if _, set := os.LookupEnv("GOGC"); !set {
+		debug.SetGCPercent(KernelGCPercent)
+	}
 }
 
 // TestKernelEnv, set to 1, tells a test binary that a test started it as

@@ -7,8 +7,9 @@ import (
 	"encoding/hex"
 	"encoding/json"
 	"fmt"
+	"io"
 	"os"
-	"os/exec"
+	"runtime"
 	"strconv"
 	"strings"
 	"sync"
@@ -16,6 +17,7 @@ import (
 	"time"
 
 	"assay/kernel/session"
+	"assay/kernel/spawn"
 )
 
 // LimitError is a cell stopped by a limit, or a kernel process that died.
@@ -25,28 +27,32 @@ type LimitError struct {
 
 func (e *LimitError) Error() string { return e.Message }
 
-// Limits are the bounds a driver puts on a kernel process.
+// Limits are the bounds a driver puts on a kernel process; Start sends
+// them in the start request.
 type Limits struct {
 	// MaxMemory caps the child's resident memory (bytes); the child is
-	// killed when it crosses the cap.
-	MaxMemory int64
+	// killed when it crosses the cap, and sets it as its soft Go memory
+	// limit.
+	MaxMemory int64 `json:"max_memory,omitempty"`
 	// MaxOutput caps one reply (bytes of JSON; DefaultMaxOutput when not
 	// positive): the child keeps a cell's reply within it, and the driver
 	// reads no line longer than MaxOutput+ReplySlack.
-	MaxOutput int64
+	MaxOutput int64 `json:"max_output,omitempty"`
 	// Procs, when positive, is the number of threads the child may run Go
 	// code on (GOMAXPROCS): workers that share the cores should not each
-	// think they own all of them.
-	Procs int
+	// think they own all of them. Start leaves it out when the user set
+	// GOMAXPROCS, which the child inherits.
+	Procs int `json:"procs,omitempty"`
 }
 
 // Process is a kernel child process driven over JSON lines on a channel
 // of its own. Its replies go to the inbox its driver gave it.
 type Process struct {
-	cmd      *exec.Cmd
-	requests *os.File      // the write end of the request channel
-	exited   chan struct{} // closed when the process has ended
-	gone     chan struct{} // closed when the driver stops listening
+	child    *spawn.Child
+	state    *os.ProcessState // how it ended, once exited is closed
+	requests *os.File         // the write end of the request channel
+	exited   chan struct{}    // closed when the process has ended
+	gone     chan struct{}    // closed when the driver stops listening
 	stderr   *head
 	limits   Limits
 	overMem  atomic.Bool
@@ -72,45 +78,45 @@ type Message struct {
 }
 
 // Start starts command (e.g. ["/path/assay", "kernel"]) and asks it
-// to open a session with the given settings; that reply, like every later
-// one, arrives in inbox. The protocol runs on a channel of its own (see
-// ChannelEnv), never on the child's standard output, which notebook code
-// can reach through the interpreter; the child's standard error is kept
-// (its start) to explain a death. The child is killed when this process
-// dies (Linux), and ends when its request channel does.
+// to open a session with the given settings and limits; that reply, like
+// every later one, arrives in inbox. The protocol runs on a channel of its
+// own (see ChannelEnv), never on the child's standard output, which
+// notebook code can reach through the interpreter; the child's standard
+// error is kept (its start) to explain a death. The child is killed when
+// this process dies (Linux), and ends when its request channel does. A
+// child of the same command started early (spawn.Early) is taken instead
+// of a new one: the limits travel in the start request, so it needs
+// nothing at its start that was not known then.
 func Start(command []string, s session.Settings, lim Limits, inbox chan<- Message) (*Process, error) {
 	if lim.MaxOutput <= 0 {
 		lim.MaxOutput = DefaultMaxOutput
 	}
-	cmd := exec.Command(command[0], command[1:]...)
-	cmd.Env = append(os.Environ(), MemoryEnv+"="+strconv.FormatInt(lim.MaxMemory, 10), OutputEnv+"="+strconv.FormatInt(lim.MaxOutput, 10))
-	if _, set := os.LookupEnv(ThreadsEnv); lim.Procs > 0 && !set {
-		cmd.Env = append(cmd.Env, ThreadsEnv+"="+strconv.Itoa(lim.Procs))
+	env := os.Environ()
+	switch _, set := os.LookupEnv(ThreadsEnv); {
+	case set:
+		lim.Procs = 0 // the user's setting, which the child inherits
+	case lim.Procs <= 0:
+		lim.Procs = runtime.GOMAXPROCS(0) // what the child would take by itself
+	default:
+		env = append(env, ThreadsEnv+"="+strconv.Itoa(lim.Procs))
 	}
-	reqR, reqW, err := os.Pipe()
-	if err != nil {
-		return nil, err
+	child := spawn.Take(command)
+	if child == nil {
+		var err error
+		if child, err = spawn.Start(command, env); err != nil {
+			return nil, fmt.Errorf("cannot start the kernel process: %w", err)
+		}
 	}
-	repR, repW, err := os.Pipe()
-	if err != nil {
-		reqR.Close()
-		reqW.Close()
-		return nil, err
-	}
-	attach(cmd, reqR, repW)
 	var secret [16]byte
 	rand.Read(secret[:])
-	p := &Process{cmd: cmd, requests: reqW, exited: make(chan struct{}), gone: make(chan struct{}), stderr: &head{max: 16 << 10},
+	p := &Process{child: child, requests: child.Requests, exited: make(chan struct{}), gone: make(chan struct{}), stderr: &head{max: 16 << 10},
 		limits: lim, nonce: hex.EncodeToString(secret[:])}
-	cmd.Stderr = p.stderr
-	err = spawn(cmd)
-	reqR.Close() // the child's ends: this process keeps only its own
-	repW.Close()
-	if err != nil {
-		reqW.Close()
-		repR.Close()
-		return nil, fmt.Errorf("cannot start the kernel process: %w", err)
-	}
+	copied := make(chan struct{})
+	go func() {
+		io.Copy(p.stderr, child.Stderr)
+		child.Stderr.Close()
+		close(copied)
+	}()
 	deliver := func(m Message) {
 		select {
 		case inbox <- m:
@@ -118,7 +124,7 @@ func Start(command []string, s session.Settings, lim Limits, inbox chan<- Messag
 		}
 	}
 	go func() {
-		r := bufio.NewReaderSize(repR, 64<<10)
+		r := bufio.NewReaderSize(child.Replies, 64<<10)
 		for {
 			line, err := readLine(r, int(lim.MaxOutput+ReplySlack))
 			if err == errLongLine {
@@ -139,15 +145,16 @@ func Start(command []string, s session.Settings, lim Limits, inbox chan<- Messag
 			}
 			deliver(Message{From: p, Reply: reply})
 		}
-		repR.Close()
-		cmd.Wait()
+		child.Replies.Close()
+		p.state, _ = child.Process.Wait()
+		<-copied
 		close(p.exited)
 		deliver(Message{From: p, Dead: true})
 	}()
 	if lim.MaxMemory > 0 {
 		go p.watchMemory()
 	}
-	if err := p.Send(Request{Op: "start", Settings: &s, Nonce: p.nonce}); err != nil {
+	if err := p.Send(Request{Op: "start", Settings: &s, Limits: &lim, Nonce: p.nonce}); err != nil {
 		p.Close()
 		return nil, err
 	}
@@ -209,7 +216,7 @@ func (p *Process) refuse(what string) {
 	p.mu.Lock()
 	p.violation = "the kernel sent a reply that does not answer the request: " + what
 	p.mu.Unlock()
-	p.cmd.Process.Kill()
+	p.child.Process.Kill()
 }
 
 // Death waits for the process to end and explains why it did: a reply
@@ -232,7 +239,7 @@ func (p *Process) Death() error {
 	}
 	first := strings.SplitN(strings.TrimSpace(text), "\n", 2)[0]
 	if first == "" {
-		first = fmt.Sprint(p.cmd.ProcessState)
+		first = fmt.Sprint(p.state)
 	}
 	return &LimitError{Message: "the kernel process died: " + first}
 }
@@ -246,14 +253,14 @@ func SlowStart(limit time.Duration) *LimitError {
 // Kill ends the process at once.
 func (p *Process) Kill() {
 	p.Unheard()
-	p.cmd.Process.Kill()
+	p.child.Process.Kill()
 	<-p.exited
 }
 
 // watchMemory polls the child's resident set size (Linux /proc) and kills
 // it when it crosses the cap. The child also sets a soft Go memory limit.
 func (p *Process) watchMemory() {
-	path := fmt.Sprintf("/proc/%d/statm", p.cmd.Process.Pid)
+	path := fmt.Sprintf("/proc/%d/statm", p.child.Process.Pid)
 	page := int64(os.Getpagesize())
 	tick := time.NewTicker(20 * time.Millisecond)
 	defer tick.Stop()
@@ -273,7 +280,7 @@ func (p *Process) watchMemory() {
 			pages, _ := strconv.ParseInt(fields[1], 10, 64)
 			if pages*page > p.limits.MaxMemory {
 				p.overMem.Store(true)
-				p.cmd.Process.Kill()
+				p.child.Process.Kill()
 				return
 			}
 		}

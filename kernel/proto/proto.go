@@ -16,6 +16,9 @@ type Request struct {
 	// cell is waiting for it.
 	Op       string            `json:"op"`
 	Settings *session.Settings `json:"settings,omitempty"` // with start
+	// Limits, with start, are the limits the process keeps to (a kernel
+	// process only; see ServeChild).
+	Limits *Limits `json:"limits,omitempty"`
 	// Nonce, with start, is the run's secret: the kernel echoes it in
 	// every reply, and the driver refuses a reply without it.
 	Nonce  string        `json:"nonce,omitempty"`

@@ -16,11 +16,13 @@ import (
 // one reply per request, until in ends. A cell's reply is kept within
 // DefaultMaxOutput.
 func Serve(in io.Reader, out io.Writer) error {
-	return serve(in, out, DefaultMaxOutput)
+	return serve(in, out, DefaultMaxOutput, nil)
 }
 
-// serve is Serve with the output cap of the process.
-func serve(in io.Reader, out io.Writer, maxOutput int64) error {
+// serve is Serve with the output cap of the process; limit, when not nil,
+// applies the limits of a start request to the process and returns its
+// output cap.
+func serve(in io.Reader, out io.Writer, maxOutput int64, limit func(Limits) int64) error {
 	sc := bufio.NewScanner(in)
 	sc.Buffer(make([]byte, 64<<10), maxLine)
 	var (
@@ -69,6 +71,9 @@ func serve(in io.Reader, out io.Writer, maxOutput int64) error {
 					sess.Close()
 				}
 				nonce = req.Nonce
+				if limit != nil && req.Limits != nil {
+					maxOutput = limit(*req.Limits)
+				}
 				var err error
 				if sess, err = session.New(s); err != nil {
 					reply.Error = err.Error()
