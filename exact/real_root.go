@@ -5,19 +5,22 @@ package exact
 //
 // Measured (BenchmarkRealDigitsSqrt2_100000: 100,000 certified digits of √2,
 // alternating in one run with /tmp/peer-bin/digits sqrt2 100000, arb's
-// arb_sqrt_ui and arb_get_str; best of 8–15 rounds each, 2-core machine
-// under a load of 8–20, December 2026):
+// arb_sqrt_ui and arb_get_str; best of 6–15 rounds each, in three runs, on
+// the 2-core machine under a load of 8–20, December 2026):
 //
-//	before (main: isqrt with one division per doubling, a division for
-//	        the upper end, two decimal conversions)      40 ms
-//	after  (intRoot below, one root for both ends, one
-//	        conversion: floatTruncPair in real_digits.go) 14–15 ms
-//	arb, same runs                                        15–28 ms (9 ms
-//	        on a quiet machine, issue 20)
+//	before (main: isqrt, one division per doubling, a division
+//	        for the upper end, two decimal conversions)   28–40 ms
+//	after  (intRoot below: one root for both ends; one
+//	        conversion, floatTruncPair in real_digits.go)  14–16 ms
+//	arb, same runs                                        8.5–15 ms
+//	        (9 ms on a quieter machine, issue 20)
 //
-// so about 1.6× arb at worst. Of the 14 ms about 5 are the root (the
-// Newton iteration and the exact check's square), 2 the scaling by 5^k
-// and 6–7 big.Int.String, which is now the largest part.
+// so 1.0–1.9× arb (2.7–3.3× before; the issue's 223 ms predates isqrt).
+// Of the 14 ms about 5 are the root (Newton and the exact check's square),
+// 2 the scaling by 5^k and 6–7 big.Int.String, now the largest part. At
+// 10,000 digits (BenchmarkRealDigitsSqrt2_10000) 0.45–0.72 ms against
+// 0.78–1.0 ms before; at 256 bits (BenchmarkRealSqrtSum256, big.Int.Sqrt
+// under both) unchanged within the noise.
 
 import (
 	"fmt"

@@ -3,22 +3,23 @@
 // math/big multiplies by Karatsuba's method, O(n^1.58) in the length n;
 // above a few thousand words a number-theoretic transform (ntt.go), O(n log
 // n), wins. Mul and Sqr choose by length: below the measured crossover they
-// call big.Int.Mul, so they can replace it anywhere.
+// call big.Int.Mul, so they can replace it anywhere (and always on 32-bit
+// machines, where the transform's word packing does not apply).
 //
 // Measured (BenchmarkMul and a min-of-many alternating harness, 2-core
 // machine shared with up to 16 other jobs, December 2026; both operands of
 // the given length in 64-bit words; best times, which are the stable
 // statistic under that load):
 //
-//	words       big.Int.Mul   Mul (NTT)   ratio
-//	1,000         0.18 ms      0.48 ms    2.6   (below the threshold)
-//	2,000         0.52 ms      0.44 ms    0.85
-//	3,000         1.0 ms       0.81 ms    0.81
-//	5,000         2.5 ms       1.7 ms     0.69
-//	20,000       25 ms         7.6 ms     0.30
-//	50,000       91 ms        26–34 ms    0.3
-//	100,000     290 ms        59–98 ms    0.2–0.3
-//	1,000,000    37 s          1.5 s      0.04
+//	words       big.Int.Mul   Mul (NTT)    ratio
+//	1,000         0.18 ms      0.48 ms     2.6   (below the threshold)
+//	2,000         0.52–0.68 ms 0.44–0.46 ms 0.7–0.85
+//	3,000         1.0 ms       0.81 ms     0.81
+//	5,000         2.5–2.6 ms   1.7 ms      0.67–0.69
+//	20,000       25–72 ms      7.6–9.8 ms  0.14–0.30
+//	50,000       91–300 ms    26–54 ms     0.18–0.3
+//	100,000     290–880 ms    59–180 ms    0.2
+//	1,000,000    36–37 s       1.5–1.7 s   0.04–0.05
 //
 // Squares cross over a little later (2,000 words: 0.90; 2,500: 1.16;
 // 3,000: 0.85), and unbalanced products still gain at 8:1 (4,000 × 32,000

@@ -54,10 +54,11 @@ type field struct {
 	root  uint64 // a generator of (Z/pZ)*
 
 	mu sync.Mutex
-	// fwd[m+j] = ω_{2m}^j and inv[m+j] = ω_{2m}^-j in Montgomery form, for
-	// 1 ≤ m < len/2... (the table for stage m is fwd[m:2m]); the tables
-	// for a length are prefixes of those for a larger one, so one table
-	// per field serves every length up to its size.
+	// fwd[m+j] = ω_{2m}^j and inv[m+j] = ω_{2m}^-j in Montgomery form for
+	// every stage m (a power of two below the table's length) and j < m:
+	// stage m reads fwd[m:2m]. The table for a length is a prefix of the
+	// table for any larger one, so one table per field serves every
+	// length up to its own.
 	fwd, inv []uint64
 }
 
@@ -542,6 +543,8 @@ func transformLength(m int) int {
 }
 
 // nttMul returns the words of x·y (y == nil: x²), len(x)+len(y) of them.
+// It holds four transform-length arrays of uint64 (three when squaring):
+// about 32 bytes per word of the product.
 func nttMul(x, y []big.Word) []big.Word {
 	ny := len(y)
 	sq := y == nil
