@@ -15,7 +15,8 @@ package exact
 //	arb, same runs                                        8.5–15 ms
 //	        (9 ms on a quieter machine, issue 20)
 //
-// so 1.0–1.9× arb (2.7–3.3× before; the issue's 223 ms predates isqrt).
+// so 1.6–1.9× arb in the calmer runs (15.4 ms against 9.2 ms, before
+// 29.3 ms: 3.2×; the issue's 223 ms predates isqrt).
 // Of the 14 ms about 5 are the root (Newton and the exact check's square),
 // 2 the scaling by 5^k and 6–7 big.Int.String, now the largest part. At
 // 10,000 digits (BenchmarkRealDigitsSqrt2_10000) 0.45–0.72 ms against
