@@ -65,10 +65,10 @@ package exact
 // BenchmarkKahanVolume in exact/geom). Nearly all of that is big-number
 // arithmetic at B bits, mostly square roots; two things keep it down:
 // Sign jumps straight to the precision the bound asks for once an
-// enclosure straddles 0 (refineJump), and square roots take isqrt's
-// precision-doubling Newton iteration and one division for the upper end
-// (real_root.go), together about 30 times faster than big.Int.Sqrt twice
-// and doubling the precision. No separate degree cap is kept, since the cost follows B and
+// enclosure straddles 0 (refineJump), and roots take intRoot's
+// division-free Newton iteration with precision doubling, one root for
+// both ends of a point and a tangent for the upper end of a narrow
+// interval (real_root.go). No separate degree cap is kept, since the cost follows B and
 // not D alone: B is bounded by the precision cap of the query
 // (--max-precision), and a zero whose bound lies beyond it is not decided
 // exactly — Sign stays undecided and says so, and a claim falls back to

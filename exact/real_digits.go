@@ -5,6 +5,8 @@ import (
 	"math"
 	"math/big"
 	"strings"
+
+	"assay/exact/bigmul"
 )
 
 // Digits returns the first n significant decimal digits of x (n < 1 counts
@@ -59,12 +61,11 @@ func (x *Real) Digits(n int, maxPrec uint) (string, error) {
 		if neg {
 			a, b = new(big.Float).Neg(v.hi), new(big.Float).Neg(v.lo)
 		}
-		t1, e1 := floatTrunc(a, n)
-		t2, e2 := floatTrunc(b, n)
-		if e1 != e2 || t1.Cmp(t2) != 0 {
+		d, e, ok := floatTruncPair(a, b, n)
+		if !ok {
 			return false
 		}
-		out = formatSignificant(neg, t1, e1, n)
+		out = writeDigits(neg, d, e, n, sciForm(e, n))
 		return true
 	})
 	if err != nil {
@@ -79,6 +80,48 @@ func floatTrunc(f *big.Float, n int) (*big.Int, int) {
 	prec := int(f.Prec())
 	m, _ := new(big.Float).SetMantExp(f, prec-e).Int(nil) // exact: f has prec bits
 	return decimalTrunc(m, e-prec, big.NewInt(1), n)
+}
+
+// floatTruncPair returns the digit string d and exponent e of
+// floatTrunc(a) for 0 < a ≤ b, and whether floatTrunc(b) is the same. It
+// is floatTrunc twice at the cost of about one: with a = A·2^-s, b = B·2^-s
+// and 10^k = 5^k·2^k, a·10^k = A·5^k/2^(s−k) has integer part t and
+// remainder R/2^(s−k), and b·10^k = t + (R + (B−A)·5^k)/2^(s−k), so b
+// truncates to the same t exactly when R + (B−A)·5^k < 2^(s−k); B − A is
+// short when a and b are close, so that test costs a small multiple of a
+// linear pass. The digit count of t (n, or e was misjudged by one) is read
+// off its decimal string, which is needed anyway. Shapes outside the fast
+// case (k < 0 or s < k) take floatTrunc twice.
+func floatTruncPair(a, b *big.Float, n int) (string, int, bool) {
+	s := max(int(a.Prec())-a.MantExp(nil), int(b.Prec())-b.MantExp(nil))
+	A, _ := new(big.Float).SetMantExp(a, s).Int(nil) // exact: s covers every bit
+	B, _ := new(big.Float).SetMantExp(b, s).Int(nil)
+	e := int(math.Floor((log2Int(A) - float64(s)) * math.Log10(2)))
+	for range 3 {
+		k := n - 1 - e
+		if k < 0 || s < k {
+			break
+		}
+		f5 := intPow(big.NewInt(5), k)
+		sh := uint(s - k)
+		p := bigmul.Mul(new(big.Int), A, f5)
+		t := new(big.Int).Rsh(p, sh)
+		d := t.String()
+		switch {
+		case len(d) > n:
+			e++
+			continue
+		case len(d) < n || d[0] == '0':
+			e--
+			continue
+		}
+		r := p.Sub(p, new(big.Int).Lsh(t, sh)) // R
+		r.Add(r, bigmul.Mul(f5, new(big.Int).Sub(B, A), f5))
+		return d, e, r.BitLen() <= int(sh)
+	}
+	t1, e1 := floatTrunc(a, n)
+	t2, e2 := floatTrunc(b, n)
+	return t1.String(), e1, e1 == e2 && t1.Cmp(t2) == 0
 }
 
 // log2Int approximates log2(x) for x > 0.
@@ -137,7 +180,7 @@ func decimalTrunc(num *big.Int, s int, den *big.Int, n int) (*big.Int, int) {
 // exponent e, padding an integer part longer than n with zeros: right for
 // a value whose digits beyond the n-th are known to be zeros.
 func formatDigits(neg bool, t *big.Int, e, n int) string {
-	return writeDigits(neg, t, e, n, e < -4 || e >= 21)
+	return writeDigits(neg, t.String(), e, n, e < -4 || e >= 21)
 }
 
 // formatSignificant writes n significant digits as formatDigits does, but
@@ -145,13 +188,15 @@ func formatDigits(neg bool, t *big.Int, e, n int) string {
 // digits beyond the n-th are not known, and zeros there would read as an
 // exact integer (199999999999999999990 for 199999999999999999999.998).
 func formatSignificant(neg bool, t *big.Int, e, n int) string {
-	return writeDigits(neg, t, e, n, e < -4 || e >= 21 || e >= n)
+	return writeDigits(neg, t.String(), e, n, sciForm(e, n))
 }
 
-// writeDigits writes the n digits of t, leading digit at decimal exponent
+// sciForm reports when formatSignificant writes scientific form.
+func sciForm(e, n int) bool { return e < -4 || e >= 21 || e >= n }
+
+// writeDigits writes the n digits d, leading digit at decimal exponent
 // e, in scientific form or positionally.
-func writeDigits(neg bool, t *big.Int, e, n int, scientific bool) string {
-	d := t.String()
+func writeDigits(neg bool, d string, e, n int, scientific bool) string {
 	var sb strings.Builder
 	if neg {
 		sb.WriteByte('-')

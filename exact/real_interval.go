@@ -11,8 +11,8 @@ package exact
 // the exact value and an upper endpoint computed with ToPositiveInf at least.
 // Scaling by a power of two (SetMantExp) and negation are exact. Square and
 // k-th roots are not taken from Float.Sqrt: they come from integer roots
-// (real_root.go: big.Int.Sqrt, documented to return ⌊√x⌋, and realIntRoot,
-// which checks its own answer), so they need no accuracy assumption at all.
+// (real_root.go: intRoot, which proves its answer by the exact check
+// r^k ≤ n < (r+1)^k), so they need no accuracy assumption at all.
 //
 // Endpoints never overflow or underflow silently: node results are checked
 // by ivCheckRange (exponents within ±ivMaxExp), which keeps every single
