@@ -9,7 +9,11 @@ package exact
 // bound below is an upper bound by math/big's documented rounding; the
 // midpoints are exact integers.
 
-import "math/big"
+import (
+	"math/big"
+
+	"assay/exact/bigmul"
+)
 
 // ball is the set of reals within r·2^e of m·2^e: m exact, r ≥ 0 an upper
 // bound in the same unit.
@@ -20,8 +24,9 @@ type ball struct {
 }
 
 // mulInt sets z = x·y and returns z. Every large product of the series
-// code goes through it, so a faster multiplication can be wired in here.
-func mulInt(z, x, y *big.Int) *big.Int { return z.Mul(x, y) }
+// code goes through it: bigmul.Mul, which hands products below its
+// measured threshold to big.Int.Mul.
+func mulInt(z, x, y *big.Int) *big.Int { return bigmul.Mul(z, x, y) }
 
 // radUp returns a 64-bit upper bound of |n|.
 func radUp(n *big.Int) *big.Float { return fUp(64).SetInt(new(big.Int).Abs(n)) }
