@@ -16,10 +16,7 @@ func (s *Simplex) VolumeSq() *big.Rat {
 		return new(big.Rat)
 	}
 	f := factorial(s.k)
-	den := new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil)
-	den.Mul(den, f)
-	den.Mul(den, f)
-	return ratFrac(det, den)
+	return s.overPowS(det, s.k, f.Mul(f, f))
 }
 
 // IsDegenerate reports whether the squared volume is 0, that is whether

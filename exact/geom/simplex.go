@@ -3,6 +3,7 @@ package geom
 import (
 	"fmt"
 	"math/big"
+	"math/bits"
 	"strings"
 	"sync"
 
@@ -92,8 +93,11 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 			lc.add(x)
 		}
 	}
-	l := lc.value()
 	s := &Simplex{k: k, n: n, pts: pts}
+	if lw, ok := lc.word(); ok && s.gramWords(lw) {
+		return s
+	}
+	l := lc.value()
 	s.s = new(big.Int).Mul(l, l)
 	p0 := make([]big.Int, n)
 	for c, x := range pts[0] {
@@ -127,6 +131,108 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 		}
 	}
 	return s
+}
+
+// gramWords sets s.g and s.s as fromOwnedPoints does, for a word l, in
+// machine words: it reports false, setting nothing, when a coordinate of
+// an edge vector l·(v_i − v_0) reaches 2^62 or there are more than eight
+// coordinates, so that every Gram entry, a sum of at most eight products
+// below 2^124, fits a signed 128-bit accumulator. Most random simplices
+// (denominators up to 100) take this path; it saves a big.Int per
+// coordinate and per product.
+func (s *Simplex) gramWords(l uint64) bool {
+	k, n, pts := s.k, s.n, s.pts
+	if n > 8 {
+		return false
+	}
+	var buf [8 * 9]int64
+	e := buf[:0]
+	if k*n > len(buf) {
+		e = make([]int64, 0, k*n)
+	}
+	for i := 1; i <= k; i++ {
+		for c, x := range pts[i] {
+			a, ok1 := scaledWord(x, l)
+			b, ok2 := scaledWord(pts[0][c], l)
+			if !ok1 || !ok2 {
+				return false
+			}
+			e = append(e, a-b) // both below 2^61 in size
+		}
+	}
+	gs := make([]big.Int, k*(k+1)/2)
+	words := make([]big.Word, 2*len(gs))
+	s.g = make([]*big.Int, k*k)
+	pos := 0
+	for i := 0; i < k; i++ {
+		ei := e[i*n : (i+1)*n]
+		for j := i; j < k; j++ {
+			ej := e[j*n : (j+1)*n]
+			var hi, lo uint64 // two's complement
+			for c := range ei {
+				ph, pl := mulSigned(ei[c], ej[c])
+				var carry uint64
+				lo, carry = bits.Add64(lo, pl, 0)
+				hi, _ = bits.Add64(hi, ph, carry)
+			}
+			z := &gs[pos]
+			w := words[2*pos : 2*pos+2 : 2*pos+2]
+			pos++
+			neg := int64(hi) < 0
+			if neg {
+				var b uint64
+				lo, b = bits.Sub64(0, lo, 0)
+				hi, _ = bits.Sub64(0, hi, b)
+			}
+			w[0], w[1] = big.Word(lo), big.Word(hi)
+			z.SetBits(w)
+			if neg {
+				z.Neg(z)
+			}
+			s.g[i*k+j] = z
+			s.g[j*k+i] = z
+		}
+	}
+	hi, lo := bits.Mul64(l, l)
+	s.s = new(big.Int).SetBits([]big.Word{big.Word(lo), big.Word(hi)})
+	return true
+}
+
+// scaledWord returns x·l as a word and true when x's denominator divides
+// l (a word) and the product is below 2^61 in size; nil counts as 0.
+func scaledWord(x *big.Rat, l uint64) (int64, bool) {
+	if x == nil || x.Sign() == 0 {
+		return 0, true
+	}
+	num := x.Num()
+	if !num.IsInt64() {
+		return 0, false
+	}
+	m := l
+	if !x.IsInt() {
+		m = l / x.Denom().Uint64() // the denominator divides l, a word
+	}
+	p := num.Int64()
+	hi, lo := bits.Mul64(uint64(max(p, -p)), m) // |p| < 2^63: no overflow on negating
+	if hi != 0 || lo >= 1<<61 {
+		return 0, false
+	}
+	if p < 0 {
+		return -int64(lo), true
+	}
+	return int64(lo), true
+}
+
+// mulSigned returns a·b as a 128-bit two's complement (hi, lo), for
+// |a|, |b| < 2^63.
+func mulSigned(a, b int64) (hi, lo uint64) {
+	hi, lo = bits.Mul64(uint64(max(a, -a)), uint64(max(b, -b)))
+	if (a < 0) != (b < 0) {
+		var br uint64
+		lo, br = bits.Sub64(0, lo, 0)
+		hi, _ = bits.Sub64(0, hi, br)
+	}
+	return hi, lo
 }
 
 // FromSquaredDistances returns the simplex whose vertices have the squared
@@ -389,7 +495,22 @@ func (s *Simplex) CayleyMenger() *big.Rat {
 	if err != nil {
 		panic("geom: " + err.Error()) // square by construction
 	}
-	return ratFrac(d, new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil))
+	return s.overPowS(d, s.k, nil)
+}
+
+// overPowS returns num/(s^m·extra) in lowest terms (extra nil for 1), by
+// one gcd against s per factor (ratProd): s is a word or two for most
+// simplices, its power several.
+func (s *Simplex) overPowS(num *big.Int, m int, extra *big.Int) *big.Rat {
+	var buf [8]*big.Int
+	dens := buf[:0]
+	for range m {
+		dens = append(dens, s.s)
+	}
+	if extra != nil {
+		dens = append(dens, extra)
+	}
+	return ratProd(num, dens...)
 }
 
 // CayleyMengerDet returns the determinant of the Cayley–Menger matrix
