@@ -239,6 +239,15 @@ func gcdOdd(x, y *big.Int) (g u256, k uint, ok bool) {
 	}
 	if len(yw) == 0 {
 		yw, xw = xw, nil
+	} else if len(yw) == 1 && len(xw) > 1 {
+		var r uint64 // from the top word down, without math/big's allocation
+		for i := len(xw) - 1; i >= 0; i-- {
+			_, r = bits.Div64(r, uint64(xw[i]), uint64(yw[0]))
+		}
+		xw = nil
+		if r != 0 {
+			xw = []big.Word{big.Word(r)}
+		}
 	} else if len(xw) > len(yw) {
 		var r big.Int
 		xw = r.Rem(x, y).Bits()
