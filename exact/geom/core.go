@@ -139,15 +139,29 @@ func (s *Simplex) scaledPoints() (l *big.Int, lp [][]*big.Int) {
 func (s *Simplex) scaledEdges() [][]*big.Int {
 	c := &s.cache
 	c.edgeOnce.Do(func() {
-		c.edges = make([][]*big.Int, s.k+1)
+		// One block each for the rows, the k(k+1)/2 entries off the
+		// diagonal and their words (room for g_ii + g_jj − 2 g_ij), the
+		// diagonal the shared zero: the Cayley–Menger determinant of a
+		// random tetrahedron spent 7% here allocating entry by entry.
+		N := s.k + 1
+		width := 0
+		for _, x := range s.g {
+			width = max(width, len(x.Bits()))
+		}
+		room := width + 1
+		ints := make([]big.Int, N*(N-1)/2)
+		words := make([]big.Word, len(ints)*room)
+		ptrs := make([]*big.Int, N*N)
+		c.edges = make([][]*big.Int, N)
+		pos := 0
 		for i := range c.edges {
-			c.edges[i] = make([]*big.Int, s.k+1)
-			for j := range c.edges[i] {
-				if j < i {
-					c.edges[i][j] = c.edges[j][i]
-				} else {
-					c.edges[i][j] = s.sqEdgeScaled(i, j)
-				}
+			c.edges[i] = ptrs[i*N : (i+1)*N]
+			c.edges[i][i] = zeroInt
+			for j := range i {
+				z := ints[pos].SetBits(words[pos*room : pos*room : (pos+1)*room])
+				pos++
+				c.edges[i][j] = s.setSqEdgeScaled(z, j, i)
+				c.edges[j][i] = z
 			}
 		}
 	})

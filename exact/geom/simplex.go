@@ -389,7 +389,12 @@ func (s *Simplex) checkVertex(op string, i int) error {
 
 // sqEdgeScaled returns s.s·|v_i − v_j|² as an integer.
 func (s *Simplex) sqEdgeScaled(i, j int) *big.Int {
-	z := new(big.Int).Add(s.gi(i, i), s.gi(j, j))
+	return s.setSqEdgeScaled(new(big.Int), i, j)
+}
+
+// setSqEdgeScaled sets z to s.s·|v_i − v_j|² and returns it.
+func (s *Simplex) setSqEdgeScaled(z *big.Int, i, j int) *big.Int {
+	z.Add(s.gi(i, i), s.gi(j, j))
 	gij := s.gi(i, j)
 	return z.Sub(z.Sub(z, gij), gij) // no temporary for 2 g_ij
 }
