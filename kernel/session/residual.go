@@ -80,6 +80,12 @@ func (s *Session) measure(t claim.Target, lhs, rhs py.Object) (claim.Residual, e
 		if !ok {
 			return claim.Residual{}, sideError(rhs)
 		}
+		if x.Num().Cmp(y.Num()) == 0 && x.Denom().Cmp(y.Denom()) == 0 {
+			// The same numerator and denominator: equal, whether or
+			// not in lowest terms, with no product formed (unequal
+			// forms of one value go through Sub below).
+			return claim.Zero(), nil
+		}
 		return claim.Exact(new(big.Rat).Sub(x, y)), nil
 	}
 	if a, ok := lhs.(*values.KVector); ok {
