@@ -51,8 +51,21 @@ func (s *Simplex) computeCore() *core {
 		return &core{det: det, adj: []*big.Int{new(big.Int).Set(c), nb, nb, new(big.Int).Set(a)}}
 	case 3:
 		a, b, c, d, e, f := g[0], g[1], g[2], g[4], g[5], g[8]
-		ints := make([]big.Int, 7) // the six minors and det in one block
-		var t big.Int
+		// The six minors, det and a temporary in one block of Ints and
+		// one of words, each with room for det (three entries' width):
+		// math/big then allocates nothing more.
+		width := 0
+		for _, x := range g {
+			width = max(width, len(x.Bits()))
+		}
+		room := 3*width + 2
+		words := make([]big.Word, 8*room)
+		ints := make([]big.Int, 8)
+		for i := range ints {
+			ints[i].SetBits(words[i*room : i*room : (i+1)*room])
+		}
+		t := &ints[7]
+		ints = ints[:7]
 		m2 := func(w, x, y, z *big.Int) *big.Int { // wx − yz
 			r := &ints[0]
 			ints = ints[1:]
