@@ -189,7 +189,7 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 			raised(k, interp.Message(err))
 			return nil
 		}
-		x, y, err := pair(res, fmt.Sprintf("f(sample %d)", k))
+		x, y, err := samplePair(res, k)
 		if err == nil {
 			if given != nil && zero(x) && zero(y) {
 				given.Trivial++
