@@ -16,7 +16,10 @@ func (s *Simplex) VolumeSq() *big.Rat {
 		return new(big.Rat)
 	}
 	f := factorial(s.k)
-	return s.overPowS(det, s.k, f.Mul(f, f))
+	den := new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil)
+	den.Mul(den, f)
+	den.Mul(den, f)
+	return ratFrac(det, den)
 }
 
 // IsDegenerate reports whether the squared volume is 0, that is whether

@@ -17,9 +17,11 @@ package geom
 // k = 0..9999, written as 12 rationals a line by a throwaway test). Cut
 // here: the Gram matrix in machine words (gramWords: the lcm of the
 // denominators kept in a word, edge vectors below 2^61, 128-bit sums),
-// the scaled edges in one block, the squared volume and the Cayley–Menger
-// value reduced one factor of s at a time (overPowS), the Cayley–Menger
-// determinant's block pooled (exact.detIntsBig); outside geom, the
+// the scaled edges and the 3x3 adjugate in blocks of words, the
+// Cayley–Menger determinant's block pooled (exact.detIntsBig); the two
+// final reductions (~0.9 µs each) were tried against s one factor at a
+// time (ratProd) and against l = √s: no gain, and 12% of them at best,
+// so they stay as they were. Outside geom, the
 // division by 288 by one word gcd (values.quoWord), equal sides found
 // without a subtraction and the tally's size parsed only for failing
 // residuals. Left, by the profile: the determinant's Bareiss steps in
@@ -526,22 +528,7 @@ func (s *Simplex) CayleyMenger() *big.Rat {
 	if err != nil {
 		panic("geom: " + err.Error()) // square by construction
 	}
-	return s.overPowS(d, s.k, nil)
-}
-
-// overPowS returns num/(s^m·extra) in lowest terms (extra nil for 1), by
-// one gcd against s per factor (ratProd): s is a word or two for most
-// simplices, its power several.
-func (s *Simplex) overPowS(num *big.Int, m int, extra *big.Int) *big.Rat {
-	var buf [8]*big.Int
-	dens := buf[:0]
-	for range m {
-		dens = append(dens, s.s)
-	}
-	if extra != nil {
-		dens = append(dens, extra)
-	}
-	return ratProd(num, dens...)
+	return ratFrac(d, new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil))
 }
 
 // CayleyMengerDet returns the determinant of the Cayley–Menger matrix
