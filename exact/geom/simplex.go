@@ -3,15 +3,16 @@ package geom
 // The sampled identity of BenchmarkExactSampledIdentity (kernel; squared
 // volume from coordinates against the Cayley–Menger determinant / 288 on
 // 10,000 random tetrahedra, coordinates p/q, |p| <= 1000, 1 <= q <= 100),
-// in-process on one CPU (-cpu 1), processor time per sample, five
-// alternating rounds of the previous main and this build on the shared
-// 2-core machine (load 0.9–1.6), with the reference in the same rounds
-// (ranges of four: in the fifth both builds ran 1.6 times slower):
+// in-process on one CPU (-cpu 1), processor time per sample: three runs
+// of five to eight alternating rounds of the previous main and this build
+// on the shared 2-core machine (load 0.9–1.6), the reference in the same
+// rounds; ranges of the rounds not slowed by a neighbour (in about one
+// round of four both builds ran 1.5 times slower):
 //
-//	before (main at 849bfe4)                 19.1–21.5 µs, 13.9 KB and 214 allocations a sample
-//	after                                    14.0–14.7 µs,  7.9 KB and 139 (0.67–0.74 of before)
-//	after, GOGC=400 (the kernel's)           13.3–14.9 µs (before 18.3–19.8)
-//	reference, /tmp/peer-bin/tet (FLINT)     10.4–15.5 µs its loop, 13–20 µs of process CPU
+//	before (main at 849bfe4)                 19.1–23.7 µs, 13.9 KB and 214 allocations a sample
+//	after                                    14.0–16.1 µs,  8.0 KB and 131 (0.67–0.76 of before)
+//	after, GOGC=400 (the kernel's)           12.9–14.9 µs (before 18.3–19.8)
+//	reference, /tmp/peer-bin/tet (FLINT)     10.3–14.5 µs its loop, 13–20 µs of process CPU
 //
 // The reference read the same 10,000 tetrahedra (Random(3, k, 1000, 100),
 // k = 0..9999, written as 12 rationals a line by a throwaway test). Cut
