@@ -33,6 +33,7 @@ import (
 	"math"
 	"math/big"
 	"math/bits"
+	"sync"
 )
 
 // DetInts returns the determinant of the square integer matrix a, given by
@@ -80,10 +81,12 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 			}
 		}
 		room := n*width + 1
-		words := make([]big.Word, n*n*room)
-		ints := make([]big.Int, n*n)
-		ptrs := make([]*big.Int, n*n)
-		rows := make([][]*big.Int, n)
+		b := bareissPool.Get().(*bareissBlock)
+		defer bareissPool.Put(b)
+		words := grow(&b.words, n*n*room)
+		ints := grow(&b.ints, n*n)
+		ptrs := grow(&b.ptrs, n*n)
+		rows := grow(&b.rows, n)
 		for i, r := range a {
 			rows[i] = ptrs[i*n : (i+1)*n]
 			for j, x := range r {
@@ -92,7 +95,7 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 				rows[i][j] = z.Set(x)
 			}
 		}
-		return bareissDet(rows)
+		return new(big.Int).Set(bareissDet(rows)) // out of the pooled block
 	}
 	m := Zeros(n, n)
 	for i, r := range a {
@@ -101,6 +104,27 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 		}
 	}
 	return m.detModular(clearAuto).Num() // an integer matrix has an integer determinant
+}
+
+// bareissBlock is the storage of detIntsBig's copies, pooled: allocating
+// it afresh (a few kilobytes of words at n = 5) was a third of the
+// Cayley–Menger determinant of a random tetrahedron (BenchmarkExactSampledIdentity).
+type bareissBlock struct {
+	words []big.Word
+	ints  []big.Int
+	ptrs  []*big.Int
+	rows  [][]*big.Int
+}
+
+var bareissPool = sync.Pool{New: func() any { return new(bareissBlock) }}
+
+// grow returns (*s)[:n], reallocating *s when it is too short; the
+// elements are whatever the last use left.
+func grow[T any](s *[]T, n int) []T {
+	if cap(*s) < n {
+		*s = make([]T, n)
+	}
+	return (*s)[:n]
 }
 
 // wordRows appends to a the rows of m, each multiplied by the least

@@ -51,8 +51,21 @@ func (s *Simplex) computeCore() *core {
 		return &core{det: det, adj: []*big.Int{new(big.Int).Set(c), nb, nb, new(big.Int).Set(a)}}
 	case 3:
 		a, b, c, d, e, f := g[0], g[1], g[2], g[4], g[5], g[8]
-		ints := make([]big.Int, 7) // the six minors and det in one block
-		var t big.Int
+		// The six minors, det and a temporary in one block of Ints and
+		// one of words, each with room for det (three entries' width):
+		// math/big then allocates nothing more.
+		width := 0
+		for _, x := range g {
+			width = max(width, len(x.Bits()))
+		}
+		room := 3*width + 2
+		words := make([]big.Word, 8*room)
+		ints := make([]big.Int, 8)
+		for i := range ints {
+			ints[i].SetBits(words[i*room : i*room : (i+1)*room])
+		}
+		t := &ints[7]
+		ints = ints[:7]
 		m2 := func(w, x, y, z *big.Int) *big.Int { // wx − yz
 			r := &ints[0]
 			ints = ints[1:]
@@ -139,15 +152,29 @@ func (s *Simplex) scaledPoints() (l *big.Int, lp [][]*big.Int) {
 func (s *Simplex) scaledEdges() [][]*big.Int {
 	c := &s.cache
 	c.edgeOnce.Do(func() {
-		c.edges = make([][]*big.Int, s.k+1)
+		// One block each for the rows, the k(k+1)/2 entries off the
+		// diagonal and their words (room for g_ii + g_jj − 2 g_ij), the
+		// diagonal the shared zero: the Cayley–Menger determinant of a
+		// random tetrahedron spent 7% here allocating entry by entry.
+		N := s.k + 1
+		width := 0
+		for _, x := range s.g {
+			width = max(width, len(x.Bits()))
+		}
+		room := width + 1
+		ints := make([]big.Int, N*(N-1)/2)
+		words := make([]big.Word, len(ints)*room)
+		ptrs := make([]*big.Int, N*N)
+		c.edges = make([][]*big.Int, N)
+		pos := 0
 		for i := range c.edges {
-			c.edges[i] = make([]*big.Int, s.k+1)
-			for j := range c.edges[i] {
-				if j < i {
-					c.edges[i][j] = c.edges[j][i]
-				} else {
-					c.edges[i][j] = s.sqEdgeScaled(i, j)
-				}
+			c.edges[i] = ptrs[i*N : (i+1)*N]
+			c.edges[i][i] = zeroInt
+			for j := range i {
+				z := ints[pos].SetBits(words[pos*room : pos*room : (pos+1)*room])
+				pos++
+				c.edges[i][j] = s.setSqEdgeScaled(z, j, i)
+				c.edges[j][i] = z
 			}
 		}
 	})

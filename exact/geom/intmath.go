@@ -27,10 +27,12 @@ func (a *lcmAcc) add(x *big.Rat) {
 		if a.small == 0 {
 			a.small = 1
 		}
-		if d.IsUint64() && d.Uint64() < 1<<31 && a.small < 1<<31 {
+		if d.IsUint64() {
 			du := d.Uint64()
-			a.small = a.small / gcdU(a.small, du) * du
-			return
+			if hi, lo := bits.Mul64(a.small/gcdU(a.small, du), du); hi == 0 {
+				a.small = lo
+				return
+			}
 		}
 		a.big = new(big.Int).SetUint64(a.small)
 	}
@@ -39,6 +41,14 @@ func (a *lcmAcc) add(x *big.Rat) {
 		a.q.Quo(d, &a.g)
 		a.big.Mul(a.big, &a.q)
 	}
+}
+
+// word returns the lcm and true while it fits a word.
+func (a *lcmAcc) word() (uint64, bool) {
+	if a.big != nil {
+		return 0, false
+	}
+	return max(a.small, 1), true
 }
 
 // value returns the lcm (a new Int).
@@ -229,6 +239,15 @@ func gcdOdd(x, y *big.Int) (g u256, k uint, ok bool) {
 	}
 	if len(yw) == 0 {
 		yw, xw = xw, nil
+	} else if len(yw) == 1 && len(xw) > 1 {
+		var r uint64 // from the top word down, without math/big's allocation
+		for i := len(xw) - 1; i >= 0; i-- {
+			_, r = bits.Div64(r, uint64(xw[i]), uint64(yw[0]))
+		}
+		xw = nil
+		if r != 0 {
+			xw = []big.Word{big.Word(r)}
+		}
 	} else if len(xw) > len(yw) {
 		var r big.Int
 		xw = r.Rem(x, y).Bits()

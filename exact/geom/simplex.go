@@ -1,8 +1,38 @@
 package geom
 
+// The sampled identity of BenchmarkExactSampledIdentity (kernel; squared
+// volume from coordinates against the Cayley–Menger determinant / 288 on
+// 10,000 random tetrahedra, coordinates p/q, |p| <= 1000, 1 <= q <= 100),
+// in-process on one CPU (-cpu 1), processor time per sample: three runs
+// of five to eight alternating rounds of the previous main and this build
+// on the shared 2-core machine (load 0.9–1.6), the reference in the same
+// rounds; ranges of the rounds not slowed by a neighbour (in about one
+// round of four both builds ran 1.5 times slower):
+//
+//	before (main at 849bfe4)                 19.1–23.7 µs, 13.9 KB and 214 allocations a sample
+//	after                                    14.0–16.1 µs,  8.0 KB and 131 (0.67–0.76 of before)
+//	after, GOGC=400 (the kernel's)           12.9–14.9 µs (before 18.3–19.8)
+//	reference, /tmp/peer-bin/tet (FLINT)     10.3–14.5 µs its loop, 13–20 µs of process CPU
+//
+// The reference read the same 10,000 tetrahedra (Random(3, k, 1000, 100),
+// k = 0..9999, written as 12 rationals a line by a throwaway test). Cut
+// here: the Gram matrix in machine words (gramWords: the lcm of the
+// denominators kept in a word, edge vectors below 2^61, 128-bit sums),
+// the scaled edges and the 3x3 adjugate in blocks of words, the
+// Cayley–Menger determinant's block pooled (exact.detIntsBig); the two
+// final reductions (~0.9 µs each) were tried against s one factor at a
+// time (ratProd) and against l = √s: no gain, and 12% of them at best,
+// so they stay as they were. Outside geom, the
+// division by 288 by one word gcd (values.quoWord), equal sides found
+// without a subtraction and the tally's size parsed only for failing
+// residuals. Left, by the profile: the determinant's Bareiss steps in
+// math/big (~18%), the two reductions (~14%), the interpreter's frames
+// and calls (~25%), the collector (~10%).
+
 import (
 	"fmt"
 	"math/big"
+	"math/bits"
 	"strings"
 	"sync"
 
@@ -92,8 +122,11 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 			lc.add(x)
 		}
 	}
-	l := lc.value()
 	s := &Simplex{k: k, n: n, pts: pts}
+	if lw, ok := lc.word(); ok && s.gramWords(lw) {
+		return s
+	}
+	l := lc.value()
 	s.s = new(big.Int).Mul(l, l)
 	p0 := make([]big.Int, n)
 	for c, x := range pts[0] {
@@ -127,6 +160,108 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 		}
 	}
 	return s
+}
+
+// gramWords sets s.g and s.s as fromOwnedPoints does, for a word l, in
+// machine words: it reports false, setting nothing, when a coordinate of
+// an edge vector l·(v_i − v_0) reaches 2^62 or there are more than eight
+// coordinates, so that every Gram entry, a sum of at most eight products
+// below 2^124, fits a signed 128-bit accumulator. Most random simplices
+// (denominators up to 100) take this path; it saves a big.Int per
+// coordinate and per product.
+func (s *Simplex) gramWords(l uint64) bool {
+	k, n, pts := s.k, s.n, s.pts
+	if n > 8 {
+		return false
+	}
+	var buf [8 * 9]int64
+	e := buf[:0]
+	if k*n > len(buf) {
+		e = make([]int64, 0, k*n)
+	}
+	for i := 1; i <= k; i++ {
+		for c, x := range pts[i] {
+			a, ok1 := scaledWord(x, l)
+			b, ok2 := scaledWord(pts[0][c], l)
+			if !ok1 || !ok2 {
+				return false
+			}
+			e = append(e, a-b) // both below 2^61 in size
+		}
+	}
+	gs := make([]big.Int, k*(k+1)/2)
+	words := make([]big.Word, 2*len(gs))
+	s.g = make([]*big.Int, k*k)
+	pos := 0
+	for i := 0; i < k; i++ {
+		ei := e[i*n : (i+1)*n]
+		for j := i; j < k; j++ {
+			ej := e[j*n : (j+1)*n]
+			var hi, lo uint64 // two's complement
+			for c := range ei {
+				ph, pl := mulSigned(ei[c], ej[c])
+				var carry uint64
+				lo, carry = bits.Add64(lo, pl, 0)
+				hi, _ = bits.Add64(hi, ph, carry)
+			}
+			z := &gs[pos]
+			w := words[2*pos : 2*pos+2 : 2*pos+2]
+			pos++
+			neg := int64(hi) < 0
+			if neg {
+				var b uint64
+				lo, b = bits.Sub64(0, lo, 0)
+				hi, _ = bits.Sub64(0, hi, b)
+			}
+			w[0], w[1] = big.Word(lo), big.Word(hi)
+			z.SetBits(w)
+			if neg {
+				z.Neg(z)
+			}
+			s.g[i*k+j] = z
+			s.g[j*k+i] = z
+		}
+	}
+	hi, lo := bits.Mul64(l, l)
+	s.s = new(big.Int).SetBits([]big.Word{big.Word(lo), big.Word(hi)})
+	return true
+}
+
+// scaledWord returns x·l as a word and true when x's denominator divides
+// l (a word) and the product is below 2^61 in size; nil counts as 0.
+func scaledWord(x *big.Rat, l uint64) (int64, bool) {
+	if x == nil || x.Sign() == 0 {
+		return 0, true
+	}
+	num := x.Num()
+	if !num.IsInt64() {
+		return 0, false
+	}
+	m := l
+	if !x.IsInt() {
+		m = l / x.Denom().Uint64() // the denominator divides l, a word
+	}
+	p := num.Int64()
+	hi, lo := bits.Mul64(uint64(max(p, -p)), m) // |p| < 2^63: no overflow on negating
+	if hi != 0 || lo >= 1<<61 {
+		return 0, false
+	}
+	if p < 0 {
+		return -int64(lo), true
+	}
+	return int64(lo), true
+}
+
+// mulSigned returns a·b as a 128-bit two's complement (hi, lo), for
+// |a|, |b| < 2^63.
+func mulSigned(a, b int64) (hi, lo uint64) {
+	hi, lo = bits.Mul64(uint64(max(a, -a)), uint64(max(b, -b)))
+	if (a < 0) != (b < 0) {
+		var br uint64
+		lo, br = bits.Sub64(0, lo, 0)
+		hi, _ = bits.Sub64(0, hi, br)
+	}
+	return hi, lo
 }
 
 // FromSquaredDistances returns the simplex whose vertices have the squared
@@ -283,7 +418,12 @@ func (s *Simplex) checkVertex(op string, i int) error {
 
 // sqEdgeScaled returns s.s·|v_i − v_j|² as an integer.
 func (s *Simplex) sqEdgeScaled(i, j int) *big.Int {
-	z := new(big.Int).Add(s.gi(i, i), s.gi(j, j))
+	return s.setSqEdgeScaled(new(big.Int), i, j)
+}
+
+// setSqEdgeScaled sets z to s.s·|v_i − v_j|² and returns it.
+func (s *Simplex) setSqEdgeScaled(z *big.Int, i, j int) *big.Int {
+	z.Add(s.gi(i, i), s.gi(j, j))
 	gij := s.gi(i, j)
 	return z.Sub(z.Sub(z, gij), gij) // no temporary for 2 g_ij
 }

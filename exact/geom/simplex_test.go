@@ -719,3 +719,49 @@ func TestString(t *testing.T) {
 		t.Error(got)
 	}
 }
+
+// The Gram matrix in machine words (gramWords) and in math/big agree with
+// dot products of the edge vectors formed in big.Rat, on both sides of the
+// word path's limits: edge coordinates near 2^61 once scaled, negative
+// ones, denominators whose lcm passes a word, and nine coordinates.
+func TestGramWordsAtLimits(t *testing.T) {
+	rng := rand.New(rand.NewPCG(5, 6))
+	cases := []struct {
+		n           int
+		bound, den  int64
+		wantWordRun bool // whether gramWords takes the whole set
+	}{
+		{3, 1000, 100, true},
+		{3, 1 << 59, 1, true},     // scaled coordinates < 2^59: every edge fits
+		{3, 1 << 61, 1, false},    // coordinates up to 2^61: mostly the big path
+		{8, 1 << 58, 1, true},     // eight products near 2^120
+		{9, 20, 9, false},         // nine coordinates
+		{4, 1000, 1 << 40, false}, // the lcm passes a word
+	}
+	for _, c := range cases {
+		for rep := 0; rep < 20; rep++ {
+			pts := make([][]*big.Rat, 4)
+			for i := range pts {
+				pts[i] = randVec(rng, c.n, c.bound, c.den)
+			}
+			s := mustPoints(t, pts...)
+			g := s.Gram()
+			for i := 1; i <= 3; i++ {
+				for j := 1; j <= 3; j++ {
+					ratEq(t, "Gram", g.At(i-1, j-1), dot(sub(pts[i], pts[0]), sub(pts[j], pts[0])))
+				}
+			}
+			var lc lcmAcc
+			for _, p := range pts {
+				for _, x := range p {
+					lc.add(x)
+				}
+			}
+			l, ok := lc.word()
+			took := ok && (&Simplex{k: 3, n: c.n, pts: pts}).gramWords(l)
+			if c.wantWordRun && !took || c.n > 8 && took {
+				t.Errorf("n=%d bound=%d den=%d: word path taken = %v", c.n, c.bound, c.den, took)
+			}
+		}
+	}
+}

@@ -36,7 +36,7 @@ func sampleRun(f, sample py.Object, k int64) rerun {
 		if err != nil {
 			return nil, nil, err
 		}
-		return pair(res, fmt.Sprintf("f(sample %d)", k))
+		return samplePair(res, k)
 	}
 }
 
