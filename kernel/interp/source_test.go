@@ -3,6 +3,9 @@ package interp
 import (
 	"strings"
 	"testing"
+
+	"github.com/go-python/gpython/parser"
+	"github.com/go-python/gpython/py"
 )
 
 // The bracket a cell never closes, found as Python's tokenizer finds it
@@ -44,5 +47,20 @@ func TestCompileNamesTheOpenBracket(t *testing.T) {
 	_, err = Compile(1, 10, "x = f(1,\n  2 3)\n", nil)
 	if _, msg := Describe(err, 0); strings.Contains(msg, "never closed") {
 		t.Errorf("balanced brackets blamed: %q", msg)
+	}
+}
+
+// TestUpstreamStillMisplacesUnclosedBracket probes the gap neverClosed
+// fills: upstream's parser reports an unclosed bracket at the next line it
+// cannot continue with, not at the bracket. When upstream names line 1
+// here, neverClosed can go (and the README's list of fixes with it).
+func TestUpstreamStillMisplacesUnclosedBracket(t *testing.T) {
+	_, err := parser.Parse(strings.NewReader("x = f(1\ny = 2\n"), "<probe>", py.ExecMode)
+	e, ok := err.(*py.Exception)
+	if !ok {
+		t.Fatalf("upstream parsed an unclosed bracket without a syntax error: %v", err)
+	}
+	if l, _ := e.Dict["lineno"].(py.Int); l == 1 {
+		t.Fatalf("upstream now reports the unclosed bracket's own line; neverClosed is no longer needed")
 	}
 }
