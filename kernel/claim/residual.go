@@ -73,8 +73,15 @@ func Exact(d *big.Rat) Residual {
 	return Residual{Text: exact.FormatRat(d), TeX: exact.LaTeXRat(d), Size: new(big.Rat).Abs(d), Zero: d.Sign() == 0}
 }
 
-// Zero is the residual of sides that agree exactly.
-func Zero() Residual { return Exact(new(big.Rat)) }
+// Zero is the residual of sides that agree exactly. A sweep makes one a
+// sample, so its text is formatted once (zeroResidual), not each time.
+func Zero() Residual {
+	r := zeroResidual
+	r.Size = new(big.Rat) // each its own: a caller may keep it
+	return r
+}
+
+var zeroResidual = Exact(new(big.Rat))
 
 // OfPoly is the residual of an expanded polynomial difference.
 func OfPoly(d *exact.Poly) Residual {

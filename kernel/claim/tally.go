@@ -285,7 +285,11 @@ func (t *IdentityTally) AddAudit(k int64, audit cells.FloatAudit) {
 }
 
 func sampleResidual(k int64, r Residual) *SampleResidual {
-	return &SampleResidual{K: k, Text: r.Text, TeX: r.TeX, Size: r.Size.RatString(), Zero: r.Zero, Symbolic: r.Symbolic, Cross: r.Cross,
+	size := "0" // RatString of zero, the size of nearly every sample's residual, unformatted
+	if r.Size.Sign() != 0 {
+		size = r.Size.RatString()
+	}
+	return &SampleResidual{K: k, Text: r.Text, TeX: r.TeX, Size: size, Zero: r.Zero, Symbolic: r.Symbolic, Cross: r.Cross,
 		Real: r.Real, Certified: r.Certified, NearZero: r.NearZero, Undecided: r.Undecided, Algebraic: r.Algebraic, ZeroBits: r.ZeroBits}
 }
 

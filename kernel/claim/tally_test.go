@@ -72,3 +72,23 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 		}
 	}
 }
+
+// A sample's residual record keeps its size as math/big prints it
+// (Rat.RatString, the reference), zero included, whose text Zero and
+// sampleResidual no longer format each time; Exact formats it afresh.
+func TestSampleResidualSize(t *testing.T) {
+	for _, q := range []*big.Rat{new(big.Rat), big.NewRat(-3, 4), big.NewRat(5, 1)} {
+		r := Exact(q)
+		if q.Sign() == 0 {
+			r = Zero()
+			if want := Exact(new(big.Rat)); r.Text != want.Text || r.TeX != want.TeX || !r.Zero {
+				t.Errorf("Zero() = %+v, want %+v", r, want)
+			}
+		}
+		s := sampleResidual(1, r)
+		want := new(big.Rat).Abs(q).RatString()
+		if s.Size != want || s.Residual().Size.Cmp(new(big.Rat).Abs(q)) != 0 {
+			t.Errorf("%v: size %q, want %q", q, s.Size, want)
+		}
+	}
+}

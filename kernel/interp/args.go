@@ -18,54 +18,92 @@ type Args struct {
 	keywords py.StringDict // keywords no parameter names, with a "**name" parameter
 }
 
-// Bind matches positional and keyword arguments to the parameters of the
-// function fn, written as in its signature: "name" must be given, "name="
-// may be left out, "*name" takes the positional arguments left over and
-// "**name" the keywords no parameter has. Every later reading is by name.
-func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, error) {
-	a := Args{fn: fn, args: args, kw: kw}
-	var required []bool
-	star, starStar := false, false
+// Signature is a builtin's parameter list read once, so that binding a
+// call (once a sample in a sweep) does not parse it again.
+type Signature struct {
+	fn             string
+	names          []string // shared, read-only, by every Args bound
+	required       uint64   // bit i: parameter i must be given
+	star, starStar bool
+}
+
+// NewSignature reads the parameters of the function fn, written as in its
+// signature: "name" must be given, "name=" may be left out, "*name" takes
+// the positional arguments left over and "**name" the keywords no
+// parameter has.
+func NewSignature(fn string, params ...string) *Signature {
+	s := &Signature{fn: fn}
 	for _, p := range params {
 		switch {
 		case strings.HasPrefix(p, "**"):
-			starStar = true
+			s.starStar = true
 		case strings.HasPrefix(p, "*"):
-			star = true
+			s.star = true
 		default:
 			name, optional := strings.CutSuffix(p, "=")
-			a.names = append(a.names, name)
-			required = append(required, !optional)
+			if len(s.names) == 64 {
+				panic(fmt.Sprintf("%s() declares more than 64 parameters", fn))
+			}
+			if !optional {
+				s.required |= 1 << len(s.names)
+			}
+			s.names = append(s.names, name)
 		}
 	}
+	return s
+}
+
+// Bind matches positional and keyword arguments to the parameters of the
+// function fn (as NewSignature reads them). Every later reading is by name.
+func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, error) {
+	return NewSignature(fn, params...).Bind(args, kw)
+}
+
+// Bind matches positional and keyword arguments to the signature's
+// parameters. The keywords are looked up by name (cheaper than walking
+// the map), and walked only when one names no parameter.
+func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
+	fn := s.fn
+	a := Args{fn: fn, args: args, kw: kw, names: s.names}
 	a.values = make([]py.Object, len(a.names))
 	if len(args) > len(a.names) {
-		if !star {
+		if !s.star {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() takes at most %d arguments (%d given)", fn, len(a.names), len(args))
 		}
 		a.rest = args[len(a.names):]
 		args = args[:len(a.names)]
 	}
 	copy(a.values, args)
-	for k, v := range kw {
-		i := a.index(k)
-		if i < 0 {
-			if starStar {
-				if a.keywords == nil {
-					a.keywords = py.StringDict{}
-				}
-				a.keywords[k] = v
+	named := 0 // keywords that name a parameter
+	if len(kw) > 0 {
+		for i, name := range a.names {
+			v, ok := kw[name]
+			if !ok {
 				continue
 			}
-			return Args{}, py.ExceptionNewf(py.TypeError, "%s() has no argument %q (it takes %v)", fn, k, a.names)
+			named++
+			if a.values[i] != nil {
+				return Args{}, py.ExceptionNewf(py.TypeError, "%s() got two values for %q", fn, name)
+			}
+			a.values[i] = v
 		}
-		if a.values[i] != nil {
-			return Args{}, py.ExceptionNewf(py.TypeError, "%s() got two values for %q", fn, k)
+	}
+	if named < len(kw) {
+		for k, v := range kw {
+			if a.index(k) >= 0 {
+				continue
+			}
+			if !s.starStar {
+				return Args{}, py.ExceptionNewf(py.TypeError, "%s() has no argument %q (it takes %v)", fn, k, a.names)
+			}
+			if a.keywords == nil {
+				a.keywords = py.StringDict{}
+			}
+			a.keywords[k] = v
 		}
-		a.values[i] = v
 	}
 	for i, name := range a.names {
-		if required[i] && a.values[i] == nil {
+		if s.required&(1<<i) != 0 && a.values[i] == nil {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() is missing its argument %q", fn, name)
 		}
 	}

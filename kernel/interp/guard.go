@@ -8,8 +8,9 @@ import (
 
 // Func makes a notebook builtin from Go, through the one panic guard.
 func Func(name, doc string, fn func(args py.Tuple, kw py.StringDict) (py.Object, error)) *py.Method {
+	label := name + "()" // made once, not on every call
 	return py.MustNewMethod(name, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
-		return Guard(name+"()", func() (py.Object, error) { return fn(args, kw) })
+		return Guard(label, func() (py.Object, error) { return fn(args, kw) })
 	}, 0, doc)
 }
 
@@ -17,8 +18,9 @@ func Func(name, doc string, fn func(args py.Tuple, kw py.StringDict) (py.Object,
 // called through the type, the first argument is), through the one panic
 // guard.
 func Method(name, doc string, fn func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error)) *py.Method {
+	label := name + "()"
 	return py.MustNewMethod(name, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
-		return Guard(name+"()", func() (py.Object, error) { return fn(self, args, kw) })
+		return Guard(label, func() (py.Object, error) { return fn(self, args, kw) })
 	}, 0, doc)
 }
 

@@ -97,6 +97,35 @@ func TestBindReadsByName(t *testing.T) {
 	}
 }
 
+// One Signature, read once, binds call after call with no call's
+// arguments showing in another's, by the rule of Python's calls (Language
+// Reference, 6.3.4 Calls): positional arguments fill the first slots, a
+// keyword the slot it names, an unfilled slot takes its default (here:
+// absent), and an unfilled slot without one is an error.
+func TestSignatureBindsEachCallApart(t *testing.T) {
+	sig := NewSignature("g", "x", "y=", "z")
+	first, err := sig.Bind(py.Tuple{py.Int(1)}, py.StringDict{"z": py.Int(3)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	second, err := sig.Bind(py.Tuple{py.Int(4), py.Int(5), py.Int(6)}, nil)
+	if err != nil {
+		t.Fatal(err)
+	}
+	if first.Get("x") != py.Int(1) || first.Has("y") || first.Get("z") != py.Int(3) {
+		t.Errorf("first call bound x=%v y=%v z=%v, want 1, absent, 3", first.Get("x"), first.Get("y"), first.Get("z"))
+	}
+	if second.Get("x") != py.Int(4) || second.Get("y") != py.Int(5) || second.Get("z") != py.Int(6) {
+		t.Errorf("second call bound x=%v y=%v z=%v, want 4, 5, 6", second.Get("x"), second.Get("y"), second.Get("z"))
+	}
+	if _, err := sig.Bind(py.Tuple{py.Int(1)}, py.StringDict{"y": py.Int(2)}); err == nil || !strings.Contains(err.Error(), `g() is missing its argument "z"`) {
+		t.Errorf("z left out: %v", err)
+	}
+	if _, err := sig.Bind(py.Tuple{py.Int(1)}, py.StringDict{"z": py.Int(2), "w": py.Int(0)}); err == nil || !strings.Contains(err.Error(), `g() has no argument "w"`) {
+		t.Errorf("unknown keyword w: %v", err)
+	}
+}
+
 // panicky is a value whose operator panics without a guard of its own.
 type panicky struct{}
 

@@ -84,20 +84,42 @@ func (e *Env) Seed() int64 { return e.seed }
 // Rand returns a generator: from an explicit seed alone, or else from the
 // cell's seed and the number of draws so far, so reruns repeat exactly.
 func (e *Env) Rand(explicit py.Object) (*rand.Rand, error) {
+	src, err := e.source(explicit)
+	if err != nil {
+		return nil, err
+	}
+	return rand.New(&src), nil
+}
+
+// Word is the first word Rand(explicit) would give, drawn without making
+// a generator (random_simplex draws one a sample, in a sweep).
+func (e *Env) Word(explicit py.Object) (uint64, error) {
+	src, err := e.source(explicit)
+	if err != nil {
+		return 0, err
+	}
+	return src.Uint64(), nil
+}
+
+// source is the stream Rand draws from.
+func (e *Env) source(explicit py.Object) (rand.PCG, error) {
+	var src rand.PCG
 	if explicit != nil && explicit != py.None {
 		seed, err := interp.Int("random", "seed", explicit, 0)
 		if err != nil {
-			return nil, err
+			return src, err
 		}
-		return rand.New(rand.NewPCG(uint64(seed), 0x6173736179)), nil
+		src.Seed(uint64(seed), 0x6173736179)
+		return src, nil
 	}
 	if e.Sweeping {
 		// Sample k must be the same whichever kernel computes it, and
 		// in whatever order: a draw may depend on k, not on earlier draws.
-		return nil, py.ExceptionNewf(py.ValueError, "a random draw without seed= inside a sampled claim's f or g: pass seed= (for instance seed=k) so that sample k can be rebuilt, and split among workers")
+		return src, py.ExceptionNewf(py.ValueError, "a random draw without seed= inside a sampled claim's f or g: pass seed= (for instance seed=k) so that sample k can be rebuilt, and split among workers")
 	}
 	e.draws++
-	return rand.New(rand.NewPCG(uint64(e.seed), uint64(e.cell)<<32|e.draws)), nil
+	src.Seed(uint64(e.seed), uint64(e.cell)<<32|e.draws)
+	return src, nil
 }
 
 // InFloat runs f as float64 code: the float64 audit.

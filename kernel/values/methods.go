@@ -19,8 +19,9 @@ type method[T py.Object] struct {
 // goes through the panic guard and reads its arguments by name.
 func setMethods[T py.Object](t *py.Type, table []method[T]) {
 	for _, m := range table {
+		sig := interp.NewSignature(m.name, m.params...) // read once, bound on every call
 		t.Dict[m.name] = interp.Method(m.name, m.doc, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
-			a, err := interp.Bind(m.name, args, kw, m.params...)
+			a, err := sig.Bind(args, kw)
 			if err != nil {
 				return nil, err
 			}
@@ -40,8 +41,9 @@ type builtin struct {
 // setBuiltins puts a builtin table into b.
 func setBuiltins(b py.StringDict, table []builtin) {
 	for _, f := range table {
+		sig := interp.NewSignature(f.name, f.params...)
 		b[f.name] = interp.Func(f.name, f.doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-			a, err := interp.Bind(f.name, args, kw, f.params...)
+			a, err := sig.Bind(args, kw)
 			if err != nil {
 				return nil, err
 			}

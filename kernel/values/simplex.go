@@ -349,11 +349,11 @@ func (e *Env) randomSimplex(a interp.Args) (py.Object, error) {
 	if dim < 1 || dim > 64 || bound < 1 || denom < 1 {
 		return nil, py.ExceptionNewf(py.ValueError, "random_simplex needs 1 <= dim <= 64, bound >= 1 and denom >= 1")
 	}
-	r, err := e.Rand(a.Get("seed"))
+	w, err := e.Word(a.Get("seed"))
 	if err != nil {
 		return nil, err
 	}
-	return e.Simplex(geom.Random(int(dim), r.Uint64(), bound, denom)), nil
+	return e.Simplex(geom.Random(int(dim), w, bound, denom)), nil
 }
 
 func init() {
