@@ -23,7 +23,7 @@ package geom
 // final reductions (~0.9 µs each) were tried against s one factor at a
 // time (ratProd) and against l = √s: no gain, and 12% of them at best,
 // so they stay as they were. Outside geom, the
-// division by 288 by one word gcd (values.quoWord), equal sides found
+// division by 288 by one word gcd (exact.Quo, by quoWord), equal sides found
 // without a subtraction and the tally's size parsed only for failing
 // residuals. Left, by the profile: the determinant's Bareiss steps in
 // math/big (~18%), the two reductions (~14%), the interpreter's frames

@@ -3,7 +3,6 @@ package values
 import (
 	"math"
 	"math/big"
-	"math/bits"
 
 	"github.com/go-python/gpython/py"
 
@@ -134,46 +133,7 @@ func quotient(x, y *big.Rat) (*big.Rat, error) {
 	if y.Sign() == 0 {
 		return nil, py.ExceptionNewf(py.ZeroDivisionError, "division by zero: %s / 0", exact.FormatRat(x))
 	}
-	if z := quoWord(x, y); z != nil {
-		return z, nil
-	}
-	return new(big.Rat).Quo(x, y), nil
-}
-
-// quoWord returns x/y for a non-zero integer y of one word (nil for any
-// other y) with one word gcd: x is in lowest terms, so with g = gcd(num,
-// |y|), num/g is coprime to den·|y|/g. big.Rat.Quo would reduce the
-// whole product in math/big (a division by 288 in the Cayley–Menger
-// volume was 8% of BenchmarkExactSampledIdentity).
-func quoWord(x, y *big.Rat) *big.Rat {
-	if !y.IsInt() || !y.Num().IsInt64() || bits.UintSize != 64 {
-		return nil
-	}
-	w := y.Num().Int64()
-	u := uint64(w)
-	if w < 0 {
-		u = -u
-	}
-	var r uint64 // |num| mod u, from the top word down
-	xs := x.Num().Bits()
-	for i := len(xs) - 1; i >= 0; i-- {
-		_, r = bits.Div64(r, uint64(xs[i]), u)
-	}
-	g := u
-	for r != 0 {
-		g, r = r, g%r
-	}
-	z := new(big.Rat).SetInt64(1) // so that Denom is a reference
-	num, den := z.Num(), z.Denom()
-	num.Set(x.Num())
-	if g != 1 {
-		num.Quo(num, new(big.Int).SetUint64(g))
-	}
-	den.Mul(x.Denom(), new(big.Int).SetUint64(u/g))
-	if w < 0 {
-		num.Neg(num)
-	}
-	return z
+	return exact.Quo(x, y)
 }
 
 // toFloatObject turns an exact scalar into its float; anything else stays.
