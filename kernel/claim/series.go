@@ -56,7 +56,7 @@ func SeriesLimit(c *cells.Claim, f Expansion, expect *exact.Real, expectInf bool
 	switch {
 	case e.Sign() < 0 && expectInf && sign > 0:
 		c.Verdict, c.Residual = cells.Holds, "grows like h^−"+exact.FormatRat(pow)
-		c.Note = fmt.Sprintf("%s: the leading term has a negative exponent and a positive coefficient, so f tends to infinity — a proof: %s", what, seriesProof)
+		c.Note = fmt.Sprintf("%s: the leading term has a negative exponent and a positive coefficient, so f tends to infinity, growing like h^−%s (h the distance to the point) — a proof: %s", what, exact.FormatRat(pow), seriesProof)
 	case e.Sign() < 0:
 		c.Verdict, c.Residual = cells.Fails, "blows up like h^−"+exact.FormatRat(pow)
 		c.Note = fmt.Sprintf("%s: f tends to %sinfinity, %s (h is the distance to the point); %s", what, map[bool]string{true: "", false: "−"}[sign > 0], map[bool]string{true: "not to a finite limit", false: "not to +infinity (state the limit of −f)"}[!expectInf], seriesProof)
@@ -88,12 +88,12 @@ func SeriesLimit(c *cells.Claim, f Expansion, expect *exact.Real, expectInf bool
 		c.Verdict, c.Digits, c.Why = cells.Undecided, 0, cells.OtherReason
 		c.Note += fmt.Sprintf("; the stated order %s of the error is not settled: after the constant term no coefficient is known to be non-zero before the error term (all cancel, or one is a transcendental number not told from 0)", exact.FormatRat(order))
 	case pow.Cmp(order) == 0 && growth:
-		c.Note += fmt.Sprintf("; it grows like h^−%s, the stated order, exactly", exact.FormatRat(pow))
+		c.Note += fmt.Sprintf("; h^−%s is the stated order, exactly", exact.FormatRat(pow))
 	case pow.Cmp(order) == 0:
-		c.Note += fmt.Sprintf("; the error is of order h^%s, the stated order, exactly", exact.FormatRat(pow))
+		c.Note += fmt.Sprintf("; the error is of order h^%s (h the distance to the point), the stated order, exactly", exact.FormatRat(pow))
 	default:
 		c.Verdict, c.Digits, c.Why = cells.Fails, 0, ""
-		c.Note += fmt.Sprintf("; the stated order %s is false: the %s is of order h^%s%s exactly", exact.FormatRat(order), map[bool]string{true: "growth", false: "error"}[growth], map[bool]string{true: "−", false: ""}[growth], exact.FormatRat(pow))
+		c.Note += fmt.Sprintf("; the stated order %s is false: the %s is of order h^%s%s exactly (h the distance to the point)", exact.FormatRat(order), map[bool]string{true: "growth", false: "error"}[growth], map[bool]string{true: "−", false: ""}[growth], exact.FormatRat(pow))
 	}
 	return nil
 }
