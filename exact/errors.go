@@ -16,7 +16,7 @@ var (
 	ErrShape = errors.New("shape mismatch")
 	// ErrSyntax reports text that is not a number, a polynomial or a
 	// variable name in an accepted form.
-	ErrSyntax = errors.New("invalid number syntax")
+	ErrSyntax = errors.New("invalid syntax")
 	// ErrNotFinite reports a NaN or infinite float64 where a finite value is
 	// needed.
 	ErrNotFinite = errors.New("not a finite number")

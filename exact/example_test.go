@@ -27,7 +27,7 @@ func ExampleParseRat() {
 	// 7
 	// 1500
 	// true
-	// parse "0x10": unexpected "x10": invalid number syntax
+	// parse "0x10": unexpected "x10": invalid syntax
 }
 
 func ExampleMatrix_Det() {
