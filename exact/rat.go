@@ -153,10 +153,7 @@ func quoWord(x, y *big.Rat) *big.Rat {
 	for i := len(xs) - 1; i >= 0; i-- {
 		_, r = bits.Div64(r, uint64(xs[i]), u)
 	}
-	g := u
-	for r != 0 {
-		g, r = r, g%r
-	}
+	g := gcdU64(u, r)
 	z := new(big.Rat).SetInt64(1) // so that Denom is a reference
 	num, den := z.Num(), z.Denom()
 	num.Set(x.Num())
