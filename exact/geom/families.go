@@ -39,15 +39,12 @@ func Random(dim int, seed uint64, bound, denom int64) *Simplex {
 // setFrac64 sets z to p/q (q > 0), reduced by a word gcd: big.NewRat
 // would reduce it again in math/big, the larger part of drawing a point.
 func setFrac64(z *big.Rat, p, q int64) *big.Rat {
-	a, b := p, q
+	a := p
 	if a < 0 {
 		a = -a // |p| <= bound <= MaxInt64
 	}
-	for b != 0 {
-		a, b = b, a%b
-	}
-	if a > 1 {
-		p, q = p/a, q/a
+	if g := int64(gcdU(uint64(a), uint64(q))); g > 1 {
+		p, q = p/g, q/g
 	}
 	z.SetInt64(p) // the denominator is now a word 1, which Denom hands out
 	z.Denom().SetInt64(q)
