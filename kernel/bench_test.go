@@ -1,10 +1,13 @@
 package kernel
 
 import (
+	"os"
+	"runtime/debug"
 	"testing"
 
 	"assay/cells"
 	"assay/kernel/cputime"
+	"assay/kernel/proto"
 	"assay/kernel/session"
 )
 
@@ -49,11 +52,15 @@ func BenchmarkAuditedSampledIdentity(b *testing.B) {
 }
 
 // benchNotebook runs a one-claim notebook in-process b.N times and checks
-// the claim's verdict every time.
+// the claim's verdict every time, with the collector set as in a kernel
+// process (proto.KernelGCPercent), unless GOGC is set.
 func benchNotebook(b *testing.B, src []byte, want cells.Verdict) {
 	nb, err := cells.Parse("bench.md", src)
 	if err != nil {
 		b.Fatal(err)
+	}
+	if _, set := os.LookupEnv("GOGC"); !set {
+		defer debug.SetGCPercent(debug.SetGCPercent(proto.KernelGCPercent))
 	}
 	b.ResetTimer()
 	cpu0, ok := cputime.Self()
