@@ -240,6 +240,12 @@ func (s *Session) limit(c *cells.Claim, t claim.Target, a interp.Args) error {
 		e := midpoint(iv, prec)
 		verdict, digits, gap := limits.Compare(est, e)
 		c.Residual = "gap " + gap.Text('e', 3)
+		if gap.Cmp(est.ErrorEst) <= 0 {
+			// The estimate is only known to its error estimate: a gap
+			// below it (9.7e-169 against 1.3e-93) would claim more
+			// agreement than was shown.
+			c.Residual = "gap ≲ " + est.ErrorEst.Text('e', 3) + " (the error estimate)"
+		}
 		switch verdict {
 		case limits.VerdictEstimated:
 			c.Verdict, c.Digits = cells.Estimated, min(digits, t.Digits())

@@ -487,6 +487,16 @@ limit("near 2", lambda t: (t**2 - 4) / (t - 2), method="extrapolation", toward=2
 	if !strings.Contains(o.Claims[0].Note, "order ≈ 2.0") || !strings.Contains(o.Claims[0].Note, "not a certified bound") {
 		t.Errorf("sinc note: %q", o.Claims[0].Note)
 	}
+	// A gap within the error estimate is shown as the estimate, never as
+	// the (smaller) distance between the extrapolant and the expectation.
+	for _, i := range []int{0, 5} {
+		if !strings.HasPrefix(o.Claims[i].Residual, "gap ≲ ") {
+			t.Errorf("%s residual: %q", o.Claims[i].Name, o.Claims[i].Residual)
+		}
+	}
+	if r := o.Claims[1].Residual; r != "gap 1.000e-02" {
+		t.Errorf("wrong residual: %q, want the gap 1/100", r)
+	}
 	if !strings.Contains(o.Claims[2].Residual, "h^−2") {
 		t.Errorf("blow-up residual: %q", o.Claims[2].Residual)
 	}
