@@ -93,15 +93,18 @@
 // build: figures and HTML stubbed out, `main` only serving; 15 MB, 173
 // packages, statically linked): 415 page faults, 14.1 / 15.4 ms a process;
 // in the run, its exec to serving 11 ms instead of 20, and the whole run
-// 31.9 / 33.3 / 34.0 ms (traced as above); back to back, both started
+// 31.9 / 33.3 / 34.0 ms (traced as above; 30.1 / 31.5 / 32.1 in a second
+// set, and 29.6 / 30.7 / 31.0 with its session opened and its JSON codecs
+// used once before it serves, since it waits for its driver: its start
+// reply then takes 0.2 ms instead of 2.5); back to back, both started
 // through env, 36.0–36.6 / 37.4–37.8 / 38.7–39.0 against the full
-// binary's 46.8–47.3 / 48.4–48.7 / 49.8 (−22%). The driver then
-// sets the pace: its start request leaves at ~24 ms, when the kernel is
-// ready. The issue's 15 ms is below the floor of the driver alone, one
-// process of this binary (~25 ms to start and exit). A pre-started kernel
-// with its session open would bring a run to about that floor, ~28 ms
-// (from these steps: start request at ~24 ms, the cell 0.5 ms, the
-// driver's exit ~3 ms), ~4 ms under a slim kernel started per run.
+// binary's 46.8–47.3 / 48.4–48.7 / 49.8 (−22%). The driver then sets the
+// pace: its start request leaves at ~24 ms, when the kernel is ready. The
+// issue's 15 ms is below the floor of the driver alone, one process of
+// this binary (~25 ms to start and exit). A pre-started kernel with its
+// session open would bring a run to about that floor, ~28 ms (from these
+// steps: start request at ~24 ms, the cell 0.5 ms, the driver's exit
+// ~3 ms), 2–4 ms under a slim kernel started per run.
 package early
 
 import (
