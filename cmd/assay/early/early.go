@@ -43,7 +43,8 @@
 // Min / first quartile / median of the whole run: 44.1 / 46.3 / 47.3 ms
 // before, 40.1 / 43.6 / 45.0 after. Back to back as the benchmark runs it
 // (30 alternating rounds): 47.6 / 48.8 / 50.6 ms before, 42.7 / 44.0 /
-// 44.8 after (−10%); started through env, two rounds: 51.2–51.5 /
+// 44.8 after (−10%), and in a later set 42.7 / 43.9 / 46.0 before, 36.7 /
+// 39.5 / 40.7 after (−12%); started through env, two rounds: 51.2–51.5 /
 // 53.6–53.9 / 54.3–55.3 before, 46.8–47.3 / 48.4–48.7 / 49.8 after.
 // What changed: the first cell goes behind the start request
 // (kernel.startDriver), the driver decodes a reply while its kernel
