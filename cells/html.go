@@ -79,9 +79,9 @@ func RenderHTML(r *Report) []byte {
 		switch c.kind {
 		case segProse:
 			part = notebookCode().ReplaceAllString(proseHTML(withoutHTMLBlocks(md[c.at:end])), "<pre><code>")
-			part = tableCode.ReplaceAllStringFunc(part, typeset)
+			part = tableCode().ReplaceAllStringFunc(part, typeset)
 		case segRegion:
-			part = tableCode.ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
+			part = tableCode().ReplaceAllStringFunc(tokens.Replace(toHTML(md[c.at:end])), typeset)
 			if strings.Contains(part, "assay"+marks.nonce) {
 				// A placeholder did not come out as its own paragraph (it
 				// cannot in the Markdown we write); drop them all rather
@@ -188,15 +188,15 @@ func lineBreakHook(w io.Writer, node ast.Node, entering bool) (ast.WalkStatus, b
 }
 
 var (
-	tableCode = regexp.MustCompile(`<td><code>[^<]*</code></td>`)
-	power     = regexp.MustCompile(`\^([-−]?[0-9]+(?:/[0-9]+)?)`) // x^2, h^−2, t^1/2 as printed
+	tableCode = lazyRegexp(`<td><code>[^<]*</code></td>`)
+	power     = lazyRegexp(`\^([-−]?[0-9]+(?:/[0-9]+)?)`) // x^2, h^−2, t^1/2 as printed
 )
 
 // typeset sets a formula in a table cell as mathematics is printed:
 // exponents raised, products as a centred dot. Only digits are moved into
 // markup, so the escaping of the text is kept.
 func typeset(cell string) string {
-	cell = power.ReplaceAllString(cell, "<sup>$1</sup>")
+	cell = power().ReplaceAllString(cell, "<sup>$1</sup>")
 	return strings.ReplaceAll(cell, "*", "·")
 }
 

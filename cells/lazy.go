@@ -10,8 +10,7 @@ import (
 // the same expression at every call, safe for concurrent use. Compiled
 // into package-level variables, this package's expressions cost every
 // process ~1 ms and 200 KB at start, the kernel's too, which uses none
-// of them (DEVELOPERS.md, "Start-up"). Use it for every new one; the two
-// left in html.go (tableCode, power) can follow.
+// of them (DEVELOPERS.md, "Start-up"). Use it for every new one.
 func lazyRegexp(expr string) func() *regexp.Regexp {
 	return sync.OnceValue(func() *regexp.Regexp { return regexp.MustCompile(expr) })
 }

@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"html"
 	"strings"
+	"sync"
 	"unicode"
 	"unicode/utf8"
 
@@ -295,7 +296,7 @@ func (p *texParser) command() (string, bool, error) {
 		return "", false, fmt.Errorf(`unknown command \%c`, c)
 	}
 	p.pos += 1 + len(name)
-	if s, ok := texSymbols[name]; ok {
+	if s, ok := texSymbols()[name]; ok {
 		return s, false, nil
 	}
 	if s, ok := texLarge[name]; ok {
@@ -492,8 +493,9 @@ var texFences = map[string]string{
 // texLarge are the operators whose scripts are limits.
 var texLarge = map[string]string{"sum": "∑", "prod": "∏", "lim": "lim", "max": "max", "min": "min"}
 
-// texSymbols are the commands that stand for one symbol.
-var texSymbols = func() map[string]string {
+// texSymbols are the commands that stand for one symbol, made at first
+// use (only the HTML report needs them, not every process's start).
+var texSymbols = sync.OnceValue(func() map[string]string {
 	m := map[string]string{}
 	lower := "alpha α beta β gamma γ delta δ epsilon ϵ varepsilon ε zeta ζ eta η theta θ vartheta ϑ iota ι " +
 		"kappa κ lambda λ mu μ nu ν xi ξ pi π varpi ϖ rho ρ varrho ϱ sigma σ varsigma ς tau τ upsilon υ " +
@@ -522,7 +524,7 @@ var texSymbols = func() map[string]string {
 	m["quad"] = `<mspace width="1em"></mspace>`
 	m["qquad"] = `<mspace width="2em"></mspace>`
 	return m
-}()
+})
 
 // proseMath is the inline parser for "$" in the notebook's text (code
 // spans and blocks never reach it, and "\$" is an escaped dollar before it

@@ -126,13 +126,18 @@ func run(nb *cells.Notebook, opt Options, parts *partSet) (*cells.Report, *drive
 	if len(list) == 0 {
 		return rep, nil
 	}
-	d, err := newDriver(opt)
+	var first *ran
+	if opt.Until <= 0 || list[0].Index <= opt.Until {
+		r := cellOf(list[0], opt)
+		first = &r
+	}
+	d, err := startDriver(opt, first)
 	if err != nil {
 		rep.Problems = append(rep.Problems, cells.Problem{Message: err.Error()})
 		return rep, nil
 	}
 	d.parts = parts
-	defer d.close()
+	defer d.release() // the report need not wait for the kernels to exit
 	runCells(d, rep, list, 0, opt)
 	return rep, d
 }

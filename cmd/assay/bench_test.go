@@ -23,10 +23,14 @@ func buildAssay(b *testing.B) (dir, bin string) {
 
 // BenchmarkCheckOneCell times `assay check` on a one-cell notebook as a user
 // runs it: the built binary, which starts its kernel child process (early:
-// see package early for the figures). Target (issue 20): ≤ 15 ms; on the
-// 2-core VM (benchmark at real-time priority: the machine was saturated),
-// 60.8–67.7 ms before the early kernel and lazy initialisers, 46.7–53.2 ms
-// after; two hello-world Go processes take 12.8–15.7 ms.
+// see package early for the figures and a run's timeline). Target (issue
+// 20): ≤ 15 ms; on the 2-core VM (benchmark at real-time priority: the
+// machine was saturated), 60.8–67.7 ms before the early kernel and lazy
+// initialisers, 46.7–53.2 ms after; back to back as here, min / median,
+// 42.7–47.6 / 46.0–50.6 ms before the second round (first cell behind the
+// start request, kernel exit not waited for), 36.7–42.7 / 40.7–44.8 after
+// (two sets of 30 alternating runs); two hello-world Go processes take
+// 12.8–15.7 ms, one process of this binary ~25.
 func BenchmarkCheckOneCell(b *testing.B) {
 	checkEach(b, "# one cell\n\n```cell\nidentity(\"det of a 3x3\", det(matrix([[2, 0, 1], [1, 3, 2], [1, 1, 1]])), 0)\n```\n")
 }

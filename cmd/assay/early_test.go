@@ -1,25 +1,119 @@
 package main
 
 import (
+	"fmt"
 	"os"
 	"os/exec"
 	"path/filepath"
 	"runtime"
+	"slices"
+	"strconv"
 	"strings"
+	"sync"
 	"testing"
 	"time"
+
+	"assay/kernel/spawn"
 )
 
 // builtAssay builds the assay binary, whose `check` and `run` start their
 // kernel from a package initialiser (package early), unlike the test
-// binary.
+// binary; once for all the tests, removed by TestMain.
 func builtAssay(t *testing.T) string {
 	t.Helper()
-	bin := filepath.Join(t.TempDir(), "assay")
-	if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
-		t.Fatalf("build: %v\n%s", err, out)
+	built.once.Do(func() {
+		if built.dir, built.err = os.MkdirTemp("", "assay-bin-"); built.err != nil {
+			return
+		}
+		bin := filepath.Join(built.dir, "assay")
+		if out, err := exec.Command("go", "build", "-o", bin, ".").CombinedOutput(); err != nil {
+			built.err = fmt.Errorf("build: %v\n%s", err, out)
+			return
+		}
+		built.bin = bin
+	})
+	if built.err != nil {
+		t.Fatal(built.err)
 	}
-	return bin
+	return built.bin
+}
+
+var built struct {
+	once     sync.Once
+	dir, bin string
+	err      error
+}
+
+// A run traced with ASSAY_TRACE (spawn.TraceEnv) writes the steps of both
+// its processes to one file, each in order and on one clock: the kernel
+// starts from the driver's initialiser, the driver sends the first cell
+// right behind the start request, and the kernel answers each request
+// after it was sent and before the driver reads the reply.
+func TestStartTrace(t *testing.T) {
+	bin := builtAssay(t)
+	dir := t.TempDir()
+	nb := filepath.Join(dir, "one.md")
+	if err := os.WriteFile(nb, []byte("# one claim\n\n```cell\nidentity(\"two\", 1 + 1, 2)\n```\n"), 0o644); err != nil {
+		t.Fatal(err)
+	}
+	file := filepath.Join(dir, "trace")
+	cmd := exec.Command(bin, "check", nb)
+	cmd.Env = append(os.Environ(), spawn.TraceEnv+"="+file)
+	if out, err := cmd.CombinedOutput(); err != nil {
+		t.Fatalf("check: %v\n%s", err, out)
+	}
+	data, err := os.ReadFile(file)
+	if err != nil {
+		t.Fatal(err)
+	}
+	at := map[string][]int64{} // "command step" -> times, in the file's order
+	var cmds []string          // the command of each process, in order of first line
+	pids := map[string]string{}
+	for _, line := range strings.Split(strings.TrimSpace(string(data)), "\n") {
+		f := strings.SplitN(line, " ", 4)
+		if len(f) != 4 {
+			t.Fatalf("trace line %q: want time, pid, command, step", line)
+		}
+		ns, err := strconv.ParseInt(f[0], 10, 64)
+		if err != nil {
+			t.Fatalf("trace line %q: %v", line, err)
+		}
+		if pid, seen := pids[f[2]]; !seen {
+			pids[f[2]] = f[1]
+			cmds = append(cmds, f[2])
+		} else if pid != f[1] {
+			t.Fatalf("two %s processes traced (%s, %s)", f[2], pid, f[1])
+		}
+		key := f[2] + " " + f[3]
+		at[key] = append(at[key], ns)
+	}
+	if !slices.Equal(cmds, []string{"check", "kernel"}) {
+		t.Fatalf("traced processes %v, want check then kernel\n%s", cmds, data)
+	}
+	// Each process's steps, in the order they must come.
+	for _, steps := range [][]string{
+		// the first cell goes right behind the start request
+		{"check init", "check spawn", "check spawned", "check main", "check sent start", "check sent run", "check reply", "check run done", "check exit"},
+		{"kernel init", "kernel main", "kernel serving", "kernel request", "kernel handled start", "kernel replied", "kernel handled run"},
+		// across the processes
+		{"check spawn", "kernel init", "check exit"},
+		{"check sent start", "kernel handled start", "check reply"},
+		{"check sent run", "kernel handled run", "check exit"},
+	} {
+		var last int64
+		for _, s := range steps {
+			if len(at[s]) == 0 {
+				t.Fatalf("no step %q in the trace\n%s", s, data)
+			}
+			if at[s][0] < last {
+				t.Errorf("%q before the step ahead of it in %v\n%s", s, steps, data)
+			}
+			last = at[s][0]
+		}
+	}
+	if n := len(at["kernel handled run"]); n != 1 {
+		t.Errorf("the kernel ran %d cells, want 1\n%s", n, data)
+	}
 }
 
 // The kernel started early is the one the run uses (one child, not an

@@ -24,6 +24,7 @@ import (
 	"assay/kernel/claim"
 	"assay/kernel/proto"
 	"assay/kernel/session"
+	"assay/kernel/spawn"
 )
 
 const usage = `assay checks geometric formulas in Markdown notebooks, exactly.
@@ -53,7 +54,10 @@ Run 'assay run --help', 'assay check --help', 'assay merge --help',
 `
 
 func main() {
-	os.Exit(mainCode(os.Args[1:], os.Stdout, os.Stderr))
+	spawn.Mark("main")
+	code := mainCode(os.Args[1:], os.Stdout, os.Stderr)
+	spawn.Mark("exit")
+	os.Exit(code)
 }
 
 func mainCode(args []string, stdout, stderr io.Writer) int {
@@ -713,6 +717,7 @@ Flags:
 	worst := 0
 	for _, path := range names {
 		rep, err := load(path, opt)
+		spawn.Mark("run done")
 		code := 2
 		if err != nil {
 			fmt.Fprintln(stderr, "assay check:", err)

@@ -23,7 +23,11 @@ func TestMain(m *testing.M) {
 	if os.Getenv("ASSAY_TEST_MAIN") == "1" { // the test binary as assay itself
 		os.Exit(mainCode(os.Args[1:], os.Stdout, os.Stderr))
 	}
-	os.Exit(m.Run())
+	code := m.Run()
+	if built.dir != "" {
+		os.RemoveAll(built.dir)
+	}
+	os.Exit(code)
 }
 
 func assay(t *testing.T, args ...string) (code int, stdout, stderr string) {

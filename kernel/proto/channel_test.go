@@ -3,6 +3,7 @@ package proto
 import (
 	"bufio"
 	"encoding/json"
+	"fmt"
 	"io"
 	"os"
 	"strings"
@@ -33,7 +34,7 @@ func TestMain(m *testing.M) {
 }
 
 // badKernel answers start as a kernel should, then answers a run in the
-// way mode names.
+// way mode names; "deaf" outlives the end of its requests.
 func badKernel(mode string) {
 	requests, replies, _, err := openChannel()
 	if err != nil {
@@ -71,6 +72,68 @@ func badKernel(mode string) {
 			good.Outcome.Output = strings.Repeat("x", 4<<20)
 			enc.Encode(good)
 		}
+	}
+	if mode == "deaf" {
+		time.Sleep(time.Hour) // outlives its requests, until it is killed
+	}
+}
+
+// A cell sent right behind the start request, before its reply, is run
+// once the session is open; the replies come in the order of the
+// requests, and a reply beyond them is refused as before.
+func TestRequestsAnsweredInOrder(t *testing.T) {
+	t.Setenv("ASSAY_TEST_KERNEL", "1")
+	inbox := make(chan Message, 16)
+	p, err := Start([]string{os.Args[0]}, session.DefaultSettings, Limits{}, inbox)
+	if err != nil {
+		t.Fatal(err)
+	}
+	t.Cleanup(p.Kill)
+	for i := 1; i <= 2; i++ {
+		if err := p.Send(Request{Op: "run", Cell: &session.Cell{Index: i, Line: 10 * i, Source: fmt.Sprintf("x%d = %d", i, i)}}); err != nil {
+			t.Fatal(err)
+		}
+	}
+	if m := receive(t, inbox); m.Dead || m.Reply.Error != "" || m.Reply.Outcome != nil {
+		t.Fatalf("the first reply, to start: %+v, %v", m, p.Death())
+	}
+	for i := 1; i <= 2; i++ {
+		m := receive(t, inbox)
+		if m.Dead || m.Reply.Outcome == nil || m.Reply.Outcome.Cell != i || m.Reply.Outcome.Status != cells.Ran {
+			t.Fatalf("reply %d: %+v, want cell %d's outcome (%v)", i+1, m.Reply, i, p.Death())
+		}
+	}
+	p.mu.Lock()
+	left := len(p.want)
+	p.mu.Unlock()
+	if left != 0 {
+		t.Errorf("%d requests still outstanding after their replies", left)
+	}
+}
+
+// Release ends a kernel without waiting for it to exit: a kernel ends
+// with its requests, and one that does not ("deaf") is killed 2 s later.
+func TestRelease(t *testing.T) {
+	for _, mode := range []string{"1", "deaf"} {
+		t.Run(mode, func(t *testing.T) {
+			p, _ := startKernel(t, mode, Limits{})
+			p.Release()
+			if mode == "deaf" {
+				select {
+				case <-p.exited:
+					t.Fatal("a kernel that outlives its requests exited before it was killed")
+				default: // Release returned without waiting
+				}
+			}
+			select {
+			case <-p.exited:
+			case <-time.After(10 * time.Second):
+				t.Fatal("the kernel still runs 10 s after Release")
+			}
+			if killed := p.state.ExitCode() == -1; killed != (mode == "deaf") {
+				t.Errorf("ended by a kill: %v (%v), want %v", killed, p.state, mode == "deaf")
+			}
+		})
 	}
 }
 

@@ -100,13 +100,14 @@ func ServeChild(in io.Reader, out io.Writer) error {
 		in, out = requests, replies
 	}
 	if ok {
-		in = readAhead(in, func() { os.Exit(0) })
+		in = readAhead(in, func() { spawn.Mark("requests ended"); os.Exit(0) })
 		// A terminal's Ctrl-C reaches the whole process group, this child
 		// too; its driver decides what it means (assay repl stops the
 		// input and goes on), and a driver that dies of it takes this
 		// process with it through the parent-death signal.
 		signal.Ignore(os.Interrupt)
 	}
+	spawn.Mark("serving")
 	return serve(in, out, maxOutput, func(l Limits) int64 {
 		if l.MaxMemory > 0 {
 			collectBelow(l.MaxMemory)

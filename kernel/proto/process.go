@@ -59,12 +59,12 @@ type Process struct {
 	nonce    string // the run's secret, echoed in every reply
 
 	mu        sync.Mutex
-	want      outstanding // the request a reply must answer
-	violation string      // why the process was killed for a bad reply
+	want      []outstanding // the requests replies must answer, in order
+	violation string        // why the process was killed for a bad reply
 }
 
-// outstanding is the request whose reply is due: op "start" or "run"
-// (with the cell's index), or "" when none is.
+// outstanding is a request whose reply is due: op "start" or "run"
+// (with the cell's index); its zero value stands for none.
 type outstanding struct {
 	op   string
 	cell int
@@ -134,6 +134,7 @@ func Start(command []string, s session.Settings, lim Limits, inbox chan<- Messag
 			if err != nil {
 				break
 			}
+			spawn.Mark("reply")
 			var reply Reply
 			if err := json.Unmarshal(line, &reply); err != nil {
 				p.refuse(fmt.Sprintf("%.60q, which is not a reply", line))
@@ -147,6 +148,7 @@ func Start(command []string, s session.Settings, lim Limits, inbox chan<- Messag
 		}
 		child.Replies.Close()
 		p.state, _ = child.Process.Wait()
+		spawn.Mark("kernel exited")
 		<-copied
 		close(p.exited)
 		deliver(Message{From: p, Dead: true})
@@ -158,7 +160,18 @@ func Start(command []string, s session.Settings, lim Limits, inbox chan<- Messag
 		p.Close()
 		return nil, err
 	}
+	go warmReplies.Do(warmReply)
 	return p, nil
+}
+
+// warmReplies decodes a reply once per process, while the first kernel
+// starts: a process's first json.Unmarshal of a Reply took ~1 ms (the
+// decoder's code and types paged in), which delayed the first cell.
+var warmReplies sync.Once
+
+func warmReply() {
+	var r Reply
+	json.Unmarshal([]byte(`{"version":"","nonce":"","settings":{},"outcome":{"status":"ran","claims":[{}]}}`), &r)
 }
 
 // Send writes one request line; a dead process is a *LimitError.
@@ -169,25 +182,31 @@ func (p *Process) Send(req Request) error {
 	}
 	if req.Op == "start" || req.Op == "run" {
 		p.mu.Lock()
-		p.want = outstanding{op: req.Op}
+		w := outstanding{op: req.Op}
 		if req.Cell != nil {
-			p.want.cell = req.Cell.Index
+			w.cell = req.Cell.Index
 		}
+		p.want = append(p.want, w)
 		p.mu.Unlock()
 	}
 	if _, err := p.requests.Write(append(line, '\n')); err != nil {
 		return p.Death()
 	}
+	spawn.Mark("sent", req.Op)
 	return nil
 }
 
-// check says why a reply does not answer the request outstanding, or "".
-// Exchanges and progress belong to the cell being run; any other reply
-// ends the request.
+// check says why a reply does not answer the oldest request outstanding,
+// or "". The kernel answers its requests in order (a driver may send a
+// cell right behind the start request). Exchanges and progress belong to
+// the cell being run; any other reply ends the request.
 func (p *Process) check(r Reply) string {
 	p.mu.Lock()
 	defer p.mu.Unlock()
-	want := p.want
+	var want outstanding
+	if len(p.want) > 0 {
+		want = p.want[0]
+	}
 	during := r.Exchange != nil || r.Progress != nil
 	switch {
 	case r.Nonce != p.nonce:
@@ -206,7 +225,7 @@ func (p *Process) check(r Reply) string {
 		return "a reply to a cell without its outcome"
 	}
 	if !during {
-		p.want = outstanding{}
+		p.want = p.want[1:]
 	}
 	return ""
 }
@@ -297,16 +316,27 @@ func (p *Process) Unheard() {
 	}
 }
 
-// Close ends the process.
+// Close ends the process and waits until it has exited.
 func (p *Process) Close() error {
+	p.Release()
+	<-p.exited
+	return nil
+}
+
+// Release ends the process without waiting for it: a kernel exits when
+// its request channel ends, and one still there 2 s later is killed.
+// Exiting takes a process of this binary ~3 ms (its pages unmapped), which
+// a driver that is done with its kernel need not wait for.
+func (p *Process) Release() {
 	p.Unheard()
 	p.requests.Close()
-	select {
-	case <-p.exited:
-	case <-time.After(2 * time.Second):
-		p.Kill()
-	}
-	return nil
+	go func() {
+		select {
+		case <-p.exited:
+		case <-time.After(2 * time.Second):
+			p.Kill()
+		}
+	}()
 }
 
 // head keeps the first max bytes written to it: a Go runtime crash states

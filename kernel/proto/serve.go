@@ -10,6 +10,7 @@ import (
 	"assay/cells"
 	"assay/kernel/claim"
 	"assay/kernel/session"
+	"assay/kernel/spawn"
 )
 
 // Serve runs a kernel over JSON lines: requests from in, replies to out,
@@ -55,6 +56,7 @@ func serve(in io.Reader, out io.Writer, maxOutput int64, limit func(Limits) int6
 	for sc.Scan() {
 		var req Request
 		var reply Reply
+		spawn.Mark("request")
 		if err := json.Unmarshal(sc.Bytes(), &req); err != nil {
 			reply.Error = fmt.Sprintf("bad request: %v", err)
 		} else {
@@ -97,9 +99,11 @@ func serve(in io.Reader, out io.Writer, maxOutput int64, limit func(Limits) int6
 		if sess != nil {
 			reply.Settings = sess.Settings()
 		}
+		spawn.Mark("handled", req.Op)
 		if err := send(reply); err != nil {
 			return err
 		}
+		spawn.Mark("replied")
 		cell = 0
 	}
 	return sc.Err()

@@ -91,7 +91,9 @@ var early struct {
 // a failure is silent: Take then finds nothing and the caller starts a
 // child as usual.
 func Early(argv, env []string) {
+	Mark("spawn")
 	c, err := start(argv, env)
+	Mark("spawned")
 	if err != nil {
 		return
 	}
