@@ -4,24 +4,28 @@ package geom
 // on tetrahedra). BenchmarkRandomVolumeSq — Random(3, k, 1000, 100), then
 // VolumeSq, what random_simplex(3, seed=k, bound=1000, denom=100) and
 // t.volume_sq() cost a notebook sample in geom — measured as process CPU
-// a sample (best of 15 runs of 20,000 samples, GOGC=400, one core, old and
-// new alternated on the shared 2-core machine, load 4–5):
+// a sample (best of 15 runs of 20,000 samples, GOGC=400, one core; old
+// and new builds alternated, five rounds, on the shared 2-core machine at
+// load 4–5):
 //
-//	before (main at 3de8599)   4.3–5.0 µs, 53 allocations, 3.4 KB a sample
-//	after                      1.3–1.6 µs,  9 allocations, 1.1 KB
+//	before (main at 3de8599)   4.5–5.0 µs (one round 6.6), 53 allocations, 3.4 KB a sample
+//	after                      1.5–1.6 µs (one round 1.9),  4 allocations, 1.2 KB
 //
-// and BenchmarkExactSampledIdentity (kernel, the whole notebook sample)
-// 13.7–17.0 µs → 9.7–11.7 µs of CPU a sample in the same rounds. Cut: the
-// draw on a PCG on the stack (uniformN) into words, kept in the simplex
-// (wpts), with big.Rats made only when a method hands the points out
-// (Simplex.points); the lcm, the edge vectors, the Gram matrix and, for
-// k = n <= 3, the edge determinant in words (fromWordPoints, edgeWords,
-// setGramWords, detWords), in one block of Ints and one of words; the
-// degeneracy test and the volume from that determinant (its sign; its
-// value over l^k k! reduced a word factor at a time, reduceWordPow, then
-// squared) instead of the Gram adjugate (computeCore) and a gcd of
+// BenchmarkExactSampledIdentity (kernel, the whole notebook sample, CPU)
+// in alternated rounds: 15.3–23.2 µs before, 10.8–17.4 µs after (best
+// rounds 15.3 and 10.8). Cut: the draw on a PCG on the stack (uniformN)
+// into words, which the simplex keeps (wpts), making big.Rats of them
+// only when a method hands the points out (Simplex.points); the lcm, the
+// edge vectors, the Gram matrix and, for k = n <= 3, the edge determinant
+// in words (fromWordPoints, edgeWords, setGramWords, detWords), a
+// tetrahedron and all it keeps in one allocation (smallWordSimplex); the
+// degeneracy test and the volume from that determinant — its sign; its
+// value over l^k k! reduced a word factor at a time (reduceWordPow), then
+// squared — instead of the Gram adjugate (computeCore) and a gcd of
 // six-word numbers; word gcds by the binary algorithm after one Euclid
-// step (gcdU).
+// step (gcdU). Other volumes of word simplices reduce against l in words
+// too (ratOverS, also what a Cayley–Menger determinant over s^k could
+// use: half of ratFrac's time there).
 
 import (
 	"fmt"
@@ -46,10 +50,18 @@ func Random(dim int, seed uint64, bound, denom int64) *Simplex {
 	var pcg rand.PCG // on the stack: rand.New would put it and the Rand on the heap
 	pcg.Seed(seed, 0)
 	span := uint64(bound)*2 + 1 // bound <= MaxInt64, so no overflow
+	// The words drawn, on the stack for a tetrahedron (fromWordPoints
+	// copies them).
+	var buf [24]int64
+	var c []int64
+	if m := 2 * (dim + 1) * dim; m > len(buf) {
+		c = make([]int64, m)
+	} else {
+		c = buf[:m]
+	}
 	for {
 		// The simplex keeps the words and makes big.Rats of them only
 		// when a method hands the points out (Simplex.points).
-		c := make([]int64, 2*(dim+1)*dim)
 		for i := 0; i < len(c); i += 2 {
 			p := int64(uniformN(&pcg, span) - uint64(bound))
 			q := 1 + int64(uniformN(&pcg, uint64(denom)))

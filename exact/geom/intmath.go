@@ -92,13 +92,7 @@ func gcdU(a, b uint64) uint64 {
 	a >>= bits.TrailingZeros64(a)
 	for b != 0 { // a odd
 		b >>= bits.TrailingZeros64(b)
-		m := min(a, b)
-		if b > a {
-			b -= a
-		} else {
-			b = a - b
-		}
-		a = m
+		a, b = min(a, b), max(a, b)-min(a, b)
 	}
 	return a << k
 }
@@ -516,16 +510,43 @@ func mulWide(a int64, hi, lo uint64) [3]uint64 {
 }
 
 // ratWordPow returns num/(l^m·c) as a new big.Rat in lowest terms, for
-// words l, c >= 1 and m >= 0 (see reduceWordPow).
+// words l, c >= 1 and m >= 0 (see reduceWordPow): the Rat and its words
+// in one allocation when they are few. On the Cayley–Menger determinant
+// of a random tetrahedron over s³ (four words over three) it takes about
+// half the time of ratFrac (a microbenchmark, December 2026).
 func ratWordPow(num *big.Int, l uint64, m int, c uint64) *big.Rat {
-	r := new(big.Rat).SetInt64(1)
-	n, d := reduceWordPow(append([]big.Word(nil), num.Bits()...), make([]big.Word, 0, m+2), l, m, c)
+	nw := len(num.Bits())
+	need := nw + m + 2 // the numerator, then the denominator's m+1 words
+	var r *big.Rat
+	var w []big.Word
+	if need <= 16 {
+		b := new(struct {
+			r big.Rat
+			w [16]big.Word
+		})
+		r, w = &b.r, b.w[:need]
+	} else {
+		r, w = new(big.Rat), make([]big.Word, need)
+	}
+	r.SetInt64(1) // so that Denom is a reference
+	n, d := reduceWordPow(append(w[:0:nw], num.Bits()...), w[nw:nw], l, m, c)
 	r.Num().SetBits(n)
 	if num.Sign() < 0 {
 		r.Num().Neg(r.Num())
 	}
-	r.Denom().SetBits(d) // a reference: r's denominator is set (SetInt64)
+	r.Denom().SetBits(d)
 	return r
+}
+
+// ratOverS returns num/(s^m·c) in lowest terms, c >= 1 a word: by
+// ratWordPow against l = √s when the Gram matrix was formed in words,
+// else by ratFrac.
+func (s *Simplex) ratOverS(num *big.Int, m int, c uint64) *big.Rat {
+	if s.l != 0 {
+		return ratWordPow(num, s.l, 2*m, c)
+	}
+	den := new(big.Int).Exp(s.s, big.NewInt(int64(m)), nil)
+	return ratFrac(num, den.Mul(den, new(big.Int).SetUint64(c)))
 }
 
 // reduceWordPow reduces the fraction n/(l^m·c), for a magnitude n (words,

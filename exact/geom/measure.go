@@ -13,7 +13,7 @@ import (
 //
 // From points with a word l = √s (gramWords), it is computed from edet
 // when k = n <= 3 (volumeSqWords), else reduced against l a factor at a
-// time in words (ratWordPow) while (k!)² is a word.
+// time in words (ratOverS) while (k!)² is a word.
 func (s *Simplex) VolumeSq() *big.Rat {
 	if s.edet != nil {
 		return s.volumeSqWords()
@@ -22,9 +22,9 @@ func (s *Simplex) VolumeSq() *big.Rat {
 	if det.Sign() == 0 {
 		return new(big.Rat)
 	}
-	if s.l != 0 && s.k <= 12 { // 12!² < 2^64 < 13!²
+	if s.k <= 12 { // 12!² < 2^64 < 13!²
 		f := factorialWord(s.k)
-		return ratWordPow(det, s.l, 2*s.k, f*f)
+		return s.ratOverS(det, s.k, f*f)
 	}
 	f := factorial(s.k)
 	den := new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil)
@@ -35,7 +35,7 @@ func (s *Simplex) VolumeSq() *big.Rat {
 
 // volumeSqWords returns VolumeSq from edet (k <= 3): V = |edet|/(l^k k!),
 // reduced in words and squared (squares of coprime integers are
-// coprime), the squares in one block of words.
+// coprime).
 func (s *Simplex) volumeSqWords() *big.Rat {
 	if s.edet.Sign() == 0 {
 		return new(big.Rat)
@@ -43,10 +43,13 @@ func (s *Simplex) volumeSqWords() *big.Rat {
 	var nb [3]big.Word // |edet| < 2^189
 	var db [4]big.Word // l^k k!/g: k+1 words at most
 	n, d := reduceWordPow(append(nb[:0], s.edet.Bits()...), db[:0], s.l, s.k, factorialWord(s.k))
-	words := make([]big.Word, 2*(len(n)+len(d)))
-	r := new(big.Rat).SetInt64(1) // so that Denom is a reference
-	r.Num().SetBits(mulWords(words[:2*len(n):2*len(n)], n, n))
-	r.Denom().SetBits(mulWords(words[2*len(n):], d, d))
+	b := new(struct {
+		r big.Rat
+		w [2 * (len(nb) + len(db))]big.Word
+	}) // the result and its words in one allocation
+	r := b.r.SetInt64(1) // so that Denom is a reference
+	r.Num().SetBits(mulWords(b.w[:2*len(n):2*len(n)], n, n))
+	r.Denom().SetBits(mulWords(b.w[2*len(n):2*(len(n)+len(d))], d, d))
 	return r
 }
 

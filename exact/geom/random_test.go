@@ -99,9 +99,10 @@ func TestLeibnizDet(t *testing.T) {
 // VolumeSq against det(E)²/(k!)² computed directly in big.Rat, and
 // IsDegenerate against that determinant being exactly zero, for
 // dimensions 1..5: random simplices (Random, on the word path for small
-// coordinates and the big.Int path for large ones), points put exactly in
-// a hyperplane (degenerate), and the same with one point lifted 10^-30
-// off it (near-degenerate: tiny but non-zero volume, past every word).
+// coordinates and the big.Int path for large ones) and their facets,
+// points put exactly in a hyperplane (degenerate), and the same with one
+// point lifted 10^-30 off it (near-degenerate: tiny but non-zero volume,
+// past every word).
 func TestVolumeSqAgainstEdgeDeterminant(t *testing.T) {
 	check := func(what string, s *Simplex) {
 		t.Helper()
@@ -112,12 +113,39 @@ func TestVolumeSqAgainstEdgeDeterminant(t *testing.T) {
 			t.Fatalf("%s: IsDegenerate = %v, det(E)²/(k!)² = %s", what, s.IsDegenerate(), want.RatString())
 		}
 	}
+	// A facet, k−1 points in R^k (not full-dimensional, so no edge
+	// determinant): det(E Eᵀ)/((k−1)!)², the Gram determinant (common
+	// practice), again by Leibniz in big.Rat.
+	checkFacet := func(what string, s *Simplex) {
+		t.Helper()
+		f, err := s.Facet(0)
+		if err != nil {
+			t.Fatal(err)
+		}
+		pts, _ := f.Points()
+		e := make([][]*big.Rat, len(pts)-1)
+		for i := range e {
+			e[i] = sub(pts[i+1], pts[0])
+		}
+		g := make([][]*big.Rat, len(e))
+		for i := range g {
+			for j := range e {
+				g[i] = append(g[i], dot(e[i], e[j]))
+			}
+		}
+		want := leibnizDet(g)
+		fk := new(big.Rat).SetInt(factorial(len(e)))
+		want.Quo(want, fk)
+		sameRat(t, what+" facet VolumeSq", f.VolumeSq(), want.Quo(want, fk))
+	}
 	rng := rand.New(rand.NewPCG(21, 2))
 	tiny := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(30), nil))
 	for k := 1; k <= 5; k++ {
 		for seed := range uint64(40) {
-			check(fmt.Sprintf("Random(%d, %d, 1000, 100)", k, seed), Random(k, seed, 1000, 100))
-			check(fmt.Sprintf("Random(%d, %d, 2^62, 2^40)", k, seed), Random(k, seed, 1<<62, 1<<40))
+			for _, s := range []*Simplex{Random(k, seed, 1000, 100), Random(k, seed, 1<<62, 1<<40)} {
+				check(s.String(), s)
+				checkFacet(s.String(), s)
+			}
 			// k+1 points in the hyperplane x_k = a·x + b, then the last
 			// lifted by 10^-30 (also as a FromPoints simplex, so both
 			// constructors' paths are covered).
@@ -229,5 +257,30 @@ func TestRandomDrawsAsMathRand(t *testing.T) {
 				t.Fatalf("uniformN(%d) = %d, Uint64N %d", n, got, want)
 			}
 		}
+	}
+}
+
+// TestPointsConcurrent: a word simplex makes its big.Rat points on first
+// use; several goroutines asking at once must share one set (run with
+// -race to check the sync.Once).
+func TestPointsConcurrent(t *testing.T) {
+	s := Random(3, 8, 1000, 100)
+	want := Random(3, 8, 1000, 100).String()
+	done := make(chan string)
+	for range 4 {
+		go func() {
+			s.Centroid()
+			pts, _ := s.Points()
+			done <- fmt.Sprint(pts) + "|" + s.String()
+		}()
+	}
+	first := <-done
+	for range 3 {
+		if got := <-done; got != first {
+			t.Errorf("concurrent Points: %s, then %s", first, got)
+		}
+	}
+	if s.String() != want {
+		t.Errorf("String() = %s, want %s", s.String(), want)
 	}
 }

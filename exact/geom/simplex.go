@@ -177,20 +177,34 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 
 // fromWordPoints builds the points simplex of the k+1 points of R^n whose
 // coordinates are c[2j]/c[2j+1] (lowest terms, positive denominators),
-// point by point; it keeps c, and makes big.Rats of it only when a method
-// needs the points. The Gram matrix is formed as gramWords does, from the
-// words, when the lcm of the denominators and the scaled coordinates
-// allow; otherwise from the points as big.Rats (fromOwnedPoints).
+// point by point; it keeps a copy of c, and makes big.Rats of it only
+// when a method needs the points. The Gram matrix is formed as gramWords
+// does, from the words, when the lcm of the denominators and the scaled
+// coordinates allow; otherwise from the points as big.Rats
+// (fromOwnedPoints).
 func fromWordPoints(k, n int, c []int64) *Simplex {
-	s := &Simplex{k: k, n: n, wpts: c}
+	var s *Simplex
+	var st gramStore
+	if k <= 3 && len(c) <= len(smallWordSimplex{}.c) {
+		b := new(smallWordSimplex)
+		s, st = &b.s, gramStore{b.ints[:], b.words[:], b.g[:k*k]}
+		s.wpts = b.c[:len(c)]
+	} else {
+		s = new(Simplex)
+		s.wpts = make([]int64, len(c))
+	}
+	s.k, s.n = k, n
+	c = s.wpts[:copy(s.wpts, c)]
 	l := uint64(1)
 	for j := 1; j < len(c); j += 2 {
 		q := uint64(c[j])
-		hi, lo := bits.Mul64(l/gcdU(l, q), q)
-		if hi != 0 {
-			return fromOwnedPoints(s.points())
+		if r := l % q; r != 0 { // else q divides l already
+			hi, lo := bits.Mul64(l, q/gcdU(q, r))
+			if hi != 0 {
+				return fromOwnedPoints(s.points())
+			}
+			l = lo
 		}
-		l = lo
 	}
 	var buf [64]int64
 	e, ok := edgeWords(&buf, k, n, func(i, col int) (int64, bool) {
@@ -200,8 +214,35 @@ func fromWordPoints(k, n int, c []int64) *Simplex {
 	if !ok {
 		return fromOwnedPoints(s.points())
 	}
-	s.setGramWords(e, l)
+	if st.g == nil {
+		st = newGramStore(k)
+	}
+	s.setGramWords(st, e, l)
 	return s
+}
+
+// smallWordSimplex is a word simplex of dimension k <= 3 with at most 12
+// coordinates (a tetrahedron in R^3) and what setGramWords keeps, in one
+// allocation instead of five.
+type smallWordSimplex struct {
+	s     Simplex
+	c     [24]int64
+	ints  [8]big.Int
+	words [17]big.Word
+	g     [9]*big.Int
+}
+
+// gramStore is the storage setGramWords fills: for m = k(k+1)/2, m+2
+// Ints (the Gram entries, s, edet), 2m+5 words for them, k·k pointers.
+type gramStore struct {
+	ints  []big.Int
+	words []big.Word
+	g     []*big.Int
+}
+
+func newGramStore(k int) gramStore {
+	m := k * (k + 1) / 2
+	return gramStore{make([]big.Int, m+2), make([]big.Word, 2*m+5), make([]*big.Int, k*k)}
 }
 
 // gramWords sets s.g and s.s as fromOwnedPoints does, for a word l, in
@@ -216,7 +257,7 @@ func (s *Simplex) gramWords(l uint64) bool {
 	var buf [64]int64
 	e, ok := edgeWords(&buf, s.k, s.n, func(i, col int) (int64, bool) { return scaledWord(pts[i][col], l) })
 	if ok {
-		s.setGramWords(e, l)
+		s.setGramWords(newGramStore(s.k), e, l)
 	}
 	return ok
 }
@@ -252,13 +293,12 @@ func edgeWords(buf *[64]int64, k, n int, scaled func(i, c int) (int64, bool)) ([
 
 // setGramWords sets s.g, s.s = l², s.l and, for k = n <= 3, s.edet from
 // the integral edge vectors e (k x n, row-major, entries below 2^62 in
-// size, n <= 8), all in one block of Ints and one of words.
-func (s *Simplex) setGramWords(e []int64, l uint64) {
+// size, n <= 8), in the storage st.
+func (s *Simplex) setGramWords(st gramStore, e []int64, l uint64) {
 	k, n := s.k, s.n
 	m := k * (k + 1) / 2
-	ints := make([]big.Int, m+2) // the Gram entries, s, edet
-	words := make([]big.Word, 2*m+2+3)
-	s.g = make([]*big.Int, k*k)
+	ints, words := st.ints, st.words
+	s.g = st.g
 	pos := 0
 	for i := 0; i < k; i++ {
 		ei := e[i*n : (i+1)*n]
