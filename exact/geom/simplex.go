@@ -263,9 +263,10 @@ func (s *Simplex) gramWords(l uint64) bool {
 }
 
 // edgeWords returns the k x n integral edge vectors l·(v_i − v_0),
-// row-major in buf (k <= n <= 8, so they fit), from scaled(i, c) = l·(coordinate c of v_i) (reporting false
-// when that is not below 2^61 in size), so that each is below 2^62; false
-// when a coordinate fails or n > 8 (see gramWords).
+// row-major in buf (k <= n <= 8, so they fit), from scaled(i, c) =
+// l·(coordinate c of v_i), which reports false when that is not below
+// 2^61 in size, so that each is below 2^62; false when a coordinate fails
+// or n > 8 (see gramWords).
 func edgeWords(buf *[64]int64, k, n int, scaled func(i, c int) (int64, bool)) ([]int64, bool) {
 	if n > 8 {
 		return nil, false
