@@ -142,7 +142,7 @@ func TestVolumeSqAgainstEdgeDeterminant(t *testing.T) {
 	tiny := new(big.Rat).SetFrac(big.NewInt(1), new(big.Int).Exp(big.NewInt(10), big.NewInt(30), nil))
 	for k := 1; k <= 5; k++ {
 		for seed := range uint64(40) {
-			for _, s := range []*Simplex{Random(k, seed, 1000, 100), Random(k, seed, 1<<62, 1<<40)} {
+			for _, s := range []*Simplex{Random(k, seed, 1000, 100), Random(k, seed, 1<<62, 1<<40), Random(k, seed, 1<<58, 3)} {
 				check(s.String(), s)
 				checkFacet(s.String(), s)
 			}
@@ -282,5 +282,34 @@ func TestPointsConcurrent(t *testing.T) {
 	}
 	if s.String() != want {
 		t.Errorf("String() = %s, want %s", s.String(), want)
+	}
+}
+
+// The Gram matrix of Random's simplices, formed from the drawn words
+// (fromWordPoints) or, past a word, from big.Rats, against dot products of
+// the edge vectors in big.Rat, on both sides of the word path's limits:
+// scaled coordinates near 2^61 (bound 2^58 over denominators up to 3,
+// whose lcm is 6), past them (2^61), and an lcm past a word.
+func TestRandomGramAtLimits(t *testing.T) {
+	words := 0
+	for _, c := range []struct{ bound, den int64 }{{1000, 100}, {1 << 58, 3}, {1 << 61, 1}, {1000, 1 << 40}} {
+		for k := 1; k <= 4; k++ {
+			for seed := range uint64(10) {
+				s := Random(k, seed, c.bound, c.den)
+				if s.l != 0 {
+					words++
+				}
+				pts, _ := s.Points()
+				g := s.Gram()
+				for i := 1; i <= k; i++ {
+					for j := 1; j <= k; j++ {
+						sameRat(t, "Gram", g.At(i-1, j-1), dot(sub(pts[i], pts[0]), sub(pts[j], pts[0])))
+					}
+				}
+			}
+		}
+	}
+	if words == 0 || words == 160 {
+		t.Errorf("%d of 160 simplices on the word path: one of the two paths went untested", words)
 	}
 }
