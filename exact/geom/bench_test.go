@@ -133,3 +133,18 @@ func BenchmarkSeriesInradius(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkRandomVolumeSq times, per op, 10,000 draws of
+// Random(3, seed, 1000, 100) (seeds 0..9999), each followed by VolumeSq:
+// what random_simplex(3, seed=k, bound=1000, denom=100) then
+// t.volume_sq() cost a notebook sample at the geometry level (µs a
+// sample = ns/op ÷ 10⁷). Target (issue 20): <= 2 µs a sample.
+func BenchmarkRandomVolumeSq(b *testing.B) {
+	for b.Loop() {
+		for i := range 10000 {
+			if Random(3, uint64(i), 1000, 100).VolumeSq().Sign() <= 0 {
+				b.Fatal("degenerate")
+			}
+		}
+	}
+}

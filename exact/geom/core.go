@@ -136,8 +136,9 @@ func (s *Simplex) scaledPoints() (l *big.Int, lp [][]*big.Int) {
 	c := &s.cache
 	c.ptsOnce.Do(func() {
 		c.l = new(big.Int).Sqrt(s.s)
-		c.lp = make([][]*big.Int, len(s.pts))
-		for i, p := range s.pts {
+		pts := s.points()
+		c.lp = make([][]*big.Int, len(pts))
+		for i, p := range pts {
 			c.lp[i] = make([]*big.Int, len(p))
 			for j, x := range p {
 				c.lp[i][j] = scaleToInt(x, c.l)

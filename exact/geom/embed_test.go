@@ -39,7 +39,7 @@ func TestEmbeddable(t *testing.T) {
 			if ok || err != nil || !strings.Contains(reason, "needs dimension") {
 				t.Errorf("k=%d in R^(k-1): %v %q %v", k, ok, reason, err)
 			}
-			many := append(Random(k, seed+100, 20, 5).pts, s.pts...)
+			many := append(Random(k, seed+100, 20, 5).points(), s.points()...)
 			bd := distOfPoints(many)
 			if ok, reason, _ := Embeddable(bd, k); !ok {
 				t.Errorf("2k points of R^%d: %q", k, reason)

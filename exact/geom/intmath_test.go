@@ -1,6 +1,7 @@
 package geom
 
 import (
+	"fmt"
 	"math/big"
 	"math/rand"
 	"testing"
@@ -119,5 +120,130 @@ func TestRatFracLowestTerms(t *testing.T) {
 		f.Add(f, bigOne)
 		e := new(big.Int).Mul(n, f)
 		sameRat(t, "ratProd", ratProd(e, d, f, c), new(big.Rat).SetFrac(e, new(big.Int).Mul(d, new(big.Int).Mul(f, c))))
+	}
+}
+
+// gcdU against big.Int.GCD (math/big, Lehmer's algorithm) on operands of
+// equal and very unequal sizes (the Euclid step), common powers of two,
+// zeros and the largest words.
+func TestGCDUAgainstMathBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(21))
+	word := func() uint64 {
+		x := rng.Uint64() >> uint(rng.Intn(64))
+		if rng.Intn(4) == 0 {
+			x <<= uint(rng.Intn(20)) // common factors of two
+		}
+		return x
+	}
+	cases := [][2]uint64{{0, 0}, {0, 5}, {7, 0}, {1, 1}, {1<<64 - 1, 1<<64 - 1}, {1<<64 - 1, 1 << 63}, {1 << 63, 1 << 62}, {1<<64 - 1, 3}}
+	for range 50000 {
+		c := word() | 1
+		cases = append(cases, [2]uint64{word(), word()}, [2]uint64{word() * (c & 0xffff), word() * (c & 0xffff)})
+	}
+	for _, p := range cases {
+		want := new(big.Int).GCD(nil, nil, new(big.Int).SetUint64(p[0]), new(big.Int).SetUint64(p[1]))
+		if got := gcdU(p[0], p[1]); got != want.Uint64() {
+			t.Fatalf("gcdU(%d, %d) = %d, want %v", p[0], p[1], got, want)
+		}
+	}
+}
+
+// ratWordPow (and so reduceWordPow) must give big.Rat's own lowest terms
+// (SetFrac, math/big) of num/(l^m·c): l with repeated prime powers (so
+// that the chain of gcds runs several steps), numerators built to share
+// them, both signs, m from 0 to 8.
+func TestRatWordPowLowestTerms(t *testing.T) {
+	rng := rand.New(rand.NewSource(22))
+	smooth := func() uint64 { // a product of small prime powers below 2^62
+		x := uint64(1)
+		for _, p := range []uint64{2, 3, 5, 7, 11, 13, 97} {
+			for rng.Intn(3) == 0 && x < 1<<50 {
+				x *= p
+			}
+		}
+		return x
+	}
+	for range 20000 {
+		l, c := smooth(), smooth()
+		if rng.Intn(5) == 0 {
+			l = rng.Uint64()>>uint(rng.Intn(64)) | 1
+		}
+		m := rng.Intn(9)
+		num := new(big.Int).Rand(rng, new(big.Int).Lsh(bigOne, uint(rng.Intn(300))))
+		for range rng.Intn(12) {
+			num.Mul(num, new(big.Int).SetUint64([]uint64{l, c, smooth()}[rng.Intn(3)]))
+		}
+		if rng.Intn(2) == 0 {
+			num.Neg(num)
+		}
+		den := new(big.Int).Exp(new(big.Int).SetUint64(l), big.NewInt(int64(m)), nil)
+		den.Mul(den, new(big.Int).SetUint64(c))
+		sameRat(t, fmt.Sprintf("%v/(%d^%d·%d)", num, l, m, c), ratWordPow(num, l, m, c), new(big.Rat).SetFrac(num, den))
+	}
+}
+
+// mulWords against big.Int.Mul (math/big), all-ones words included.
+func TestMulWordsAgainstMathBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(23))
+	for it := range 20000 {
+		x := new(big.Int).Rand(rng, new(big.Int).Lsh(bigOne, uint(rng.Intn(5*64))))
+		y := new(big.Int).Rand(rng, new(big.Int).Lsh(bigOne, uint(rng.Intn(5*64))))
+		if it%10 == 0 {
+			x.Sub(x.Lsh(bigOne, uint(64*(1+rng.Intn(4)))), bigOne)
+		}
+		z := make([]big.Word, len(x.Bits())+len(y.Bits()))
+		if got, want := new(big.Int).SetBits(mulWords(z, x.Bits(), y.Bits())), new(big.Int).Mul(x, y); got.Cmp(want) != 0 {
+			t.Fatalf("%v·%v = %v, want %v", x, y, got, want)
+		}
+	}
+}
+
+// detWords against the cofactor (Laplace) expansion in math/big on 1x1
+// to 3x3 matrices with entries up to the limit, ±(2^62 − 1), where the
+// three terms reach 2^187.
+func TestDetWordsAgainstMathBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(24))
+	lim := int64(1<<62 - 1)
+	entry := func() int64 {
+		switch rng.Intn(4) {
+		case 0:
+			return []int64{lim, -lim, 0, 1, -1}[rng.Intn(5)]
+		case 1:
+			return rng.Int63n(2*lim+1) - lim
+		}
+		return rng.Int63n(2001) - 1000
+	}
+	var det func(a [][]*big.Int) *big.Int
+	det = func(a [][]*big.Int) *big.Int {
+		if len(a) == 1 {
+			return new(big.Int).Set(a[0][0])
+		}
+		sum := new(big.Int)
+		for j := range a {
+			minor := make([][]*big.Int, 0, len(a)-1)
+			for _, row := range a[1:] {
+				minor = append(minor, append(append([]*big.Int(nil), row[:j]...), row[j+1:]...))
+			}
+			t := new(big.Int).Mul(a[0][j], det(minor))
+			if j%2 == 1 {
+				t.Neg(t)
+			}
+			sum.Add(sum, t)
+		}
+		return sum
+	}
+	for it := range 30000 {
+		k := 1 + it%3
+		e := make([]int64, k*k)
+		rows := make([][]*big.Int, k)
+		for i := range e {
+			e[i] = entry()
+			rows[i/k] = append(rows[i/k], big.NewInt(e[i]))
+		}
+		var words [3]big.Word
+		got := setSigned(new(big.Int), words[:], detWords(e, k))
+		if want := det(rows); got.Cmp(want) != 0 {
+			t.Fatalf("det %v = %v, want %v", e, got, want)
+		}
 	}
 }

@@ -499,7 +499,7 @@ func bladeName(m uint64) string {
 // scalar (grade 0). A point (k = 0) has no facets: the result is empty.
 // Simplices built from distances give an error wrapping exact.ErrShape.
 func (s *Simplex) FacetAreaVectors() ([]*KVector, error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, errNoPoints("facet area vectors")
 	}
 	if s.n > MaxAmbient {
@@ -509,12 +509,13 @@ func (s *Simplex) FacetAreaVectors() ([]*KVector, error) {
 	if k == 0 {
 		return []*KVector{}, nil
 	}
+	pts := s.points()
 	sigma := 1
 	if k == s.n {
 		e := exact.Zeros(k, k)
 		for i := 0; i < k; i++ {
 			for c := 0; c < k; c++ {
-				e.Set(i, c, new(big.Rat).Sub(s.pts[i+1][c], s.pts[0][c]))
+				e.Set(i, c, new(big.Rat).Sub(pts[i+1][c], pts[0][c]))
 			}
 		}
 		if det, err := e.Det(); err == nil && det.Sign() < 0 {
@@ -539,7 +540,7 @@ func (s *Simplex) FacetAreaVectors() ([]*KVector, error) {
 		for _, v := range vs[1:] {
 			e := make([]*big.Rat, s.n)
 			for x := range e {
-				e[x] = new(big.Rat).Sub(s.pts[v][x], s.pts[vs[0]][x])
+				e[x] = new(big.Rat).Sub(pts[v][x], pts[vs[0]][x])
 			}
 			edges = append(edges, e)
 		}

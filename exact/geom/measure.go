@@ -10,10 +10,21 @@ import (
 // VolumeSq returns the squared k-volume det(Gram)/(k!)², equal to
 // (−1)^(k+1) CayleyMenger()/(2^k (k!)²). A point (k = 0) has squared
 // volume 1.
+//
+// From points with a word l = √s (gramWords), it is computed from edet
+// when k = n <= 3 (volumeSqWords), else reduced against l a factor at a
+// time in words (ratOverS) while (k!)² is a word.
 func (s *Simplex) VolumeSq() *big.Rat {
+	if s.edet != nil {
+		return s.volumeSqWords()
+	}
 	det := s.core().det
 	if det.Sign() == 0 {
 		return new(big.Rat)
+	}
+	if s.k <= 12 { // 12!² < 2^64 < 13!²
+		f := factorialWord(s.k)
+		return s.ratOverS(det, s.k, f*f)
 	}
 	f := factorial(s.k)
 	den := new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil)
@@ -22,9 +33,34 @@ func (s *Simplex) VolumeSq() *big.Rat {
 	return ratFrac(det, den)
 }
 
+// volumeSqWords returns VolumeSq from edet (k <= 3): V = |edet|/(l^k k!),
+// reduced in words and squared (squares of coprime integers are
+// coprime).
+func (s *Simplex) volumeSqWords() *big.Rat {
+	if s.edet.Sign() == 0 {
+		return new(big.Rat)
+	}
+	var nb [3]big.Word // |edet| < 2^189
+	var db [4]big.Word // l^k k!/g: k+1 words at most
+	n, d := reduceWordPow(append(nb[:0], s.edet.Bits()...), db[:0], s.l, s.k, factorialWord(s.k))
+	b := new(struct {
+		r big.Rat
+		w [2 * (len(nb) + len(db))]big.Word
+	}) // the result and its words in one allocation
+	r := b.r.SetInt64(1) // so that Denom is a reference
+	r.Num().SetBits(mulWords(b.w[:2*len(n):2*len(n)], n, n))
+	r.Denom().SetBits(mulWords(b.w[2*len(n):2*(len(n)+len(d))], d, d))
+	return r
+}
+
 // IsDegenerate reports whether the squared volume is 0, that is whether
 // the vertices are affinely dependent.
-func (s *Simplex) IsDegenerate() bool { return s.core().det.Sign() == 0 }
+func (s *Simplex) IsDegenerate() bool {
+	if s.edet != nil {
+		return s.edet.Sign() == 0
+	}
+	return s.core().det.Sign() == 0
+}
 
 // facetDen returns s^(k−1) ((k−1)!)², the denominator of the facet
 // contents (k >= 1).
@@ -173,7 +209,7 @@ func errNoPoints(op string) error {
 // from points (else an error wrapping exact.ErrShape) that is not
 // degenerate (ErrDegenerate).
 func (s *Simplex) Circumcenter() ([]*big.Rat, error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, errNoPoints("circumcentre")
 	}
 	lam, err := s.CircumcenterBarycentric()
@@ -185,13 +221,14 @@ func (s *Simplex) Circumcenter() ([]*big.Rat, error) {
 
 // combine returns Σ lam_i v_i.
 func (s *Simplex) combine(lam []*big.Rat) []*big.Rat {
+	pts := s.points()
 	out := make([]*big.Rat, s.n)
 	var t big.Rat
 	for c := range out {
 		out[c] = new(big.Rat)
 		for i, l := range lam {
 			if l.Sign() != 0 {
-				out[c].Add(out[c], t.Mul(l, s.pts[i][c]))
+				out[c].Add(out[c], t.Mul(l, pts[i][c]))
 			}
 		}
 	}
@@ -205,13 +242,13 @@ func (s *Simplex) combine(lam []*big.Rat) []*big.Rat {
 // full-dimensional (k < n), p must lie in the affine hull of the vertices,
 // else the error wraps ErrNotInAffineHull.
 func (s *Simplex) Barycentric(p []*big.Rat) ([]*big.Rat, error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, errNoPoints("barycentric")
 	}
 	if len(p) != s.n {
 		return nil, fmt.Errorf("barycentric: point has %d coordinates, the simplex lives in R^%d: %w", len(p), s.n, exact.ErrShape)
 	}
-	k := s.k
+	k, pts := s.k, s.points()
 	q := make([]*big.Rat, s.n)
 	for c := range q {
 		q[c] = new(big.Rat)
@@ -221,8 +258,8 @@ func (s *Simplex) Barycentric(p []*big.Rat) ([]*big.Rat, error) {
 	}
 	if k == 0 {
 		for c := range q {
-			if q[c].Cmp(s.pts[0][c]) != 0 {
-				return nil, fmt.Errorf("barycentric: %w (the simplex is the point %s)", ErrNotInAffineHull, fmtVec(s.pts[0]))
+			if q[c].Cmp(pts[0][c]) != 0 {
+				return nil, fmt.Errorf("barycentric: %w (the simplex is the point %s)", ErrNotInAffineHull, fmtVec(pts[0]))
 			}
 		}
 		return []*big.Rat{big.NewRat(1, 1)}, nil
@@ -237,7 +274,7 @@ func (s *Simplex) Barycentric(p []*big.Rat) ([]*big.Rat, error) {
 	for i := range e {
 		e[i] = make([]*big.Rat, s.n)
 		for c := range e[i] {
-			e[i][c] = new(big.Rat).Sub(s.pts[i+1][c], s.pts[0][c])
+			e[i][c] = new(big.Rat).Sub(pts[i+1][c], pts[0][c])
 		}
 	}
 	rhs := exact.Zeros(k, 1)
@@ -245,7 +282,7 @@ func (s *Simplex) Barycentric(p []*big.Rat) ([]*big.Rat, error) {
 	for i := range e {
 		z := new(big.Rat)
 		for c := range e[i] {
-			z.Add(z, t.Mul(e[i][c], t.Sub(q[c], s.pts[0][c])))
+			z.Add(z, t.Mul(e[i][c], t.Sub(q[c], pts[0][c])))
 		}
 		rhs.Set(i, 0, z)
 	}
@@ -332,7 +369,7 @@ func (s *Simplex) checkDihedral(i, j int) error {
 // otherwise); A must be m x n for points of length n, t of length m (nil
 // for no translation), and m >= k (exact.ErrShape).
 func (s *Simplex) Affine(a *exact.Matrix, t []*big.Rat) (*Simplex, error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, errNoPoints("affine")
 	}
 	if a == nil {
@@ -354,7 +391,7 @@ func (s *Simplex) Affine(a *exact.Matrix, t []*big.Rat) (*Simplex, error) {
 	}
 	pts := make([][]*big.Rat, s.k+1)
 	var tmp big.Rat
-	for i, p := range s.pts {
+	for i, p := range s.points() {
 		q := make([]*big.Rat, m)
 		for r := range q {
 			z := new(big.Rat)

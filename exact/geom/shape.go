@@ -49,7 +49,7 @@ import (
 // Centroid returns (1/(k+1)) Σ v_i. It needs a simplex built from points
 // (else exact.ErrShape).
 func (s *Simplex) Centroid() ([]*big.Rat, error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, errNoPoints("centroid")
 	}
 	// Σ_i l·v_i is integral (l = √s, a multiple of every denominator):
@@ -75,7 +75,7 @@ func (s *Simplex) Centroid() ([]*big.Rat, error) {
 // Barycentric needs: a simplex from points, not degenerate, and p of the
 // points' length.
 func (s *Simplex) Contains(p []*big.Rat) (bool, error) {
-	if s.pts != nil && len(p) == s.n && s.k == s.n && s.k > 0 {
+	if s.d == nil && len(p) == s.n && s.k == s.n && s.k > 0 {
 		if c := s.core(); c.det.Sign() != 0 {
 			// Only the signs matter: λ_a = nums[a]/den, no reduction.
 			nums, den := s.barycentricInts(c, p)
@@ -154,7 +154,7 @@ func facetNumerator(c *core, k, i int) *big.Int {
 // away from vertex i. It needs a simplex from points (exact.ErrShape),
 // k >= 1 and a non-degenerate simplex (ErrDegenerate).
 func (s *Simplex) FacetNormal(i int) (normal []*big.Rat, lengthSq *big.Rat, err error) {
-	if s.pts == nil {
+	if s.d != nil {
 		return nil, nil, errNoPoints("facet normal")
 	}
 	if s.k < 1 {

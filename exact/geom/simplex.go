@@ -46,7 +46,13 @@ type Simplex struct {
 	k int
 	n int // ambient dimension; -1 when built from distances
 
-	pts [][]*big.Rat // the points (points simplices only)
+	// The points (points simplices only), read through points(): pts, or
+	// for Random's simplices wpts, the coordinates p/q as word pairs p, q
+	// (lowest terms, q > 0) point by point, of which points() makes pts
+	// on first use.
+	pts     [][]*big.Rat
+	wpts    []int64
+	ptsOnce sync.Once
 
 	d *exact.Matrix // the squared distances (distance simplices only)
 
@@ -54,6 +60,13 @@ type Simplex struct {
 	// times s: Gram = g/s, with g integral and s > 0. Row-major.
 	g []*big.Int
 	s *big.Int
+
+	// When gramWords formed g: l = √s, a word (else 0), and, for k = n
+	// <= 3, edet = det of the integral edge vectors l·(v_i − v_0), whose
+	// square is det g (else nil): the volume and the degeneracy test
+	// need only it.
+	l    uint64
+	edet *big.Int
 
 	once sync.Once // computes c
 	c    *core
@@ -162,6 +175,76 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 	return s
 }
 
+// fromWordPoints builds the points simplex of the k+1 points of R^n whose
+// coordinates are c[2j]/c[2j+1] (lowest terms, positive denominators),
+// point by point; it keeps a copy of c, and makes big.Rats of it only
+// when a method needs the points. The Gram matrix is formed as gramWords
+// does, from the words, when the lcm of the denominators and the scaled
+// coordinates allow; otherwise from the points as big.Rats
+// (fromOwnedPoints).
+func fromWordPoints(k, n int, c []int64) *Simplex {
+	var s *Simplex
+	var st gramStore
+	if k <= 3 && len(c) <= len(smallWordSimplex{}.c) {
+		b := new(smallWordSimplex)
+		s, st = &b.s, gramStore{b.ints[:], b.words[:], b.g[:k*k]}
+		s.wpts = b.c[:len(c)]
+	} else {
+		s = new(Simplex)
+		s.wpts = make([]int64, len(c))
+	}
+	s.k, s.n = k, n
+	c = s.wpts[:copy(s.wpts, c)]
+	l := uint64(1)
+	for j := 1; j < len(c); j += 2 {
+		q := uint64(c[j])
+		if r := l % q; r != 0 { // else q divides l already
+			hi, lo := bits.Mul64(l, q/gcdU(q, r))
+			if hi != 0 {
+				return fromOwnedPoints(s.points())
+			}
+			l = lo
+		}
+	}
+	var buf [64]int64
+	e, ok := edgeWords(&buf, k, n, func(i, col int) (int64, bool) {
+		j := 2 * (i*n + col)
+		return scaleFrac(c[j], uint64(c[j+1]), l)
+	})
+	if !ok {
+		return fromOwnedPoints(s.points())
+	}
+	if st.g == nil {
+		st = newGramStore(k)
+	}
+	s.setGramWords(st, e, l)
+	return s
+}
+
+// smallWordSimplex is a word simplex of dimension k <= 3 with at most 12
+// coordinates (a tetrahedron in R^3) and what setGramWords keeps, in one
+// allocation instead of five.
+type smallWordSimplex struct {
+	s     Simplex
+	c     [24]int64
+	ints  [8]big.Int
+	words [17]big.Word
+	g     [9]*big.Int
+}
+
+// gramStore is the storage setGramWords fills: for m = k(k+1)/2, m+2
+// Ints (the Gram entries, s, edet), 2m+5 words for them, k·k pointers.
+type gramStore struct {
+	ints  []big.Int
+	words []big.Word
+	g     []*big.Int
+}
+
+func newGramStore(k int) gramStore {
+	m := k * (k + 1) / 2
+	return gramStore{make([]big.Int, m+2), make([]big.Word, 2*m+5), make([]*big.Int, k*k)}
+}
+
 // gramWords sets s.g and s.s as fromOwnedPoints does, for a word l, in
 // machine words: it reports false, setting nothing, when a coordinate of
 // an edge vector l·(v_i − v_0) reaches 2^62 or there are more than eight
@@ -170,28 +253,53 @@ func fromOwnedPoints(pts [][]*big.Rat) *Simplex {
 // (denominators up to 100) take this path; it saves a big.Int per
 // coordinate and per product.
 func (s *Simplex) gramWords(l uint64) bool {
-	k, n, pts := s.k, s.n, s.pts
+	pts := s.pts
+	var buf [64]int64
+	e, ok := edgeWords(&buf, s.k, s.n, func(i, col int) (int64, bool) { return scaledWord(pts[i][col], l) })
+	if ok {
+		s.setGramWords(newGramStore(s.k), e, l)
+	}
+	return ok
+}
+
+// edgeWords returns the k x n integral edge vectors l·(v_i − v_0),
+// row-major in buf (k <= n <= 8, so they fit), from scaled(i, c) =
+// l·(coordinate c of v_i), which reports false when that is not below
+// 2^61 in size, so that each is below 2^62; false when a coordinate fails
+// or n > 8 (see gramWords).
+func edgeWords(buf *[64]int64, k, n int, scaled func(i, c int) (int64, bool)) ([]int64, bool) {
 	if n > 8 {
-		return false
+		return nil, false
 	}
-	var buf [8 * 9]int64
+	var p0 [8]int64
+	for c := range n {
+		a, ok := scaled(0, c)
+		if !ok {
+			return nil, false
+		}
+		p0[c] = a
+	}
 	e := buf[:0]
-	if k*n > len(buf) {
-		e = make([]int64, 0, k*n)
-	}
 	for i := 1; i <= k; i++ {
-		for c, x := range pts[i] {
-			a, ok1 := scaledWord(x, l)
-			b, ok2 := scaledWord(pts[0][c], l)
-			if !ok1 || !ok2 {
-				return false
+		for c := range n {
+			a, ok := scaled(i, c)
+			if !ok {
+				return nil, false
 			}
-			e = append(e, a-b) // both below 2^61 in size
+			e = append(e, a-p0[c]) // both below 2^61 in size
 		}
 	}
-	gs := make([]big.Int, k*(k+1)/2)
-	words := make([]big.Word, 2*len(gs))
-	s.g = make([]*big.Int, k*k)
+	return e, true
+}
+
+// setGramWords sets s.g, s.s = l², s.l and, for k = n <= 3, s.edet from
+// the integral edge vectors e (k x n, row-major, entries below 2^62 in
+// size, n <= 8), in the storage st.
+func (s *Simplex) setGramWords(st gramStore, e []int64, l uint64) {
+	k, n := s.k, s.n
+	m := k * (k + 1) / 2
+	ints, words := st.ints, st.words
+	s.g = st.g
 	pos := 0
 	for i := 0; i < k; i++ {
 		ei := e[i*n : (i+1)*n]
@@ -204,27 +312,18 @@ func (s *Simplex) gramWords(l uint64) bool {
 				lo, carry = bits.Add64(lo, pl, 0)
 				hi, _ = bits.Add64(hi, ph, carry)
 			}
-			z := &gs[pos]
-			w := words[2*pos : 2*pos+2 : 2*pos+2]
+			z := setSigned(&ints[pos], words[2*pos:2*pos+2:2*pos+2], [3]uint64{lo, hi, uint64(int64(hi) >> 63)})
 			pos++
-			neg := int64(hi) < 0
-			if neg {
-				var b uint64
-				lo, b = bits.Sub64(0, lo, 0)
-				hi, _ = bits.Sub64(0, hi, b)
-			}
-			w[0], w[1] = big.Word(lo), big.Word(hi)
-			z.SetBits(w)
-			if neg {
-				z.Neg(z)
-			}
 			s.g[i*k+j] = z
 			s.g[j*k+i] = z
 		}
 	}
 	hi, lo := bits.Mul64(l, l)
-	s.s = new(big.Int).SetBits([]big.Word{big.Word(lo), big.Word(hi)})
-	return true
+	s.s = ints[m].SetBits(append(words[2*m:2*m:2*m+2], big.Word(lo), big.Word(hi)))
+	s.l = l
+	if k == n && k >= 1 && k <= 3 {
+		s.edet = setSigned(&ints[m+1], words[2*m+2:2*m+5:2*m+5], detWords(e, k))
+	}
 }
 
 // scaledWord returns x·l as a word and true when x's denominator divides
@@ -237,12 +336,21 @@ func scaledWord(x *big.Rat, l uint64) (int64, bool) {
 	if !num.IsInt64() {
 		return 0, false
 	}
-	m := l
+	q := uint64(1)
 	if !x.IsInt() {
-		m = l / x.Denom().Uint64() // the denominator divides l, a word
+		q = x.Denom().Uint64() // the denominator divides l, a word
 	}
-	p := num.Int64()
-	hi, lo := bits.Mul64(uint64(max(p, -p)), m) // |p| < 2^63: no overflow on negating
+	return scaleFrac(num.Int64(), q, l)
+}
+
+// scaleFrac returns p·l/q as a word and true when q divides l and the
+// product is below 2^61 in size.
+func scaleFrac(p int64, q, l uint64) (int64, bool) {
+	m := l
+	if q != 1 {
+		m = l / q
+	}
+	hi, lo := bits.Mul64(uint64(max(p, -p)), m) // |p| < 2^63 (MinInt64 gives hi != 0 or lo >= 2^61)
 	if hi != 0 || lo >= 1<<61 {
 		return 0, false
 	}
@@ -380,14 +488,35 @@ func (s *Simplex) Ambient() int { return s.n }
 // Points returns copies of the vertices and true for a simplex built from
 // points; nil and false for one built from squared distances.
 func (s *Simplex) Points() ([][]*big.Rat, bool) {
-	if s.pts == nil {
+	pts := s.points()
+	if pts == nil {
 		return nil, false
 	}
-	out := make([][]*big.Rat, len(s.pts))
-	for i, p := range s.pts {
+	out := make([][]*big.Rat, len(pts))
+	for i, p := range pts {
 		out[i] = copyVec(p)
 	}
 	return out, true
+}
+
+// points returns the vertices (shared: read only), nil for a distance
+// simplex; for word points it makes them, in one block, on first use.
+func (s *Simplex) points() [][]*big.Rat {
+	if s.wpts != nil {
+		s.ptsOnce.Do(func() {
+			N, n := s.k+1, s.n
+			rats := make([]big.Rat, N*n)
+			ptrs := make([]*big.Rat, N*n)
+			s.pts = make([][]*big.Rat, N)
+			for j := range rats {
+				ptrs[j] = setFrac64(&rats[j], s.wpts[2*j], s.wpts[2*j+1])
+			}
+			for i := range s.pts {
+				s.pts[i] = ptrs[i*n : (i+1)*n : (i+1)*n]
+			}
+		})
+	}
+	return s.pts
 }
 
 func copyVec(v []*big.Rat) []*big.Rat {
@@ -595,7 +724,7 @@ func (s *Simplex) Face(idx []int) (*Simplex, error) {
 	}
 	pts := make([][]*big.Rat, len(idx))
 	for a, i := range idx {
-		pts[a] = copyVec(s.pts[i])
+		pts[a] = copyVec(s.points()[i])
 	}
 	return fromOwnedPoints(pts), nil
 }
@@ -634,7 +763,7 @@ func (s *Simplex) String() string {
 		return b.String()
 	}
 	b.WriteString("vertices [")
-	for i, p := range s.pts {
+	for i, p := range s.points() {
 		if i > 0 {
 			b.WriteString(", ")
 		}
