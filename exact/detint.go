@@ -66,13 +66,17 @@ func DetInts(a [][]*big.Int) (*big.Int, error) {
 	return z, nil
 }
 
-// detIntsBig is DetInts for entries beyond a word: Bareiss on copies
-// below modularMinSize, as Det does, else Det on the same matrix. The
-// copies share one block of words, each entry with room for the largest
-// minor (n times the widest entry), so that the elimination allocates
-// almost nothing.
+// detIntsBig is DetInts for entries beyond a word: up to order 3 with
+// entries below 2^192, cofactors in words (DetWide); else Bareiss on
+// copies below modularMinSize, as Det does, else Det on the same matrix.
+// The copies share one block of words, each entry with room for the
+// largest minor (n times the widest entry), so that the elimination
+// allocates almost nothing.
 func detIntsBig(a [][]*big.Int) *big.Int {
 	n := len(a)
+	if d, ok := detIntsWide(a); ok {
+		return d
+	}
 	if n < modularMinSize {
 		width := 0
 		for _, r := range a {
