@@ -278,12 +278,16 @@ type exactDivisor struct {
 
 func (e *exactDivisor) set(d int64) {
 	e.d, e.shift = d, uint(bits.TrailingZeros64(uint64(d)))
-	u := uint64(d >> e.shift)
+	e.inv = inv64(uint64(d >> e.shift))
+}
+
+// inv64 returns the inverse of the odd word u modulo 2^64.
+func inv64(u uint64) uint64 {
 	inv := u // u*u = 1 mod 8 for odd u: 3 bits; each Newton step doubles them
 	for i := 0; i < 5; i++ {
 		inv *= 2 - u*inv
 	}
-	e.inv = inv
+	return inv
 }
 
 // quo returns hi:lo / d if d divides the signed 128-bit hi:lo and the

@@ -63,126 +63,109 @@ func (z *Wide) neg() {
 	}
 }
 
-// mag returns |z| as words (len trimmed, none if z = 0) in buf and
-// whether z < 0; ok is false if |z| >= 2^192.
-func (z *Wide) mag(buf *[wideMaxWords]uint64) (m []uint64, neg, ok bool) {
-	x := *z
-	if neg = int64(x[3]) < 0; neg {
-		x.neg()
+// mag sets z to |z| and returns its words (len trimmed, none if z = 0)
+// and whether z was negative; ok is false if |z| >= 2^192.
+func (z *Wide) mag() (m []uint64, neg, ok bool) {
+	if neg = int64(z[3]) < 0; neg {
+		z.neg()
 	}
-	if x[3] != 0 {
+	if z[3] != 0 {
 		return nil, neg, false
 	}
-	n := wideMaxWords
-	for n > 0 && x[n-1] == 0 {
-		n--
-	}
-	copy(buf[:], x[:wideMaxWords])
-	return buf[:n], neg, true
+	return trimWords(z[:wideMaxWords]), neg, true
 }
 
-// detAcc is a signed accumulator of detAccWords words in two's
-// complement: room for a determinant of order 3 of entries below 2^192
-// (|det| <= 6·2^576).
-type detAcc [detAccWords]uint64
-
+// detAccWords is the width of a determinant of order 3 of entries below
+// 2^192 (|det| <= 6·2^576), with its sign, in two's complement.
 const detAccWords = 3*wideMaxWords + 1
 
-// mulAdd adds x·y (magnitudes, len(x) <= wideMaxWords, len(x)+len(y) <=
-// detAccWords), or subtracts it if sub, modulo 2^(64 detAccWords).
-func (a *detAcc) mulAdd(x, y []uint64, sub bool) {
-	if len(x) == 0 || len(y) == 0 {
-		return
-	}
-	var p detAcc
-	n := len(x) + len(y)
+// mulAdd adds x·y to a, or subtracts it if sub (x and y magnitudes,
+// len(x)+len(y) <= len(a)), modulo 2^(64 len(a)): row by row straight
+// into a, the carry or borrow carried up only as far as it goes.
+func mulAdd(a, x, y []uint64, sub bool) {
 	for i, xi := range x {
-		var c uint64
-		pi := p[i:n]
+		ai := a[i:]
+		var c uint64 // what the next word gains (or loses)
 		for j, yj := range y {
 			hi, lo := bits.Mul64(xi, yj)
 			var c1, c2 uint64
 			lo, c1 = bits.Add64(lo, c, 0)
-			pi[j], c2 = bits.Add64(pi[j], lo, 0)
-			c = hi + c1 + c2 // xi·yj + c + pi[j] < 2^128
+			if sub {
+				ai[j], c2 = bits.Sub64(ai[j], lo, 0)
+			} else {
+				ai[j], c2 = bits.Add64(ai[j], lo, 0)
+			}
+			c = hi + c1 + c2 // xi·yj + c + 1 < 2^128
 		}
-		pi[len(y)] = c
-	}
-	var c uint64
-	if sub {
-		for i, v := range p[:n] {
-			a[i], c = bits.Sub64(a[i], v, c)
+		for j := len(y); j < len(ai) && c != 0; j++ {
+			if sub {
+				ai[j], c = bits.Sub64(ai[j], c, 0)
+			} else {
+				ai[j], c = bits.Add64(ai[j], c, 0)
+			}
 		}
-		for i := n; i < len(a) && c != 0; i++ {
-			a[i], c = bits.Sub64(a[i], 0, c)
-		}
-		return
-	}
-	for i, v := range p[:n] {
-		a[i], c = bits.Add64(a[i], v, c)
-	}
-	for i := n; i < len(a) && c != 0; i++ {
-		a[i], c = bits.Add64(a[i], 0, c)
 	}
 }
 
-// mag returns |a| (len trimmed) and whether a < 0, overwriting a.
-func (a *detAcc) mag() (m []uint64, neg bool) {
+// magWords sets a to |a| (two's complement) and returns its words, len
+// trimmed, and whether a was negative.
+func magWords(a []uint64) (m []uint64, neg bool) {
 	if neg = int64(a[len(a)-1]) < 0; neg {
 		var b uint64
 		for i := range a {
 			a[i], b = bits.Sub64(0, a[i], b)
 		}
 	}
-	return trimWords(a[:]), neg
+	return trimWords(a), neg
 }
 
 // detWideMag returns |det a| (len trimmed, in acc) and its sign for the
 // n x n matrix a (row-major, n <= 3) by cofactor expansion along the
 // first row (Laplace); ok is false if n > 3 or an entry is 2^192 or more
 // in magnitude.
-func detWideMag(n int, a []Wide, acc *detAcc) (m []uint64, neg, ok bool) {
+func detWideMag(n int, a []Wide, acc *[detAccWords]uint64) (m []uint64, neg, ok bool) {
 	if n > 3 || len(a) != n*n {
 		return nil, false, false
 	}
-	var buf [9][wideMaxWords]uint64
+	var abs [9]Wide
 	var mags [9][]uint64
 	var sign [9]bool
 	for i := range a {
-		if mags[i], sign[i], ok = a[i].mag(&buf[i]); !ok {
+		abs[i] = a[i]
+		if mags[i], sign[i], ok = abs[i].mag(); !ok {
 			return nil, false, false
 		}
 	}
-	*acc = detAcc{}
+	*acc = [detAccWords]uint64{}
 	switch n {
 	case 0:
 		acc[0] = 1
 	case 1:
-		acc.mulAdd(mags[0], []uint64{1}, sign[0])
+		mulAdd(acc[:], mags[0], []uint64{1}, sign[0])
 	case 2:
-		acc.mulAdd(mags[0], mags[3], sign[0] != sign[3])
-		acc.mulAdd(mags[1], mags[2], sign[1] == sign[2])
+		mulAdd(acc[:], mags[0], mags[3], sign[0] != sign[3])
+		mulAdd(acc[:], mags[1], mags[2], sign[1] == sign[2])
 	case 3:
 		// det = Σ_j (−1)^j a_0j M_j, M_j the minor of rows 1, 2 without
 		// column j: columns (c1, c2) = (1, 2), (0, 2), (0, 1).
 		for j, c := range [3][2]int{{1, 2}, {0, 2}, {0, 1}} {
 			x, y := 3+c[0], 6+c[1]
 			u, v := 3+c[1], 6+c[0]
-			var minor detAcc
-			minor.mulAdd(mags[x], mags[y], sign[x] != sign[y])
-			minor.mulAdd(mags[u], mags[v], sign[u] == sign[v])
-			mm, mneg := minor.mag()
-			acc.mulAdd(mags[j], mm, (sign[j] != mneg) != (j == 1))
+			var minor [2*wideMaxWords + 1]uint64
+			mulAdd(minor[:], mags[x], mags[y], sign[x] != sign[y])
+			mulAdd(minor[:], mags[u], mags[v], sign[u] == sign[v])
+			mm, mneg := magWords(minor[:])
+			mulAdd(acc[:], mags[j], mm, (sign[j] != mneg) != (j == 1))
 		}
 	}
-	m, neg = acc.mag()
+	m, neg = magWords(acc[:])
 	return m, neg, true
 }
 
 // DetWide returns the determinant of the n x n matrix a (row-major, n <=
 // 3, entries below 2^192 in magnitude) exactly; ok is false otherwise.
 func DetWide(n int, a []Wide) (_ *big.Int, ok bool) {
-	var acc detAcc
+	var acc [detAccWords]uint64
 	m, neg, ok := detWideMag(n, a, &acc)
 	if !ok {
 		return nil, false
@@ -220,7 +203,7 @@ func detIntsWide(a [][]*big.Int) (_ *big.Int, ok bool) {
 // DetWide takes it and a word f > 0; ok is false where DetWide's is.
 //
 // No gcd of long integers: with N = |det a| and t_0 = f, step i takes
-// t_i = gcd(N, f) = gcd(N mod t_(i−1), t_(i−1)) in words and sets N to
+// t_i = gcd(N, f) = gcd(N, t_(i−1)) in words (divGCD) and sets N to
 // N/t_i, the denominator gaining the factor f/t_i; k steps, the gcds
 // skipped once t_i = 1. Why it is right: with t = gcd(N, f), N/t is
 // coprime to f/t (a prime p of f/t has v_p(t) = v_p(N) < v_p(f)), and
@@ -232,7 +215,7 @@ func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 	if f == 0 || k < 0 {
 		return nil, false
 	}
-	var acc detAcc
+	var acc [detAccWords]uint64
 	num, neg, ok := detWideMag(n, a, &acc)
 	if !ok {
 		return nil, false
@@ -240,45 +223,46 @@ func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 	if len(num) == 0 {
 		return new(big.Rat), true
 	}
-	// The result, its numerator's and denominator's words in one block
-	// (the denominator grows by at most a word per factor).
-	blk := new(ratWords)
-	ws := blk.w[:]
-	if len(num)+k+1 > len(ws) {
-		ws = make([]big.Word, len(num)+k+1)
+	var dbuf [16]uint64 // the denominator grows by at most a word per factor
+	den := dbuf[:0]
+	if k+1 > len(dbuf) {
+		den = make([]uint64, 0, k+1)
 	}
-	den := append(ws[len(num):len(num)], 1)
-	var q detAcc
+	den = append(den, 1)
+	var q [detAccWords]uint64
+	var inv oddInverse
 	t := f
 	for i := 0; i < k; i++ {
 		if t != 1 {
-			// N/t_(i−1) if it is exact (then t_i = t_(i−1)), else the
-			// gcd of the remainder and N/t_i.
-			if r := quoRemWords(q[:len(num)], num, t); r == 0 {
-				num = trimWords(append(num[:0], q[:len(num)]...))
-			} else if t = gcdStein(r, t); t != 1 {
-				quoRemWords(num, num, t)
-				num = trimWords(num)
-			}
+			num, t = divGCD(num, t, q[:len(num)], &inv)
 		}
 		den = mulWord(den, f/t)
 	}
-	for i, w := range num {
-		ws[i] = big.Word(w)
+	// The words of both in one block: the one SetInt64 makes for the
+	// denominator where it has room (the Denom of a zero Rat is no
+	// reference), each Int's capacity cut at its length so that neither
+	// grows into the other.
+	r := new(big.Rat).SetInt64(1)
+	d := r.Denom()
+	ws := d.Bits()[:cap(d.Bits())]
+	if len(ws) < len(num)+len(den) {
+		ws = make([]big.Word, len(num)+len(den))
 	}
-	r := blk.r.SetInt64(1) // the Denom of a zero Rat is no reference
-	r.Num().SetBits(ws[:len(num):len(num)])
+	d.SetBits(putWords(ws, den))
+	r.Num().SetBits(putWords(ws[len(den):], num))
 	if neg {
 		r.Num().Neg(r.Num())
 	}
-	r.Denom().SetBits(den)
 	return r, true
 }
 
-// ratWords is a big.Rat with room for its words: one allocation.
-type ratWords struct {
-	r big.Rat
-	w [detAccWords + 6]big.Word
+// putWords copies x into z (room for it) and returns z[:len(x):len(x)].
+func putWords(z []big.Word, x []uint64) []big.Word {
+	z = z[:len(x):len(x)]
+	for i, w := range x {
+		z[i] = big.Word(w)
+	}
+	return z
 }
 
 // gcdStein returns gcd(a, b) for b > 0 by Stein's binary algorithm
@@ -300,14 +284,66 @@ func gcdStein(a, b uint64) uint64 {
 	return a << sh
 }
 
-// quoRemWords sets q to x/d and returns x mod d (x little-endian words,
-// len(q) = len(x), q may be x; d > 0).
-func quoRemWords(q, x []uint64, d uint64) uint64 {
-	var r uint64
-	for i := len(x) - 1; i >= 0; i-- {
-		q[i], r = bits.Div64(r, x[i], d)
+// divGCD divides x (non-zero, trimmed) by g = gcd(x, t), t > 0, and
+// returns x/g, trimmed, and g; q is scratch of len(x) words. No division
+// instruction: with t = 2^a·u, u odd, the power of two is a shift, and
+// the odd part one pass of quoOdd, which finds u's share of g from its
+// carry when u does not divide x (then a second pass divides by it).
+func divGCD(x []uint64, t uint64, q []uint64, inv *oddInverse) ([]uint64, uint64) {
+	a := uint(bits.TrailingZeros64(t))
+	u := t >> a
+	g := uint64(1)
+	if u > 1 {
+		if c := quoOdd(q, x, u, inv.of(u)); c == 0 {
+			copy(x, q)
+			g = u
+		} else if g = gcdStein(c, u); g > 1 {
+			quoOdd(x, x, g, inv.of(g))
+		}
 	}
-	return r
+	e := a // min(a, the trailing zero bits of x)
+	if x[0] != 0 {
+		e = min(a, uint(bits.TrailingZeros64(x[0])))
+	}
+	if e > 0 {
+		for i := range x {
+			x[i] >>= e
+			if i+1 < len(x) {
+				x[i] |= x[i+1] << (64 - e)
+			}
+		}
+	}
+	return trimWords(x), g << e
+}
+
+// oddInverse keeps the last inverse modulo 2^64 it computed: DetWideOver
+// divides by the same factor again and again.
+type oddInverse struct{ u, inv uint64 }
+
+// of returns the inverse of the odd word u modulo 2^64.
+func (c *oddInverse) of(u uint64) uint64 {
+	if c.u != u {
+		c.u, c.inv = u, inv64(u)
+	}
+	return c.inv
+}
+
+// quoOdd sets q (len(x) words, may be x) to x/u modulo 2^(64 len(x)),
+// for an odd word u, from the least significant word up (Jebelean 1993,
+// "An algorithm for exact division"), and returns the carry c out of the
+// top word: x − q·u = −c·2^(64 len(x)), 0 <= c <= u. So u divides x if
+// and only if c = 0 (then q = x/u, the only multiple of u below 2^(64
+// len(x)) that is x modulo it), and gcd(x, u) = gcd(c, u), 2 being a unit
+// modulo u.
+// inv is u's inverse modulo 2^64.
+func quoOdd(q, x []uint64, u, inv uint64) (c uint64) {
+	for i, xi := range x {
+		v, b := bits.Sub64(xi, c, 0)
+		qi := v * inv // qi·u = v modulo 2^64
+		hi, _ := bits.Mul64(qi, u)
+		q[i], c = qi, hi+b // x_i − c = qi·u − (hi + b)·2^64
+	}
+	return c
 }
 
 // trimWords drops x's leading zero words.
@@ -318,21 +354,21 @@ func trimWords(x []uint64) []uint64 {
 	return x
 }
 
-// mulWord sets z to z·m (m > 0; z non-zero, trimmed, with room for a
-// word more) and returns it trimmed.
-func mulWord(z []big.Word, m uint64) []big.Word {
+// mulWord sets z to z·m (m > 0; z non-zero, trimmed) and returns it
+// trimmed.
+func mulWord(z []uint64, m uint64) []uint64 {
 	if m == 1 {
 		return z
 	}
 	var c uint64
 	for i, w := range z {
-		hi, lo := bits.Mul64(uint64(w), m)
+		hi, lo := bits.Mul64(w, m)
 		var cc uint64
 		lo, cc = bits.Add64(lo, c, 0)
-		z[i], c = big.Word(lo), hi+cc
+		z[i], c = lo, hi+cc
 	}
 	if c != 0 {
-		z = append(z, big.Word(c))
+		z = append(z, c)
 	}
 	return z
 }

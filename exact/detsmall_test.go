@@ -187,6 +187,19 @@ func TestDetWideOver(t *testing.T) {
 		if !ok || got.Cmp(want) != 0 || got.Num().Cmp(want.Num()) != 0 || got.Denom().Cmp(want.Denom()) != 0 {
 			t.Errorf("n=%d f=%d k=%d: DetWideOver = %v, %v; want %s", n, f, k, got, ok, want.String())
 		}
+		// Numerator and denominator share a block of words: growing one
+		// must leave the other alone.
+		if ok {
+			got.Num().Lsh(got.Num(), 300)
+			if got.Denom().Cmp(want.Denom()) != 0 {
+				t.Errorf("n=%d f=%d k=%d: growing the numerator changed the denominator to %v", n, f, k, got.Denom())
+			}
+			got, _ = DetWideOver(n, w, f, k)
+			got.Denom().Lsh(got.Denom(), 300)
+			if got.Num().Cmp(want.Num()) != 0 {
+				t.Errorf("n=%d f=%d k=%d: growing the denominator changed the numerator to %v", n, f, k, got.Num())
+			}
+		}
 	}
 	if _, ok := DetWideOver(1, []Wide{{1}}, 0, 1); ok {
 		t.Error("DetWideOver took f = 0")
@@ -209,5 +222,28 @@ func TestGcdStein(t *testing.T) {
 		if got := gcdStein(c[0], c[1]); got != want.Uint64() {
 			t.Errorf("gcdStein(%d, %d) = %d, want %s", c[0], c[1], got, want)
 		}
+	}
+}
+
+// BenchmarkDetWide3 times DetWide's elimination on 3x3 matrices of
+// entries of 64–128 bits, either sign, the reduced Cayley–Menger
+// matrices' sizes.
+func BenchmarkDetWide3(b *testing.B) {
+	rng := rand.New(rand.NewSource(1))
+	var ms [64][9]Wide
+	for i := range ms {
+		for j := range ms[i] {
+			x := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(64+rng.Intn(64))))
+			if rng.Intn(2) == 0 {
+				x.Neg(x)
+			}
+			ms[i][j].SetInt(x)
+		}
+	}
+	i := 0
+	for b.Loop() {
+		var acc [detAccWords]uint64
+		detWideMag(3, ms[i%len(ms)][:], &acc)
+		i++
 	}
 }

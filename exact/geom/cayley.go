@@ -90,10 +90,14 @@ func (s *Simplex) cmWide() (_ *big.Rat, ok bool) {
 	if !ok {
 		return nil, false
 	}
-	var g [4][4]exact.Wide // s.gi: row and column 0 zero
-	for i, x := range s.g {
-		if x.BitLen() > 186 || !g[1+i/k][1+i%k].SetInt(x) {
-			return nil, false
+	// The upper triangles of s.gi (row and column 0 zero) and of e, and
+	// M in full; all three are symmetric.
+	var g [4][4]exact.Wide
+	for i := 1; i <= k; i++ {
+		for j := i; j <= k; j++ {
+			if x := s.g[(i-1)*k+j-1]; x.BitLen() > 186 || !g[i][j].SetInt(x) {
+				return nil, false
+			}
 		}
 	}
 	// e_ij = s·|v_i − v_j|² = g_ii + g_jj − 2 g_ij, as setSqEdgeScaled.
@@ -104,15 +108,15 @@ func (s *Simplex) cmWide() (_ *big.Rat, ok bool) {
 			z.Add(&g[i][i], &g[j][j])
 			z.Sub(z, &g[i][j])
 			z.Sub(z, &g[i][j])
-			e[j][i] = *z
 		}
 	}
 	var m [9]exact.Wide
 	for i := 1; i <= k; i++ {
-		for j := 1; j <= k; j++ {
+		for j := i; j <= k; j++ {
 			z := &m[(i-1)*k+j-1]
 			z.Add(&e[0][i], &e[0][j])
-			z.Sub(z, &e[i][j])
+			z.Sub(z, &e[i][j]) // e_ii = 0
+			m[(j-1)*k+i-1] = *z
 		}
 	}
 	r, ok := exact.DetWideOver(k, m[:k*k], f, pow*k)
