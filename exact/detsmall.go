@@ -38,6 +38,25 @@ func (z *Wide) SetInt(x *big.Int) bool {
 	return true
 }
 
+// Int sets z to x and returns z, in z's words where they have room.
+func (x *Wide) Int(z *big.Int) *big.Int {
+	m := *x
+	neg := int64(m[3]) < 0
+	if neg {
+		m.neg()
+	}
+	w := trimWords(m[:])
+	ws := z.Bits()
+	if cap(ws) < len(w) {
+		ws = make([]big.Word, len(w))
+	}
+	z.SetBits(putWords(ws[:cap(ws)], w))
+	if neg {
+		z.Neg(z)
+	}
+	return z
+}
+
 // Add sets z to x + y modulo 2^256 and returns z.
 func (z *Wide) Add(x, y *Wide) *Wide {
 	var c uint64

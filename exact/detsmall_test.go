@@ -125,7 +125,8 @@ func TestDetWideLimits(t *testing.T) {
 	}
 }
 
-// Add and Sub against math/big modulo 2^256 (two's complement).
+// Add and Sub against math/big modulo 2^256 (two's complement); Int gives
+// back what SetInt took, in the Int's own words when they have room.
 func TestWideAddSub(t *testing.T) {
 	rng := rand.New(rand.NewSource(22))
 	mod := new(big.Int).Lsh(big.NewInt(1), 256)
@@ -141,6 +142,16 @@ func TestWideAddSub(t *testing.T) {
 		var a, b, z Wide
 		a.SetInt(x)
 		b.SetInt(y)
+		backing := make([]big.Word, 0, 4)
+		room := new(big.Int).SetBits(backing)
+		if got := a.Int(room); got.Cmp(x) != 0 || got != room {
+			t.Errorf("Int after SetInt(%v) = %v", x, got)
+		} else if x.Sign() != 0 && &room.Bits()[0] != &backing[:1][0] {
+			t.Errorf("Int of %v did not use the Int's words", x)
+		}
+		if got := b.Int(new(big.Int)); got.Cmp(y) != 0 {
+			t.Errorf("Int after SetInt(%v) = %v", y, got)
+		}
 		for _, c := range []struct {
 			name string
 			got  *Wide

@@ -79,36 +79,17 @@ func (s *Simplex) cmBig() *big.Rat {
 }
 
 // cmWide is cmReduced in words, for k <= 3, Gram entries below 2^186 in
-// magnitude (so that every e_ij and M_ij is below 2^190) and s a word or
-// the square of one; ok is false otherwise.
+// magnitude (edgesWide) and s a word or the square of one; ok is false
+// otherwise.
 func (s *Simplex) cmWide() (_ *big.Rat, ok bool) {
 	k := s.k
-	if k > 3 {
-		return nil, false
-	}
 	f, pow, ok := wordRoot(s.s)
 	if !ok {
 		return nil, false
 	}
-	// The upper triangles of s.gi (row and column 0 zero) and of e, and
-	// M in full; all three are symmetric.
-	var g [4][4]exact.Wide
-	for i := 1; i <= k; i++ {
-		for j := i; j <= k; j++ {
-			if x := s.g[(i-1)*k+j-1]; x.BitLen() > 186 || !g[i][j].SetInt(x) {
-				return nil, false
-			}
-		}
-	}
-	// e_ij = s·|v_i − v_j|² = g_ii + g_jj − 2 g_ij, as setSqEdgeScaled.
 	var e [4][4]exact.Wide
-	for i := 0; i <= k; i++ {
-		for j := i + 1; j <= k; j++ {
-			z := &e[i][j]
-			z.Add(&g[i][i], &g[j][j])
-			z.Sub(z, &g[i][j])
-			z.Sub(z, &g[i][j])
-		}
+	if !s.edgesWide(&e) {
+		return nil, false
 	}
 	var m [9]exact.Wide
 	for i := 1; i <= k; i++ {
@@ -127,6 +108,35 @@ func (s *Simplex) cmWide() (_ *big.Rat, ok bool) {
 		r.Neg(r)
 	}
 	return r, true
+}
+
+// edgesWide sets the upper triangle of e (i < j <= k) to the scaled
+// squared distances e_ij = s·|v_i − v_j|² = g_ii + g_jj − 2 g_ij, as
+// setSqEdgeScaled, in words; it reports false, e partly set, when k > 3
+// or a Gram entry is 2^186 or more in magnitude (every e_ij is then below
+// 2^188, and sums of three of them below 2^190).
+func (s *Simplex) edgesWide(e *[4][4]exact.Wide) bool {
+	k := s.k
+	if k > 3 {
+		return false
+	}
+	var g [4][4]exact.Wide // the upper triangle of s.gi: row and column 0 zero
+	for i := 1; i <= k; i++ {
+		for j := i; j <= k; j++ {
+			if x := s.g[(i-1)*k+j-1]; x.BitLen() > 186 || !g[i][j].SetInt(x) {
+				return false
+			}
+		}
+	}
+	for i := 0; i <= k; i++ {
+		for j := i + 1; j <= k; j++ {
+			z := &e[i][j]
+			z.Add(&g[i][i], &g[j][j])
+			z.Sub(z, &g[i][j])
+			z.Sub(z, &g[i][j])
+		}
+	}
+	return true
 }
 
 // wordRoot returns f and p with s = f^p, f a word: p = 1 if s is a word,

@@ -35,8 +35,9 @@ func volumeSqFromCoords(t *testing.T, pts [][]*big.Rat) *big.Rat {
 // (Blumenthal, "Theory and Applications of Distance Geometry", 1953;
 // cited from memory) with V² from the coordinates, against the
 // determinant of the rational bordered matrix (exact.Matrix.Det) and
-// against the math/big route cmBig; wide says whether the word route
-// must have taken it.
+// against the math/big route cmBig, and scaledEdges against the squared
+// distances from the coordinates; wide says whether the word route must
+// have taken it.
 func checkCayleyMenger(t *testing.T, label string, pts [][]*big.Rat, wide bool) {
 	t.Helper()
 	s := mustPoints(t, pts...)
@@ -54,6 +55,15 @@ func checkCayleyMenger(t *testing.T, label string, pts [][]*big.Rat, wide bool) 
 		t.Fatal(err)
 	}
 	ratEq(t, label+": CayleyMenger vs det of the bordered matrix", got, byDet)
+	// The scaled squared distances (in words where edgesWide takes them)
+	// against |v_i − v_j|² from the coordinates.
+	e := s.scaledEdges()
+	for i := range pts {
+		for j := range pts {
+			d := sub(pts[i], pts[j])
+			ratEq(t, fmt.Sprintf("%s: scaledEdges[%d][%d]/s", label, i, j), new(big.Rat).SetFrac(e[i][j], s.s), dot(d, d))
+		}
+	}
 	fresh := mustPoints(t, pts...)
 	ratEq(t, label+": cmBig", fresh.cmBig(), want)
 	if _, ok := mustPoints(t, pts...).cmWide(); ok != wide {
