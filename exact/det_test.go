@@ -22,6 +22,18 @@ var detMethods = []struct {
 	{"gauss-rat", (*Matrix).detGaussRat},
 	{"bareiss-words", func(m *Matrix) *big.Rat { return viaWords(m, bareissWordsOnly) }},
 	{"modular-words", func(m *Matrix) *big.Rat { return viaWords(m, modularWords) }},
+	{"bareiss-fixed", detFixedOnly},
+}
+
+// detFixedOnly is Bareiss in fixed-width words on m's integer rows, nil
+// where it does not apply (n > fixedMaxN, or minors too wide).
+func detFixedOnly(m *Matrix) *big.Rat {
+	rows, scale := m.integerRows()
+	d, ok := detIntsFixed(rows)
+	if !ok {
+		return nil
+	}
+	return new(big.Rat).SetFrac(d, scale)
 }
 
 // bareissWordsOnly is Bareiss in words, nil where it overflows.

@@ -67,39 +67,20 @@ func DetInts(a [][]*big.Int) (*big.Int, error) {
 }
 
 // detIntsBig is DetInts for entries beyond a word: up to order 3 with
-// entries below 2^192, cofactors in words (DetWide); else Bareiss on
-// copies below modularMinSize, as Det does, else Det on the same matrix.
-// The copies share one block of words, each entry with room for the
-// largest minor (n times the widest entry), so that the elimination
-// allocates almost nothing.
+// entries below 2^192, cofactors in words (DetWide); up to order 6,
+// Bareiss in fixed widths of words where Hadamard's bound allows
+// (detIntsFixed); else Bareiss on copies below modularMinSize, as Det
+// does (bareissPooled), else Det on the same matrix.
 func detIntsBig(a [][]*big.Int) *big.Int {
 	n := len(a)
 	if d, ok := detIntsWide(a); ok {
 		return d
 	}
+	if d, ok := detIntsFixed(a); ok {
+		return d
+	}
 	if n < modularMinSize {
-		width := 0
-		for _, r := range a {
-			for _, x := range r {
-				width = max(width, len(x.Bits()))
-			}
-		}
-		room := n*width + 1
-		b := bareissPool.Get().(*bareissBlock)
-		defer bareissPool.Put(b)
-		words := grow(&b.words, n*n*room)
-		ints := grow(&b.ints, n*n)
-		ptrs := grow(&b.ptrs, n*n)
-		rows := grow(&b.rows, n)
-		for i, r := range a {
-			rows[i] = ptrs[i*n : (i+1)*n]
-			for j, x := range r {
-				k := i*n + j
-				z := ints[k].SetBits(words[k*room : k*room : (k+1)*room])
-				rows[i][j] = z.Set(x)
-			}
-		}
-		return new(big.Int).Set(bareissDet(rows)) // out of the pooled block
+		return bareissPooled(a)
 	}
 	m := Zeros(n, n)
 	for i, r := range a {
@@ -108,6 +89,33 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 		}
 	}
 	return m.detModular(clearAuto).Num() // an integer matrix has an integer determinant
+}
+
+// bareissPooled is bareissDet on copies of a in one pooled block.
+func bareissPooled(a [][]*big.Int) *big.Int {
+	n := len(a)
+	width := 0
+	for _, r := range a {
+		for _, x := range r {
+			width = max(width, len(x.Bits()))
+		}
+	}
+	room := n*width + 1
+	b := bareissPool.Get().(*bareissBlock)
+	defer bareissPool.Put(b)
+	words := grow(&b.words, n*n*room)
+	ints := grow(&b.ints, n*n)
+	ptrs := grow(&b.ptrs, n*n)
+	rows := grow(&b.rows, n)
+	for i, r := range a {
+		rows[i] = ptrs[i*n : (i+1)*n]
+		for j, x := range r {
+			k := i*n + j
+			z := ints[k].SetBits(words[k*room : k*room : (k+1)*room])
+			rows[i][j] = z.Set(x)
+		}
+	}
+	return new(big.Int).Set(bareissDet(rows)) // out of the pooled block
 }
 
 // bareissBlock is the storage of detIntsBig's copies, pooled: allocating

@@ -75,12 +75,7 @@ func (z *Wide) Sub(x, y *Wide) *Wide {
 	return z
 }
 
-func (z *Wide) neg() {
-	var b uint64
-	for i := range z {
-		z[i], b = bits.Sub64(0, z[i], b)
-	}
-}
+func (z *Wide) neg() { negWords(z[:]) }
 
 // mag sets z to |z| and returns its words (len trimmed, none if z = 0)
 // and whether z was negative; ok is false if |z| >= 2^192.
@@ -130,10 +125,7 @@ func mulAdd(a, x, y []uint64, sub bool) {
 // trimmed, and whether a was negative.
 func magWords(a []uint64) (m []uint64, neg bool) {
 	if neg = int64(a[len(a)-1]) < 0; neg {
-		var b uint64
-		for i := range a {
-			a[i], b = bits.Sub64(0, a[i], b)
-		}
+		negWords(a)
 	}
 	return trimWords(a), neg
 }
