@@ -23,6 +23,18 @@ var detMethods = []struct {
 	{"bareiss-words", func(m *Matrix) *big.Rat { return viaWords(m, bareissWordsOnly) }},
 	{"modular-words", func(m *Matrix) *big.Rat { return viaWords(m, modularWords) }},
 	{"bareiss-fixed", detFixedOnly},
+	{"cofactors-wide", detWideOnly},
+}
+
+// detWideOnly is DetWide's cofactor expansion on m's integer rows, nil
+// where it does not apply (n > 3, or entries of 2^192 or more).
+func detWideOnly(m *Matrix) *big.Rat {
+	rows, scale := m.integerRows()
+	d, ok := detIntsWide(rows)
+	if !ok {
+		return nil
+	}
+	return new(big.Rat).SetFrac(d, scale)
 }
 
 // detFixedOnly is Bareiss in fixed-width words on m's integer rows, nil
