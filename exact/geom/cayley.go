@@ -5,18 +5,26 @@ package geom
 // (go test -bench CayleyMengerTet -run XXX ./exact/geom/, GOMAXPROCS=1;
 // Random(3, seed, 1000, 100), 1024 seeds, a fresh Simplex per op so that
 // nothing cached is reused), the 2-core machine shared with other
-// sessions (load 2–4.5), old and new test binaries alternating, three
-// rounds, processor time (cpu-ns/op; wall time 1.5–2.5 times more):
+// sessions, old (main at 3de8599) and new test binaries alternating, per
+// op, processor time (cpu-ns/op; the wall time alike at load 1–2, up to
+// twice it at load 5–13):
 //
-//	before (5x5 bordered matrix in exact.DetInts, big.Int Bareiss; ratFrac)   5.9–6.7 µs
-//	after  (border eliminated; 3x3 in words, exact.DetWideOver)               1.09–1.20 µs
-//	after/before, same round                                                  0.17–0.19
+//	before (5x5 bordered matrix in exact.DetInts, big.Int Bareiss; ratFrac)   4.8–10.0 µs
+//	after  (border taken out; 3x3 in words, exact.DetWideOver)                 0.82–1.42 µs
+//	after/before in each round (eight rounds)                                  0.11–0.24
 //
-// BenchmarkExactSampledIdentity (kernel, GOMAXPROCS=1, cpu-ms/op for
-// 10,000 samples), four rounds alternating: before 139–153, after
-// 100–119 (after/before 0.72–0.78 in each round): 10.0–11.9 µs a sample,
-// the reference /tmp/peer-bin/tet ~10.6 µs. No reference program times
-// this determinant alone.
+// In the quietest round (load 1.2) 6.1 µs against 0.82 µs. The kernel's
+// BenchmarkExactSampledIdentity (GOMAXPROCS=1, cpu-ms/op for 10,000
+// samples), five rounds alternating: before 131–151, after 95–109, after/
+// before 0.65–0.75 in each round: 9.5–10.9 µs a sample, against the
+// reference /tmp/peer-bin/tet (FLINT, fmpq_mat_det on both determinants)
+// at 9.9–10.4 µs a sample on the same tetrahedra (five runs). No
+// reference program times this determinant alone. Other inputs, best of
+// five alternating runs (ns/op): a triangle 26,500 → 1,800; 4-simplex
+// 148,000 → 30,000 (8,600 with detfixed.go); 6-simplex 151,000 → 152,000
+// (73,000 with detfixed.go); a tetrahedron of 100-bit integer
+// coordinates (math/big route) 22,800 → 20,000; one whose denominators'
+// lcm passes a word 46,600 → 33,000.
 //
 // Two exact steps before any elimination: the bordered matrix
 //
@@ -155,8 +163,14 @@ func wordRoot(s *big.Int) (f uint64, p int, ok bool) {
 	if fr := math.Sqrt(math.Ldexp(float64(hi), 64) + float64(lo)); fr < 0x1p64 {
 		r = uint64(fr)
 	}
-	// The float root is within a few units of the integer one; r² is
-	// compared exactly in 128 bits (r < 2^64 as s < 2^128).
+	// The float root is within some 2^(len(s)/2 − 54) of the root; one
+	// Newton step (r + s/r)/2 in words leaves it within a unit or two
+	// (the error squares, over 2r); then r² is compared exactly in 128
+	// bits (r < 2^64 as s < 2^128).
+	if r > hi {
+		q, _ := bits.Div64(hi, lo, r)
+		r = r>>1 + q>>1 + r&q&1
+	}
 	for r > 0 {
 		if h, l := bits.Mul64(r, r); h > hi || h == hi && l > lo {
 			r--
