@@ -38,23 +38,30 @@ func (z *Wide) SetInt(x *big.Int) bool {
 	return true
 }
 
-// Int sets z to x and returns z, in z's words where they have room.
-func (x *Wide) Int(z *big.Int) *big.Int {
-	m := *x
+// Int sets dst to z and returns dst, in dst's words where they have room.
+func (z *Wide) Int(dst *big.Int) *big.Int {
+	m := *z
 	neg := int64(m[3]) < 0
 	if neg {
 		m.neg()
 	}
 	w := trimWords(m[:])
-	ws := z.Bits()
-	if cap(ws) < len(w) {
-		ws = make([]big.Word, len(w))
+	if bits.UintSize != 64 { // big.Word is 32 bits
+		dst.SetInt64(0)
+		for i := len(w) - 1; i >= 0; i-- {
+			dst.Lsh(dst, 64).Or(dst, new(big.Int).SetUint64(w[i]))
+		}
+	} else {
+		ws := dst.Bits()
+		if cap(ws) < len(w) {
+			ws = make([]big.Word, len(w))
+		}
+		dst.SetBits(putWords(ws[:cap(ws)], w))
 	}
-	z.SetBits(putWords(ws[:cap(ws)], w))
 	if neg {
-		z.Neg(z)
+		dst.Neg(dst)
 	}
-	return z
+	return dst
 }
 
 // Add sets z to x + y modulo 2^256 and returns z.
@@ -135,7 +142,7 @@ func magWords(a []uint64) (m []uint64, neg bool) {
 // first row (Laplace); ok is false if n > 3 or an entry is 2^192 or more
 // in magnitude.
 func detWideMag(n int, a []Wide, acc *[detAccWords]uint64) (m []uint64, neg, ok bool) {
-	if n > 3 || len(a) != n*n {
+	if n > 3 || len(a) != n*n || bits.UintSize != 64 { // results in 64-bit big.Words
 		return nil, false, false
 	}
 	var abs [9]Wide
