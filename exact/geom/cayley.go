@@ -41,8 +41,11 @@ package geom
 //
 //	det CM = −det(−M) = (−1)^(k+1) det M.
 //
-// M is formed from the squared distances alone (here the integers s·d_ij,
-// so det CM = (−1)^(k+1) det(sM)/s^k), never from the coordinates.
+// M is formed from the squared distances alone (here the integers s·d_ij
+// of scaledEdges, so det CM = (−1)^(k+1) det(sM)/s^k), never read from
+// the Gram matrix whose determinant VolumeSq takes; for points the two
+// agree, sM = 2g, which is what the identity 288 V² = det CM checks, by
+// two determinant algorithms on two matrices built two ways.
 
 import (
 	"math"
