@@ -218,17 +218,8 @@ func detIntsWide(a [][]*big.Int) (_ *big.Int, ok bool) {
 }
 
 // DetWideOver returns det(a)/f^k in lowest terms for the n x n matrix a as
-// DetWide takes it and a word f > 0; ok is false where DetWide's is.
-//
-// No gcd of long integers: with N = |det a| and t_0 = f, step i takes
-// t_i = gcd(N, f) = gcd(N, t_(i−1)) in words (divGCD) and sets N to
-// N/t_i, the denominator gaining the factor f/t_i; k steps, the gcds
-// skipped once t_i = 1. Why it is right: with t = gcd(N, f), N/t is
-// coprime to f/t (a prime p of f/t has v_p(t) = v_p(N) < v_p(f)), and
-// stays so as it is divided further; so the final N is coprime to every
-// factor of the denominator, hence to their product. And gcd(N/t, f)
-// divides t (the primes of f/t are gone from N/t; the others have v_p(f)
-// = v_p(t)), so gcd(N/t, f) = gcd(N/t, t): each gcd is of words.
+// DetWide takes it and a word f > 0 (fracWordPow); ok is false where
+// DetWide's is.
 func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 	if f == 0 || k < 0 {
 		return nil, false
@@ -238,8 +229,44 @@ func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 	if !ok {
 		return nil, false
 	}
+	return fracWordPow(num, neg, f, k), true
+}
+
+// FracWordPow returns x/f^k in lowest terms for a word f > 0 and k >= 0,
+// as fracWordPow, without a gcd of long integers: what ratFrac(x, s^k)
+// does for s = f or s = f² (then 2k factors), in a fraction of the time
+// when x is a few words. ok is false if f = 0, k < 0 or big.Word is not
+// 64 bits.
+func FracWordPow(x *big.Int, f uint64, k int) (_ *big.Rat, ok bool) {
+	if f == 0 || k < 0 || bits.UintSize != 64 {
+		return nil, false
+	}
+	var buf [16]uint64
+	num := buf[:0]
+	if len(x.Bits()) > len(buf) {
+		num = make([]uint64, 0, len(x.Bits()))
+	}
+	for _, w := range x.Bits() {
+		num = append(num, uint64(w))
+	}
+	return fracWordPow(num, x.Sign() < 0, f, k), true
+}
+
+// fracWordPow returns ±num/f^k in lowest terms (num trimmed, overwritten;
+// − if neg), f > 0.
+//
+// With N = num and t_0 = f, step i takes t_i = gcd(N, f) = gcd(N,
+// t_(i−1)) in words (divGCD) and sets N to N/t_i, the denominator gaining
+// the factor f/t_i; k steps, the gcds skipped once t_i = 1. Why it is
+// right: with t = gcd(N, f), N/t is coprime to f/t (a prime p of f/t has
+// v_p(t) = v_p(N) < v_p(f)), and stays so as it is divided further; so
+// the final N is coprime to every factor of the denominator, hence to
+// their product. And gcd(N/t, f) divides t (the primes of f/t are gone
+// from N/t; the others have v_p(f) = v_p(t)), so gcd(N/t, f) = gcd(N/t,
+// t): each gcd is of words.
+func fracWordPow(num []uint64, neg bool, f uint64, k int) *big.Rat {
 	if len(num) == 0 {
-		return new(big.Rat), true
+		return new(big.Rat)
 	}
 	var dbuf [16]uint64 // the denominator grows by at most a word per factor
 	den := dbuf[:0]
@@ -247,7 +274,11 @@ func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 		den = make([]uint64, 0, k+1)
 	}
 	den = append(den, 1)
-	var q [detAccWords]uint64
+	var qbuf [16]uint64
+	q := qbuf[:]
+	if len(num) > len(q) {
+		q = make([]uint64, len(num))
+	}
 	var inv oddInverse
 	t := f
 	for i := 0; i < k; i++ {
@@ -271,7 +302,7 @@ func DetWideOver(n int, a []Wide, f uint64, k int) (_ *big.Rat, ok bool) {
 	if neg {
 		r.Num().Neg(r.Num())
 	}
-	return r, true
+	return r
 }
 
 // putWords copies x into z (room for it) and returns z[:len(x):len(x)].

@@ -258,3 +258,72 @@ func BenchmarkDetWide3(b *testing.B) {
 		i++
 	}
 }
+
+// FracWordPow is x/f^k in lowest terms: against math/big's SetFrac on
+// integers of 0 to 24 words, many of them products of small primes and
+// of powers of f's factors (so that most of f^k cancels), for the words
+// f of TestDetWideOver and random ones, k = 0..20 (past the 16 words the
+// denominator and quotient keep on the stack).
+func TestFracWordPow(t *testing.T) {
+	rng := rand.New(rand.NewSource(27))
+	fs := []uint64{1, 2, 6, 1 << 63, 2432902008176640000, 232792560, 18446744073709551557, 1<<64 - 1}
+	for trial := 0; trial < 400; trial++ {
+		f := fs[trial%len(fs)]
+		if trial%4 == 0 {
+			f = rng.Uint64() >> uint(rng.Intn(60))
+			f = max(f, 1)
+		}
+		k := rng.Intn(21)
+		x := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(rng.Intn(24*64+1))))
+		if trial%2 == 0 { // a multiple of a power of f, times small primes
+			x.Add(x, big.NewInt(1))
+			x.Mul(x, new(big.Int).Exp(new(big.Int).SetUint64(f), big.NewInt(int64(rng.Intn(k+2))), nil))
+			for range rng.Intn(10) {
+				x.Mul(x, big.NewInt([]int64{2, 3, 5, 7, 9, 16}[rng.Intn(6)]))
+			}
+		}
+		if rng.Intn(2) == 0 {
+			x.Neg(x)
+		}
+		want := new(big.Rat).SetFrac(x, new(big.Int).Exp(new(big.Int).SetUint64(f), big.NewInt(int64(k)), nil))
+		got, ok := FracWordPow(x, f, k)
+		if !ok || got.Num().Cmp(want.Num()) != 0 || got.Denom().Cmp(want.Denom()) != 0 {
+			t.Errorf("FracWordPow(%v, %d, %d) = %v, %v; want %s", x, f, k, got, ok, want.String())
+		}
+	}
+	if _, ok := FracWordPow(big.NewInt(3), 0, 1); ok {
+		t.Error("FracWordPow took f = 0")
+	}
+	if _, ok := FracWordPow(big.NewInt(3), 2, -1); ok {
+		t.Error("FracWordPow took k = −1")
+	}
+}
+
+// BenchmarkFracWordPow: x/l^6 in lowest terms, x a multiple of l^3 of
+// some 250 bits and l a product of small primes near 2^40 (the sizes of
+// det(sM)/s^3 for the kernel's random tetrahedra, s = l²), by
+// FracWordPow and by math/big's SetFrac.
+func BenchmarkFracWordPow(b *testing.B) {
+	rng := rand.New(rand.NewSource(28))
+	const l = 2 * 2 * 3 * 5 * 7 * 11 * 13 * 17 * 19 * 23 * 29 * 31 * 37 // ~2^43
+	xs := make([]*big.Int, 64)
+	for i := range xs {
+		x := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), 120))
+		xs[i] = x.Mul(x, new(big.Int).Exp(big.NewInt(l), big.NewInt(3), nil))
+	}
+	den := new(big.Int).Exp(big.NewInt(l), big.NewInt(6), nil)
+	b.Run("words", func(b *testing.B) {
+		i := 0
+		for b.Loop() {
+			FracWordPow(xs[i%len(xs)], l, 6)
+			i++
+		}
+	})
+	b.Run("SetFrac", func(b *testing.B) {
+		i := 0
+		for b.Loop() {
+			new(big.Rat).SetFrac(xs[i%len(xs)], den)
+			i++
+		}
+	})
+}
