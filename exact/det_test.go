@@ -22,26 +22,17 @@ var detMethods = []struct {
 	{"gauss-rat", (*Matrix).detGaussRat},
 	{"bareiss-words", func(m *Matrix) *big.Rat { return viaWords(m, bareissWordsOnly) }},
 	{"modular-words", func(m *Matrix) *big.Rat { return viaWords(m, modularWords) }},
-	{"bareiss-fixed", detFixedOnly},
-	{"cofactors-wide", detWideOnly},
+	// Bareiss in fixed-width words (n <= fixedMaxN, minors not too wide)
+	// and DetWide's cofactors (n <= 3, entries below 2^192).
+	{"bareiss-fixed", func(m *Matrix) *big.Rat { return viaIntRows(m, detIntsFixed) }},
+	{"cofactors-wide", func(m *Matrix) *big.Rat { return viaIntRows(m, detIntsWide) }},
 }
 
-// detWideOnly is DetWide's cofactor expansion on m's integer rows, nil
-// where it does not apply (n > 3, or entries of 2^192 or more).
-func detWideOnly(m *Matrix) *big.Rat {
+// viaIntRows is det on m's integer rows over their scale, nil where det
+// does not apply.
+func viaIntRows(m *Matrix, det func([][]*big.Int) (*big.Int, bool)) *big.Rat {
 	rows, scale := m.integerRows()
-	d, ok := detIntsWide(rows)
-	if !ok {
-		return nil
-	}
-	return new(big.Rat).SetFrac(d, scale)
-}
-
-// detFixedOnly is Bareiss in fixed-width words on m's integer rows, nil
-// where it does not apply (n > fixedMaxN, or minors too wide).
-func detFixedOnly(m *Matrix) *big.Rat {
-	rows, scale := m.integerRows()
-	d, ok := detIntsFixed(rows)
+	d, ok := det(rows)
 	if !ok {
 		return nil
 	}
