@@ -65,7 +65,8 @@ func (s *Simplex) cmReduced() *big.Rat {
 	return s.cmBig()
 }
 
-// cmBig is cmReduced in math/big: exact.DetInts on M, then lowest terms.
+// cmBig is cmReduced in math/big: exact.DetInts on M, then lowest terms
+// (by word gcds where s is a word or a word's square).
 func (s *Simplex) cmBig() *big.Rat {
 	e := s.scaledEdges()
 	k := s.k
@@ -85,6 +86,11 @@ func (s *Simplex) cmBig() *big.Rat {
 	}
 	if k%2 == 0 {
 		d.Neg(d)
+	}
+	if f, p, ok := wordRoot(s.s); ok {
+		if r, ok := exact.FracWordPow(d, f, p*k); ok {
+			return r
+		}
 	}
 	return ratFrac(d, new(big.Int).Exp(s.s, big.NewInt(int64(k)), nil))
 }

@@ -73,7 +73,8 @@ func checkCayleyMenger(t *testing.T, label string, pts [][]*big.Rat, wide bool) 
 
 // The Cayley–Menger determinant of points simplices on both routes: the
 // kernel's random tetrahedra (Random(3, seed, 1000, 100)) and dimensions
-// 0..3 in words; dimensions 4..6, an lcm of denominators past a word
+// 0..3 in words; dimensions 4..6 (with s a word's square or not), an lcm
+// of denominators past a word
 // (s = l² not a word's square) and coordinates up to 2^95 (Gram entries
 // past 2^186) in math/big; degenerate simplices (0) on both.
 func TestCayleyMengerRoutes(t *testing.T) {
@@ -85,6 +86,10 @@ func TestCayleyMengerRoutes(t *testing.T) {
 		for seed := uint64(0); seed < 4; seed++ {
 			pts, _ := Random(k, seed, 1000, 100).Points()
 			checkCayleyMenger(t, fmt.Sprintf("k=%d seed %d", k, seed), pts, k <= 3)
+			// Denominators up to 6: s a word's square at every k, so that
+			// cmBig reduces by word gcds from k = 4 on.
+			pts, _ = Random(k, seed, 1000, 6).Points()
+			checkCayleyMenger(t, fmt.Sprintf("k=%d seed %d, denominators <= 6", k, seed), pts, k <= 3)
 		}
 	}
 	rng := rand.New(rand.NewSource(25))
