@@ -19,12 +19,13 @@ package geom
 // before 0.65–0.75 in each round: 9.5–10.9 µs a sample, against the
 // reference /tmp/peer-bin/tet (FLINT, fmpq_mat_det on both determinants)
 // at 9.9–10.4 µs a sample on the same tetrahedra (five runs). No
-// reference program times this determinant alone. Other inputs, best of
-// five alternating runs (ns/op): a triangle 26,500 → 1,800; 4-simplex
-// 148,000 → 30,000 (8,600 with detfixed.go); 6-simplex 151,000 → 152,000
-// (73,000 with detfixed.go); a tetrahedron of 100-bit integer
-// coordinates (math/big route) 22,800 → 20,000; one whose denominators'
-// lcm passes a word 46,600 → 33,000.
+// reference program times this determinant alone. Other inputs, 64
+// simplices each, best of five alternating runs at load 3–4 (ns/op,
+// before → after): a triangle 2,640 → 436; 4-, 5-, 6-simplices 22,900 →
+// 4,140, 38,900 → 9,630, 60,000 → 30,900 (DetInts on M, through
+// exact/detfixed.go); a tetrahedron of 100-bit integer coordinates
+// (math/big route) 4,230 → 2,380; one whose denominators' lcm passes a
+// word 10,600 → 8,600.
 //
 // Two exact steps before any elimination: the bordered matrix
 //
