@@ -50,6 +50,9 @@ func checkCayleyMenger(t *testing.T, label string, pts [][]*big.Rat, wide bool) 
 	}
 	got := s.CayleyMenger()
 	ratEq(t, label+": CayleyMenger vs (−1)^(k+1) 2^k (k!)² V²", got, want)
+	if got.Num().Cmp(want.Num()) != 0 || got.Denom().Cmp(want.Denom()) != 0 {
+		t.Errorf("%s: CayleyMenger %v/%v not in lowest terms (%s)", label, got.Num(), got.Denom(), want.RatString())
+	}
 	byDet, err := s.CayleyMengerMatrix().Det()
 	if err != nil {
 		t.Fatal(err)
