@@ -6,7 +6,6 @@ import (
 	"testing"
 
 	"assay/exact"
-	"assay/kernel/cputime"
 )
 
 // tetPoints returns the vertices of Random(3, seed, 1000, 100) for seeds
@@ -131,35 +130,6 @@ func BenchmarkSeriesInradius(b *testing.B) {
 		}
 		if _, err := p.Inradius(); err != nil {
 			b.Fatal(err)
-		}
-	}
-}
-
-// BenchmarkCayleyMengerTet times CayleyMenger, per op, on one of the
-// tetrahedra Random(3, seed, 1000, 100), seeds 0..1023 in turn (those of
-// the kernel's sampled-identity benchmark), each a fresh Simplex sharing
-// only the points and the scaled Gram matrix, so that no cached integer
-// is reused; it reports the processor time too (cpu-ns/op), steadier on
-// a shared machine. Target: 1.5 µs (it was ~4.3 µs in the profile of
-// BenchmarkExactSampledIdentity).
-func BenchmarkCayleyMengerTet(b *testing.B) {
-	ts := make([]*Simplex, 1024)
-	for i := range ts {
-		ts[i] = Random(3, uint64(i), 1000, 100)
-	}
-	i := 0
-	cpu0, ok := cputime.Self()
-	defer func() {
-		if cpu1, _ := cputime.Self(); ok {
-			b.ReportMetric(float64(cpu1-cpu0)/float64(b.N), "cpu-ns/op")
-		}
-	}()
-	for b.Loop() {
-		s := ts[i%len(ts)]
-		i++
-		f := &Simplex{k: s.k, n: s.n, pts: s.pts, g: s.g, s: s.s}
-		if f.CayleyMenger().Sign() <= 0 { // 288 V² for a tetrahedron
-			b.Fatal("non-positive Cayley–Menger determinant")
 		}
 	}
 }
