@@ -18,7 +18,11 @@ package geom
 // samples), five rounds alternating: before 131–151, after 95–109, after/
 // before 0.65–0.75 in each round: 9.5–10.9 µs a sample, against the
 // reference /tmp/peer-bin/tet (FLINT, fmpq_mat_det on both determinants)
-// at 9.9–10.4 µs a sample on the same tetrahedra (five runs). No
+// at 9.9–10.4 µs a sample on the same tetrahedra (five runs). Merged
+// (trial, not committed) with main at c602145, which has h21b's words
+// for Random and VolumeSq, ten rounds alternating with that main: main
+// 92.7–103 cpu-ms, merged 57.7–63 (in a slower phase of the machine
+// 155–165 against 89–95): 5.8–6.3 µs a sample. No
 // reference program times this determinant alone. Other inputs, 64
 // simplices each, best of five alternating runs at load 3–4 (ns/op,
 // before → after): a triangle 2,640 → 436; 4-, 5-, 6-simplices 22,900 →
