@@ -148,3 +148,44 @@ func BenchmarkDetMethods(b *testing.B) {
 		}
 	}
 }
+
+// BenchmarkDetIntsFixed: the determinant of 5x5 matrices shaped as the
+// scaled Cayley–Menger matrix of a tetrahedron (border of ones, zero
+// diagonal, symmetric, entries below 2^90 — the kernel's random
+// tetrahedra give 64–110 bits), by Bareiss in fixed widths of words and
+// by the big.Int Bareiss it replaces.
+func BenchmarkDetIntsFixed(b *testing.B) {
+	rng := rand.New(rand.NewSource(1))
+	ms := make([][][]*big.Int, 64)
+	for k := range ms {
+		m := make([][]*big.Int, 5)
+		for i := range m {
+			m[i] = make([]*big.Int, 5)
+		}
+		for i := 0; i < 5; i++ {
+			for j := i; j < 5; j++ {
+				x := new(big.Int)
+				switch {
+				case i == 0 && j > 0:
+					x.SetInt64(1)
+				case i != j:
+					x.Rand(rng, new(big.Int).Lsh(big.NewInt(1), 90))
+				}
+				m[i][j], m[j][i] = x, x
+			}
+		}
+		ms[k] = m
+	}
+	b.Run("fixed", func(b *testing.B) {
+		for i := 0; i < b.N; i++ {
+			if _, ok := detIntsFixed(ms[i%len(ms)]); !ok {
+				b.Fatal("not taken")
+			}
+		}
+	})
+	b.Run("big", func(b *testing.B) {
+		for i := 0; i < b.N; i++ {
+			bareissPooled(ms[i%len(ms)])
+		}
+	})
+}

@@ -22,6 +22,21 @@ var detMethods = []struct {
 	{"gauss-rat", (*Matrix).detGaussRat},
 	{"bareiss-words", func(m *Matrix) *big.Rat { return viaWords(m, bareissWordsOnly) }},
 	{"modular-words", func(m *Matrix) *big.Rat { return viaWords(m, modularWords) }},
+	// Bareiss in fixed-width words (n <= fixedMaxN, minors not too wide)
+	// and DetWide's cofactors (n <= 3, entries below 2^192).
+	{"bareiss-fixed", func(m *Matrix) *big.Rat { return viaIntRows(m, detIntsFixed) }},
+	{"cofactors-wide", func(m *Matrix) *big.Rat { return viaIntRows(m, detIntsWide) }},
+}
+
+// viaIntRows is det on m's integer rows over their scale, nil where det
+// does not apply.
+func viaIntRows(m *Matrix, det func([][]*big.Int) (*big.Int, bool)) *big.Rat {
+	rows, scale := m.integerRows()
+	d, ok := det(rows)
+	if !ok {
+		return nil
+	}
+	return new(big.Rat).SetFrac(d, scale)
 }
 
 // bareissWordsOnly is Bareiss in words, nil where it overflows.

@@ -66,36 +66,21 @@ func DetInts(a [][]*big.Int) (*big.Int, error) {
 	return z, nil
 }
 
-// detIntsBig is DetInts for entries beyond a word: Bareiss on copies
-// below modularMinSize, as Det does, else Det on the same matrix. The
-// copies share one block of words, each entry with room for the largest
-// minor (n times the widest entry), so that the elimination allocates
-// almost nothing.
+// detIntsBig is DetInts for entries beyond a word: up to order 3 with
+// entries below 2^192, cofactors in words (DetWide); up to order 6,
+// Bareiss in fixed widths of words where Hadamard's bound allows
+// (detIntsFixed); else Bareiss on copies below modularMinSize, as Det
+// does (bareissPooled), else Det on the same matrix.
 func detIntsBig(a [][]*big.Int) *big.Int {
 	n := len(a)
+	if d, ok := detIntsWide(a); ok {
+		return d
+	}
+	if d, ok := detIntsFixed(a); ok {
+		return d
+	}
 	if n < modularMinSize {
-		width := 0
-		for _, r := range a {
-			for _, x := range r {
-				width = max(width, len(x.Bits()))
-			}
-		}
-		room := n*width + 1
-		b := bareissPool.Get().(*bareissBlock)
-		defer bareissPool.Put(b)
-		words := grow(&b.words, n*n*room)
-		ints := grow(&b.ints, n*n)
-		ptrs := grow(&b.ptrs, n*n)
-		rows := grow(&b.rows, n)
-		for i, r := range a {
-			rows[i] = ptrs[i*n : (i+1)*n]
-			for j, x := range r {
-				k := i*n + j
-				z := ints[k].SetBits(words[k*room : k*room : (k+1)*room])
-				rows[i][j] = z.Set(x)
-			}
-		}
-		return new(big.Int).Set(bareissDet(rows)) // out of the pooled block
+		return bareissPooled(a)
 	}
 	m := Zeros(n, n)
 	for i, r := range a {
@@ -104,6 +89,33 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 		}
 	}
 	return m.detModular(clearAuto).Num() // an integer matrix has an integer determinant
+}
+
+// bareissPooled is bareissDet on copies of a in one pooled block.
+func bareissPooled(a [][]*big.Int) *big.Int {
+	n := len(a)
+	width := 0
+	for _, r := range a {
+		for _, x := range r {
+			width = max(width, len(x.Bits()))
+		}
+	}
+	room := n*width + 1
+	b := bareissPool.Get().(*bareissBlock)
+	defer bareissPool.Put(b)
+	words := grow(&b.words, n*n*room)
+	ints := grow(&b.ints, n*n)
+	ptrs := grow(&b.ptrs, n*n)
+	rows := grow(&b.rows, n)
+	for i, r := range a {
+		rows[i] = ptrs[i*n : (i+1)*n]
+		for j, x := range r {
+			k := i*n + j
+			z := ints[k].SetBits(words[k*room : k*room : (k+1)*room])
+			rows[i][j] = z.Set(x)
+		}
+	}
+	return new(big.Int).Set(bareissDet(rows)) // out of the pooled block
 }
 
 // bareissBlock is the storage of detIntsBig's copies, pooled: allocating
@@ -274,12 +286,16 @@ type exactDivisor struct {
 
 func (e *exactDivisor) set(d int64) {
 	e.d, e.shift = d, uint(bits.TrailingZeros64(uint64(d)))
-	u := uint64(d >> e.shift)
+	e.inv = inv64(uint64(d >> e.shift))
+}
+
+// inv64 returns the inverse of the odd word u modulo 2^64.
+func inv64(u uint64) uint64 {
 	inv := u // u*u = 1 mod 8 for odd u: 3 bits; each Newton step doubles them
 	for i := 0; i < 5; i++ {
 		inv *= 2 - u*inv
 	}
-	e.inv = inv
+	return inv
 }
 
 // quo returns hi:lo / d if d divides the signed 128-bit hi:lo and the

@@ -223,3 +223,100 @@ func TestBareissWordsWithinBound(t *testing.T) {
 		}
 	}
 }
+
+// Bareiss in fixed widths of words (detIntsFixed) must take every matrix
+// of order <= fixedMaxN whose minors' Hadamard bound fits fixedMaxWords
+// words, and agree with the definition (Leibniz formula in math/big):
+// entries of every width up to 4 words and near ±2^63, ±2^64, ±2^127,
+// Sylvester's Hadamard matrices scaled past a word (they meet the bound
+// the widths come from), matrices of rank n−1 and with a zero row.
+func TestDetIntsFixed(t *testing.T) {
+	rng := rand.New(rand.NewSource(24))
+	entry := func(bits int) *big.Int {
+		x := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(bits)))
+		switch rng.Intn(6) {
+		case 0: // ±2^e and its neighbours
+			e := []uint{61, 62, 63, 64, 127, 128}[rng.Intn(6)]
+			x.Lsh(big.NewInt(1), e).Add(x, big.NewInt(rng.Int63n(3)-1))
+		case 1:
+			x.SetInt64(rng.Int63n(5) - 2)
+		}
+		if rng.Intn(2) == 0 {
+			x.Neg(x)
+		}
+		return x
+	}
+	// Orders times entry bits up to 800 keep the bound of every minor
+	// below 2^(64 fixedMaxWords − 1) (n (2b + 3) / 2 + 1 < 1023).
+	check := func(label string, rows [][]*big.Int, mustTake bool) {
+		t.Helper()
+		m := Zeros(len(rows), len(rows))
+		for i, r := range rows {
+			for j, x := range r {
+				m.at(i, j).SetInt(x)
+			}
+		}
+		want := detLeibniz(m)
+		got, ok := detIntsFixed(rows)
+		if !ok && mustTake {
+			t.Fatalf("%s: detIntsFixed did not take %v", label, m)
+		}
+		if ok && new(big.Rat).SetInt(got).Cmp(want) != 0 {
+			t.Fatalf("%s: detIntsFixed = %v, want %s", label, got, FormatRat(want))
+		}
+		checkDetInts(t, label, m, want)
+	}
+	random := func(n, bits int) [][]*big.Int {
+		rows := make([][]*big.Int, n)
+		for i := range rows {
+			for j := 0; j < n; j++ {
+				rows[i] = append(rows[i], entry(bits))
+			}
+		}
+		return rows
+	}
+	for n := 1; n <= fixedMaxN; n++ {
+		for _, b := range []int{3, 40, 63, 64, 65, 100, 128, 200, 256} {
+			for trial := 0; trial < 4; trial++ {
+				rows := random(n, b)
+				take := n*b <= 800
+				check(fmt.Sprintf("n=%d, %d bits #%d", n, b, trial), rows, take)
+				if n >= 2 { // rank n−1: last row = first − second
+					for j := range rows[n-1] {
+						rows[n-1][j] = new(big.Int).Sub(rows[0][j], rows[1][j])
+					}
+					check(fmt.Sprintf("rank %d, %d bits #%d", n-1, b, trial), rows, take)
+				}
+				rows[rng.Intn(n)] = random(1, 1)[0]
+				for j := range rows[0] {
+					rows[0][j] = new(big.Int)
+				}
+				check(fmt.Sprintf("zero row, n=%d, %d bits", n, b), rows, true)
+			}
+		}
+	}
+	for _, n := range []int{1, 2, 4} {
+		h := sylvester(n)
+		for _, e := range []uint{62, 63, 64, 127, 128, 200, 300} {
+			for _, dc := range []int64{-1, 0, 1} {
+				c := new(big.Int).Lsh(big.NewInt(1), e)
+				c.Add(c, big.NewInt(dc))
+				rows := make([][]*big.Int, n)
+				for i := range rows {
+					for j := 0; j < n; j++ {
+						rows[i] = append(rows[i], new(big.Int).Mul(c, big.NewInt(h[i][j])))
+					}
+				}
+				check(fmt.Sprintf("(2^%d%+d) H_%d", e, dc, n), rows, n*int(e) <= 800)
+			}
+		}
+	}
+	// Beyond its limits it declines: order 7, and minors past
+	// fixedMaxWords words.
+	if _, ok := detIntsFixed(random(fixedMaxN+1, 10)); ok {
+		t.Errorf("order %d taken", fixedMaxN+1)
+	}
+	if _, ok := detIntsFixed(random(fixedMaxN, 64*fixedMaxWords/fixedMaxN+64)); ok {
+		t.Errorf("entries past the width taken")
+	}
+}

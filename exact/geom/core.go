@@ -158,6 +158,8 @@ func (s *Simplex) scaledEdges() [][]*big.Int {
 		// diagonal the shared zero: the Cayley–Menger determinant of a
 		// random tetrahedron spent 7% here allocating entry by entry.
 		N := s.k + 1
+		var ew [4][4]exact.Wide // in words where they fit (edgesWide)
+		wide := s.edgesWide(&ew)
 		width := 0
 		for _, x := range s.g {
 			width = max(width, len(x.Bits()))
@@ -174,8 +176,12 @@ func (s *Simplex) scaledEdges() [][]*big.Int {
 			for j := range i {
 				z := ints[pos].SetBits(words[pos*room : pos*room : (pos+1)*room])
 				pos++
-				c.edges[i][j] = s.setSqEdgeScaled(z, j, i)
-				c.edges[j][i] = z
+				if wide {
+					ew[j][i].Int(z)
+				} else {
+					s.setSqEdgeScaled(z, j, i)
+				}
+				c.edges[i][j], c.edges[j][i] = z, z
 			}
 		}
 	})

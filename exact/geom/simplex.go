@@ -628,7 +628,9 @@ func borderedCM(d *exact.Matrix) *exact.Matrix {
 }
 
 // CayleyMenger returns the Cayley–Menger determinant, the determinant of
-// CayleyMengerMatrix, computed from that matrix. It equals
+// CayleyMengerMatrix, computed from that matrix (for a points simplex,
+// from the scaled squared distances after two exact row and column steps
+// on the border: cayley.go). It equals
 // (−1)^(k+1) 2^k (k!)² VolumeSq().
 func (s *Simplex) CayleyMenger() *big.Rat {
 	if s.d != nil {
@@ -638,27 +640,7 @@ func (s *Simplex) CayleyMenger() *big.Rat {
 		}
 		return d
 	}
-	// The same matrix with the integers s·d_ij in place of d_ij: rows
-	// 1..k+1 times s and column 0 over s, so its determinant is s^k times
-	// the Cayley–Menger determinant. It saves reducing the k(k+1)/2
-	// fractions d_ij and clearing their denominators again in Det.
-	e := s.scaledEdges()
-	n := s.k + 2
-	ptrs := make([]*big.Int, n*n)
-	rows := make([][]*big.Int, n)
-	for i := range rows {
-		rows[i] = ptrs[i*n : (i+1)*n]
-		if i > 0 {
-			rows[0][i], rows[i][0] = bigOne, bigOne
-			copy(rows[i][1:], e[i-1])
-		}
-	}
-	rows[0][0] = zeroInt
-	d, err := exact.DetInts(rows)
-	if err != nil {
-		panic("geom: " + err.Error()) // square by construction
-	}
-	return ratFrac(d, new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil))
+	return s.cmReduced() // cayley.go: the border eliminated first
 }
 
 // CayleyMengerDet returns the determinant of the Cayley–Menger matrix
