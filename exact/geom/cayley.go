@@ -46,11 +46,17 @@ package geom
 //
 //	det CM = −det(−M) = (−1)^(k+1) det M.
 //
-// M is formed from the squared distances alone (here the integers s·d_ij
-// of scaledEdges, so det CM = (−1)^(k+1) det(sM)/s^k), never read from
-// the Gram matrix whose determinant VolumeSq takes; for points the two
-// agree, sM = 2g, which is what the identity 288 V² = det CM checks, by
-// two determinant algorithms on two matrices built two ways.
+// M is formed from the squared distances (here the integers s·d_ij of
+// scaledEdges, so det CM = (−1)^(k+1) det(sM)/s^k). For points those are
+// themselves formed from the scaled Gram matrix g (s·d_ij = g_ii + g_jj −
+// 2 g_ij), so sM = 2g entry for entry: the value is exactly the
+// Cayley–Menger determinant, but it is not computed independently of g.
+// What keeps a notebook's 288 V² = det CM a cross-check of this code is
+// VolumeSq's route: for a word tetrahedron (k = n <= 3) it squares the
+// determinant of the edge vectors E (edet), so the identity compares
+// det(E)² with det(E·Eᵀ); for other simplices both sides are determinants
+// of g, by different eliminations. The tests hold this route against the
+// plain big.Rat determinant of the bordered matrix itself.
 
 import (
 	"math"
