@@ -9,14 +9,32 @@ import (
 
 // Args are a call's arguments matched to its parameters by name.
 type Args struct {
-	fn       string
-	args     py.Tuple // the call as it was made
-	kw       py.StringDict
-	names    []string
-	values   []py.Object
+	fn    string
+	args  py.Tuple // the call as it was made
+	kw    py.StringDict
+	names []string
+	// The value of parameter i is inline[i], or more[i-inlineArgs] past
+	// those: a builtin of a few parameters, called once a sample in a
+	// sweep, is bound without making a slice.
+	inline   [inlineArgs]py.Object
+	more     []py.Object
 	rest     py.Tuple      // positional arguments beyond the named ones, with a "*name" parameter
 	keywords py.StringDict // keywords no parameter names, with a "**name" parameter
 }
+
+// inlineArgs is how many parameter values an Args holds in itself.
+const inlineArgs = 4
+
+// slot is where the value of parameter i is kept.
+func (a *Args) slot(i int) *py.Object {
+	if i < inlineArgs {
+		return &a.inline[i]
+	}
+	return &a.more[i-inlineArgs]
+}
+
+// value is the value of parameter i, nil when it was not given.
+func (a *Args) value(i int) py.Object { return *a.slot(i) }
 
 // Signature is a builtin's parameter list read once, so that binding a
 // call (once a sample in a sweep) does not parse it again.
@@ -65,7 +83,9 @@ func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, e
 func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 	fn := s.fn
 	a := Args{fn: fn, args: args, kw: kw, names: s.names}
-	a.values = make([]py.Object, len(a.names))
+	if n := len(a.names); n > inlineArgs {
+		a.more = make([]py.Object, n-inlineArgs)
+	}
 	if len(args) > len(a.names) {
 		if !s.star {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() takes at most %d arguments (%d given)", fn, len(a.names), len(args))
@@ -73,7 +93,9 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 		a.rest = args[len(a.names):]
 		args = args[:len(a.names)]
 	}
-	copy(a.values, args)
+	for i, v := range args {
+		*a.slot(i) = v
+	}
 	named := 0 // keywords that name a parameter
 	if len(kw) > 0 {
 		for i, name := range a.names {
@@ -82,10 +104,10 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 				continue
 			}
 			named++
-			if a.values[i] != nil {
+			if a.value(i) != nil {
 				return Args{}, py.ExceptionNewf(py.TypeError, "%s() got two values for %q", fn, name)
 			}
-			a.values[i] = v
+			*a.slot(i) = v
 		}
 	}
 	if named < len(kw) {
@@ -103,7 +125,7 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 		}
 	}
 	for i, name := range a.names {
-		if s.required&(1<<i) != 0 && a.values[i] == nil {
+		if s.required&(1<<i) != 0 && a.value(i) == nil {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() is missing its argument %q", fn, name)
 		}
 	}
@@ -144,9 +166,9 @@ func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
 		return out
 	}
 	m.args, m.kw, m.rest, m.keywords = tuple(a.args), dict(a.kw), tuple(a.rest), dict(a.keywords)
-	m.values = make([]py.Object, len(a.values))
-	for i, o := range a.values {
-		m.values[i] = one(o)
+	m.more = make([]py.Object, len(a.more))
+	for i := range a.names {
+		*m.slot(i) = one(a.value(i))
 	}
 	return m, err
 }
@@ -173,7 +195,7 @@ func (a Args) Get(name string) py.Object {
 	if i < 0 {
 		panic(fmt.Sprintf("%s() has no parameter %q", a.fn, name))
 	}
-	return a.values[i]
+	return a.value(i)
 }
 
 // Has reports whether the argument was given (None counts as given).

@@ -182,9 +182,9 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 		given = &claim.GivenTally{}
 	}
 	var failed *claim.SweepError
-	g, f := newCaller(fam.g), newCaller(fam.f)
+	g, f := interp.NewCaller(fam.g), interp.NewCaller(fam.f)
 	done, _ := s.forShare(a, sh, func(k int64) error {
-		sample, err := g.call(py.Int(k))
+		sample, err := g.Call(py.Int(k))
 		if err != nil {
 			failed = &claim.SweepError{K: k, Type: "ValueError", Message: fmt.Sprintf("the sample generator raised at sample %d: %s", k, interp.Message(err))}
 			return err
@@ -203,7 +203,7 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 			}
 			given.Met++
 		}
-		res, err := f.call(sample)
+		res, err := f.Call(sample)
 		if err != nil {
 			raised(k, interp.Message(err))
 			return nil
@@ -224,34 +224,6 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 		return err
 	})
 	return done, given, failed
-}
-
-// caller calls a function of one argument once a sample. Notebook code
-// (a py.Function) copies its arguments into its frame and keeps no hold
-// of the tuple they came in (gpython's vm.EvalCode; *args gets a tuple of
-// its own), so one tuple serves every sample; a builtin might keep the
-// tuple, and gets a fresh one each call.
-type caller struct {
-	fn   py.Object
-	args py.Tuple // nil unless fn is notebook code
-}
-
-func newCaller(fn py.Object) caller {
-	c := caller{fn: fn}
-	if _, code := fn.(*py.Function); code {
-		c.args = make(py.Tuple, 1)
-	}
-	return c
-}
-
-func (c caller) call(x py.Object) (py.Object, error) {
-	if c.args == nil {
-		return py.Call(c.fn, py.Tuple{x}, nil)
-	}
-	c.args[0] = x
-	res, err := py.Call(c.fn, c.args, nil)
-	c.args[0] = nil // hold no sample past its call
-	return res, err
 }
 
 // zero reports whether o is the exact number 0.
