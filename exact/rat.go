@@ -179,8 +179,11 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 	}
 	block := make([]big.Word, len(xs)+len(ds)+1)
 	num, den := block[:len(xs):len(xs)], block[len(xs):]
+	if g == 1 {
+		copy(num, xs)
+	}
 	r = 0
-	for i := len(xs) - 1; i >= 0; i-- { // exact: g divides n
+	for i := len(xs) - 1; i >= 0 && g != 1; i-- { // exact: g divides n
 		var q uint64
 		q, r = bits.Div64(r, uint64(xs[i]), g)
 		num[i] = big.Word(q)

@@ -20,6 +20,12 @@ type Args struct {
 	more     []py.Object
 	rest     py.Tuple      // positional arguments beyond the named ones, with a "*name" parameter
 	keywords py.StringDict // keywords no parameter names, with a "**name" parameter
+	// A call bound off the interpreter's value stack (bindStack, calls.go)
+	// has no tuple or dictionary of its own: Call makes them from the
+	// values, the first npos positional and those in byKeyword by keyword.
+	stacked   bool
+	npos      int
+	byKeyword uint64
 }
 
 // inlineArgs is how many parameter values an Args holds in itself.
@@ -133,12 +139,30 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 }
 
 // Call is the call's arguments as they were given, to pass them on.
-func (a Args) Call() (py.Tuple, py.StringDict) { return a.args, a.kw }
+func (a *Args) Call() (py.Tuple, py.StringDict) {
+	if !a.stacked {
+		return a.args, a.kw
+	}
+	args := make(py.Tuple, a.npos)
+	for i := range args {
+		args[i] = a.value(i)
+	}
+	var kw py.StringDict
+	if a.byKeyword != 0 {
+		kw = py.StringDict{}
+		for i, name := range a.names {
+			if a.byKeyword&(1<<i) != 0 {
+				kw[name] = a.value(i)
+			}
+		}
+	}
+	return args, kw
+}
 
 // Map is the call with f applied to every argument given (None and
 // absent ones stay): the same reading, other values.
-func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
-	m := a
+func (a *Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
+	m := *a // a copy: the same reading, its own values
 	var err error
 	one := func(o py.Object) py.Object {
 		if o == nil || o == py.None || err != nil {
@@ -165,7 +189,9 @@ func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
 		}
 		return out
 	}
-	m.args, m.kw, m.rest, m.keywords = tuple(a.args), dict(a.kw), tuple(a.rest), dict(a.keywords)
+	args, kw := a.Call()
+	m.args, m.kw, m.rest, m.keywords = tuple(args), dict(kw), tuple(a.rest), dict(a.keywords)
+	m.stacked, m.byKeyword = false, 0
 	m.more = make([]py.Object, len(a.more))
 	for i := range a.names {
 		*m.slot(i) = one(a.value(i))
@@ -174,12 +200,12 @@ func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
 }
 
 // Rest is the positional arguments a "*name" parameter took.
-func (a Args) Rest() py.Tuple { return a.rest }
+func (a *Args) Rest() py.Tuple { return a.rest }
 
 // Keywords is the keyword arguments a "**name" parameter took.
-func (a Args) Keywords() py.StringDict { return a.keywords }
+func (a *Args) Keywords() py.StringDict { return a.keywords }
 
-func (a Args) index(name string) int {
+func (a *Args) index(name string) int {
 	for i, n := range a.names {
 		if n == name {
 			return i
@@ -190,7 +216,7 @@ func (a Args) index(name string) int {
 
 // Get is the argument of that name, or nil when it was not given.
 // Asking for a name the signature lacks is a fault in assay.
-func (a Args) Get(name string) py.Object {
+func (a *Args) Get(name string) py.Object {
 	i := a.index(name)
 	if i < 0 {
 		panic(fmt.Sprintf("%s() has no parameter %q", a.fn, name))
@@ -199,31 +225,31 @@ func (a Args) Get(name string) py.Object {
 }
 
 // Has reports whether the argument was given (None counts as given).
-func (a Args) Has(name string) bool { return a.Get(name) != nil }
+func (a *Args) Has(name string) bool { return a.Get(name) != nil }
 
 // Given reports whether the argument was given and is not None.
-func (a Args) Given(name string) bool {
+func (a *Args) Given(name string) bool {
 	o := a.Get(name)
 	return o != nil && o != py.None
 }
 
 // Int reads an integer argument, def when it is absent or None.
-func (a Args) Int(name string, def int64) (int64, error) {
+func (a *Args) Int(name string, def int64) (int64, error) {
 	return Int(a.fn, name, a.Get(name), def)
 }
 
 // String reads a string argument that must be given.
-func (a Args) String(name string) (string, error) {
+func (a *Args) String(name string) (string, error) {
 	return String(a.fn, name, a.Get(name))
 }
 
 // Bool reads True or False, def when it is absent; None is refused.
-func (a Args) Bool(name string, def bool) (bool, error) {
+func (a *Args) Bool(name string, def bool) (bool, error) {
 	return Bool(a.fn, name, a.Get(name), def)
 }
 
 // Text is str() of the argument, def when it is absent or None.
-func (a Args) Text(name, def string) string {
+func (a *Args) Text(name, def string) string {
 	o := a.Get(name)
 	if o == nil || o == py.None {
 		return def

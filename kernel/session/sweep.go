@@ -38,9 +38,45 @@ package session
 // than walked; the guard's label is made once; g and f, when notebook
 // code, get one argument tuple for the whole sweep (caller); random_simplex
 // draws its one word without making a generator (values.Env.Word); the
-// zero residual's text is formatted once. What is left of the
-// interpreter's share is gpython's own frames (NewFrame, its locals
-// dictionary), and most of the time is the geometry in exact/geom.
+// zero residual's text is formatted once.
+//
+// The interpreter's and the claim's share of a sample (issue 20, December
+// 2026): everything but the geometry — calling g and f, binding
+// random_simplex's keywords, wrapping the simplex, t.volume_sq(),
+// cayley_menger(t), / 288, the tuple, the comparison, the tally. CPU
+// profiles of BenchmarkExactSampledIdentity on one CPU, the samples under
+// Session.sweep outside exact/geom (outside exact: the / 288 left out);
+// the benchmark's processor time a sample, go test -c binaries of main and
+// this change alternated, each round started when at most two tasks were
+// runnable (the machine is shared; best six of 16–20 rounds), the
+// reference in the same rounds:
+//
+//	                         outside geom     outside exact    a sample        allocations, bytes
+//	before                   27% (~3.3 µs)    25% (~3.1 µs)    12.0–13.2 µs    115.6, 7,690
+//	after                    16% (~1.7 µs)    14% (~1.5 µs)    10.7–11.8 µs    92.4, 6,145
+//	reference, tet (FLINT)                                     10.0–10.5 µs
+//
+// (µs = share × best time; a profile on a loaded moment gave 3.9 µs and
+// 2.2 µs.) BenchmarkSampledCallPath, the same notebook on segments, whose
+// geometry is a few word operations: 5.5–5.9 µs a sample before, 4.0–4.4
+// after; 78.7 allocations and 3,633 bytes a sample before, 56.3 and 2,124
+// after.
+//
+// What was cut: f and g run in one frame reused call after call
+// (interp.Caller: no frame, value stack or locals made per call); builtins
+// are called with their arguments bound straight off the interpreter's
+// value stack (interp.Builtin: no keyword dictionary, no look-up per
+// parameter; 0.4 µs of the 1.5 µs cut on segments); a rational over a
+// machine integer makes no rational of the divisor, finds its session's
+// arithmetic on the operand rather than through a traceback entry, and is
+// reduced word by word into one block (exact.QuoInt); methods without
+// parameters get no keyword dictionary (interp.PositionalMethod);
+// arguments are bound into Args itself; a sampled identity's tally makes
+// a sample's record only when it becomes the worst, and a zero residual
+// is one shared value.
+// What is left is gpython's own: the machine state of each frame
+// (vm.RunFrame), tuples boxed as values, a bound method per attribute
+// call, two map look-ups per global name.
 
 import (
 	"fmt"

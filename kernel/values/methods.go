@@ -47,14 +47,7 @@ type builtin struct {
 // setBuiltins puts a builtin table into b.
 func setBuiltins(b py.StringDict, table []builtin) {
 	for _, f := range table {
-		sig := interp.NewSignature(f.name, f.params...)
-		b[f.name] = interp.Func(f.name, f.doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-			a, err := sig.Bind(args, kw)
-			if err != nil {
-				return nil, err
-			}
-			return f.fn(a)
-		})
+		b[f.name] = interp.Builtin(f.name, f.doc, interp.NewSignature(f.name, f.params...), f.fn)
 	}
 }
 
