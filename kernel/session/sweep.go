@@ -43,24 +43,25 @@ package session
 // The interpreter's and the claim's share of a sample (issue 20, December
 // 2026): everything but the geometry — calling g and f, binding
 // random_simplex's keywords, wrapping the simplex, t.volume_sq(),
-// cayley_menger(t), / 288, the tuple, the comparison, the tally. CPU
-// profiles of BenchmarkExactSampledIdentity on one CPU, the samples under
-// Session.sweep outside exact/geom (outside exact: the / 288 left out);
-// the benchmark's processor time a sample, go test -c binaries of main and
+// cayley_menger(t), / 288, the tuple, the comparison, the tally. Its share
+// is the CPU samples under Session.sweep outside exact/geom (or outside
+// exact, which leaves out the / 288) in profiles of
+// BenchmarkExactSampledIdentity on one CPU, two profiles each; a sample's
+// time is the benchmark's processor time, go test -c binaries of main and
 // this change alternated, each round started when at most two tasks were
-// runnable (the machine is shared; best six of 16–20 rounds), the
-// reference in the same rounds:
+// runnable (the machine is shared), best six of 20 rounds, the reference
+// in the same rounds; µs = share × best time:
 //
-//	                         outside geom     outside exact    a sample        allocations, bytes
-//	before                   27% (~3.3 µs)    25% (~3.1 µs)    12.0–13.2 µs    115.6, 7,690
-//	after                    16% (~1.7 µs)    14% (~1.5 µs)    10.7–11.8 µs    92.4, 6,145
-//	reference, tet (FLINT)                                     10.0–10.5 µs
+//	                        outside geom           outside exact          a sample        allocations, bytes
+//	before                  27–31% (3.4–3.9 µs)    25–29% (3.1–3.6 µs)    12.5–13.5 µs    115.6, 7,690
+//	after                   17–19% (1.7–1.9 µs)    15–17% (1.5–1.8 µs)    10.3–11.8 µs    92.4, 6,145
+//	reference, tet (FLINT)                                                9.9–10.5 µs
 //
-// (µs = share × best time; a profile on a loaded moment gave 3.9 µs and
-// 2.2 µs.) BenchmarkSampledCallPath, the same notebook on segments, whose
-// geometry is a few word operations: 5.5–5.9 µs a sample before, 4.0–4.4
-// after; 78.7 allocations and 3,633 bytes a sample before, 56.3 and 2,124
-// after.
+// (The profiled runs themselves ran at 12.3–13.8 µs a sample, which puts
+// the share at 3.5–4.2 µs before and 2.0–2.4 µs after.)
+// BenchmarkSampledCallPath, the same notebook on segments, whose geometry
+// is a few word operations: 5.4–6.1 µs a sample before, 4.0–4.5 after;
+// 78.7 allocations and 3,633 bytes a sample before, 56.3 and 2,124 after.
 //
 // What was cut: f and g run in one frame reused call after call
 // (interp.Caller: no frame, value stack or locals made per call); builtins
