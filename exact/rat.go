@@ -128,41 +128,83 @@ func Quo(a, b *big.Rat) (*big.Rat, error) {
 	if b.Sign() == 0 {
 		return nil, fmt.Errorf("%s / 0: %w", FormatRat(a), ErrDivisionByZero)
 	}
-	if z := quoWord(a, b); z != nil {
-		return z, nil
+	if b.IsInt() && b.Num().IsInt64() {
+		if z := quoWord(a, b.Num().Int64()); z != nil {
+			return z, nil
+		}
 	}
 	return new(big.Rat).Quo(a, b), nil
 }
 
-// quoWord returns x/y for a non-zero integer y of one word (nil for any
-// other y) with one word gcd: x is in lowest terms, so with g = gcd(num,
-// |y|), num/g is coprime to den·|y|/g. big.Rat.Quo would reduce the
-// whole product in math/big (a division by 288 in the Cayley–Menger
-// volume was 8% of BenchmarkExactSampledIdentity).
-func quoWord(x, y *big.Rat) *big.Rat {
-	if !y.IsInt() || !y.Num().IsInt64() || bits.UintSize != 64 {
+// QuoInt returns a/w as a new value, or ErrDivisionByZero if w is zero:
+// Quo for a divisor that is a machine integer, with no big.Rat made of it
+// (a notebook's cayley_menger(t) / 288).
+func QuoInt(a *big.Rat, w int64) (*big.Rat, error) {
+	if w == 0 {
+		return nil, fmt.Errorf("%s / 0: %w", FormatRat(a), ErrDivisionByZero)
+	}
+	if z := quoWord(a, w); z != nil {
+		return z, nil
+	}
+	return new(big.Rat).Quo(a, new(big.Rat).SetInt64(w)), nil
+}
+
+// quoWord returns x/w for w != 0 (nil where a word is not 64 bits) with
+// one word gcd: x = n/d is in lowest terms, so with g = gcd(|n|, |w|),
+// n/g is coprime to d·|w|/g. big.Rat.Quo would reduce the whole product
+// in math/big (a division by 288 in the Cayley–Menger volume was 8% of
+// BenchmarkExactSampledIdentity). n/g and d·|w|/g are written word by
+// word into one new block, so the result costs the Rat, that block and
+// one word (Rat.Inv below); math/big's Quo and Mul took some nine
+// allocations.
+func quoWord(x *big.Rat, w int64) *big.Rat {
+	if bits.UintSize != 64 {
 		return nil
 	}
-	w := y.Num().Int64()
-	u := uint64(w)
-	if w < 0 {
-		u = -u
+	if x.Sign() == 0 {
+		return new(big.Rat)
 	}
-	var r uint64 // |num| mod u, from the top word down
+	u := absU64(w)
 	xs := x.Num().Bits()
+	var r uint64 // |n| mod u, from the top word down
 	for i := len(xs) - 1; i >= 0; i-- {
 		_, r = bits.Div64(r, uint64(xs[i]), u)
 	}
 	g := gcdU64(u, r)
-	z := new(big.Rat).SetInt64(1) // so that Denom is a reference
-	num, den := z.Num(), z.Denom()
-	num.Set(x.Num())
-	if g != 1 {
-		num.Quo(num, new(big.Int).SetUint64(g))
+	m := u / g // the factor the denominator takes
+	one := []big.Word{1}
+	ds := one
+	if !x.IsInt() {
+		ds = x.Denom().Bits() // a reference: x's denominator is not 1
 	}
-	den.Mul(x.Denom(), new(big.Int).SetUint64(u/g))
-	if w < 0 {
-		num.Neg(num)
+	block := make([]big.Word, len(xs)+len(ds)+1)
+	num, den := block[:len(xs):len(xs)], block[len(xs):]
+	if g == 1 {
+		copy(num, xs)
+	}
+	r = 0
+	for i := len(xs) - 1; i >= 0 && g != 1; i-- { // exact: g divides n
+		var q uint64
+		q, r = bits.Div64(r, uint64(xs[i]), g)
+		num[i] = big.Word(q)
+	}
+	var carry uint64
+	for i, d := range ds {
+		hi, lo := bits.Mul64(uint64(d), m)
+		var c uint64
+		lo, c = bits.Add64(lo, carry, 0)
+		den[i], carry = big.Word(lo), hi+c
+	}
+	den[len(ds)] = big.Word(carry)
+	// A Rat's denominator can be set only through Denom's reference,
+	// which a new Rat does not give: set the numerator to the
+	// denominator, and invert.
+	z := new(big.Rat)
+	z.Num().SetBits(den)
+	z.Inv(z)
+	z.Num().SetBits(num)
+	if (x.Sign() < 0) != (w < 0) {
+		z.Num().Neg(z.Num())
 	}
 	return z
 }

@@ -1,43 +1,62 @@
 package exact
 
 import (
+	"errors"
 	"math"
 	"math/big"
 	"math/rand"
 	"testing"
 )
 
-// quoWord agrees with math/big's Rat.Quo (the reference) on numerators of
-// one to five words, both signs, and one-word divisors up to MinInt64;
-// it declines divisors that are not one-word integers.
+// quoWord, through Quo and QuoInt, agrees with math/big's Rat.Quo (the
+// reference) on numerators of one to five words, both signs, integers
+// among them, zero, and one-word divisors up to MinInt64, each result in
+// lowest terms with a positive denominator; Quo takes math/big's route
+// for divisors that are not one-word integers.
 func TestQuoWordMatchesBig(t *testing.T) {
 	rng := rand.New(rand.NewSource(7))
 	divs := []int64{1, -1, 2, 288, -288, 1 << 40, math.MaxInt64, math.MinInt64}
 	for range 200 {
 		divs = append(divs, int64(rng.Uint64()>>uint(rng.Intn(64))))
 	}
+	xs := []*big.Rat{new(big.Rat), big.NewRat(1, 1), big.NewRat(-288, 1), big.NewRat(576, 7),
+		new(big.Rat).SetInt64(math.MinInt64), new(big.Rat).SetFrac(new(big.Int).Lsh(big.NewInt(3), 130), big.NewInt(5))}
 	for rep := range 400 {
 		num := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(1+rng.Intn(320))))
 		if rep%2 == 1 {
 			num.Neg(num)
 		}
-		den := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(1+rng.Intn(200))))
-		den.Add(den, big.NewInt(1))
-		x := new(big.Rat).SetFrac(num, den)
+		den := big.NewInt(1) // every fourth an integer
+		if rep%4 > 1 {
+			den.Rand(rng, new(big.Int).Lsh(big.NewInt(1), uint(1+rng.Intn(200))))
+			den.Add(den, big.NewInt(1))
+		}
+		xs = append(xs, new(big.Rat).SetFrac(num, den))
+	}
+	for _, x := range xs {
+		before := new(big.Rat).Set(x)
 		for _, d := range divs {
 			if d == 0 {
 				continue
 			}
 			y := new(big.Rat).SetInt64(d)
-			got, want := quoWord(x, y), new(big.Rat).Quo(x, y)
-			if got == nil || got.Cmp(want) != 0 || got.Denom().Cmp(want.Denom()) != 0 {
-				t.Fatalf("%s / %d = %v, want %s", x.RatString(), d, got, want.RatString())
+			want := new(big.Rat).Quo(x, y)
+			for route, got := range []*big.Rat{must(Quo(x, y)), must(QuoInt(x, d))} {
+				if got.Cmp(want) != 0 || got.Denom().Cmp(want.Denom()) != 0 || got.Denom().Sign() <= 0 {
+					t.Fatalf("route %d: %s / %d = %s, want %s", route, x.RatString(), d, got.RatString(), want.RatString())
+				}
 			}
+		}
+		if x.Cmp(before) != 0 {
+			t.Fatalf("the division changed its dividend %s to %s", before.RatString(), x.RatString())
 		}
 	}
 	for _, y := range []*big.Rat{big.NewRat(1, 2), new(big.Rat).SetInt(new(big.Int).Lsh(big.NewInt(1), 64))} {
-		if quoWord(big.NewRat(3, 5), y) != nil {
-			t.Errorf("quoWord took %s", y.RatString())
+		if got := must(Quo(big.NewRat(3, 5), y)); got.Cmp(new(big.Rat).Quo(big.NewRat(3, 5), y)) != 0 {
+			t.Errorf("3/5 / %s = %s", y.RatString(), got.RatString())
 		}
+	}
+	if _, err := QuoInt(big.NewRat(3, 5), 0); !errors.Is(err, ErrDivisionByZero) {
+		t.Errorf("QuoInt(3/5, 0) error = %v, want ErrDivisionByZero", err)
 	}
 }

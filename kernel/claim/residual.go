@@ -44,7 +44,7 @@ func BitsForDigits(n int64) uint { return uint(float64(n)/log10of2) + 1 }
 type Residual struct {
 	Text     string   // printed residual
 	TeX      string   // the residual in LaTeX, for the HTML report ("" when it has no typeset form)
-	Size     *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials
+	Size     *big.Rat // how large: |residual|, an upper bound for reals, the term count for polynomials; read only (may be shared)
 	Zero     bool     // exactly zero
 	Symbolic bool     // a polynomial difference: zero proves the identity for all values
 	Real     bool     // decided by interval arithmetic
@@ -74,12 +74,9 @@ func Exact(d *big.Rat) Residual {
 }
 
 // Zero is the residual of sides that agree exactly. A sweep makes one a
-// sample, so its text is formatted once (zeroResidual), not each time.
-func Zero() Residual {
-	r := zeroResidual
-	r.Size = new(big.Rat) // each its own: a caller may keep it
-	return r
-}
+// sample, so it is made once (zeroResidual), its size shared: a
+// residual's size is read, never written.
+func Zero() Residual { return zeroResidual }
 
 var zeroResidual = Exact(new(big.Rat))
 

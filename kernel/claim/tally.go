@@ -271,9 +271,16 @@ func (t *IdentityTally) merge(o *IdentityTally) {
 	t.Skip = first(t.Skip, o.Skip)
 }
 
-// Add records one sample's residual.
+// Add records one sample's residual. Its record is made only when it
+// becomes the worst, as merging a one-sample tally would keep it (a
+// record a sample was most of the tally's allocation).
 func (t *IdentityTally) Add(k int64, r Residual) {
-	t.merge(&IdentityTally{Worst: sampleResidual(k, r), Symbolic: r.Symbolic, Real: r.Real, Algebraic: r.Zero && r.Algebraic})
+	if t.Worst == nil || worse(k, r, t.Worst) {
+		t.Worst = sampleResidual(k, r)
+	}
+	t.Symbolic = t.Symbolic || r.Symbolic
+	t.Real = t.Real || r.Real
+	t.Algebraic = t.Algebraic || r.Zero && r.Algebraic
 	if r.Failing() {
 		t.Failing++
 	}
@@ -314,14 +321,24 @@ func (s *SampleResidual) unsized() Residual {
 
 // worseThan orders residuals as Worst does, the lower index first on ties.
 func (s *SampleResidual) worseThan(o *SampleResidual) bool {
-	a, b := s.unsized(), o.unsized()
-	if a.rank() == 3 && b.rank() == 3 {
-		a, b = s.Residual(), o.Residual()
+	a := s.unsized()
+	if a.rank() == 3 && o.unsized().rank() == 3 {
+		a = s.Residual()
 	}
-	if c := Compare(a, b); c != 0 {
+	return worse(s.K, a, o)
+}
+
+// worse is worseThan for the residual r of sample k, not yet recorded;
+// r's size is read only when both fail, as Compare reads it only then.
+func worse(k int64, r Residual, o *SampleResidual) bool {
+	b := o.unsized()
+	if r.rank() == 3 && b.rank() == 3 {
+		b = o.Residual()
+	}
+	if c := Compare(r, b); c != 0 {
 		return c > 0
 	}
-	return s.K < o.K
+	return k < o.K
 }
 
 func (t *InequalityTally) merge(o *InequalityTally) {

@@ -18,6 +18,7 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 	r := rand.New(rand.NewPCG(3, 4))
 	const n = 200
 	per := make([]Tally, n)
+	seq := &IdentityTally{} // the same residuals added to one tally, in order
 	for k := range per {
 		size := big.NewRat(int64(r.IntN(4)), 1)
 		res := Residual{Text: fmt.Sprint("r", k), Size: size, Zero: size.Sign() == 0}
@@ -30,7 +31,10 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 		}
 		it := &IdentityTally{}
 		it.Add(int64(k), res)
-		it.AddAudit(int64(k), cells.FloatAudit{DigitsLost: float64(r.IntN(3))})
+		audit := cells.FloatAudit{DigitsLost: float64(r.IntN(3))}
+		it.AddAudit(int64(k), audit)
+		seq.Add(int64(k), res)
+		seq.AddAudit(int64(k), audit)
 		verdicts := []cells.Verdict{cells.Holds, cells.Fails, cells.Undecided}
 		sl := SampleSlack{K: int64(k), Lo: fmt.Sprint(r.IntN(7) - 2), Rel: fmt.Sprintf("%d/7", r.IntN(5)-2), Verdict: verdicts[r.IntN(3)]}
 		given := &GivenTally{Met: 1}
@@ -58,6 +62,11 @@ func TestTallyMergeIsOrderFree(t *testing.T) {
 		t.Errorf("worst sample %d, want the first of the worst, %d", want.Identity.Worst.K, first)
 	}
 	wantJSON, _ := json.Marshal(want)
+	// Add, which records a residual only when it becomes the worst, keeps
+	// what merging the one-sample tallies keeps.
+	if seqJSON, wantIdentity := must(json.Marshal(seq)), must(json.Marshal(want.Identity)); !bytes.Equal(seqJSON, wantIdentity) {
+		t.Errorf("samples added in order:\n%s\nmerged:\n%s", seqJSON, wantIdentity)
+	}
 	for trial := 0; trial < 50; trial++ {
 		groups := make([]Tally, 1+r.IntN(6))
 		for _, k := range r.Perm(n) {
@@ -91,4 +100,11 @@ func TestSampleResidualSize(t *testing.T) {
 			t.Errorf("%v: size %q, want %q", q, s.Size, want)
 		}
 	}
+}
+
+func must[T any](v T, err error) T {
+	if err != nil {
+		panic(err)
+	}
+	return v
 }

@@ -9,14 +9,38 @@ import (
 
 // Args are a call's arguments matched to its parameters by name.
 type Args struct {
-	fn       string
-	args     py.Tuple // the call as it was made
-	kw       py.StringDict
-	names    []string
-	values   []py.Object
+	fn    string
+	args  py.Tuple // the call as it was made
+	kw    py.StringDict
+	names []string
+	// The value of parameter i is inline[i], or more[i-inlineArgs] past
+	// those: a builtin of a few parameters, called once a sample in a
+	// sweep, is bound without making a slice.
+	inline   [inlineArgs]py.Object
+	more     []py.Object
 	rest     py.Tuple      // positional arguments beyond the named ones, with a "*name" parameter
 	keywords py.StringDict // keywords no parameter names, with a "**name" parameter
+	// A call bound off the interpreter's value stack (bindStack, calls.go)
+	// has no tuple or dictionary of its own: Call makes them from the
+	// values, the first npos positional and those in byKeyword by keyword.
+	stacked   bool
+	npos      int
+	byKeyword uint64
 }
+
+// inlineArgs is how many parameter values an Args holds in itself.
+const inlineArgs = 4
+
+// slot is where the value of parameter i is kept.
+func (a *Args) slot(i int) *py.Object {
+	if i < inlineArgs {
+		return &a.inline[i]
+	}
+	return &a.more[i-inlineArgs]
+}
+
+// value is the value of parameter i, nil when it was not given.
+func (a *Args) value(i int) py.Object { return *a.slot(i) }
 
 // Signature is a builtin's parameter list read once, so that binding a
 // call (once a sample in a sweep) does not parse it again.
@@ -65,7 +89,9 @@ func Bind(fn string, args py.Tuple, kw py.StringDict, params ...string) (Args, e
 func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 	fn := s.fn
 	a := Args{fn: fn, args: args, kw: kw, names: s.names}
-	a.values = make([]py.Object, len(a.names))
+	if n := len(a.names); n > inlineArgs {
+		a.more = make([]py.Object, n-inlineArgs)
+	}
 	if len(args) > len(a.names) {
 		if !s.star {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() takes at most %d arguments (%d given)", fn, len(a.names), len(args))
@@ -73,7 +99,9 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 		a.rest = args[len(a.names):]
 		args = args[:len(a.names)]
 	}
-	copy(a.values, args)
+	for i, v := range args {
+		*a.slot(i) = v
+	}
 	named := 0 // keywords that name a parameter
 	if len(kw) > 0 {
 		for i, name := range a.names {
@@ -82,10 +110,10 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 				continue
 			}
 			named++
-			if a.values[i] != nil {
+			if a.value(i) != nil {
 				return Args{}, py.ExceptionNewf(py.TypeError, "%s() got two values for %q", fn, name)
 			}
-			a.values[i] = v
+			*a.slot(i) = v
 		}
 	}
 	if named < len(kw) {
@@ -103,7 +131,7 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 		}
 	}
 	for i, name := range a.names {
-		if s.required&(1<<i) != 0 && a.values[i] == nil {
+		if s.required&(1<<i) != 0 && a.value(i) == nil {
 			return Args{}, py.ExceptionNewf(py.TypeError, "%s() is missing its argument %q", fn, name)
 		}
 	}
@@ -111,12 +139,30 @@ func (s *Signature) Bind(args py.Tuple, kw py.StringDict) (Args, error) {
 }
 
 // Call is the call's arguments as they were given, to pass them on.
-func (a Args) Call() (py.Tuple, py.StringDict) { return a.args, a.kw }
+func (a *Args) Call() (py.Tuple, py.StringDict) {
+	if !a.stacked {
+		return a.args, a.kw
+	}
+	args := make(py.Tuple, a.npos)
+	for i := range args {
+		args[i] = a.value(i)
+	}
+	var kw py.StringDict
+	if a.byKeyword != 0 {
+		kw = py.StringDict{}
+		for i, name := range a.names {
+			if a.byKeyword&(1<<i) != 0 {
+				kw[name] = a.value(i)
+			}
+		}
+	}
+	return args, kw
+}
 
 // Map is the call with f applied to every argument given (None and
 // absent ones stay): the same reading, other values.
-func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
-	m := a
+func (a *Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
+	m := *a // a copy: the same reading, its own values
 	var err error
 	one := func(o py.Object) py.Object {
 		if o == nil || o == py.None || err != nil {
@@ -143,21 +189,23 @@ func (a Args) Map(f func(py.Object) (py.Object, error)) (Args, error) {
 		}
 		return out
 	}
-	m.args, m.kw, m.rest, m.keywords = tuple(a.args), dict(a.kw), tuple(a.rest), dict(a.keywords)
-	m.values = make([]py.Object, len(a.values))
-	for i, o := range a.values {
-		m.values[i] = one(o)
+	args, kw := a.Call()
+	m.args, m.kw, m.rest, m.keywords = tuple(args), dict(kw), tuple(a.rest), dict(a.keywords)
+	m.stacked, m.byKeyword = false, 0
+	m.more = make([]py.Object, len(a.more))
+	for i := range a.names {
+		*m.slot(i) = one(a.value(i))
 	}
 	return m, err
 }
 
 // Rest is the positional arguments a "*name" parameter took.
-func (a Args) Rest() py.Tuple { return a.rest }
+func (a *Args) Rest() py.Tuple { return a.rest }
 
 // Keywords is the keyword arguments a "**name" parameter took.
-func (a Args) Keywords() py.StringDict { return a.keywords }
+func (a *Args) Keywords() py.StringDict { return a.keywords }
 
-func (a Args) index(name string) int {
+func (a *Args) index(name string) int {
 	for i, n := range a.names {
 		if n == name {
 			return i
@@ -168,40 +216,40 @@ func (a Args) index(name string) int {
 
 // Get is the argument of that name, or nil when it was not given.
 // Asking for a name the signature lacks is a fault in assay.
-func (a Args) Get(name string) py.Object {
+func (a *Args) Get(name string) py.Object {
 	i := a.index(name)
 	if i < 0 {
 		panic(fmt.Sprintf("%s() has no parameter %q", a.fn, name))
 	}
-	return a.values[i]
+	return a.value(i)
 }
 
 // Has reports whether the argument was given (None counts as given).
-func (a Args) Has(name string) bool { return a.Get(name) != nil }
+func (a *Args) Has(name string) bool { return a.Get(name) != nil }
 
 // Given reports whether the argument was given and is not None.
-func (a Args) Given(name string) bool {
+func (a *Args) Given(name string) bool {
 	o := a.Get(name)
 	return o != nil && o != py.None
 }
 
 // Int reads an integer argument, def when it is absent or None.
-func (a Args) Int(name string, def int64) (int64, error) {
+func (a *Args) Int(name string, def int64) (int64, error) {
 	return Int(a.fn, name, a.Get(name), def)
 }
 
 // String reads a string argument that must be given.
-func (a Args) String(name string) (string, error) {
+func (a *Args) String(name string) (string, error) {
 	return String(a.fn, name, a.Get(name))
 }
 
 // Bool reads True or False, def when it is absent; None is refused.
-func (a Args) Bool(name string, def bool) (bool, error) {
+func (a *Args) Bool(name string, def bool) (bool, error) {
 	return Bool(a.fn, name, a.Get(name), def)
 }
 
 // Text is str() of the argument, def when it is absent or None.
-func (a Args) Text(name, def string) string {
+func (a *Args) Text(name, def string) string {
 	o := a.Get(name)
 	if o == nil || o == py.None {
 		return def

@@ -24,6 +24,17 @@ func Method(name, doc string, fn func(self py.Object, args py.Tuple, kw py.Strin
 	}, 0, doc)
 }
 
+// PositionalMethod is Method for a method that takes no keyword
+// arguments: the interpreter calls Method's form with an empty keyword
+// dictionary it makes on every call, and this one with none, refusing
+// keywords itself ("volume_sq() takes no keyword arguments").
+func PositionalMethod(name, doc string, fn func(self py.Object, args py.Tuple) (py.Object, error)) *py.Method {
+	label := name + "()"
+	return py.MustNewMethod(name, func(self py.Object, args py.Tuple) (py.Object, error) {
+		return Guard(label, func() (py.Object, error) { return fn(self, args) })
+	}, 0, doc)
+}
+
 // Guard runs the Go code behind a builtin or method named name, through
 // Recover.
 func Guard(name string, fn func() (py.Object, error)) (res py.Object, err error) {

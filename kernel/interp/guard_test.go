@@ -126,6 +126,45 @@ func TestSignatureBindsEachCallApart(t *testing.T) {
 	}
 }
 
+// A signature longer than the values an Args holds in itself binds its
+// later parameters by the same rule (Python's Language Reference, 6.3.4
+// Calls), positionally and by keyword, and Map maps them all.
+func TestLongSignature(t *testing.T) {
+	names := []string{"p0", "p1", "p2", "p3", "p4", "p5", "p6="}
+	sig := NewSignature("h", names...)
+	args := py.Tuple{py.Int(0), py.Int(1), py.Int(2), py.Int(3), py.Int(4)}
+	a, err := sig.Bind(args, py.StringDict{"p5": py.Int(5)})
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, name := range names[:6] {
+		if n, err := a.Int(name, -1); err != nil || n != int64(i) {
+			t.Errorf("%s = %d, %v", name, n, err)
+		}
+	}
+	if a.Has("p6") {
+		t.Errorf("p6 bound to %v", a.Get("p6"))
+	}
+	twice, err := a.Map(func(o py.Object) (py.Object, error) { return py.Int(2 * int64(o.(py.Int))), nil })
+	if err != nil {
+		t.Fatal(err)
+	}
+	for i, name := range names[:6] {
+		if n, _ := twice.Int(name, -1); n != int64(2*i) {
+			t.Errorf("mapped %s = %d, want %d", name, n, 2*i)
+		}
+		if n, _ := a.Int(name, -1); n != int64(i) {
+			t.Errorf("Map changed %s of the call it mapped to %d", name, n)
+		}
+	}
+	if _, err := sig.Bind(args, py.StringDict{"p4": py.Int(9), "p5": py.Int(5)}); err == nil || !strings.Contains(err.Error(), `h() got two values for "p4"`) {
+		t.Errorf("p4 twice: %v", err)
+	}
+	if _, err := sig.Bind(args[:4], py.StringDict{"p4": py.Int(4)}); err == nil || !strings.Contains(err.Error(), `h() is missing its argument "p5"`) {
+		t.Errorf("p5 left out: %v", err)
+	}
+}
+
 // panicky is a value whose operator panics without a guard of its own.
 type panicky struct{}
 
@@ -138,15 +177,7 @@ func (panicky) M__add__(py.Object) (py.Object, error) { panic("lost") }
 // A panic in an instruction becomes an exception at that instruction: the
 // cell can catch it, and its line is the notebook line.
 func TestInstructionPanicsAreExceptions(t *testing.T) {
-	sb, err := NewSandbox(nil)
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer sb.Close()
-	globals, err := sb.Main()
-	if err != nil {
-		t.Fatal(err)
-	}
+	sb, globals := testSandbox(t, nil)
 	globals["p"] = panicky{}
 	code, err := Compile(1, 10, "try:\n    p + 1\nexcept RuntimeError as e:\n    caught = str(e)\np + 2\n", nil)
 	if err != nil {

@@ -1,6 +1,7 @@
 package interp
 
 import (
+	"fmt"
 	"os"
 	"strings"
 	"testing"
@@ -15,15 +16,7 @@ func TestExactArithmeticPatch(t *testing.T) {
 	if err := Ready(); err != nil {
 		t.Fatal(err)
 	}
-	sb, err := NewSandbox(probeArithmetic{})
-	if err != nil {
-		t.Fatal(err)
-	}
-	defer sb.Close()
-	globals, err := sb.Main()
-	if err != nil {
-		t.Fatal(err)
-	}
+	sb, globals := testSandbox(t, probeArithmetic{})
 	code, err := py.Compile("a = 1 / 3\nb = 3 ** -2\nx = 6\nx /= 4\nc = 1.0 / 4\nd = 2 ** 3\n", "<test>", py.ExecMode, 0, true)
 	if err != nil {
 		t.Fatal(err)
@@ -49,5 +42,44 @@ func TestPatchCheckedForGoMod(t *testing.T) {
 	}
 	if !strings.Contains(string(mod), gpythonModule+" "+gpythonChecked+"\n") {
 		t.Errorf("go.mod does not require %s %s: after an upgrade, re-check opcodes.go as DEVELOPERS.md says and raise gpythonChecked", gpythonModule, gpythonChecked)
+	}
+}
+
+// owned is a value that carries its session's arithmetic, as a notebook
+// rational does.
+type owned struct{ arith Arithmetic }
+
+var ownedType = py.NewType("owned", "")
+
+func (owned) Type() *py.Type           { return ownedType }
+func (o owned) Arithmetic() Arithmetic { return o.arith }
+func (owned) String() string           { return "o" }
+
+// markedArithmetic answers like probeArithmetic, with a mark of its own.
+type markedArithmetic struct{}
+
+func (markedArithmetic) Quotient(a, b py.Object) (py.Object, bool, error) {
+	return py.String(fmt.Sprintf("%v/%v marked", a, b)), true, nil
+}
+
+func (markedArithmetic) Power(a, b py.Object) (py.Object, bool, error) {
+	return py.String(fmt.Sprintf("%v**%v marked", a, b)), true, nil
+}
+
+// An operand that carries its arithmetic (interp.Operand) is answered by
+// it, on either side of / and **, without the frame's; int / int still
+// asks the frame's sandbox.
+func TestOperandArithmetic(t *testing.T) {
+	sb, globals := testSandbox(t, probeArithmetic{})
+	globals["o"] = owned{markedArithmetic{}}
+	code := mustCompile(t, "a = o / 288\nb = 1 / o\nc = o ** -1\nd = 7 / 2\n")
+	if _, err := sb.RunCode(code, globals, globals, nil); err != nil {
+		t.Fatal(err)
+	}
+	want := map[string]py.Object{"a": py.String("o/288 marked"), "b": py.String("1/o marked"), "c": py.String("o**-1 marked"), "d": py.String("7/2")}
+	for name, w := range want {
+		if globals[name] != w {
+			t.Errorf("%s = %v, want %v", name, globals[name], w)
+		}
 	}
 }

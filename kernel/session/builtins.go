@@ -105,14 +105,7 @@ func (s *Session) makeClaim(kind string, line int, a interp.Args, decide claimBu
 
 // bound makes a builtin that reads its arguments by name.
 func bound(name, doc string, params []string, fn func(interp.Args) (py.Object, error)) *py.Method {
-	sig := interp.NewSignature(name, params...)
-	return interp.Func(name, doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-		a, err := sig.Bind(args, kw)
-		if err != nil {
-			return nil, err
-		}
-		return fn(a)
-	})
+	return interp.Builtin(name, doc, interp.NewSignature(name, params...), fn)
 }
 
 func (s *Session) setup(a interp.Args) (py.Object, error) {

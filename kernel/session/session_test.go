@@ -336,6 +336,9 @@ func TestBuiltinsRejectBadArguments(t *testing.T) {
 		{`matrix([[1, 2], [3, 4]]).minor([0], [0, 1])`, "ValueError"},
 		{`matrix([[1, 2], [3, 4]]).submatrix([0, 5], [0])`, "ValueError"},
 		{`matrix([[1, 2], [2, 4]]).to_float().solve([1, 2])`, "singular"},
+		{`simplex([[0], [3]]).volume_sq(2)`, "takes at most 0 arguments"},
+		{`simplex([[0], [3]]).volume_sq(scale=2)`, "volume_sq() takes no keyword arguments"},
+		{`frac(9, 4) / 0`, "division by zero: 9/4 / 0"},
 	}
 	expectErrors(t, cases)
 }

@@ -38,9 +38,52 @@ package session
 // than walked; the guard's label is made once; g and f, when notebook
 // code, get one argument tuple for the whole sweep (caller); random_simplex
 // draws its one word without making a generator (values.Env.Word); the
-// zero residual's text is formatted once. What is left of the
-// interpreter's share is gpython's own frames (NewFrame, its locals
-// dictionary), and most of the time is the geometry in exact/geom.
+// zero residual's text is formatted once.
+//
+// The interpreter's and the claim's share of a sample (issue 20, December
+// 2026): everything but the geometry — calling g and f, binding
+// random_simplex's keywords, wrapping the simplex, t.volume_sq(),
+// cayley_menger(t), / 288, the tuple, the comparison, the tally. Its share
+// is the CPU samples under Session.sweep outside exact/geom (or outside
+// exact, which leaves out the / 288) in profiles of
+// BenchmarkExactSampledIdentity on one CPU, two profiles each; a sample's
+// time is the benchmark's processor time, go test -c binaries of main and
+// this change alternated, each round started when at most two tasks were
+// runnable (the machine is shared), best six of 20 rounds, the reference
+// in the same rounds; µs = share × best time:
+//
+//	                        outside geom           outside exact          a sample        allocations, bytes
+//	before                  27–31% (3.4–3.9 µs)    25–29% (3.1–3.6 µs)    12.5–13.5 µs    115.6, 7,690
+//	after                   17–19% (1.7–1.9 µs)    15–17% (1.5–1.8 µs)    10.3–11.8 µs    92.4, 6,145
+//	reference, tet (FLINT)                                                9.9–10.5 µs
+//
+// (The profiled runs themselves ran at 12.3–13.8 µs a sample, which puts
+// the share at 3.5–4.2 µs before and 2.0–2.4 µs after.)
+// With the geometry of h21a and h21b (main at 40df6a6, and a trial merge
+// of this change into it; one profile each, best six of 14 rounds): a
+// sample 5.9–6.6 µs before, 4.2–4.3 µs after (the reference 10.4–10.7 in
+// those rounds); outside geom 3.3 µs (56% of the sweep) before, 1.6 µs
+// (36%) after, outside exact 3.0 and 1.4 µs; 46.6 allocations and 3,659
+// bytes a sample before, 23.4 and 2,111 after.
+// BenchmarkSampledCallPath, the same notebook on segments, whose geometry
+// is a few word operations: 5.4–6.1 µs a sample before, 4.0–4.5 after;
+// 78.7 allocations and 3,633 bytes a sample before, 56.3 and 2,124 after.
+//
+// What was cut: f and g run in one frame reused call after call
+// (interp.Caller: no frame, value stack or locals made per call); builtins
+// are called with their arguments bound straight off the interpreter's
+// value stack (interp.Builtin: no keyword dictionary, no look-up per
+// parameter; 0.4 µs of the 1.5 µs cut on segments); a rational over a
+// machine integer makes no rational of the divisor, finds its session's
+// arithmetic on the operand rather than through a traceback entry, and is
+// reduced word by word into one block (exact.QuoInt); methods without
+// parameters get no keyword dictionary (interp.PositionalMethod);
+// arguments are bound into Args itself; a sampled identity's tally makes
+// a sample's record only when it becomes the worst, and a zero residual
+// is one shared value.
+// What is left is gpython's own: the machine state of each frame
+// (vm.RunFrame), tuples boxed as values, a bound method per attribute
+// call, two map look-ups per global name.
 
 import (
 	"fmt"
@@ -182,9 +225,9 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 		given = &claim.GivenTally{}
 	}
 	var failed *claim.SweepError
-	g, f := newCaller(fam.g), newCaller(fam.f)
+	g, f := interp.NewCaller(fam.g), interp.NewCaller(fam.f)
 	done, _ := s.forShare(a, sh, func(k int64) error {
-		sample, err := g.call(py.Int(k))
+		sample, err := g.Call(py.Int(k))
 		if err != nil {
 			failed = &claim.SweepError{K: k, Type: "ValueError", Message: fmt.Sprintf("the sample generator raised at sample %d: %s", k, interp.Message(err))}
 			return err
@@ -203,7 +246,7 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 			}
 			given.Met++
 		}
-		res, err := f.call(sample)
+		res, err := f.Call(sample)
 		if err != nil {
 			raised(k, interp.Message(err))
 			return nil
@@ -224,34 +267,6 @@ func (s *Session) sweep(a claim.Ask, sh claim.Share, fam family, raised func(k i
 		return err
 	})
 	return done, given, failed
-}
-
-// caller calls a function of one argument once a sample. Notebook code
-// (a py.Function) copies its arguments into its frame and keeps no hold
-// of the tuple they came in (gpython's vm.EvalCode; *args gets a tuple of
-// its own), so one tuple serves every sample; a builtin might keep the
-// tuple, and gets a fresh one each call.
-type caller struct {
-	fn   py.Object
-	args py.Tuple // nil unless fn is notebook code
-}
-
-func newCaller(fn py.Object) caller {
-	c := caller{fn: fn}
-	if _, code := fn.(*py.Function); code {
-		c.args = make(py.Tuple, 1)
-	}
-	return c
-}
-
-func (c caller) call(x py.Object) (py.Object, error) {
-	if c.args == nil {
-		return py.Call(c.fn, py.Tuple{x}, nil)
-	}
-	c.args[0] = x
-	res, err := py.Call(c.fn, c.args, nil)
-	c.args[0] = nil // hold no sample past its call
-	return res, err
 }
 
 // zero reports whether o is the exact number 0.

@@ -2,6 +2,9 @@ package values
 
 import (
 	"github.com/go-python/gpython/py"
+
+	"assay/exact"
+	"assay/kernel/interp"
 )
 
 // Quotient answers a / b exactly for exact numbers, where the interpreter
@@ -18,6 +21,17 @@ func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
 			return nil, true, NoCompanion("a rational function")
 		}
 		return nil, false, nil
+	}
+	if r, ok := a.(*Rational); ok && !e.Rounding {
+		if w, ok := b.(py.Int); ok && w != 0 {
+			// A rational over a machine integer (cayley_menger(t) / 288):
+			// no rational is made of the divisor.
+			q, err := exact.QuoInt(r.v, int64(w))
+			if err != nil {
+				return nil, true, err
+			}
+			return e.Rational(q), true, nil
+		}
 	}
 	x, ok1 := ExactOf(a)
 	y, ok2 := ExactOf(b)
@@ -41,6 +55,11 @@ func (e *Env) Quotient(a, b py.Object) (py.Object, bool, error) {
 	}
 	return e.Rational(q), true, nil
 }
+
+// Arithmetic is the exact / and ** of the rational's session, which the
+// interpreter's patched opcodes use without looking up the running frame
+// (interp.Operand).
+func (r *Rational) Arithmetic() interp.Arithmetic { return r.env }
 
 // Power answers int ** negative int with an exact rational.
 func (e *Env) Power(a, b py.Object) (py.Object, bool, error) {

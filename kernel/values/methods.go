@@ -20,13 +20,19 @@ type method[T py.Object] struct {
 func setMethods[T py.Object](t *py.Type, table []method[T]) {
 	for _, m := range table {
 		sig := interp.NewSignature(m.name, m.params...) // read once, bound on every call
-		t.Dict[m.name] = interp.Method(m.name, m.doc, func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
+		call := func(self py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
 			a, err := sig.Bind(args, kw)
 			if err != nil {
 				return nil, err
 			}
 			return m.fn(self.(T), a)
-		})
+		}
+		if len(m.params) == 0 {
+			// Nothing to name: no keyword dictionary made per call.
+			t.Dict[m.name] = interp.PositionalMethod(m.name, m.doc, func(self py.Object, args py.Tuple) (py.Object, error) { return call(self, args, nil) })
+			continue
+		}
+		t.Dict[m.name] = interp.Method(m.name, m.doc, call)
 	}
 }
 
@@ -41,14 +47,7 @@ type builtin struct {
 // setBuiltins puts a builtin table into b.
 func setBuiltins(b py.StringDict, table []builtin) {
 	for _, f := range table {
-		sig := interp.NewSignature(f.name, f.params...)
-		b[f.name] = interp.Func(f.name, f.doc, func(args py.Tuple, kw py.StringDict) (py.Object, error) {
-			a, err := sig.Bind(args, kw)
-			if err != nil {
-				return nil, err
-			}
-			return f.fn(a)
-		})
+		b[f.name] = interp.Builtin(f.name, f.doc, interp.NewSignature(f.name, f.params...), f.fn)
 	}
 }
 
