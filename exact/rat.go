@@ -188,14 +188,7 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 		q, r = bits.Div64(r, uint64(xs[i]), g)
 		num[i] = big.Word(q)
 	}
-	var carry uint64
-	for i, d := range ds {
-		hi, lo := bits.Mul64(uint64(d), m)
-		var c uint64
-		lo, c = bits.Add64(lo, carry, 0)
-		den[i], carry = big.Word(lo), hi+c
-	}
-	den[len(ds)] = big.Word(carry)
+	den = MulWord(den[:0], ds, m) // within den's room: no allocation
 	// A Rat's denominator can be set only through Denom's reference,
 	// which a new Rat does not give: set the numerator to the
 	// denominator, and invert.
@@ -205,6 +198,25 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 	z.Num().SetBits(num)
 	if (x.Sign() < 0) != (w < 0) {
 		z.Num().Neg(z.Num())
+	}
+	return z
+}
+
+// MulWord sets z to the magnitude x (little-endian words) times the word
+// m and returns it, one word longer when the product carries; z may be x,
+// and it needs room for len(x) words (one more keeps the carry's word from
+// allocating).
+func MulWord(z, x []big.Word, m uint64) []big.Word {
+	z = z[:len(x)]
+	var carry uint64
+	for i, w := range x {
+		hi, lo := bits.Mul64(uint64(w), m)
+		var c uint64
+		lo, c = bits.Add64(lo, carry, 0)
+		z[i], carry = big.Word(lo), hi+c
+	}
+	if carry != 0 {
+		z = append(z, big.Word(carry))
 	}
 	return z
 }

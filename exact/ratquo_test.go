@@ -60,3 +60,31 @@ func TestQuoWordMatchesBig(t *testing.T) {
 		t.Errorf("QuoInt(3/5, 0) error = %v, want ErrDivisionByZero", err)
 	}
 }
+
+// MulWord against math/big's product (the reference), on random
+// magnitudes of 0–5 words and words at the edges (0, 1, 2^64 − 1), into
+// fresh storage and in place.
+func TestMulWordMatchesBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(21))
+	edges := []uint64{0, 1, 2, 1<<63 - 1, 1 << 63, ^uint64(0)}
+	for trial := 0; trial < 3000; trial++ {
+		x := make([]big.Word, rng.Intn(6))
+		for i := range x {
+			x[i] = big.Word(rng.Uint64())
+			if rng.Intn(4) == 0 {
+				x[i] = big.Word(edges[rng.Intn(len(edges))])
+			}
+		}
+		m := rng.Uint64()
+		if trial%3 == 0 {
+			m = edges[rng.Intn(len(edges))]
+		}
+		want := new(big.Int).Mul(new(big.Int).SetBits(append([]big.Word(nil), x...)), new(big.Int).SetUint64(m))
+		got := new(big.Int).SetBits(MulWord(make([]big.Word, 0, len(x)+1), x, m))
+		in := append(make([]big.Word, 0, len(x)+1), x...)
+		same := new(big.Int).SetBits(MulWord(in, in, m))
+		if got.Cmp(want) != 0 || same.Cmp(want) != 0 {
+			t.Fatalf("%v × %d: %v and in place %v, want %v", x, m, got, same, want)
+		}
+	}
+}

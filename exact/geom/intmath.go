@@ -3,6 +3,8 @@ package geom
 import (
 	"math/big"
 	"math/bits"
+
+	"assay/exact"
 )
 
 // Integer helpers: common denominators and fraction-free determinants.
@@ -618,17 +620,7 @@ func mulWord(x []big.Word, m uint64) []big.Word {
 	if m == 1 {
 		return x
 	}
-	var carry uint64
-	for i, w := range x {
-		hi, lo := bits.Mul64(uint64(w), m)
-		var c uint64
-		lo, c = bits.Add64(lo, carry, 0)
-		x[i], carry = big.Word(lo), hi+c
-	}
-	if carry != 0 {
-		x = append(x, big.Word(carry))
-	}
-	return x
+	return exact.MulWord(x, x, m)
 }
 
 // mulWords sets z (len(x)+len(y) words) to the product of the magnitudes
