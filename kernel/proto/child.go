@@ -49,25 +49,40 @@ const (
 )
 
 // KernelGCPercent is the kernel's GOGC when a memory cap is given and the
-// environment sets none. Chosen by measurement (assay check --workers 1
-// on the 10,000-tetrahedron identity of BenchmarkSampledIdentityWorkers,
-// user+system seconds of assay and its kernel, four alternating rounds on
-// the shared 2-core machine, load 13–19):
+// environment sets none. Chosen by measurement, twice.
+//
+// First (assay check --workers 1 on the 10,000-tetrahedron identity of
+// BenchmarkSampledIdentityWorkers, user+system seconds of assay and its
+// kernel, four alternating rounds on the shared 2-core machine, load
+// 13–19):
 //
 //	            GOMAXPROCS=1   GOMAXPROCS=2 (a lone worker's default)
 //	GOGC=100    0.40–0.45 s    0.50–0.62 s
 //	GOGC=400    0.40–0.42 s    0.43–0.44 s
 //	GOGC=800    0.44–0.48 s    —
 //
-// At 400 the second core costs ~5% instead of 25–40% (the collector's
-// work spread over two threads), so a lone kernel keeps both cores for
-// the algorithms that split work (modular determinants, polynomial
-// products); 800 gains nothing more. The heap may grow to five times what
-// is live, but no further than the soft limit, three quarters of the cap:
-// up to a live heap of 3/8 of the cap the collector runs no more often
-// than at GOGC=100, and a cell near the cap meets a working collector
-// rather than the kill.
-const KernelGCPercent = 400
+// which chose 400. Then (December 2026, issue 20), after a sample of that
+// identity fell from ~14 to ~4.5 µs and its garbage by half, the wall time
+// of whole runs (`assay check`, GOGC set in the environment of both
+// processes) on every reference and demo notebook and on that identity,
+// best of five alternating rounds, load 0.4–1.8:
+//
+//	                        GOGC=100   150     200     300     400
+//	identity, --workers 1   114 ms     115     119–126 139     149
+//	identity, 2 workers     122        138     134–137 146     146
+//	ideals.md               1132       1233    987     1205    1170
+//	simplex-shape.md        452        621     454     481     475
+//	sum of 18 runs          4218       4858    4134    4785    4557
+//	                        (two sets of rounds: 100/200/400, then 150/200/300)
+//
+// A fresh kernel's heap grows into pages it has never touched, and a page
+// fault costs ~25 µs on this VM: a collector that lets the heap grow to
+// five times what is live pays that more often than it saves in
+// collections. 200 was best or within noise of best everywhere. The
+// heap may grow to three times what is live, but no further than the soft
+// limit, three quarters of the cap, so a cell near the cap meets a working
+// collector rather than the kill.
+const KernelGCPercent = 200
 
 // ServeChild is the kernel process: it applies the limits of the contract
 // (and KernelGCPercent) and serves the protocol on the channel of
