@@ -158,7 +158,7 @@ func (m *Matrix) wordRows(a []int64) (_ []int64, scale *big.Int, ok bool) {
 				return nil, nil, false
 			}
 			if dw := d.Uint64(); dw != l {
-				hi, lo := bits.Mul64(l/gcdU64(l, dw), dw)
+				hi, lo := bits.Mul64(l/GCDWord(l, dw), dw)
 				if hi != 0 || lo > math.MaxInt64 {
 					return nil, nil, false
 				}

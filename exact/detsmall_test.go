@@ -217,6 +217,31 @@ func TestDetWideOver(t *testing.T) {
 	}
 }
 
+// GCDWord against big.Int.GCD (math/big, Lehmer's algorithm) on operands of
+// equal and very unequal sizes (the Euclid step), common powers of two,
+// zeros and the largest words.
+func TestGCDWordAgainstMathBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(21))
+	word := func() uint64 {
+		x := rng.Uint64() >> uint(rng.Intn(64))
+		if rng.Intn(4) == 0 {
+			x <<= uint(rng.Intn(20)) // common factors of two
+		}
+		return x
+	}
+	cases := [][2]uint64{{0, 0}, {0, 5}, {7, 0}, {1, 1}, {1<<64 - 1, 1<<64 - 1}, {1<<64 - 1, 1 << 63}, {1 << 63, 1 << 62}, {1<<64 - 1, 3}}
+	for range 50000 {
+		c := word() | 1
+		cases = append(cases, [2]uint64{word(), word()}, [2]uint64{word() * (c & 0xffff), word() * (c & 0xffff)})
+	}
+	for _, p := range cases {
+		want := new(big.Int).GCD(nil, nil, new(big.Int).SetUint64(p[0]), new(big.Int).SetUint64(p[1]))
+		if got := GCDWord(p[0], p[1]); got != want.Uint64() {
+			t.Fatalf("GCDWord(%d, %d) = %d, want %v", p[0], p[1], got, want)
+		}
+	}
+}
+
 // gcdStein against math/big's GCD (Lehmer's algorithm).
 func TestGcdStein(t *testing.T) {
 	rng := rand.New(rand.NewSource(24))

@@ -8,14 +8,6 @@ import (
 	"math/bits"
 )
 
-// gcdU64 returns the greatest common divisor of a and b (gcdU64(0, 0) = 0).
-func gcdU64(a, b uint64) uint64 {
-	for b != 0 {
-		a, b = b, a%b
-	}
-	return a
-}
-
 // absU64 returns |x|, which always fits a uint64.
 func absU64(x int64) uint64 {
 	if x < 0 {

@@ -142,10 +142,10 @@ func (p *Poly) reduce() {
 		t, m := new(big.Int), new(big.Int)
 		for i := 0; i < p.n() && gs != 1; i++ {
 			if p.small(i) {
-				gs = gcdU64(gs, absU64(p.num[i]))
+				gs = GCDWord(gs, absU64(p.num[i]))
 			} else {
 				m.SetUint64(gs)
-				gs = gcdU64(gs, t.Mod(t.Abs(p.bnum[i]), m).Uint64())
+				gs = GCDWord(gs, t.Mod(t.Abs(p.bnum[i]), m).Uint64())
 			}
 		}
 		if gs == 1 {

@@ -394,7 +394,7 @@ func (p *Poly) numContent() *big.Int {
 	if p.bnum == nil {
 		var gs uint64
 		for _, x := range p.num {
-			if gs = gcdU64(gs, absU64(x)); gs == 1 {
+			if gs = GCDWord(gs, absU64(x)); gs == 1 {
 				break
 			}
 		}

@@ -170,7 +170,7 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 	for i := len(xs) - 1; i >= 0; i-- {
 		_, r = bits.Div64(r, uint64(xs[i]), u)
 	}
-	g := gcdU64(u, r)
+	g := GCDWord(u, r)
 	m := u / g // the factor the denominator takes
 	one := []big.Word{1}
 	ds := one

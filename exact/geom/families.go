@@ -24,8 +24,8 @@ package geom
 // value over l^k k! reduced a word factor at a time (reduceWordPow), then
 // squared — instead of the Gram adjugate (computeCore) and a gcd of
 // six-word numbers; word gcds by the binary algorithm after one Euclid
-// step (gcdU). Other volumes of word simplices reduce against l in words
-// too (ratOverS, also what a Cayley–Menger determinant over s^k could
+// step (exact.GCDWord). Other volumes of word simplices reduce against l
+// in words too (ratOverS, also what a Cayley–Menger determinant over s^k could
 // use: half of ratFrac's time there).
 
 import (
@@ -33,6 +33,8 @@ import (
 	"math/big"
 	"math/bits"
 	"math/rand/v2"
+
+	"assay/exact"
 )
 
 // Random returns a reproducible random non-degenerate dim-simplex: dim+1
@@ -102,7 +104,7 @@ func lowestTerms(p, q int64) (int64, int64) {
 	if a < 0 {
 		a = -a // |p| <= MaxInt64 here: p comes from [−bound, bound]
 	}
-	if g := int64(gcdU(uint64(a), uint64(q))); g > 1 {
+	if g := int64(exact.GCDWord(uint64(a), uint64(q))); g > 1 {
 		return p / g, q / g
 	}
 	return p, q

@@ -31,7 +31,7 @@ func (a *lcmAcc) add(x *big.Rat) {
 		}
 		if d.IsUint64() {
 			du := d.Uint64()
-			if hi, lo := bits.Mul64(a.small/gcdU(a.small, du), du); hi == 0 {
+			if hi, lo := bits.Mul64(a.small/exact.GCDWord(a.small, du), du); hi == 0 {
 				a.small = lo
 				return
 			}
@@ -72,31 +72,6 @@ func lcmDenoms(xs []*big.Rat) *big.Int {
 		a.add(x)
 	}
 	return a.value()
-}
-
-// gcdU returns gcd(a, b) (gcd(0, 0) = 0): one Euclid step, which brings
-// operands of unequal size (an lcm against a small denominator) together,
-// then Stein's binary algorithm (Stein 1967, see gcdOdd) on the odd parts,
-// written with min and a difference so that the loop has no branch on
-// their order — 2–3 times faster than Euclid's divisions on 50-bit
-// operands and on small ones (a microbenchmark, December 2026).
-func gcdU(a, b uint64) uint64 {
-	if a < b {
-		a, b = b, a
-	}
-	if b == 0 {
-		return a
-	}
-	if a %= b; a == 0 {
-		return b
-	}
-	k := bits.TrailingZeros64(a | b) // the common power of two
-	a >>= bits.TrailingZeros64(a)
-	for b != 0 { // a odd
-		b >>= bits.TrailingZeros64(b)
-		a, b = min(a, b), max(a, b)-min(a, b)
-	}
-	return a << k
 }
 
 // scaleToInt returns x·l as an integer; l must be a multiple of x's
@@ -566,13 +541,13 @@ func reduceWordPow(n, d []big.Word, l uint64, m int, c uint64) ([]big.Word, []bi
 	g := l
 	for range m {
 		if g > 1 {
-			if g = gcdU(modWord(n, g), g); g > 1 {
+			if g = exact.GCDWord(modWord(n, g), g); g > 1 {
 				n = divWord(n, g)
 			}
 		}
 		d = mulWord(d, l/g)
 	}
-	if gc := gcdU(modWord(n, c), c); gc > 1 {
+	if gc := exact.GCDWord(modWord(n, c), c); gc > 1 {
 		n = divWord(n, gc)
 		c /= gc
 	}

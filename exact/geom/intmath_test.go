@@ -123,31 +123,6 @@ func TestRatFracLowestTerms(t *testing.T) {
 	}
 }
 
-// gcdU against big.Int.GCD (math/big, Lehmer's algorithm) on operands of
-// equal and very unequal sizes (the Euclid step), common powers of two,
-// zeros and the largest words.
-func TestGCDUAgainstMathBig(t *testing.T) {
-	rng := rand.New(rand.NewSource(21))
-	word := func() uint64 {
-		x := rng.Uint64() >> uint(rng.Intn(64))
-		if rng.Intn(4) == 0 {
-			x <<= uint(rng.Intn(20)) // common factors of two
-		}
-		return x
-	}
-	cases := [][2]uint64{{0, 0}, {0, 5}, {7, 0}, {1, 1}, {1<<64 - 1, 1<<64 - 1}, {1<<64 - 1, 1 << 63}, {1 << 63, 1 << 62}, {1<<64 - 1, 3}}
-	for range 50000 {
-		c := word() | 1
-		cases = append(cases, [2]uint64{word(), word()}, [2]uint64{word() * (c & 0xffff), word() * (c & 0xffff)})
-	}
-	for _, p := range cases {
-		want := new(big.Int).GCD(nil, nil, new(big.Int).SetUint64(p[0]), new(big.Int).SetUint64(p[1]))
-		if got := gcdU(p[0], p[1]); got != want.Uint64() {
-			t.Fatalf("gcdU(%d, %d) = %d, want %v", p[0], p[1], got, want)
-		}
-	}
-}
-
 // ratWordPow (and so reduceWordPow) must give big.Rat's own lowest terms
 // (SetFrac, math/big) of num/(l^m·c): l with repeated prime powers (so
 // that the chain of gcds runs several steps), numerators built to share

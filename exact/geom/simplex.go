@@ -199,7 +199,7 @@ func fromWordPoints(k, n int, c []int64) *Simplex {
 	for j := 1; j < len(c); j += 2 {
 		q := uint64(c[j])
 		if r := l % q; r != 0 { // else q divides l already
-			hi, lo := bits.Mul64(l, q/gcdU(q, r))
+			hi, lo := bits.Mul64(l, q/exact.GCDWord(q, r))
 			if hi != 0 {
 				return fromOwnedPoints(s.points())
 			}
