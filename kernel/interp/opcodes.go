@@ -75,6 +75,9 @@ func install() error {
 		jumpTable[op] = exactOpcode(jumpTable[op], answer)
 	}
 	jumpTable[vm.CALL_FUNCTION] = callOpcode(jumpTable[vm.CALL_FUNCTION])
+	for op, test := range telltaleOpcodes {
+		jumpTable[op] = telltaleOpcode(test, jumpTable[op])
+	}
 	for op, h := range jumpTable {
 		if h != nil {
 			jumpTable[op] = guardedOpcode(h)
@@ -198,12 +201,21 @@ func isFloat(o py.Object) bool {
 // interpreter exposes the frame only through the traceback entry it adds
 // for the current instruction, so one is made on the side and dropped.
 func frameContext(v *vm.Vm) py.Context {
+	if f := runningFrame(v); f != nil {
+		return f.Context
+	}
+	return nil
+}
+
+// runningFrame is the frame v runs, found through a traceback entry (the
+// interpreter keeps it unexported), or nil.
+func runningFrame(v *vm.Vm) *py.Frame {
 	var info py.ExceptionInfo
 	v.AddTraceback(&info)
-	if info.Traceback == nil || info.Traceback.Frame == nil {
+	if info.Traceback == nil {
 		return nil
 	}
-	return info.Traceback.Frame.Context
+	return info.Traceback.Frame
 }
 
 // probe runs / and ** in a scratch sandbox whose arithmetic marks its

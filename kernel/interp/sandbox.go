@@ -36,6 +36,8 @@ type Sandbox struct {
 	closed  bool
 	done    chan struct{}
 	raised  raisedCount
+	// telltales counts what tells a series from a number (telltale.go).
+	telltales telltaleCount
 }
 
 // NewSandbox makes a fresh context with builtins and sys loaded and every

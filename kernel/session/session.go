@@ -84,6 +84,8 @@ func New(s Settings) (*Session, error) {
 	pyext.Install(sb.Builtins())
 	interp.WatchIntrospection(sb.Builtins().Globals)
 	env.Raised = sb.Raised
+	env.Telltales, env.Telltale = sb.Telltales, sb.NoteTelltale
+	interp.WatchState(sb, sb.Builtins().Globals)
 	sess := &Session{sandbox: sb, env: env, settings: s, claimAt: map[string]int{}, coord: solo{}}
 	env.Stage = sess.stage
 	sess.install(sb.Builtins().Globals)

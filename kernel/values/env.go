@@ -39,6 +39,11 @@ type Env struct {
 	// Raised counts the exceptions the session's code has raised so far
 	// (interp.Sandbox.Raised); nil outside a session.
 	Raised func() uint64
+	// Telltales and Telltale read and count what tells a series from a
+	// number (interp.Sandbox.Telltales, NoteTelltale); nil outside a
+	// session.
+	Telltales func() (uint64, string)
+	Telltale  func(what string)
 
 	seed  int64  // seed in force for this cell
 	cell  int    // the cell running
@@ -116,6 +121,9 @@ func (e *Env) source(explicit py.Object) (rand.PCG, error) {
 		// Sample k must be the same whichever kernel computes it, and
 		// in whatever order: a draw may depend on k, not on earlier draws.
 		return src, py.ExceptionNewf(py.ValueError, "a random draw without seed= inside a sampled claim's f or g: pass seed= (for instance seed=k) so that sample k can be rebuilt, and split among workers")
+	}
+	if e.Telltale != nil {
+		e.Telltale("drew from the session's random stream")
 	}
 	e.draws++
 	src.Seed(uint64(e.seed), uint64(e.cell)<<32|e.draws)

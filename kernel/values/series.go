@@ -367,12 +367,18 @@ func (e *Env) Expand(f py.Object, a *big.Rat, inf bool, order int) (*SeriesRun, 
 			return nil, err
 		}
 		raised := e.raisedSoFar()
+		told, _ := e.telltalesSoFar()
 		out, err := py.Call(f, py.Tuple{v}, nil)
 		if err == nil && e.raisedSoFar() != raised && at.Inspected == "" {
 			// f caught an exception: whatever raised it may not raise on
 			// numbers (an attribute a number has, a builtin a series
 			// refuses), so f on the series may differ from f on numbers.
 			at.Inspected = "caught an exception raised inside it"
+		}
+		if n, what := e.telltalesSoFar(); err == nil && n != told && at.Inspected == "" {
+			// f may have told the series from a number, or kept state
+			// that makes a later call on numbers compute something else.
+			at.Inspected = what
 		}
 		if err != nil {
 			if errors.Is(err, exact.ErrSeriesUndetermined) || isUndetermined(err) {
@@ -408,6 +414,15 @@ func (e *Env) raisedSoFar() uint64 {
 		return 0
 	}
 	return e.Raised()
+}
+
+// telltalesSoFar is the session's count of telltales and the latest
+// (0 outside a session).
+func (e *Env) telltalesSoFar() (uint64, string) {
+	if e.Telltales == nil {
+		return 0, ""
+	}
+	return e.Telltales()
 }
 
 // isUndetermined spots ErrSeriesUndetermined after the guard turned it
