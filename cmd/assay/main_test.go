@@ -110,6 +110,7 @@ func TestBadInputStillWritesReport(t *testing.T) {
 		{"simplex-index-range.md", 5, "exradius(i) needs vertex indices from 0 to 3, got i = 4", nil},
 		{"barycentric-wrong-dimension.md", 5, "barycentric(p): p has 2 coordinates, the simplex's points have 3", nil},
 		{"contains-wrong-dimension.md", 5, "contains(p): p has 4 coordinates, the simplex's points have 3", nil},
+		{"setup-late.md", 12, "setup() after cell 1 (line 7) ran: the report states one seed and one precision for the whole run", nil},
 		{"real-sqrt-negative.md", 5, "outside the domain", nil},
 		{"real-log-zero.md", 4, "log of 0", nil},
 		{"real-acos-domain.md", 4, "acos of 3/2", nil},

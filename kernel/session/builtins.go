@@ -1,6 +1,7 @@
 package session
 
 import (
+	"fmt"
 	"slices"
 	"time"
 
@@ -109,6 +110,22 @@ func bound(name, doc string, params []string, fn func(interp.Args) (py.Object, e
 }
 
 func (s *Session) setup(a interp.Args) (py.Object, error) {
+	// The report's header states one seed and one precision for the
+	// run: a setup() that would change them after cells used the old
+	// ones would make the header wrong for those cells.
+	late := ""
+	switch {
+	case s.ran != 0:
+		late = fmt.Sprintf("cell %d (line %d) ran", s.ran, s.ranLine)
+	case s.env.Drawn():
+		late = "a random draw in this cell"
+	case len(s.outcome.Claims) > 0:
+		late = "a claim in this cell"
+	}
+	changes := (a.Has("seed") && !s.settings.SeedFixed) || (a.Has("precision") && !s.settings.PrecisionFixed)
+	if late != "" && changes {
+		return nil, py.ExceptionNewf(py.ValueError, "setup() after %s: the report states one seed and one precision for the whole run, so setup() goes at the top of the first cell (a single cell takes its own as options: ```cell seed=7 precision=512)", late)
+	}
 	if a.Has("precision") {
 		p, err := a.Int("precision", 0)
 		if err != nil {

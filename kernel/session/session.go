@@ -65,6 +65,10 @@ type Session struct {
 	precision int // working precision in bits for this cell
 	out       strings.Builder
 	outcome   *cells.Outcome
+	// ran is the first cell that ran to its end, 0 before one has: a
+	// setup() after it would change the defaults the report's header
+	// states for cells that did not use them.
+	ran, ranLine int
 }
 
 // New makes a session with a fresh namespace.
@@ -146,6 +150,11 @@ func (s *Session) Run(c Cell) (out cells.Outcome) {
 	}
 	out = cells.Outcome{Cell: c.Index, Status: cells.Ran}
 	s.outcome = &out
+	defer func() {
+		if s.ran == 0 {
+			s.ran, s.ranLine = c.Index, c.Line
+		}
+	}()
 	if s.precision > s.settings.MaxPrecision {
 		out.Status = cells.Failed
 		out.Error = &cells.Problem{Cell: c.Index, Line: c.Line - 1, Message: fmt.Sprintf("precision=%d is above the precision cap of %d bits (raise it with --max-precision)", s.precision, s.settings.MaxPrecision)}

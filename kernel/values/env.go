@@ -83,6 +83,10 @@ func (e *Env) StartCell(cell int, seed int64) { e.cell, e.seed, e.draws = cell, 
 // SetSeed changes the seed in force (setup(seed=…)).
 func (e *Env) SetSeed(seed int64) { e.seed = seed }
 
+// Drawn reports whether the running cell has drawn from the session's
+// random stream.
+func (e *Env) Drawn() bool { return e.draws > 0 }
+
 // Seed is the seed in force.
 func (e *Env) Seed() int64 { return e.seed }
 
