@@ -266,13 +266,7 @@ func init() {
 			if err != nil {
 				return nil, err
 			}
-			var idx []int
-			for j := range s.p {
-				if j != i {
-					idx = append(idx, j)
-				}
-			}
-			return s.face("facet", idx)
+			return s.face("facet", allBut(len(s.p), i))
 		}},
 	})
 }
