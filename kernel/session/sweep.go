@@ -21,9 +21,9 @@ package session
 // random simplex (20%) reduced each coordinate in math/big; it now takes
 // a word gcd. The collector (a third of the time) then ran at GOGC=400
 // (kernel/proto.KernelGCPercent gives that measurement, and the later one
-// that set it to 200). Since then the Gram matrix in words, fewer allocations, the division by 288 and the
-// tally brought it to 13–16 µs a sample (figures at the top of
-// exact/geom/simplex.go).
+// that set it to 200). Since then the Gram matrix in words, fewer
+// allocations, the division by 288 and the tally brought it to 13–16 µs
+// a sample (figures at the top of exact/geom/simplex.go).
 //
 // The per-sample call path (issue 20), measured on an idle machine, -cpu 1,
 // alternating go test -c binaries of main and this change, seven rounds,
