@@ -322,8 +322,8 @@ func (s *SampleResidual) unsized() Residual {
 // worseThan orders residuals as Worst does, the lower index first on ties.
 func (s *SampleResidual) worseThan(o *SampleResidual) bool {
 	a := s.unsized()
-	if a.rank() == 3 && o.unsized().rank() == 3 {
-		a = s.Residual()
+	if a.Failing() {
+		a = s.Residual() // its size, which worse compares should o fail too
 	}
 	return worse(s.K, a, o)
 }
@@ -332,7 +332,7 @@ func (s *SampleResidual) worseThan(o *SampleResidual) bool {
 // r's size is read only when both fail, as Compare reads it only then.
 func worse(k int64, r Residual, o *SampleResidual) bool {
 	b := o.unsized()
-	if r.rank() == 3 && b.rank() == 3 {
+	if r.Failing() && b.Failing() {
 		b = o.Residual()
 	}
 	if c := Compare(r, b); c != 0 {

@@ -36,9 +36,11 @@ func (*builtinCall) Type() *py.Type { return builtinCallType }
 const builtinKey = "__assay_call__"
 
 // Builtin makes a notebook builtin from Go that reads its arguments by
-// name, through the one panic guard: Func with the signature bound, and
-// the call off the value stack described above.
-func Builtin(name, doc string, sig *Signature, fn func(Args) (py.Object, error)) *py.Method {
+// name (params as NewSignature reads them, once), through the one panic
+// guard: Func with the signature bound, and the call off the value stack
+// described above.
+func Builtin(name, doc string, params []string, fn func(Args) (py.Object, error)) *py.Method {
+	sig := NewSignature(name, params...)
 	b := &builtinCall{sig: sig, fn: fn, label: name + "()"}
 	m := py.MustNewMethod(name, func(_ py.Object, args py.Tuple, kw py.StringDict) (py.Object, error) {
 		return Guard(b.label, func() (py.Object, error) {

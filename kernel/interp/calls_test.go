@@ -29,7 +29,7 @@ func describeCall(a Args) (py.Object, error) {
 // Args.Call gives the call back as it was made.
 func TestBuiltinCallOffTheStack(t *testing.T) {
 	sb, globals := testSandbox(t, nil)
-	f := Builtin("f", "", NewSignature("f", "x", "y=", "z="), describeCall)
+	f := Builtin("f", "", []string{"x", "y=", "z="}, describeCall)
 	globals["f"] = f
 	cases := []struct {
 		src  string
@@ -68,7 +68,7 @@ func TestBuiltinCallOffTheStack(t *testing.T) {
 	}
 	// The plain route is taken where the stack cannot be bound: a builtin
 	// with *args, and a name that is not a builtin made by Builtin.
-	globals["g"] = Builtin("g", "", NewSignature("g", "x", "*rest"), func(a Args) (py.Object, error) {
+	globals["g"] = Builtin("g", "", []string{"x", "*rest"}, func(a Args) (py.Object, error) {
 		return py.String(fmt.Sprintf("%v %v %v", a.Get("x"), a.Rest(), a.stacked)), nil
 	})
 	globals["h"] = Func("h", "", func(args py.Tuple, kw py.StringDict) (py.Object, error) { return py.Int(len(args) + len(kw)), nil })
@@ -84,7 +84,7 @@ func TestBuiltinCallOffTheStack(t *testing.T) {
 // from Go through the method does not.
 func TestBuiltinCallTakesTheStack(t *testing.T) {
 	sb, globals := testSandbox(t, nil)
-	globals["f"] = Builtin("f", "", NewSignature("f", "x", "y="), func(a Args) (py.Object, error) { return py.NewBool(a.stacked), nil })
+	globals["f"] = Builtin("f", "", []string{"x", "y="}, func(a Args) (py.Object, error) { return py.NewBool(a.stacked), nil })
 	if _, err := sb.RunCode(mustCompile(t, "r = f(1, y=2)\n"), globals, globals, nil); err != nil {
 		t.Fatal(err)
 	}

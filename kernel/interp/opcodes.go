@@ -228,7 +228,7 @@ func probe() error {
 	}
 	defer ctx.Close()
 	// A builtin call binds off the value stack (callOpcode) as Bind binds.
-	ctx.Builtins().Globals["probe_call"] = Builtin("probe_call", "", NewSignature("probe_call", "a", "b=", "c="), func(a Args) (py.Object, error) {
+	ctx.Builtins().Globals["probe_call"] = Builtin("probe_call", "", []string{"a", "b=", "c="}, func(a Args) (py.Object, error) {
 		return py.String(fmt.Sprintf("%v %v %v %v", a.Get("a"), a.Get("b"), a.Get("c"), a.stacked)), nil
 	})
 	code, err := py.Compile("q = 7 / 2\np = 2 ** -1\nf = 7.0 / 2\nc = probe_call(1, c=3, b=2)\n", "<probe>", py.ExecMode, 0, true)

@@ -38,7 +38,7 @@ func (s *Session) install(b py.StringDict) {
 		{"sequence", []string{"f", "toward=", "steps=", "ratio="}, "sequence(f, toward=0, steps=30, ratio=1/2) -> [(t, f(t)), ...] along the same walk limit() takes", s.sequence},
 		{interp.Echo, []string{"value", "label=", "latex="}, "internal: shows an interactive input's value as show() does, None excepted", s.echo},
 	} {
-		b[f.name] = bound(f.name, f.doc, f.params, f.fn)
+		b[f.name] = interp.Builtin(f.name, f.doc, f.params, f.fn)
 	}
 	claims := map[string]struct {
 		params []string
@@ -58,7 +58,7 @@ func (s *Session) install(b py.StringDict) {
 			// Read given= only to say why this kind of claim cannot take it.
 			params = append(slices.Clone(params), "given=")
 		}
-		return bound(name, c.doc, params, func(a interp.Args) (py.Object, error) { return s.makeClaim(name, line(), a, c.fn) })
+		return interp.Builtin(name, c.doc, params, func(a interp.Args) (py.Object, error) { return s.makeClaim(name, line(), a, c.fn) })
 	}
 	for name := range claims {
 		b[name] = at(name, func() int { return s.line })
@@ -102,11 +102,6 @@ func (s *Session) makeClaim(kind string, line int, a interp.Args, decide claimBu
 		return nil, err
 	}
 	return s.record(c, start), nil
-}
-
-// bound makes a builtin that reads its arguments by name.
-func bound(name, doc string, params []string, fn func(interp.Args) (py.Object, error)) *py.Method {
-	return interp.Builtin(name, doc, interp.NewSignature(name, params...), fn)
 }
 
 func (s *Session) setup(a interp.Args) (py.Object, error) {

@@ -9,7 +9,7 @@ package session
 //
 //	before (GOGC=100)                         50–58 µs a sample
 //	after, GOGC=100                           28–32 µs
-//	after, GOGC=400 (the kernel's default)    22–25 µs (0.43–0.50 of before)
+//	after, GOGC=400 (then the kernel's)       22–25 µs (0.43–0.50 of before)
 //	assay check --workers 1, whole run        before 80–93 µs, after 36–46 µs
 //	reference, /tmp/peer-bin/tet (FLINT)      15–19 µs (its process, reading included)
 //
@@ -19,11 +19,11 @@ package session
 // takes the integer matrix of s·d_ij (exact.DetInts, copies in one block
 // of words, no allocation per step, unit pivots skipped). Drawing the
 // random simplex (20%) reduced each coordinate in math/big; it now takes
-// a word gcd. The collector (a third of the time) now runs at GOGC=400
-// (kernel/proto.KernelGCPercent gives that measurement). Since then the
-// Gram matrix in words, fewer allocations, the division by 288 and the
-// tally brought it to 13–16 µs a sample (figures at the top of
-// exact/geom/simplex.go).
+// a word gcd. The collector (a third of the time) then ran at GOGC=400
+// (kernel/proto.KernelGCPercent gives that measurement, and the later one
+// that set it to 200). Since then the Gram matrix in words, fewer
+// allocations, the division by 288 and the tally brought it to 13–16 µs
+// a sample (figures at the top of exact/geom/simplex.go).
 //
 // The per-sample call path (issue 20), measured on an idle machine, -cpu 1,
 // alternating go test -c binaries of main and this change, seven rounds,

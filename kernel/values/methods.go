@@ -47,7 +47,7 @@ type builtin struct {
 // setBuiltins puts a builtin table into b.
 func setBuiltins(b py.StringDict, table []builtin) {
 	for _, f := range table {
-		b[f.name] = interp.Builtin(f.name, f.doc, interp.NewSignature(f.name, f.params...), f.fn)
+		b[f.name] = interp.Builtin(f.name, f.doc, f.params, f.fn)
 	}
 }
 

@@ -106,18 +106,14 @@ func (s *SeriesSimplex) one(x *exact.Series, err error) (py.Object, error) {
 	if err != nil {
 		return nil, geomErr("series simplex", err)
 	}
-	return &Series{s: x, env: s.env, at: s.at}, nil
+	return s.wrap(x), nil
 }
 
 func (s *SeriesSimplex) list(xs []*exact.Series, err error) (py.Object, error) {
 	if err != nil {
 		return nil, geomErr("series simplex", err)
 	}
-	out := make([]py.Object, len(xs))
-	for i, x := range xs {
-		out[i] = &Series{s: x, env: s.env, at: s.at}
-	}
-	return py.NewListFromItems(out), nil
+	return s.seriesList(xs), nil
 }
 
 func init() {

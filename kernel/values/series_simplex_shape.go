@@ -81,11 +81,16 @@ func (s *SeriesSimplex) points(name string, f func(*geom.SeriesShape) ([][]*exac
 	if err != nil {
 		return nil, err
 	}
-	out := make([]py.Object, len(x))
-	for i, p := range x {
+	return s.pointList(x), nil
+}
+
+// pointList is points as lists of series.
+func (s *SeriesSimplex) pointList(ps [][]*exact.Series) *py.List {
+	out := make([]py.Object, len(ps))
+	for i, p := range ps {
 		out[i] = s.seriesList(p)
 	}
-	return py.NewListFromItems(out), nil
+	return py.NewListFromItems(out)
 }
 
 func (s *SeriesSimplex) wrap(x *exact.Series) *Series { return &Series{s: x, env: s.env, at: s.at} }
@@ -247,11 +252,7 @@ func init() {
 			return s.one(s.p.CayleyMenger())
 		}},
 		{"points", nil, "points() -> the vertices, lists of series", func(s *SeriesSimplex, _ interp.Args) (py.Object, error) {
-			out := make([]py.Object, len(s.p))
-			for i, p := range s.p {
-				out[i] = s.seriesList(p)
-			}
-			return py.NewListFromItems(out), nil
+			return s.pointList(s.p), nil
 		}},
 		{"face", params("indices"), "face(indices) -> the face on those vertices, a series simplex", func(s *SeriesSimplex, a interp.Args) (py.Object, error) {
 			idx, err := indexList(a.Get("indices"), "face indices")
@@ -265,13 +266,7 @@ func init() {
 			if err != nil {
 				return nil, err
 			}
-			var idx []int
-			for j := range s.p {
-				if j != i {
-					idx = append(idx, j)
-				}
-			}
-			return s.face("facet", idx)
+			return s.face("facet", allBut(len(s.p), i))
 		}},
 	})
 }

@@ -687,13 +687,18 @@ func (s *Simplex) facet(a interp.Args) (py.Object, error) {
 	if err != nil {
 		return nil, geomErr("facet", err)
 	}
-	idx := make([]int, 0, s.s.Dim())
-	for j := 0; j < s.s.Vertices(); j++ {
-		if j != int(i) {
+	return s.sub(f, allBut(s.s.Vertices(), int(i))), nil
+}
+
+// allBut is the vertex indices 0, …, n−1 but i: the facet opposite i.
+func allBut(n, i int) []int {
+	idx := make([]int, 0, n-1)
+	for j := range n {
+		if j != i {
 			idx = append(idx, j)
 		}
 	}
-	return s.sub(f, idx), nil
+	return idx
 }
 
 func (s *Simplex) dihedralCos(a interp.Args) (py.Object, error) {
