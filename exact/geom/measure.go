@@ -40,9 +40,9 @@ func (s *Simplex) volumeSqWords() *big.Rat {
 	if s.edet.Sign() == 0 {
 		return new(big.Rat)
 	}
-	var nb [3]big.Word // |edet| < 2^189
-	var db [4]big.Word // l^k k!/g: k+1 words at most
-	n, d := reduceWordPow(append(nb[:0], s.edet.Bits()...), db[:0], s.l, s.k, factorialWord(s.k))
+	var nb [3]uint64 // |edet| < 2^189
+	var db [4]uint64 // l^k k!/g: k+1 words at most
+	n, d := exact.ReduceWordPow(wordsOf(nb[:0], s.edet.Bits()), db[:0], s.l, s.k, factorialWord(s.k))
 	b := new(struct {
 		r big.Rat
 		w [2 * (len(nb) + len(db))]big.Word
