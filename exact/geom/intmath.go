@@ -542,17 +542,6 @@ func bigWords(z []big.Word, x []uint64) []big.Word {
 	return z
 }
 
-// ratOverS returns num/(s^m·c) in lowest terms, c >= 1 a word: by
-// ratWordPow against l = √s when the Gram matrix was formed in words,
-// else by ratFrac.
-func (s *Simplex) ratOverS(num *big.Int, m int, c uint64) *big.Rat {
-	if s.l != 0 {
-		return ratWordPow(num, s.l, 2*m, c)
-	}
-	den := new(big.Int).Exp(s.s, big.NewInt(int64(m)), nil)
-	return ratFrac(num, den.Mul(den, new(big.Int).SetUint64(c)))
-}
-
 // factorialWord returns m! for 0 <= m <= 20 (the largest in a word).
 func factorialWord(m int) uint64 {
 	f := uint64(1)
