@@ -277,20 +277,7 @@ func fracWordPow(num []uint64, neg bool, f uint64, k int) *big.Rat {
 	if k+1 > len(dbuf) {
 		den = make([]uint64, 0, k+1)
 	}
-	den = append(den, 1)
-	var qbuf [16]uint64
-	q := qbuf[:]
-	if len(num) > len(q) {
-		q = make([]uint64, len(num))
-	}
-	var inv oddInverse
-	t := f
-	for i := 0; i < k; i++ {
-		if t != 1 {
-			num, t = divGCD(num, t, q[:len(num)], &inv)
-		}
-		den = mulWord(den, f/t)
-	}
+	num, den = ReduceWordPow(num, den, f, k, 1)
 	// The words of both in one block: the one SetInt64 makes for the
 	// denominator where it has room (the Denom of a zero Rat is no
 	// reference), each Int's capacity cut at its length so that neither
@@ -307,6 +294,34 @@ func fracWordPow(num []uint64, neg bool, f uint64, k int) *big.Rat {
 		r.Num().Neg(r.Num())
 	}
 	return r
+}
+
+// ReduceWordPow reduces num/(f^k·c) to lowest terms for words f, c > 0
+// and k >= 0 by fracWordPow's chain of word gcds (c a last factor, one
+// gcd): num is a non-zero magnitude (words, lowest first, trimmed),
+// divided in place; the denominator is built in den's storage (room for
+// k+1 words saves allocating). It returns the two, trimmed. For callers
+// that want the words themselves (geom squares them).
+func ReduceWordPow(num, den []uint64, f uint64, k int, c uint64) ([]uint64, []uint64) {
+	den = append(den[:0], 1)
+	var qbuf [16]uint64
+	q := qbuf[:]
+	if len(num) > len(q) {
+		q = make([]uint64, len(num))
+	}
+	var inv oddInverse
+	t := f
+	for i := 0; i < k; i++ {
+		if t != 1 {
+			num, t = divGCD(num, t, q[:len(num)], &inv)
+		}
+		den = mulWord(den, f/t)
+	}
+	if c != 1 {
+		num, t = divGCD(num, c, q[:len(num)], &inv)
+		den = mulWord(den, c/t)
+	}
+	return num, den
 }
 
 // putWords copies x into z (room for it) and returns z[:len(x):len(x)].

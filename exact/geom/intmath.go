@@ -487,13 +487,24 @@ func mulWide(a int64, hi, lo uint64) [3]uint64 {
 }
 
 // ratWordPow returns num/(l^m·c) as a new big.Rat in lowest terms, for
-// words l, c >= 1 and m >= 0 (see reduceWordPow): the Rat and its words
-// in one allocation when they are few. On the Cayley–Menger determinant
-// of a random tetrahedron over s³ (four words over three) it takes about
-// half the time of ratFrac (a microbenchmark, December 2026).
+// words l, c >= 1 and m >= 0, by exact.ReduceWordPow: the Rat and its
+// words in one allocation when they are few. On the Cayley–Menger
+// determinant of a random tetrahedron over s³ (four words over three) it
+// takes about half the time of ratFrac (a microbenchmark, December 2026).
 func ratWordPow(num *big.Int, l uint64, m int, c uint64) *big.Rat {
-	nw := len(num.Bits())
-	need := nw + m + 2 // the numerator, then the denominator's m+1 words
+	if num.Sign() == 0 {
+		return new(big.Rat)
+	}
+	var nb, db [16]uint64
+	n, d := nb[:0], db[:0]
+	if len(num.Bits()) > len(nb) {
+		n = make([]uint64, 0, len(num.Bits()))
+	}
+	if m+1 > len(db) {
+		d = make([]uint64, 0, m+1)
+	}
+	n, d = exact.ReduceWordPow(wordsOf(n, num.Bits()), d, l, m, c)
+	need := len(n) + len(d)
 	var r *big.Rat
 	var w []big.Word
 	if need <= 16 {
@@ -506,52 +517,29 @@ func ratWordPow(num *big.Int, l uint64, m int, c uint64) *big.Rat {
 		r, w = new(big.Rat), make([]big.Word, need)
 	}
 	r.SetInt64(1) // so that Denom is a reference
-	n, d := reduceWordPow(append(w[:0:nw], num.Bits()...), w[nw:nw], l, m, c)
-	r.Num().SetBits(n)
+	r.Num().SetBits(bigWords(w[:len(n):len(n)], n))
 	if num.Sign() < 0 {
 		r.Num().Neg(r.Num())
 	}
-	r.Denom().SetBits(d)
+	r.Denom().SetBits(bigWords(w[len(n):], d))
 	return r
 }
 
-// ratOverS returns num/(s^m·c) in lowest terms, c >= 1 a word: by
-// ratWordPow against l = √s when the Gram matrix was formed in words,
-// else by ratFrac.
-func (s *Simplex) ratOverS(num *big.Int, m int, c uint64) *big.Rat {
-	if s.l != 0 {
-		return ratWordPow(num, s.l, 2*m, c)
+// wordsOf appends the words of x to z.
+func wordsOf(z []uint64, x []big.Word) []uint64 {
+	for _, w := range x {
+		z = append(z, uint64(w))
 	}
-	den := new(big.Int).Exp(s.s, big.NewInt(int64(m)), nil)
-	return ratFrac(num, den.Mul(den, new(big.Int).SetUint64(c)))
+	return z
 }
 
-// reduceWordPow reduces the fraction n/(l^m·c), for a magnitude n (words,
-// lowest first: divided in place) and words l, c >= 1, to lowest terms,
-// building the denominator in d (len 0; room for m+1 words saves
-// allocating), and returns the two. A gcd per factor against what is left
-// of n, as ratProd argues, but in words: n mod f by one division a word,
-// then a word gcd. The m factors l need one full gcd: g_1 = gcd(n, l)
-// and, with n' = n/g_1, g_2 = gcd(n', l) divides g_1 (for a prime power
-// p^b of l and p^a of n, either a >= b and g_1 holds p^b, or n' has no
-// p), so g_(i+1) = gcd(n_i mod g_i, g_i), and once it is 1 the remaining
-// factors l stay whole.
-func reduceWordPow(n, d []big.Word, l uint64, m int, c uint64) ([]big.Word, []big.Word) {
-	d = append(d[:0], 1)
-	g := l
-	for range m {
-		if g > 1 {
-			if g = exact.GCDWord(modWord(n, g), g); g > 1 {
-				n = divWord(n, g)
-			}
-		}
-		d = mulWord(d, l/g)
+// bigWords copies x into z (room for it) and returns z[:len(x)].
+func bigWords(z []big.Word, x []uint64) []big.Word {
+	z = z[:len(x)]
+	for i, w := range x {
+		z[i] = big.Word(w)
 	}
-	if gc := exact.GCDWord(modWord(n, c), c); gc > 1 {
-		n = divWord(n, gc)
-		c /= gc
-	}
-	return n, mulWord(d, c)
+	return z
 }
 
 // factorialWord returns m! for 0 <= m <= 20 (the largest in a word).
@@ -563,51 +551,16 @@ func factorialWord(m int) uint64 {
 	return f
 }
 
-// modWord returns x mod m for the magnitude x (words, lowest first) and a
-// word m >= 1.
-func modWord(x []big.Word, m uint64) uint64 {
-	var r uint64
-	for i := len(x) - 1; i >= 0; i-- {
-		_, r = bits.Div64(r, uint64(x[i]), m)
-	}
-	return r
-}
-
-// divWord divides the magnitude x by the word m >= 1 in place (exactly
-// or not: the remainder is dropped) and returns it without leading zero
-// words.
-func divWord(x []big.Word, m uint64) []big.Word {
-	var r uint64
-	for i := len(x) - 1; i >= 0; i-- {
-		var q uint64
-		q, r = bits.Div64(r, uint64(x[i]), m)
-		x[i] = big.Word(q)
-	}
-	for len(x) > 0 && x[len(x)-1] == 0 {
-		x = x[:len(x)-1]
-	}
-	return x
-}
-
-// mulWord returns the magnitude x times the word m, in x's storage when
-// there is room.
-func mulWord(x []big.Word, m uint64) []big.Word {
-	if m == 1 {
-		return x
-	}
-	return exact.MulWord(x, x, m)
-}
-
 // mulWords sets z (len(x)+len(y) words) to the product of the magnitudes
 // x and y by schoolbook multiplication and returns it without leading zero
 // words; for a few words, where big.Int.Mul would also make its operands
 // escape to the heap.
-func mulWords(z, x, y []big.Word) []big.Word {
+func mulWords(z []big.Word, x, y []uint64) []big.Word {
 	clear(z)
 	for i, a := range x {
 		var carry uint64
 		for j, b := range y {
-			hi, lo := bits.Mul64(uint64(a), uint64(b))
+			hi, lo := bits.Mul64(a, b)
 			var c uint64
 			lo, c = bits.Add64(lo, uint64(z[i+j]), 0)
 			hi += c

@@ -123,7 +123,7 @@ func TestRatFracLowestTerms(t *testing.T) {
 	}
 }
 
-// ratWordPow (and so reduceWordPow) must give big.Rat's own lowest terms
+// ratWordPow (and so exact.ReduceWordPow) must give big.Rat's own lowest terms
 // (SetFrac, math/big) of num/(l^m·c): l with repeated prime powers (so
 // that the chain of gcds runs several steps), numerators built to share
 // them, both signs, m from 0 to 8.
@@ -167,7 +167,7 @@ func TestMulWordsAgainstMathBig(t *testing.T) {
 			x.Sub(x.Lsh(bigOne, uint(64*(1+rng.Intn(4)))), bigOne)
 		}
 		z := make([]big.Word, len(x.Bits())+len(y.Bits()))
-		if got, want := new(big.Int).SetBits(mulWords(z, x.Bits(), y.Bits())), new(big.Int).Mul(x, y); got.Cmp(want) != 0 {
+		if got, want := new(big.Int).SetBits(mulWords(z, wordsOf(nil, x.Bits()), wordsOf(nil, y.Bits()))), new(big.Int).Mul(x, y); got.Cmp(want) != 0 {
 			t.Fatalf("%v·%v = %v, want %v", x, y, got, want)
 		}
 	}

@@ -13,7 +13,7 @@ import (
 //
 // From points with a word l = √s (gramWords), it is computed from edet
 // when k = n <= 3 (volumeSqWords), else reduced against l a factor at a
-// time in words (ratOverS) while (k!)² is a word.
+// time in words (ratWordPow) while (k!)² is a word.
 func (s *Simplex) VolumeSq() *big.Rat {
 	if s.edet != nil {
 		return s.volumeSqWords()
@@ -22,9 +22,9 @@ func (s *Simplex) VolumeSq() *big.Rat {
 	if det.Sign() == 0 {
 		return new(big.Rat)
 	}
-	if s.k <= 12 { // 12!² < 2^64 < 13!²
+	if s.l != 0 && s.k <= 12 { // 12!² < 2^64 < 13!²
 		f := factorialWord(s.k)
-		return s.ratOverS(det, s.k, f*f)
+		return ratWordPow(det, s.l, 2*s.k, f*f)
 	}
 	f := factorial(s.k)
 	den := new(big.Int).Exp(s.s, big.NewInt(int64(s.k)), nil)
@@ -40,9 +40,9 @@ func (s *Simplex) volumeSqWords() *big.Rat {
 	if s.edet.Sign() == 0 {
 		return new(big.Rat)
 	}
-	var nb [3]big.Word // |edet| < 2^189
-	var db [4]big.Word // l^k k!/g: k+1 words at most
-	n, d := reduceWordPow(append(nb[:0], s.edet.Bits()...), db[:0], s.l, s.k, factorialWord(s.k))
+	var nb [3]uint64 // |edet| < 2^189
+	var db [4]uint64 // l^k k!/g: k+1 words at most
+	n, d := exact.ReduceWordPow(wordsOf(nb[:0], s.edet.Bits()), db[:0], s.l, s.k, factorialWord(s.k))
 	b := new(struct {
 		r big.Rat
 		w [2 * (len(nb) + len(db))]big.Word

@@ -81,7 +81,7 @@ func (p SeriesPoints) VolumeSq() (*exact.Series, error) {
 	if err != nil {
 		return nil, err
 	}
-	return o.quo(det, sconst(factorialSq(len(p)-1))), o.err
+	return o.quo(det, sfactorial(len(p)-1, true)), o.err
 }
 
 // gramOf returns the edges e_a = v_a − v_0 and their Gram matrix.

@@ -35,6 +35,7 @@ package geom
 
 import (
 	"fmt"
+	"math/big"
 	"sync"
 
 	"assay/exact"
@@ -242,16 +243,18 @@ func (s *SeriesShape) vertex(op string, i int) error {
 // VolumeSq is det G/(k!)².
 func (s *SeriesShape) VolumeSq() (*exact.Series, error) {
 	var o ops
-	v := o.quo(s.det, sconst(factorialSq(s.k)))
+	v := o.quo(s.det, sfactorial(s.k, true))
 	return v, o.err
 }
 
-func factorialSq(k int) int64 {
-	f := int64(1)
-	for i := 2; i <= k; i++ {
-		f *= int64(i)
+// sfactorial returns k!, or (k!)² when sq, as an exact series constant:
+// in a big.Int, as an int64 would wrap from (13!)² on.
+func sfactorial(k int, sq bool) *exact.Series {
+	f := factorial(k)
+	if sq {
+		f.Mul(f, f)
 	}
-	return f * f
+	return exact.SeriesConst(exact.RealFromRat(new(big.Rat).SetInt(f)), 0)
 }
 
 // Contents returns the facet contents F_m (facet m opposite vertex m) and
@@ -292,11 +295,7 @@ func (s *SeriesShape) Inradius() (*exact.Series, error) {
 
 // volume is √(det G)/k!.
 func (s *SeriesShape) volume(o *ops) *exact.Series {
-	f := int64(1)
-	for i := 2; i <= s.k; i++ {
-		f *= int64(i)
-	}
-	return o.quo(o.sqrt(s.det), sconst(f))
+	return o.quo(o.sqrt(s.det), sfactorial(s.k, false))
 }
 
 func wrap(op string, err error) error {

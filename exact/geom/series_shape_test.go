@@ -500,3 +500,25 @@ func TestSeriesShapeRefusals(t *testing.T) {
 		t.Errorf("barycentric on a segment in the plane: %v", err)
 	}
 }
+
+// sfactorial against math/big's MulRange, past (13!)², which wraps an
+// int64, and 21!, which does too.
+func TestSFactorialExact(t *testing.T) {
+	for k := 0; k <= 25; k++ {
+		f := new(big.Int).MulRange(1, int64(k))
+		for _, sq := range []bool{false, true} {
+			want := new(big.Int).Set(f)
+			if sq {
+				want.Mul(want, f)
+			}
+			c, _, ok := sfactorial(k, sq).Leading()
+			if !ok {
+				t.Fatalf("sfactorial(%d, %v) has no leading term", k, sq)
+			}
+			got, ok := c.Rat()
+			if !ok || !got.IsInt() || got.Num().Cmp(want) != 0 {
+				t.Errorf("sfactorial(%d, %v) = %v, want %v", k, sq, got, want)
+			}
+		}
+	}
+}

@@ -22,7 +22,9 @@ package geom
 // Cayley–Menger determinant's block pooled (exact.detIntsBig); the two
 // final reductions (~0.9 µs each) were tried against s one factor at a
 // time (ratProd) and against l = √s: no gain, and 12% of them at best,
-// so they stay as they were. Outside geom, the
+// so they stayed as they were (both replaced since: VolumeSq from edet,
+// families.go; the Cayley–Menger determinant by DetWideOver, cayley.go).
+// Outside geom, the
 // division by 288 by one word gcd (exact.Quo, by quoWord), equal sides found
 // without a subtraction and the tally's size parsed only for failing
 // residuals. Left, by the profile: the determinant's Bareiss steps in
