@@ -184,9 +184,12 @@ func hidden(r rune) bool {
 const verdictMarks = "✔✓✅☑✘✗✖❌☒≈"
 
 // passesForVerdict reports whether notebook text could be taken for a
-// verdict label: it holds a verdict mark, or begins with "?".
+// verdict label: it holds a verdict mark, or begins with "?" or "~" (the
+// undecided and estimated labels' marks, too common inside text to quote
+// everywhere: "R ~ c t^2").
 func passesForVerdict(s string) bool {
-	return strings.ContainsAny(s, verdictMarks) || strings.HasPrefix(strings.TrimSpace(s), "?")
+	t := strings.TrimSpace(s)
+	return strings.ContainsAny(s, verdictMarks) || strings.HasPrefix(t, "?") || strings.HasPrefix(t, "~")
 }
 
 // quoteVerdict puts notebook text that could pass for a verdict label in

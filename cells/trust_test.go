@@ -163,13 +163,13 @@ func TestLookAlikes(t *testing.T) {
 	}
 	ansi := "red\x1b[31m\x1b[2K\r✔ holds\u202e"
 	r := &Report{Notebook: nb, Version: "v", Outcomes: []Outcome{{Cell: 1, Status: Ran, Output: "```\nout\x1b[1m\n````\n",
-		Tables: []Table{{Header: []string{"#", "claim", "verdict"}, Rows: [][]string{{"1", "det", "✔ holds"}, {"2", "x | ✘ fails", "<b>?</b>"}}}},
+		Tables: []Table{{Header: []string{"#", "claim", "verdict"}, Rows: [][]string{{"1", "det", "✔ holds"}, {"2", "x | ✘ fails", "<b>?</b>"}, {"3", "R ~ c t^2", "~ estimated"}}}},
 		Claims: []Claim{
 			{Name: "✔ holds", Kind: "identity", Verdict: Fails, Residual: "1", Cell: 1, Line: 6},
 			{Name: ansi, Kind: "identity", Verdict: Fails, Residual: "2\x1b[0m", Cell: 1, Line: 6},
 		}}}}
 	md := string(RenderMarkdown(r, true))
-	for _, want := range []string{"| 1 | “✔ holds” | identity |", "| 1 | det | “✔ holds” |", "| 2 | “x \\| ✘ fails” | \\<b\\>?\\</b\\> |",
+	for _, want := range []string{"| 1 | “✔ holds” | identity |", "| 1 | det | “✔ holds” |", "| 2 | “x \\| ✘ fails” | \\<b\\>?\\</b\\> |", "| 3 | R \\~ c t\\^2 | “\\~ estimated” |",
 		"“red\\\\x1b\\[31m\\\\x1b\\[2K\\\\r✔ holds\\\\u202e”", "out\\x1b[1m"} {
 		if !strings.Contains(md, want) {
 			t.Errorf("the Markdown report lacks %q:\n%s", want, md)
