@@ -278,8 +278,12 @@ const ratSeriesBits = 128
 
 // ratSeriesOK reports whether r is short enough for the series here and
 // its magnitude at most maxAbs.
-func ratSeriesOK(r *big.Rat, maxAbs float64) bool {
-	if r.Num().BitLen()+r.Denom().BitLen() > ratSeriesBits {
+func ratSeriesOK(r *big.Rat, maxAbs float64) bool { return ratShort(r, ratSeriesBits, maxAbs) }
+
+// ratShort reports whether r has at most maxBits bits of numerator and
+// denominator together and |r| ≤ maxAbs.
+func ratShort(r *big.Rat, maxBits int, maxAbs float64) bool {
+	if r.Num().BitLen()+r.Denom().BitLen() > maxBits {
 		return false
 	}
 	f, _ := r.Float64()
@@ -342,13 +346,7 @@ func expRatBall(a, b *big.Int, w int) ball {
 
 // expRatSmall reports whether expRatIval handles r: moderate size and
 // |r| ≤ 4096.
-func expRatSmall(r *big.Rat) bool {
-	if r.Num().BitLen()+r.Denom().BitLen() > 512 {
-		return false
-	}
-	f, _ := r.Float64()
-	return math.Abs(f) <= 4096
-}
+func expRatSmall(r *big.Rat) bool { return ratShort(r, 512, 4096) }
 
 // expRatIval encloses exp(r) at precision p for a rational r (see
 // expRatSmall): expRatBall at |r|, with the unit chosen for p + 16
