@@ -359,16 +359,11 @@ func (c *cfParser) bad(err error) error {
 // Its errors are Text's.
 func (x *Real) LaTeXText(n int, maxPrec uint) (string, error) {
 	n = max(n, 1)
-	text, err := x.Text(n, maxPrec)
+	text, truncated, err := x.text(n, maxPrec)
 	if err != nil {
 		return "", err
 	}
-	// Text's cases, told apart: only Digits' truncation lacks a mark.
-	exact := x.exact != nil
-	if exact {
-		_, exact = shortDecimal(x.exact, n)
-	}
-	if exact || text == "0" || strings.Contains(text, " (within ") {
+	if !truncated {
 		return decimalLaTeX(text), nil
 	}
 	m, e, sci := strings.Cut(text, "e")

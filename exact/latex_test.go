@@ -64,6 +64,8 @@ func TestLaTeXText(t *testing.T) {
 		{RealFromRat(big.NewRat(-13, 4)), 10, "-3.25"},
 		{RealFromRat(big.NewRat(1, 3)), 5, `0.33333\ldots`}, // an exact rational, cut short
 		{RealMul(RealSqrt(RealFromInt(2)), RealSqrt(RealFromInt(8))), 10, `4.000000000\; (\text{within } 10^{`},
+		// √2·√2 − 2 = 0, which Digits proves by the zero bound: no \ldots.
+		{RealSub(RealMul(RealSqrt(RealFromInt(2)), RealSqrt(RealFromInt(2))), RealFromInt(2)), 10, "0"},
 	} {
 		got, err := c.x.LaTeXText(c.n, 4096)
 		if err != nil || !strings.HasPrefix(got, c.want) || !strings.HasSuffix(c.want, "{") && got != c.want {

@@ -166,14 +166,9 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 	}
 	u := absU64(w)
 	xs := x.Num().Bits()
-	var r uint64 // |n| mod u, from the top word down
-	for i := len(xs) - 1; i >= 0; i-- {
-		_, r = bits.Div64(r, uint64(xs[i]), u)
-	}
-	g := GCDWord(u, r)
+	g := GCDWord(u, ModWord(xs, u))
 	m := u / g // the factor the denominator takes
-	one := []big.Word{1}
-	ds := one
+	ds := []big.Word{1}
 	if !x.IsInt() {
 		ds = x.Denom().Bits() // a reference: x's denominator is not 1
 	}
@@ -181,12 +176,8 @@ func quoWord(x *big.Rat, w int64) *big.Rat {
 	num, den := block[:len(xs):len(xs)], block[len(xs):]
 	if g == 1 {
 		copy(num, xs)
-	}
-	r = 0
-	for i := len(xs) - 1; i >= 0 && g != 1; i-- { // exact: g divides n
-		var q uint64
-		q, r = bits.Div64(r, uint64(xs[i]), g)
-		num[i] = big.Word(q)
+	} else {
+		num = DivWord(num, xs, g) // exact: g divides n
 	}
 	den = MulWord(den[:0], ds, m) // within den's room: no allocation
 	// A Rat's denominator can be set only through Denom's reference,
@@ -217,6 +208,33 @@ func MulWord(z, x []big.Word, m uint64) []big.Word {
 	}
 	if carry != 0 {
 		z = append(z, big.Word(carry))
+	}
+	return z
+}
+
+// ModWord returns the magnitude x (little-endian words) modulo the word
+// m ≥ 1.
+func ModWord(x []big.Word, m uint64) uint64 {
+	var r uint64
+	for i := len(x) - 1; i >= 0; i-- { // from the top word down
+		_, r = bits.Div64(r, uint64(x[i]), m)
+	}
+	return r
+}
+
+// DivWord sets z to the magnitude x divided by the word m ≥ 1 (the
+// remainder dropped) and returns it without leading zero words; z may be
+// x, and it needs room for len(x) words.
+func DivWord(z, x []big.Word, m uint64) []big.Word {
+	z = z[:len(x)]
+	var r uint64
+	for i := len(x) - 1; i >= 0; i-- {
+		var q uint64
+		q, r = bits.Div64(r, uint64(x[i]), m)
+		z[i] = big.Word(q)
+	}
+	for len(z) > 0 && z[len(z)-1] == 0 {
+		z = z[:len(z)-1]
 	}
 	return z
 }

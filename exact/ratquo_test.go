@@ -66,18 +66,11 @@ func TestQuoWordMatchesBig(t *testing.T) {
 // fresh storage and in place.
 func TestMulWordMatchesBig(t *testing.T) {
 	rng := rand.New(rand.NewSource(21))
-	edges := []uint64{0, 1, 2, 1<<63 - 1, 1 << 63, ^uint64(0)}
 	for trial := 0; trial < 3000; trial++ {
-		x := make([]big.Word, rng.Intn(6))
-		for i := range x {
-			x[i] = big.Word(rng.Uint64())
-			if rng.Intn(4) == 0 {
-				x[i] = big.Word(edges[rng.Intn(len(edges))])
-			}
-		}
+		x := randomMagnitude(rng)
 		m := rng.Uint64()
 		if trial%3 == 0 {
-			m = edges[rng.Intn(len(edges))]
+			m = wordEdges[rng.Intn(len(wordEdges))]
 		}
 		want := new(big.Int).Mul(new(big.Int).SetBits(append([]big.Word(nil), x...)), new(big.Int).SetUint64(m))
 		got := new(big.Int).SetBits(MulWord(make([]big.Word, 0, len(x)+1), x, m))
@@ -87,4 +80,50 @@ func TestMulWordMatchesBig(t *testing.T) {
 			t.Fatalf("%v × %d: %v and in place %v, want %v", x, m, got, same, want)
 		}
 	}
+}
+
+// ModWord and DivWord against math/big's QuoRem (the reference), on random
+// magnitudes of 0–5 words and words at the edges, into fresh storage and
+// in place; DivWord's result has no leading zero word.
+func TestModDivWordMatchBig(t *testing.T) {
+	rng := rand.New(rand.NewSource(22))
+	for trial := 0; trial < 3000; trial++ {
+		x := randomMagnitude(rng)
+		m := rng.Uint64() >> uint(rng.Intn(64))
+		if trial%3 == 0 {
+			m = wordEdges[1+rng.Intn(len(wordEdges)-1)]
+		}
+		if m == 0 {
+			m = 1
+		}
+		xi := new(big.Int).SetBits(append([]big.Word(nil), x...))
+		q, r := new(big.Int).QuoRem(xi, new(big.Int).SetUint64(m), new(big.Int))
+		if got := ModWord(x, m); got != r.Uint64() {
+			t.Fatalf("%v mod %d = %d, want %v", x, m, got, r)
+		}
+		got := DivWord(make([]big.Word, len(x)), x, m)
+		in := append([]big.Word(nil), x...)
+		same := DivWord(in, in, m)
+		for _, z := range [][]big.Word{got, same} {
+			if len(z) > 0 && z[len(z)-1] == 0 || new(big.Int).SetBits(z).Cmp(q) != 0 {
+				t.Fatalf("%v / %d = %v, want %v", x, m, z, q)
+			}
+		}
+	}
+}
+
+// wordEdges are the words at the edges of a word's arithmetic.
+var wordEdges = []uint64{0, 1, 2, 1<<63 - 1, 1 << 63, ^uint64(0)}
+
+// randomMagnitude returns a magnitude of 0–5 random words, about a
+// quarter of them taken from wordEdges.
+func randomMagnitude(rng *rand.Rand) []big.Word {
+	x := make([]big.Word, rng.Intn(6))
+	for i := range x {
+		x[i] = big.Word(rng.Uint64())
+		if rng.Intn(4) == 0 {
+			x[i] = big.Word(wordEdges[rng.Intn(len(wordEdges))])
+		}
+	}
+	return x
 }

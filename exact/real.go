@@ -255,13 +255,12 @@ func ratRoot(r *big.Rat, k int) (*big.Rat, bool) {
 	if (n.BitLen()+d.BitLen())/k > maxExactPowBits {
 		return nil, false
 	}
-	ek := big.NewInt(int64(k))
-	rn := realIntRoot(n, k)
-	if new(big.Int).Exp(rn, ek, nil).Cmp(n) != 0 {
+	rn, ok := intRoot(n, k)
+	if !ok {
 		return nil, false
 	}
-	rd := realIntRoot(d, k)
-	if new(big.Int).Exp(rd, ek, nil).Cmp(d) != 0 {
+	rd, ok := intRoot(d, k)
+	if !ok {
 		return nil, false
 	}
 	if r.Sign() < 0 {

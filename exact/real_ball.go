@@ -142,9 +142,16 @@ func fixedQuo(n, d *big.Int) *big.Int {
 	return new(big.Int).Div(n, d)
 }
 
+// ends returns integers lo < hi with the ball inside [lo, hi]·2^e:
+// m ∓ (⌊r⌋ + 1), the truncation of r ≥ 0 plus one being above r.
+func (b ball) ends() (lo, hi *big.Int) {
+	r, _ := b.r.Int(nil)
+	r.Add(r, bigOne)
+	return new(big.Int).Sub(b.m, r), new(big.Int).Add(b.m, r)
+}
+
 // ival returns the ball as an interval rounded outward to precision p.
 func (b ball) ival(p uint) ival {
-	r, _ := fUp(64).Set(b.r).Int(nil) // truncation of r ≥ 0 …
-	r.Add(r, big.NewInt(1))           // … plus one is above r
-	return fixedIval(new(big.Int).Sub(b.m, r), new(big.Int).Add(b.m, r), b.e, p)
+	lo, hi := b.ends()
+	return fixedIval(lo, hi, b.e, p)
 }

@@ -507,8 +507,7 @@ func exactIntRoot(m *big.Int, k int) (*big.Int, bool) {
 	if k == 1 {
 		return new(big.Int).Set(m), true
 	}
-	r := realIntRoot(m, k)
-	return r, new(big.Int).Exp(r, big.NewInt(int64(k)), nil).Cmp(m) == 0
+	return intRoot(m, k)
 }
 
 // closedPrimes are the primes below 1000, whose powers radReduce takes

@@ -100,18 +100,15 @@ var ln2Cache struct {
 }
 
 // ln2Compute returns L with L ≤ ln2·2^w < L + 2, from ln2Zuniga at unit
-// 2^-(w+g): with B = ⌊r⌋ + 1 > r, L = ⌊(m − B)/2^g⌋ is a lower bound,
+// 2^-(w+g): with B = ⌊r⌋ + 1 > r (ball.ends), L = ⌊(m − B)/2^g⌋ is a lower bound,
 // and ln2·2^w ≤ (m + B)/2^g < H + 1 for H = ⌊(m + B)/2^g⌋; H ≤ L + 1
 // (checked; more guard bits otherwise) gives ln2·2^w < L + 2.
 func ln2Compute(w uint) *big.Int {
 	for g := 8; ; g += 8 {
 		b := ln2Zuniga(int(w) + g)
 		sh := uint(-b.e - int(w)) // g plus the series' guard bits
-		r, _ := b.r.Int(nil)
-		r.Add(r, big.NewInt(1))
-		l := new(big.Int).Sub(b.m, r)
+		l, h := b.ends()
 		l.Rsh(l, sh)
-		h := new(big.Int).Add(b.m, r)
 		h.Rsh(h, sh)
 		if h.Cmp(new(big.Int).Add(l, big.NewInt(1))) <= 0 {
 			return l
@@ -281,8 +278,12 @@ const ratSeriesBits = 128
 
 // ratSeriesOK reports whether r is short enough for the series here and
 // its magnitude at most maxAbs.
-func ratSeriesOK(r *big.Rat, maxAbs float64) bool {
-	if r.Num().BitLen()+r.Denom().BitLen() > ratSeriesBits {
+func ratSeriesOK(r *big.Rat, maxAbs float64) bool { return ratShort(r, ratSeriesBits, maxAbs) }
+
+// ratShort reports whether r has at most maxBits bits of numerator and
+// denominator together and |r| ≤ maxAbs.
+func ratShort(r *big.Rat, maxBits int, maxAbs float64) bool {
+	if r.Num().BitLen()+r.Denom().BitLen() > maxBits {
 		return false
 	}
 	f, _ := r.Float64()
@@ -345,13 +346,7 @@ func expRatBall(a, b *big.Int, w int) ball {
 
 // expRatSmall reports whether expRatIval handles r: moderate size and
 // |r| ≤ 4096.
-func expRatSmall(r *big.Rat) bool {
-	if r.Num().BitLen()+r.Denom().BitLen() > 512 {
-		return false
-	}
-	f, _ := r.Float64()
-	return math.Abs(f) <= 4096
-}
+func expRatSmall(r *big.Rat) bool { return ratShort(r, 512, 4096) }
 
 // expRatIval encloses exp(r) at precision p for a rational r (see
 // expRatSmall): expRatBall at |r|, with the unit chosen for p + 16

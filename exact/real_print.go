@@ -31,22 +31,29 @@ import (
 // maxPrec does not give one (an argument not separated from a domain
 // boundary), and the certain ErrDomain, ErrDivisionByZero, ErrOverflow.
 func (x *Real) Text(n int, maxPrec uint) (string, error) {
+	s, _, err := x.text(n, maxPrec)
+	return s, err
+}
+
+// text is Text, and whether it wrote Digits' truncated digits (rather
+// than an exact decimal, a proved zero or a value with its bound).
+func (x *Real) text(n int, maxPrec uint) (s string, truncated bool, err error) {
 	n = max(n, 1)
 	if x.exact != nil {
 		if s, ok := shortDecimal(x.exact, n); ok {
-			return s, nil
+			return s, false, nil
 		}
 	}
-	s, err := x.Digits(n, maxPrec)
+	s, err = x.Digits(n, maxPrec)
 	if err == nil || !errors.Is(err, ErrUndecided) {
-		return s, err
+		return s, err == nil && s != "0", err
 	}
 	// Digits stopped at maxPrec, so this enclosure is the cached one.
 	iv, err := x.Enclose(maxPrec)
 	if err != nil {
-		return "", err
+		return "", false, err
 	}
-	return boundedText(iv, n), nil
+	return boundedText(iv, n), false, nil
 }
 
 // shortDecimal writes q exactly when it has at most n significant decimal
