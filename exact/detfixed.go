@@ -169,15 +169,7 @@ func detIntsFixed(a [][]*big.Int) (_ *big.Int, ok bool) {
 	if negative {
 		negWords(det)
 	}
-	ws := make([]big.Word, len(det))
-	for i, v := range det {
-		ws[i] = big.Word(v)
-	}
-	z := new(big.Int).SetBits(ws)
-	if negative != neg {
-		z.Neg(z)
-	}
-	return z, true
+	return newIntWords(det, negative != neg), true
 }
 
 // oddDivisor divides exactly by the odd part u of a non-zero integer,
