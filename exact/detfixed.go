@@ -121,7 +121,7 @@ func detIntsFixed(a [][]*big.Int) (_ *big.Int, ok bool) {
 	pivots := 0 // sum of rb over the pivot rows so far
 	for k := 0; k < n; k++ {
 		pr := k
-		for pr < n && isZero(e[row[pr]*n+k][:wp]) {
+		for pr < n && zeroWords(e[row[pr]*n+k][:wp]) {
 			pr++
 		}
 		switch pr {
@@ -318,15 +318,6 @@ func negWords(z []uint64) {
 	for i := range z {
 		z[i], b = bits.Sub64(0, z[i], b)
 	}
-}
-
-func isZero(z []uint64) bool {
-	for _, v := range z {
-		if v != 0 {
-			return false
-		}
-	}
-	return true
 }
 
 // signWord is 0 for non-negative x, all ones for negative.
