@@ -411,3 +411,29 @@ func TestDetErrors(t *testing.T) {
 		t.Errorf("det of 0x0 = %s, want 1 (empty product)", FormatRat(d))
 	}
 }
+
+// BenchmarkDetSmallWide times Det below modularMinSize on matrices whose
+// rows do not clear into words: integers of about 100 bits (which DetWide
+// and the fixed-width Bareiss take) and random rationals of 63-bit parts
+// (whose cleared rows are too wide for either, so big.Int Bareiss).
+func BenchmarkDetSmallWide(b *testing.B) {
+	for n := 3; n < modularMinSize; n++ {
+		rng := rand.New(rand.NewSource(int64(n)))
+		ints := Zeros(n, n)
+		for i := range ints.e {
+			x := new(big.Int).Rand(rng, new(big.Int).Lsh(big.NewInt(1), 100))
+			if rng.Intn(2) == 0 {
+				x.Neg(x)
+			}
+			ints.e[i].SetInt(x)
+		}
+		for _, c := range []struct {
+			name string
+			m    *Matrix
+		}{{"int100", ints}, {"rat63", randomRatMatrix(n, int64(n))}} {
+			b.Run(fmt.Sprintf("n=%d/%s", n, c.name), func(b *testing.B) {
+				bestOf(b, func() { must(c.m.Det()) })
+			})
+		}
+	}
+}

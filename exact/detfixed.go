@@ -121,7 +121,7 @@ func detIntsFixed(a [][]*big.Int) (_ *big.Int, ok bool) {
 	pivots := 0 // sum of rb over the pivot rows so far
 	for k := 0; k < n; k++ {
 		pr := k
-		for pr < n && isZero(e[row[pr]*n+k][:wp]) {
+		for pr < n && zeroWords(e[row[pr]*n+k][:wp]) {
 			pr++
 		}
 		switch pr {
@@ -169,15 +169,7 @@ func detIntsFixed(a [][]*big.Int) (_ *big.Int, ok bool) {
 	if negative {
 		negWords(det)
 	}
-	ws := make([]big.Word, len(det))
-	for i, v := range det {
-		ws[i] = big.Word(v)
-	}
-	z := new(big.Int).SetBits(ws)
-	if negative != neg {
-		z.Neg(z)
-	}
-	return z, true
+	return newIntWords(det, negative != neg), true
 }
 
 // oddDivisor divides exactly by the odd part u of a non-zero integer,
@@ -326,15 +318,6 @@ func negWords(z []uint64) {
 	for i := range z {
 		z[i], b = bits.Sub64(0, z[i], b)
 	}
-}
-
-func isZero(z []uint64) bool {
-	for _, v := range z {
-		if v != 0 {
-			return false
-		}
-	}
-	return true
 }
 
 // signWord is 0 for non-negative x, all ones for negative.

@@ -73,10 +73,7 @@ func DetInts(a [][]*big.Int) (*big.Int, error) {
 // does (bareissPooled), else Det on the same matrix.
 func detIntsBig(a [][]*big.Int) *big.Int {
 	n := len(a)
-	if d, ok := detIntsWide(a); ok {
-		return d
-	}
-	if d, ok := detIntsFixed(a); ok {
+	if d, ok := detIntsSmall(a); ok {
 		return d
 	}
 	if n < modularMinSize {
@@ -89,6 +86,17 @@ func detIntsBig(a [][]*big.Int) *big.Int {
 		}
 	}
 	return m.detModular(clearAuto).Num() // an integer matrix has an integer determinant
+}
+
+// detIntsSmall is det(a) for the square integer matrix a (not modified)
+// by DetWide's cofactors (n <= 3, entries below 2^192) or Bareiss in fixed
+// widths of words (n <= fixedMaxN, minors not too wide); ok is false where
+// neither applies.
+func detIntsSmall(a [][]*big.Int) (_ *big.Int, ok bool) {
+	if d, ok := detIntsWide(a); ok {
+		return d, true
+	}
+	return detIntsFixed(a)
 }
 
 // bareissPooled is bareissDet on copies of a in one pooled block.

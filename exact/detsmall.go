@@ -192,15 +192,17 @@ func DetWide(n int, a []Wide) (_ *big.Int, ok bool) {
 	if !ok {
 		return nil, false
 	}
-	ws := make([]big.Word, len(m))
-	for i, w := range m {
-		ws[i] = big.Word(w)
-	}
-	z := new(big.Int).SetBits(ws)
+	return newIntWords(m, neg), true
+}
+
+// newIntWords returns −m if neg, else m, as a new big.Int, for the
+// magnitude m in 64-bit words (leading zeros allowed; big.Word of 64 bits).
+func newIntWords(m []uint64, neg bool) *big.Int {
+	z := new(big.Int).SetBits(putWords(make([]big.Word, len(m)), m))
 	if neg {
 		z.Neg(z)
 	}
-	return z, true
+	return z
 }
 
 // detIntsWide is DetWide on the square matrix a given by rows; ok is

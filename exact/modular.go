@@ -18,13 +18,9 @@ type modulus struct {
 }
 
 func newModulus(p uint64) *modulus {
-	inv := p // p*p = 1 mod 8: correct to 3 bits; each Newton step doubles that
-	for i := 0; i < 5; i++ {
-		inv *= 2 - p*inv
-	}
 	one := bits.Rem64(1, 0, p)
 	hi, lo := bits.Mul64(one, one)
-	m := &modulus{p: p, negInv: -inv, one: one}
+	m := &modulus{p: p, negInv: -inv64(p), one: one}
 	m.r[0], m.r[1], m.r[2] = 1, one, bits.Rem64(hi, lo, p)
 	for k := 3; k < len(m.r); k++ {
 		m.r[k] = m.mul(m.r[k-1], m.r[2])

@@ -210,17 +210,16 @@ func (l *pkLayout) decode(r *Ring, d []uint64) *Poly {
 		key := d[2*i]
 		mono := p.mono[i*l.w : (i+1)*l.w]
 		mono[0] = key >> l.degShift & l.degMask
+		p.num[i] = int64(d[2*i+1])
 		if l.words != nil {
 			for wd, t := range l.words {
 				mono[wd+1] = t.table[key>>t.shift&t.mask]
 			}
-			p.num[i] = int64(d[2*i+1])
 			continue
 		}
 		for k, v := range l.vars {
 			mono[1+v/perWord] |= (key >> l.shift[k] & l.mask[k]) << (topShift - expBits*(v%perWord))
 		}
-		p.num[i] = int64(d[2*i+1])
 	}
 	return p
 }

@@ -283,24 +283,15 @@ func mulDense(kp []uint64, cp []int64, kq []uint64, cq []int64, out *kronOut, wi
 			}
 		}
 		// The chunk is complete: emit its nonzero sums from the top.
+		k := int(c.hi-lo) + 1
+		var err error
 		if wide {
-			for idx := int(c.hi - lo); idx >= 0; idx-- {
-				if l, h := acc128[2*idx], acc128[2*idx+1]; l|h != 0 {
-					acc128[2*idx], acc128[2*idx+1] = 0, 0
-					if err := out.wide(lo+uint64(idx), h, l); err != nil {
-						return err
-					}
-				}
-			}
+			err = emitPlane(out, lo, nil, acc128[:2*k])
 		} else {
-			for idx := int(c.hi - lo); idx >= 0; idx-- {
-				if v := acc64[idx]; v != 0 {
-					acc64[idx] = 0
-					if err := out.small(lo+uint64(idx), v); err != nil {
-						return err
-					}
-				}
-			}
+			err = emitPlane(out, lo, acc64[:k], nil)
+		}
+		if err != nil {
+			return err
 		}
 	}
 	return nil

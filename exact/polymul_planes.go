@@ -245,8 +245,9 @@ func planeRow128Go(acc []uint64, lp uint32, a int64, lq []uint32, c []int64) {
 	}
 }
 
-// emitPlane writes the nonzero sums of a plane (at key base) to o from the
-// top, clearing them; acc64 is used when acc128 is nil.
+// emitPlane writes the nonzero sums of a plane, or of mulDense's chunk
+// (at key base), to o from the top, clearing them; acc64 is used when
+// acc128 is nil.
 func emitPlane(o *kronOut, base uint64, acc64 []int64, acc128 []uint64) error {
 	if acc128 != nil {
 		for idx := len(acc128)/2 - 1; idx >= 0; idx-- {
